@@ -1,0 +1,55 @@
+// The desk's one way to call the JSON API: same-origin cookies, JSON, and the CSRF token on
+// every request that changes state (see docs/api.md).
+import type { Role } from "../../server/auth/roles";
+
+export interface SignedInPerson {
+  id: string;
+  email: string;
+  displayName: string;
+  roles: Role[];
+}
+
+export class ApiError extends Error {
+  constructor(
+    readonly status: number,
+    readonly key: string,
+    message: string,
+  ) {
+    super(message);
+  }
+}
+
+let csrfToken: string | null = null;
+
+async function fetchCsrfToken(): Promise<string> {
+  const response = await fetch("/api/csrf", { credentials: "same-origin" });
+  const body = (await response.json()) as { token: string };
+  return body.token;
+}
+
+export async function callApi<T>(method: string, path: string, body?: unknown): Promise<T> {
+  const headers: Record<string, string> = { accept: "application/json" };
+  if (method !== "GET") {
+    csrfToken ??= await fetchCsrfToken();
+    headers["x-csrf-token"] = csrfToken;
+  }
+  if (body !== undefined) headers["content-type"] = "application/json";
+  const response = await fetch(path, {
+    method,
+    headers,
+    credentials: "same-origin",
+    body: body === undefined ? undefined : JSON.stringify(body),
+  });
+  if (response.status === 204) return undefined as T;
+  const payload = await response.json().catch(() => ({}));
+  if (!response.ok) {
+    const error = (payload as { error?: { key?: string; message?: string } }).error;
+    throw new ApiError(response.status, error?.key ?? "errors.internal", error?.message ?? response.statusText);
+  }
+  return payload as T;
+}
+
+/** A new session (after signing out) needs a new token. */
+export function forgetCsrfToken(): void {
+  csrfToken = null;
+}

@@ -1,0 +1,5 @@
+import { DeskApp } from "../../components/desk/DeskApp";
+
+export default function Page() {
+  return <DeskApp />;
+}

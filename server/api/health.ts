@@ -1,0 +1,16 @@
+import { Router } from "express";
+import type pg from "pg";
+
+/** GET /api/health: 200 when the database answers, 503 when it does not. */
+export function healthRoutes(pool: pg.Pool): Router {
+  const router = Router();
+  router.get("/", async (_req, res) => {
+    try {
+      await pool.query("select 1");
+      res.json({ status: "ok", database: "ok" });
+    } catch {
+      res.status(503).json({ status: "degraded", database: "unreachable" });
+    }
+  });
+  return router;
+}

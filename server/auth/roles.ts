@@ -1,0 +1,3 @@
+// The roles of PRODUCT.md. A person may hold several; docs/roles.md says what each may do.
+export const roleNames = ["admin", "analyst", "editor", "translator", "press"] as const;
+export type Role = (typeof roleNames)[number];

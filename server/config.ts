@@ -1,0 +1,45 @@
+// Settings read from the environment once, at start-up.
+import { z } from "zod";
+
+const environment = z.object({
+  DATABASE_URL: z.string().url({ message: "DATABASE_URL must be a postgres:// URL" }),
+  PORT: z.coerce.number().int().min(1).max(65535).default(3000),
+  HOST: z.string().default("127.0.0.1"),
+  NODE_ENV: z.enum(["development", "production", "test"]).default("development"),
+  SESSION_SECRET: z.string().min(32, { message: "SESSION_SECRET must be at least 32 characters" }),
+  /** The address people use; https:// there makes cookies Secure and turns on HSTS. */
+  PUBLIC_URL: z.string().url().optional(),
+  LOG_LEVEL: z.enum(["fatal", "error", "warn", "info", "debug", "trace", "silent"]).default("info"),
+});
+
+export type ServerConfig = {
+  databaseUrl: string;
+  port: number;
+  host: string;
+  production: boolean;
+  sessionSecret: string;
+  publicUrl: string;
+  /** True when people reach the site over HTTPS (through a proxy in front of this server). */
+  secureTransport: boolean;
+  logLevel: z.infer<typeof environment>["LOG_LEVEL"];
+};
+
+export function readConfig(env: NodeJS.ProcessEnv = process.env): ServerConfig {
+  const parsed = environment.safeParse(env);
+  if (!parsed.success) {
+    const reasons = parsed.error.issues.map((issue) => `${issue.path.join(".")}: ${issue.message}`);
+    throw new Error(`The server's environment is incomplete:\n  ${reasons.join("\n  ")}`);
+  }
+  const value = parsed.data;
+  const publicUrl = value.PUBLIC_URL ?? `http://${value.HOST}:${value.PORT}`;
+  return {
+    publicUrl,
+    secureTransport: publicUrl.startsWith("https://"),
+    databaseUrl: value.DATABASE_URL,
+    port: value.PORT,
+    host: value.HOST,
+    production: value.NODE_ENV === "production",
+    sessionSecret: value.SESSION_SECRET,
+    logLevel: value.LOG_LEVEL,
+  };
+}

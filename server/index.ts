@@ -1,0 +1,43 @@
+// Starts the server against DATABASE_URL: applies pending migrations, then listens.
+// It never seeds: demo content is only for the local cluster that scripts/start.ts manages.
+import type { Server } from "node:http";
+import { createApp } from "./app";
+import { readConfig, type ServerConfig } from "./config";
+import { connectDatabase } from "./db/client";
+import { migrateDatabase } from "./db/migrate";
+
+export async function startServer(config: ServerConfig): Promise<{ url: string; close(): Promise<void> }> {
+  const connection = connectDatabase(config.databaseUrl);
+  await migrateDatabase(connection.db);
+  const app = await createApp({
+    db: connection.db,
+    pool: connection.pool,
+    sessionSecret: config.sessionSecret,
+    production: config.production,
+    secureTransport: config.secureTransport,
+    logLevel: config.logLevel,
+  });
+  const server: Server = await new Promise((resolve) => {
+    const listening = app.listen(config.port, config.host, () => resolve(listening));
+  });
+  return {
+    url: `http://${config.host}:${config.port}`,
+    async close() {
+      await new Promise<void>((resolve) => server.close(() => resolve()));
+      await connection.close();
+    },
+  };
+}
+
+const isEntryPoint = import.meta.url === `file://${process.argv[1]}`;
+if (isEntryPoint) {
+  const config = readConfig();
+  const server = await startServer(config);
+  console.log(`Fairweigh is serving ${server.url}`);
+  const stop = async () => {
+    await server.close();
+    process.exit(0);
+  };
+  process.once("SIGINT", stop);
+  process.once("SIGTERM", stop);
+}

@@ -1,0 +1,45 @@
+// An in-process server on a free port, against the test cluster that scripts/test.ts started.
+import type { AddressInfo } from "node:net";
+import type { Server } from "node:http";
+import { createApp } from "../../server/app";
+import { connectDatabase, type DatabaseConnection } from "../../server/db/client";
+
+export function testDatabaseUrl(): string {
+  const url = process.env.TEST_DATABASE_URL;
+  if (!url) throw new Error("TEST_DATABASE_URL is not set: run the tests with `npm test`");
+  return url;
+}
+
+export const testSessionSecret = "a-session-secret-used-only-by-the-tests-0123456789";
+
+export interface TestApp {
+  url: string;
+  connection: DatabaseConnection;
+  close(): Promise<void>;
+}
+
+export async function startTestApp(): Promise<TestApp> {
+  const connection = connectDatabase(testDatabaseUrl());
+  const app = await createApp({
+    db: connection.db,
+    pool: connection.pool,
+    sessionSecret: testSessionSecret,
+    production: false,
+    secureTransport: false,
+    logLevel: "silent",
+    pages: false,
+  });
+  const server: Server = await new Promise((resolve) => {
+    const listening = app.listen(0, "127.0.0.1", () => resolve(listening));
+  });
+  const { port } = server.address() as AddressInfo;
+  return {
+    url: `http://127.0.0.1:${port}`,
+    connection,
+    async close() {
+      server.closeAllConnections();
+      await new Promise<void>((resolve) => server.close(() => resolve()));
+      await connection.close();
+    },
+  };
+}

@@ -1,0 +1,62 @@
+// A small HTTP client for the tests that keeps cookies like a browser and sends the CSRF token.
+export class ApiClient {
+  private cookies = new Map<string, string>();
+  private csrfToken: string | null = null;
+
+  constructor(public baseUrl: string) {}
+
+  /** The cookie header this client sends, to hand a session to another client. */
+  get cookieHeader(): string {
+    return [...this.cookies].map(([name, value]) => `${name}=${value}`).join("; ");
+  }
+
+  set cookieHeader(header: string) {
+    this.cookies.clear();
+    for (const pair of header.split("; ").filter(Boolean)) {
+      const [name, ...value] = pair.split("=");
+      this.cookies.set(name!, value.join("="));
+    }
+  }
+
+  async request(method: string, path: string, options: { json?: unknown; csrf?: boolean; headers?: Record<string, string> } = {}) {
+    const headers: Record<string, string> = { accept: "application/json", ...options.headers };
+    if (options.csrf ?? method !== "GET") {
+      this.csrfToken ??= await this.fetchCsrfToken();
+      headers["x-csrf-token"] = this.csrfToken;
+    }
+    if (options.json !== undefined) headers["content-type"] = "application/json";
+    const cookie = this.cookieHeader;
+    if (cookie) headers.cookie = cookie;
+    const response = await fetch(this.baseUrl + path, {
+      method,
+      headers,
+      body: options.json === undefined ? undefined : JSON.stringify(options.json),
+      redirect: "manual",
+    });
+    for (const line of response.headers.getSetCookie()) {
+      const [pair] = line.split(";");
+      const [name, ...value] = pair!.split("=");
+      this.cookies.set(name!.trim(), value.join("="));
+    }
+    const text = await response.text();
+    let body: unknown = text;
+    try {
+      body = text ? JSON.parse(text) : null;
+    } catch {
+      // not JSON: keep the text
+    }
+    return { status: response.status, headers: response.headers, body: body as Record<string, unknown> & { error?: { key: string; message: string } } };
+  }
+
+  private async fetchCsrfToken(): Promise<string> {
+    const { body } = await this.request("GET", "/api/csrf", { csrf: false });
+    return (body as { token: string }).token;
+  }
+
+  /** Signs in; the session changes, so the next state-changing request fetches a new token. */
+  async signIn(email: string, password: string) {
+    const response = await this.request("POST", "/api/session", { json: { email, password } });
+    this.csrfToken = null;
+    return response;
+  }
+}
