@@ -1,0 +1,91 @@
+// The engine's vocabulary. Estimates are on the analysis scale (log OR, log RR, RD or MD).
+
+export const formats = ["arm-binary", "arm-continuous", "contrast"] as const;
+export type Format = (typeof formats)[number];
+
+export const measures = ["OR", "RR", "RD", "MD"] as const;
+export type Measure = (typeof measures)[number];
+
+export type Model = "fixed" | "random";
+export type Better = "higher" | "lower";
+
+/** One problem with the input, naming the line of the file (the header is line 1) and the column. */
+export interface DatasetIssue {
+  /** A stable key for the interface to translate, e.g. "events-exceed-total". */
+  rule: string;
+  message: string;
+  row?: number;
+  column?: string;
+  value?: string;
+}
+
+export class DatasetError extends Error {
+  constructor(readonly issues: DatasetIssue[]) {
+    super(issues.map(formatIssue).join("; "));
+    this.name = "DatasetError";
+  }
+}
+
+export function formatIssue(issue: DatasetIssue): string {
+  const where = [issue.row !== undefined ? `line ${issue.row}` : null, issue.column ? `column ${issue.column}` : null]
+    .filter(Boolean)
+    .join(", ");
+  return where ? `${where}: ${issue.message}` : issue.message;
+}
+
+export interface BinaryArm {
+  treatment: string;
+  events: number;
+  total: number;
+  row: number;
+}
+
+export interface ContinuousArm {
+  treatment: string;
+  mean: number;
+  sd: number;
+  n: number;
+  row: number;
+}
+
+export interface ContrastRow {
+  treatment1: string;
+  treatment2: string;
+  estimate: number;
+  se: number;
+  row: number;
+}
+
+export type ParsedStudy =
+  | { format: "arm-binary"; study: string; arms: BinaryArm[] }
+  | { format: "arm-continuous"; study: string; arms: ContinuousArm[] }
+  | { format: "contrast"; study: string; contrasts: ContrastRow[] };
+
+export interface ParsedDataset {
+  format: Format;
+  studies: ParsedStudy[];
+}
+
+/** A study reduced to arm effects θ and variances v (METHODS.md §2), in the order of the file. */
+export interface ArmEffects {
+  study: string;
+  treatments: string[];
+  effects: number[];
+  variances: number[];
+  /** Participants per arm, where the format has them (for the network diagram). */
+  participants: (number | null)[];
+}
+
+export interface Estimate {
+  estimate: number;
+  se: number;
+}
+
+export interface AnalysisOptions {
+  measure: Measure;
+  model: Model;
+  reference: string;
+  better: Better;
+  draws?: number;
+  seed?: number;
+}
