@@ -77,6 +77,7 @@ export function parseDataset(input: Uint8Array | string, format: Format): Parsed
 
   const issues = new IssueList();
   const byStudy = new Map<string, Record<string, string | number>[]>();
+  const faultyStudies = new Set<string>();
   for (const { record, info } of rows) {
     const line = info.lines;
     if (record.length !== expected.length) {
@@ -85,6 +86,8 @@ export function parseDataset(input: Uint8Array | string, format: Format): Parsed
         row: line,
         message: `the row has ${record.length} fields, the header has ${expected.length} (a stray comma?)`,
       });
+      // The study is already at fault; its other rules would only repeat this row's problem.
+      if (record[header.indexOf("study")]) faultyStudies.add(record[header.indexOf("study")]!);
       continue;
     }
     const cells: Record<string, string | number> = { row: line };
@@ -100,6 +103,7 @@ export function parseDataset(input: Uint8Array | string, format: Format): Parsed
 
   const studies: ParsedStudy[] = [];
   for (const [study, cells] of byStudy) {
+    if (faultyStudies.has(study)) continue;
     const parsed = readStudy(format, study, cells, issues);
     if (parsed) studies.push(parsed);
   }

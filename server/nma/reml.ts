@@ -8,8 +8,9 @@ const maximumIterations = 200;
 
 export function estimateTau2(blocks: StudyBlock[], parameters: number): Fit {
   const atZero = fitAt(blocks, parameters, 0);
-  // The likelihood falls away from the boundary: τ² = 0 is the restricted maximum.
-  if (atZero.score <= 0) return atZero;
+  // The likelihood falls away from the boundary (or is flat, as with one contrast per parameter):
+  // τ² = 0 is the restricted maximum.
+  if (!(atZero.score > 0) || !(atZero.information > 0)) return atZero;
 
   let lo = 0;
   let hi = Number.POSITIVE_INFINITY;
@@ -19,7 +20,7 @@ export function estimateTau2(blocks: StudyBlock[], parameters: number): Fit {
     current = fitAt(blocks, parameters, x);
     if (current.score > 0) lo = x;
     else hi = x;
-    let next = x + current.score / current.information;
+    let next = current.information > 0 ? x + current.score / current.information : Number.NaN;
     if (!(next > lo && next < hi) || !Number.isFinite(next)) next = Number.isFinite(hi) ? (lo + hi) / 2 : 2 * x;
     if (Math.abs(next - x) <= remlTolerance * x) return fitAt(blocks, parameters, next);
     x = next;

@@ -1,0 +1,62 @@
+// The command line of METHODS.md §11 (kept stable for outside checks):
+//   npm run --silent nma -- --input FILE.csv --format arm-binary|arm-continuous|contrast \
+//     --measure OR|RR|RD|MD --model fixed|random --reference NAME --better higher|lower [--draws N] [--seed S]
+// One JSON object on stdout and exit 0; bad input: one line on stderr, exit 1; bad arguments: exit 2.
+import { readFileSync } from "node:fs";
+import { parseArgs } from "node:util";
+import { z } from "zod";
+import { analyse } from "../server/nma/analyse";
+import { measuresByFormat } from "../server/nma/options";
+import { parseDataset } from "../server/nma/parse";
+import { DatasetError, formats, measures } from "../server/nma/types";
+
+function fail(code: 1 | 2, reason: string): never {
+  process.stderr.write(`${reason.replace(/\s+/g, " ").trim()}\n`);
+  process.exit(code);
+}
+
+const argumentsSchema = z
+  .object({
+    input: z.string({ message: "--input FILE.csv is required" }),
+    format: z.enum(formats, { message: `--format must be one of ${formats.join(", ")}` }),
+    measure: z.enum(measures, { message: `--measure must be one of ${measures.join(", ")}` }),
+    model: z.enum(["fixed", "random"], { message: "--model must be fixed or random" }),
+    reference: z.string({ message: "--reference NAME is required" }).min(1),
+    better: z.enum(["higher", "lower"], { message: "--better must be higher or lower" }),
+    draws: z.coerce.number({ message: "--draws must be a number" }).int().min(1).max(10_000_000).optional(),
+    seed: z.coerce.number({ message: "--seed must be a number" }).int().optional(),
+  })
+  .refine((a) => measuresByFormat[a.format].includes(a.measure), {
+    message: "--measure does not fit --format (arm-binary takes OR, RR or RD; arm-continuous takes MD)",
+  });
+
+let raw;
+try {
+  raw = parseArgs({
+    options: Object.fromEntries(
+      ["input", "format", "measure", "model", "reference", "better", "draws", "seed"].map((name) => [name, { type: "string" as const }]),
+    ),
+    strict: true,
+    allowPositionals: false,
+  }).values;
+} catch (error) {
+  fail(2, (error as Error).message);
+}
+const parsed = argumentsSchema.safeParse(raw);
+if (!parsed.success) fail(2, parsed.error.issues.map((i) => i.message).join("; "));
+const options = parsed.data;
+
+let bytes: Buffer;
+try {
+  bytes = readFileSync(options.input);
+} catch (error) {
+  fail(1, `cannot read ${options.input}: ${(error as NodeJS.ErrnoException).code ?? (error as Error).message}`);
+}
+
+try {
+  const result = analyse(parseDataset(bytes, options.format), options);
+  process.stdout.write(`${JSON.stringify(result)}\n`);
+} catch (error) {
+  if (error instanceof DatasetError) fail(1, error.message);
+  fail(1, `the analysis failed: ${(error as Error).message}`);
+}

@@ -1,0 +1,128 @@
+// The engine against ../shared/reference/: values computed with the R package metafor 3.8-1
+// (rma.mv, REML, correlation ½) following METHODS.md exactly — see that folder's README.
+// Tolerances from METHODS.md §12: fixed-effect and network values 1e-6 relative, τ² and REML-based values 1e-5.
+import { readFileSync } from "node:fs";
+import path from "node:path";
+import { describe, expect, it } from "vitest";
+import { analyse, comparisonOf, type AnalysisResult } from "../../../server/nma/analyse";
+import { parseDataset } from "../../../server/nma/parse";
+import type { Better, Format, Measure } from "../../../server/nma/types";
+
+const referenceFolder = path.resolve(__dirname, "../../../../shared/reference");
+
+interface ExpectedEstimate {
+  estimate: number;
+  se: number;
+}
+interface Expected {
+  treatments: string[];
+  reference: string;
+  studies: number;
+  heterogeneity: { Q: number; df: number; I2: number };
+  inconsistency: { Qwithin: number; dfWithin: number; Qbetween: number; dfBetween: number };
+  fixed: ModelExpected;
+  random: ModelExpected;
+}
+interface ModelExpected {
+  tau2: number;
+  comparisons: {
+    treatment: string;
+    comparator: string;
+    network: ExpectedEstimate;
+    direct: (ExpectedEstimate & { studies: number }) | null;
+    indirect: ExpectedEstimate | null;
+  }[];
+  ranking: { pScore: Record<string, number> };
+}
+
+function closeTo(actual: number | undefined, expected: number, relative: number, what: string) {
+  const error = Math.abs((actual ?? Number.NaN) - expected) / Math.max(Math.abs(expected), 1e-12);
+  expect(error, `${what}: ${actual} vs ${expected}`).toBeLessThanOrEqual(relative);
+}
+
+const cases: { file: string; format: Format; measure: Measure; better: Better; source: string }[] = [
+  { file: "hasselblad1998", format: "arm-binary", measure: "OR", better: "higher", source: "Hasselblad 1998 smoking cessation, metafor 3.8-1" },
+  { file: "senn2013", format: "arm-continuous", measure: "MD", better: "lower", source: "Senn et al. 2013 HbA1c, metafor 3.8-1" },
+];
+
+for (const { file, format, measure, better, source } of cases) {
+  describe(`${file} (${source})`, () => {
+    const expected = JSON.parse(readFileSync(path.join(referenceFolder, `${file}.expected.json`), "utf8")) as Expected;
+    const dataset = parseDataset(readFileSync(path.join(referenceFolder, `${file}.csv`)), format);
+    const results: Record<"fixed" | "random", AnalysisResult> = {
+      fixed: analyse(dataset, { measure, model: "fixed", reference: expected.reference, better }),
+      random: analyse(dataset, { measure, model: "random", reference: expected.reference, better }),
+    };
+
+    it("uses the same treatments and number of studies", () => {
+      expect(results.fixed.treatments).toEqual(expected.treatments);
+      expect(results.fixed.studies).toBe(expected.studies);
+    });
+
+    it("matches Q, df and I² of the fixed-effect fit (METHODS.md §4)", () => {
+      const { heterogeneity } = results.fixed;
+      closeTo(heterogeneity.Q, expected.heterogeneity.Q, 1e-6, "Q");
+      expect(heterogeneity.df).toBe(expected.heterogeneity.df);
+      closeTo(heterogeneity.I2, expected.heterogeneity.I2, 1e-6, "I²");
+    });
+
+    it("matches the decomposition of Q within and between designs (METHODS.md §4)", () => {
+      const { inconsistency } = results.fixed;
+      closeTo(inconsistency.Qwithin, expected.inconsistency.Qwithin, 1e-6, "Q within");
+      closeTo(inconsistency.Qbetween, expected.inconsistency.Qbetween, 1e-6, "Q between");
+      expect(inconsistency.dfWithin).toBe(expected.inconsistency.dfWithin);
+      expect(inconsistency.dfBetween).toBe(expected.inconsistency.dfBetween);
+    });
+
+    for (const model of ["fixed", "random"] as const) {
+      const tolerance = model === "fixed" ? 1e-6 : 1e-5;
+      const modelExpected = expected[model];
+
+      it(`${model}: τ² ${model === "random" ? "by REML " : ""}matches`, () => {
+        if (model === "fixed") expect(results.fixed.tau2).toBe(0);
+        else closeTo(results.random.tau2, modelExpected.tau2, 1e-5, "τ²");
+      });
+
+      it(`${model}: network, direct and indirect estimates and SEs match for every pair (§3, §5)`, () => {
+        expect(results[model].comparisons).toHaveLength(modelExpected.comparisons.length);
+        for (const pair of modelExpected.comparisons) {
+          const label = `${pair.treatment} vs ${pair.comparator}`;
+          const actual = comparisonOf(results[model], pair.treatment, pair.comparator)!;
+          closeTo(actual.network.estimate, pair.network.estimate, tolerance, `${label} network`);
+          closeTo(actual.network.se, pair.network.se, tolerance, `${label} network SE`);
+          if (pair.direct) {
+            closeTo(actual.direct?.estimate, pair.direct.estimate, tolerance, `${label} direct`);
+            closeTo(actual.direct?.se, pair.direct.se, tolerance, `${label} direct SE`);
+            expect(actual.direct?.studies, `${label} studies`).toBe(pair.direct.studies);
+          } else {
+            expect(actual.direct, `${label} direct`).toBeNull();
+          }
+          if (pair.indirect) {
+            closeTo(actual.indirect?.estimate, pair.indirect.estimate, tolerance, `${label} indirect`);
+            closeTo(actual.indirect?.se, pair.indirect.se, tolerance, `${label} indirect SE`);
+          } else {
+            expect(actual.indirect, `${label} indirect`).toBeNull();
+          }
+        }
+      });
+
+      it(`${model}: P-scores match (§6)`, () => {
+        for (const [treatment, score] of Object.entries(modelExpected.ranking.pScore)) {
+          closeTo(results[model].ranking.pScore[treatment], score, tolerance, `P-score of ${treatment}`);
+        }
+      });
+    }
+  });
+}
+
+describe("published figures for the HbA1c network (second check, recalled from memory, two decimals)", () => {
+  it("Q = 96.98 on 18 df, I² = 81.4%, Q between designs = 22.53 on 7 df", () => {
+    const dataset = parseDataset(readFileSync(path.join(referenceFolder, "senn2013.csv")), "arm-continuous");
+    const result = analyse(dataset, { measure: "MD", model: "fixed", reference: "placebo", better: "lower" });
+    expect(result.heterogeneity.Q).toBeCloseTo(96.98, 2);
+    expect(result.heterogeneity.df).toBe(18);
+    expect(result.heterogeneity.I2 * 100).toBeCloseTo(81.4, 1);
+    expect(result.inconsistency.Qbetween).toBeCloseTo(22.53, 2);
+    expect(result.inconsistency.dfBetween).toBe(7);
+  });
+});
