@@ -1,0 +1,79 @@
+// npm run bench: the full analysis (random effects with REML, every pair split, the design
+// decomposition, 10 000-draw ranking) on seeded synthetic networks of invented data, each size in a
+// fresh process so that its peak memory is its own. Prints a table; asserts nothing.
+import { spawnSync } from "node:child_process";
+import path from "node:path";
+import { fileURLToPath } from "node:url";
+import normal from "@stdlib/random-base-normal";
+import { analyse } from "../server/nma/analyse";
+import type { ContinuousArm, ParsedDataset } from "../server/nma/types";
+
+const sizes = [
+  { treatments: 27, studies: 300, target: "< 100 ms", runs: 7 },
+  { treatments: 60, studies: 1500, target: "< 1 s", runs: 5 },
+  { treatments: 100, studies: 5000, target: "< 5 s", runs: 3 },
+];
+const threeArmShare = 0.15;
+
+/** Invented continuous-outcome data: a spanning chain keeps the network connected, the rest is random. */
+export function syntheticNetwork(treatments: number, studies: number, seed: number): ParsedDataset {
+  const gaussian = normal.factory(0, 1, { seed });
+  const uniform = () => 0.5 * (1 + Math.tanh(gaussian())); // a seeded value in (0, 1)
+  const pick = () => Math.min(treatments - 1, Math.floor(uniform() * treatments));
+  const trueEffect = Array.from({ length: treatments }, () => 0.5 * gaussian());
+  const names = Array.from({ length: treatments }, (_, i) => `t${String(i).padStart(3, "0")}`);
+  const result: ParsedDataset = { format: "arm-continuous", studies: [] };
+  for (let s = 0; s < studies; s++) {
+    const arms = new Set<number>(s < treatments - 1 ? [s, s + 1] : []);
+    const size = s >= treatments - 1 && uniform() < threeArmShare ? 3 : 2;
+    while (arms.size < size) arms.add(pick());
+    const studyEffect = 0.2 * gaussian();
+    const list: ContinuousArm[] = [...arms].map((t, i) => {
+      const n = 20 + Math.floor(uniform() * 200);
+      const sd = 1 + uniform();
+      return { treatment: names[t]!, mean: trueEffect[t]! + (i > 0 ? studyEffect : 0) + (sd / Math.sqrt(n)) * gaussian(), sd, n, row: 0 };
+    });
+    result.studies.push({ format: "arm-continuous", study: `S${s}`, arms: list });
+  }
+  return result;
+}
+
+function measureOne(treatments: number, studies: number, runs: number) {
+  const dataset = syntheticNetwork(treatments, studies, 20261201);
+  const times: number[] = [];
+  let tau2 = 0;
+  for (let run = 0; run < runs; run++) {
+    const start = performance.now();
+    const result = analyse(dataset, { measure: "MD", model: "random", reference: "t000", better: "lower", draws: 10_000, seed: 1 });
+    times.push(performance.now() - start);
+    tau2 = result.tau2;
+  }
+  times.sort((a, b) => a - b);
+  return {
+    medianMs: times[Math.floor(times.length / 2)]!,
+    minMs: times[0]!,
+    peakRssMiB: process.resourceUsage().maxRSS / 1024,
+    heapMiB: process.memoryUsage().heapUsed / 2 ** 20,
+    tau2,
+  };
+}
+
+const one = process.argv.indexOf("--one");
+if (one >= 0) {
+  const [treatments, studies, runs] = process.argv.slice(one + 1, one + 4).map(Number);
+  process.stdout.write(JSON.stringify(measureOne(treatments!, studies!, runs!)));
+} else {
+  const self = fileURLToPath(import.meta.url);
+  const tsx = path.resolve(path.dirname(self), "../node_modules/.bin/tsx");
+  console.log("Full analysis: random effects (REML), all pairs split, design decomposition, 10 000 draws; median of runs\n");
+  console.log("| network (treatments × studies) | median | fastest | runs | peak RSS | heap after | target |");
+  console.log("|---|---|---|---|---|---|---|");
+  for (const size of sizes) {
+    const child = spawnSync(tsx, [self, "--one", String(size.treatments), String(size.studies), String(size.runs)], { encoding: "utf8" });
+    if (child.status !== 0) throw new Error(child.stderr);
+    const m = JSON.parse(child.stdout);
+    console.log(
+      `| ${size.treatments} × ${size.studies} | ${m.medianMs.toFixed(0)} ms | ${m.minMs.toFixed(0)} ms | ${size.runs} | ${m.peakRssMiB.toFixed(0)} MiB | ${m.heapMiB.toFixed(0)} MiB | ${size.target} |`,
+    );
+  }
+}
