@@ -5,6 +5,7 @@ import type pg from "pg";
 import type { Database } from "../db/client";
 import { sendError } from "../http/errors";
 import type { createCsrf } from "../http/security";
+import { briefRoutes } from "./briefs";
 import { healthRoutes } from "./health";
 import { peopleRoutes } from "./people";
 import { sessionRoutes } from "./session";
@@ -43,6 +44,7 @@ export function apiRoutes({ db, pool, passport, csrf }: ApiDependencies): Router
 
   api.use("/session", sessionRoutes(db, passport));
   api.use("/people", peopleRoutes(db));
+  api.use(briefRoutes(db));
 
   api.use((_req, res) => sendError(res, 404, { key: "errors.notFound", message: "There is no such API route." }));
   return api;

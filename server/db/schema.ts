@@ -3,6 +3,9 @@
 import { sql } from "drizzle-orm";
 import {
   bigserial,
+  customType,
+  doublePrecision,
+  integer,
   index,
   json,
   jsonb,
@@ -15,6 +18,7 @@ import {
   varchar,
 } from "drizzle-orm/pg-core";
 import { roleNames } from "../auth/roles";
+import { briefStatuses } from "../briefs/status";
 
 export const role = pgEnum("role", roleNames);
 
@@ -64,4 +68,108 @@ export const auditLog = pgTable(
     after: jsonb("after"),
   },
   (table) => [index("audit_log_entity_idx").on(table.entity, table.entityId)],
+);
+
+/** Raw file bytes, kept exactly as uploaded. */
+const bytea = customType<{ data: Buffer; driverData: Buffer }>({ dataType: () => "bytea" });
+
+export const briefStatus = pgEnum("brief_status", briefStatuses);
+export const outcomeKind = pgEnum("outcome_kind", ["binary", "continuous"]);
+export const effectMeasure = pgEnum("effect_measure", ["OR", "RR", "RD", "MD"]);
+export const modelKind = pgEnum("model_kind", ["fixed", "random"]);
+export const direction = pgEnum("direction", ["higher", "lower"]);
+export const datasetFormat = pgEnum("dataset_format", ["arm-binary", "arm-continuous", "contrast"]);
+
+/** A brief: one network analysis with one or more outcomes. */
+export const briefs = pgTable("briefs", {
+  id: uuid("id").primaryKey().defaultRandom(),
+  slug: text("slug").notNull().unique(),
+  title: text("title").notNull(),
+  topic: text("topic").notNull(),
+  condition: text("condition").notNull(),
+  population: text("population").notNull(),
+  status: briefStatus("status").notNull().default("draft"),
+  /** Incremented by every change; a PATCH must name the version it read (409 otherwise). */
+  rowVersion: integer("row_version").notNull().default(1),
+  createdBy: uuid("created_by").references(() => people.id),
+  createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
+});
+
+/** How a treatment's label in the data is shown to readers, per brief. */
+export const treatmentNames = pgTable(
+  "treatment_names",
+  {
+    briefId: uuid("brief_id")
+      .notNull()
+      .references(() => briefs.id),
+    label: text("label").notNull(),
+    displayName: text("display_name").notNull(),
+  },
+  (table) => [primaryKey({ columns: [table.briefId, table.label] })],
+);
+
+export const outcomes = pgTable("outcomes", {
+  id: uuid("id").primaryKey().defaultRandom(),
+  briefId: uuid("brief_id")
+    .notNull()
+    .references(() => briefs.id),
+  position: integer("position").notNull(),
+  name: text("name").notNull(),
+  kind: outcomeKind("kind").notNull(),
+  measure: effectMeasure("measure").notNull(),
+  model: modelKind("model").notNull(),
+  /** A treatment label of the data; checked against the data when it is analysed. */
+  referenceTreatment: text("reference_treatment").notNull(),
+  direction: direction("direction").notNull(),
+  /** Binary outcomes: the risk under the reference, 0 to 1 (METHODS.md §7). */
+  baselineRisk: doublePrecision("baseline_risk"),
+  /** Continuous outcomes: the unit of the mean difference. */
+  unit: text("unit"),
+  /** Thresholds for small, moderate and large effects on the analysis scale (absolute values). */
+  thresholdSmall: doublePrecision("threshold_small"),
+  thresholdModerate: doublePrecision("threshold_moderate"),
+  thresholdLarge: doublePrecision("threshold_large"),
+  rowVersion: integer("row_version").notNull().default(1),
+  createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+});
+
+/** Every valid upload is kept; the outcome's current one is the newest. */
+export const datasets = pgTable(
+  "datasets",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    outcomeId: uuid("outcome_id")
+      .notNull()
+      .references(() => outcomes.id),
+    format: datasetFormat("format").notNull(),
+    fileName: text("file_name").notNull(),
+    original: bytea("original").notNull(),
+    sha256: text("sha256").notNull(),
+    /** The parsed studies, as the engine read them. */
+    parsed: jsonb("parsed").notNull(),
+    uploadedBy: uuid("uploaded_by").references(() => people.id),
+    uploadedAt: timestamp("uploaded_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (table) => [index("datasets_outcome_idx").on(table.outcomeId, table.uploadedAt)],
+);
+
+/** One engine run: its input checksum (data and settings) tells whether it is current. */
+export const analysisResults = pgTable(
+  "analysis_results",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    outcomeId: uuid("outcome_id")
+      .notNull()
+      .references(() => outcomes.id),
+    datasetId: uuid("dataset_id")
+      .notNull()
+      .references(() => datasets.id),
+    engineVersion: text("engine_version").notNull(),
+    inputChecksum: text("input_checksum").notNull(),
+    settings: jsonb("settings").notNull(),
+    result: jsonb("result").notNull(),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (table) => [index("analysis_results_outcome_idx").on(table.outcomeId, table.createdAt)],
 );

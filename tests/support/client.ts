@@ -18,7 +18,11 @@ export class ApiClient {
     }
   }
 
-  async request(method: string, path: string, options: { json?: unknown; csrf?: boolean; headers?: Record<string, string> } = {}) {
+  async request(
+    method: string,
+    path: string,
+    options: { json?: unknown; form?: FormData; csrf?: boolean; headers?: Record<string, string> } = {},
+  ) {
     const headers: Record<string, string> = { accept: "application/json", ...options.headers };
     if (options.csrf ?? method !== "GET") {
       this.csrfToken ??= await this.fetchCsrfToken();
@@ -30,7 +34,7 @@ export class ApiClient {
     const response = await fetch(this.baseUrl + path, {
       method,
       headers,
-      body: options.json === undefined ? undefined : JSON.stringify(options.json),
+      body: options.form ?? (options.json === undefined ? undefined : JSON.stringify(options.json)),
       redirect: "manual",
     });
     for (const line of response.headers.getSetCookie()) {
@@ -45,7 +49,15 @@ export class ApiClient {
     } catch {
       // not JSON: keep the text
     }
-    return { status: response.status, headers: response.headers, body: body as Record<string, unknown> & { error?: { key: string; message: string } } };
+    return { status: response.status, headers: response.headers, body: body as Record<string, unknown> & { error?: { key: string; message: string; details?: unknown } } };
+  }
+
+  /** PUT a CSV file as the multipart field `file`, beside the other fields. */
+  upload(path: string, file: { name: string; bytes: Uint8Array | string }, fields: Record<string, string>) {
+    const form = new FormData();
+    for (const [name, value] of Object.entries(fields)) form.set(name, value);
+    form.set("file", new Blob([typeof file.bytes === "string" ? file.bytes : new Uint8Array(file.bytes)], { type: "text/csv" }), file.name);
+    return this.request("PUT", path, { form });
   }
 
   private async fetchCsrfToken(): Promise<string> {

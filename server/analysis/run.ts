@@ -1,0 +1,109 @@
+// Uploading data and running the engine for an outcome. The stored result carries the engine
+// version and a checksum of everything it was computed from, so a stale result shows as stale.
+import { createHash } from "node:crypto";
+import { and, desc, eq } from "drizzle-orm";
+import { recordAudit } from "../audit";
+import type { Database } from "../db/client";
+import { analysisResults, datasets, type outcomes } from "../db/schema";
+import { analyse, engineVersion } from "../nma/analyse";
+import { parseDataset } from "../nma/parse";
+import type { AnalysisOptions, Format } from "../nma/types";
+
+type Outcome = typeof outcomes.$inferSelect;
+
+export function analysisSettings(outcome: Outcome): AnalysisOptions {
+  return {
+    measure: outcome.measure,
+    model: outcome.model,
+    reference: outcome.referenceTreatment,
+    better: outcome.direction,
+    draws: 10_000,
+    seed: 1,
+  };
+}
+
+export function inputChecksum(datasetSha256: string, settings: AnalysisOptions): string {
+  return createHash("sha256").update(JSON.stringify({ datasetSha256, settings, engineVersion })).digest("hex");
+}
+
+/** Formats that fit an outcome's kind: contrasts carry any measure. */
+export function formatFitsOutcome(format: Format, outcome: Outcome): boolean {
+  return format === "contrast" || (outcome.kind === "binary" ? format === "arm-binary" : format === "arm-continuous");
+}
+
+/**
+ * Validates the file by the engine's rules, analysing it with the outcome's settings: a file the
+ * engine cannot analyse is not stored (throws DatasetError). A valid file is kept with its bytes,
+ * SHA-256 and parsed rows, and its result is stored; earlier uploads stay in the history.
+ */
+export async function storeDataset(
+  db: Database,
+  outcome: Outcome,
+  file: { name: string; bytes: Buffer },
+  format: Format,
+  actorId: string,
+) {
+  const parsed = parseDataset(file.bytes, format);
+  const settings = analysisSettings(outcome);
+  const result = analyse(parsed, settings);
+  const sha256 = createHash("sha256").update(file.bytes).digest("hex");
+  return db.transaction(async (tx) => {
+    const [dataset] = await tx
+      .insert(datasets)
+      .values({ outcomeId: outcome.id, format, fileName: file.name, original: file.bytes, sha256, parsed, uploadedBy: actorId })
+      .returning({ id: datasets.id, sha256: datasets.sha256, uploadedAt: datasets.uploadedAt });
+    const [stored] = await tx
+      .insert(analysisResults)
+      .values({
+        outcomeId: outcome.id,
+        datasetId: dataset!.id,
+        engineVersion,
+        inputChecksum: inputChecksum(sha256, settings),
+        settings,
+        result,
+      })
+      .returning({ id: analysisResults.id });
+    await recordAudit(tx, {
+      actorId,
+      action: "upload",
+      entity: "outcome",
+      entityId: outcome.id,
+      before: null,
+      after: { datasetId: dataset!.id, fileName: file.name, sha256, format, resultId: stored!.id },
+    });
+    return { dataset: dataset!, resultId: stored!.id, result };
+  });
+}
+
+export async function latestDataset(db: Database, outcomeId: string) {
+  return (await db.query.datasets.findFirst({ where: eq(datasets.outcomeId, outcomeId), orderBy: desc(datasets.uploadedAt) })) ?? null;
+}
+
+export async function latestResult(db: Database, outcomeId: string) {
+  return (
+    (await db.query.analysisResults.findFirst({
+      where: eq(analysisResults.outcomeId, outcomeId),
+      orderBy: desc(analysisResults.createdAt),
+    })) ?? null
+  );
+}
+
+/** Whether the outcome has data and a result, and whether that result still matches the data and settings. */
+export async function analysisStatus(db: Database, outcome: Outcome) {
+  const dataset = await latestDataset(db, outcome.id);
+  if (!dataset) return { state: "no-data" as const };
+  const result = await db.query.analysisResults.findFirst({
+    where: and(eq(analysisResults.outcomeId, outcome.id), eq(analysisResults.datasetId, dataset.id)),
+    orderBy: desc(analysisResults.createdAt),
+  });
+  const expected = inputChecksum(dataset.sha256, analysisSettings(outcome));
+  return {
+    state: result && result.inputChecksum === expected ? ("current" as const) : ("stale" as const),
+    datasetId: dataset.id,
+    fileName: dataset.fileName,
+    sha256: dataset.sha256,
+    uploadedAt: dataset.uploadedAt,
+    resultId: result?.id ?? null,
+    engineVersion: result?.engineVersion ?? null,
+  };
+}

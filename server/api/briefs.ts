@@ -1,0 +1,127 @@
+// Briefs, their outcomes, data uploads and results: the analyst's part of the desk's API.
+import { Router } from "express";
+import multer from "multer";
+import { z } from "zod";
+import { latestResult, formatFitsOutcome, storeDataset } from "../analysis/run";
+import { requireRole } from "../auth/require-role";
+import { briefWithOutcomes, createBrief, findBrief, listBriefs, updateBrief } from "../briefs/briefs";
+import { createOutcome, findOutcome, outcomeInput } from "../briefs/outcomes";
+import type { Database } from "../db/client";
+import { sendError, validateBody } from "../http/errors";
+import { DatasetError, formats } from "../nma/types";
+
+const briefFields = {
+  title: z.string().trim().min(1).max(300),
+  topic: z.string().trim().min(1).max(200),
+  condition: z.string().trim().min(1).max(200),
+  population: z.string().trim().min(1).max(500),
+};
+const createBriefBody = z.object(briefFields).strict();
+const patchBriefBody = z
+  .object({ rowVersion: z.number().int().positive(), ...Object.fromEntries(Object.entries(briefFields).map(([k, v]) => [k, v.optional()])) })
+  .strict();
+
+const uuid = z.string().uuid();
+const maximumUploadBytes = 5 * 1024 * 1024;
+
+const upload = multer({
+  storage: multer.memoryStorage(),
+  limits: { fileSize: maximumUploadBytes, files: 1, fields: 5 },
+});
+
+/** Staff who work on drafts; the public and the press read only what is released. */
+const deskRoles = ["analyst", "editor", "translator", "admin"] as const;
+
+export function briefRoutes(db: Database): Router {
+  const router = Router();
+
+  router.param("id", (req, res, next, id) => {
+    if (!uuid.safeParse(id).success) return sendError(res, 404, { key: "errors.notFound", message: `There is no brief or outcome ${id}.` });
+    next();
+  });
+
+  router.get("/briefs", requireRole(...deskRoles), async (_req, res) => {
+    res.json({ briefs: await listBriefs(db) });
+  });
+
+  router.post("/briefs", requireRole("analyst"), validateBody(createBriefBody), async (req, res) => {
+    const brief = await createBrief(db, req.body, req.user!.id);
+    res.status(201).json({ id: brief.id, slug: brief.slug });
+  });
+
+  router.get("/briefs/:id", requireRole(...deskRoles), async (req, res) => {
+    const brief = await briefWithOutcomes(db, String(req.params.id));
+    if (!brief) return sendError(res, 404, { key: "errors.notFound", message: "There is no such brief." });
+    res.json({ brief });
+  });
+
+  router.patch("/briefs/:id", requireRole("analyst", "editor"), validateBody(patchBriefBody), async (req, res) => {
+    const { rowVersion, ...changes } = req.body as z.infer<typeof patchBriefBody>;
+    const outcome = await updateBrief(db, String(req.params.id), rowVersion, changes, req.user!.id);
+    if (outcome.ok) return res.json({ brief: outcome.brief });
+    if (!outcome.current) return sendError(res, 404, { key: "errors.notFound", message: "There is no such brief." });
+    sendError(res, 409, {
+      key: "errors.conflict",
+      message: `Someone else changed this brief (now version ${outcome.current.rowVersion}, you edited version ${rowVersion}). Review their change, then apply yours again.`,
+      details: { current: outcome.current },
+    });
+  });
+
+  router.post("/briefs/:id/outcomes", requireRole("analyst"), validateBody(outcomeInput), async (req, res) => {
+    if (!(await findBrief(db, String(req.params.id)))) return sendError(res, 404, { key: "errors.notFound", message: "There is no such brief." });
+    const outcome = await createOutcome(db, String(req.params.id), req.body, req.user!.id);
+    res.status(201).json({ outcome });
+  });
+
+  router.put("/outcomes/:id/dataset", requireRole("analyst"), (req, res, next) => {
+    upload.single("file")(req, res, (error: unknown) => {
+      if (!error) return next();
+      const tooLarge = error instanceof multer.MulterError && error.code === "LIMIT_FILE_SIZE";
+      sendError(res, tooLarge ? 413 : 400, {
+        key: tooLarge ? "errors.upload.tooLarge" : "errors.upload.invalid",
+        message: tooLarge ? `The file is larger than ${maximumUploadBytes / 1024 / 1024} MiB.` : `The upload could not be read: ${(error as Error).message}`,
+      });
+    });
+  }, async (req, res) => {
+    const outcome = await findOutcome(db, String(req.params.id));
+    if (!outcome) return sendError(res, 404, { key: "errors.notFound", message: "There is no such outcome." });
+    const format = z.enum(formats).safeParse(req.body?.format);
+    if (!format.success) {
+      return sendError(res, 400, { key: "errors.upload.format", message: `Send the field format: one of ${formats.join(", ")}.`, details: [{ field: "format" }] });
+    }
+    if (!req.file) return sendError(res, 400, { key: "errors.upload.missing", message: "Send the CSV file in the multipart field file.", details: [{ field: "file" }] });
+    if (!/\.csv$/i.test(req.file.originalname) && !/^text\/(csv|plain)$/.test(req.file.mimetype)) {
+      return sendError(res, 415, { key: "errors.upload.notCsv", message: "Upload a CSV file (.csv)." });
+    }
+    if (!formatFitsOutcome(format.data, outcome)) {
+      return sendError(res, 400, { key: "errors.upload.formatKind", message: `The ${format.data} format does not fit a ${outcome.kind} outcome.` });
+    }
+    try {
+      const stored = await storeDataset(db, outcome, { name: req.file.originalname, bytes: req.file.buffer }, format.data, req.user!.id);
+      res.json({
+        valid: true,
+        datasetId: stored.dataset.id,
+        sha256: stored.dataset.sha256,
+        studies: stored.result.studies,
+        treatments: stored.result.treatments,
+        excludedStudies: stored.result.excludedStudies,
+        resultId: stored.resultId,
+      });
+    } catch (error) {
+      if (!(error instanceof DatasetError)) throw error;
+      res.status(422).json({
+        valid: false,
+        error: { key: "errors.upload.invalidData", message: "The file was not stored: correct the problems listed and upload it again." },
+        issues: error.issues,
+      });
+    }
+  });
+
+  router.get("/outcomes/:id/result", requireRole(...deskRoles), async (req, res) => {
+    const stored = await latestResult(db, String(req.params.id));
+    if (!stored) return sendError(res, 404, { key: "errors.noResult", message: "This outcome has no analysis yet: upload its data first." });
+    res.json(stored.result);
+  });
+
+  return router;
+}

@@ -1,0 +1,148 @@
+// Briefs, outcomes and data uploads through the API, against the real database.
+import { readFileSync } from "node:fs";
+import path from "node:path";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { demoPassword } from "../../server/db/seed";
+import { startTestApp, type TestApp } from "../support/app";
+import { ApiClient } from "../support/client";
+
+const referenceFolder = path.resolve(__dirname, "../../../shared/reference");
+const hasselbladCsv = readFileSync(path.join(referenceFolder, "hasselblad1998.csv"));
+// metafor 3.8-1 on the same file (../shared/reference/hasselblad1998.expected.json)
+const expected = JSON.parse(readFileSync(path.join(referenceFolder, "hasselblad1998.expected.json"), "utf8"));
+
+let app: TestApp;
+let analyst: ApiClient;
+beforeAll(async () => {
+  app = await startTestApp();
+  analyst = new ApiClient(app.url);
+  await analyst.signIn("analyst@fairweigh.example", demoPassword);
+});
+afterAll(async () => {
+  await app.close();
+});
+
+const smokingOutcome = {
+  name: "Quit smoking at 6 to 12 months",
+  kind: "binary",
+  measure: "OR",
+  model: "random",
+  referenceTreatment: "no_contact",
+  direction: "higher",
+  baselineRisk: 0.07,
+  thresholdSmall: 0.1,
+  thresholdModerate: 0.3,
+  thresholdLarge: 0.6,
+};
+
+async function newBriefWithOutcome(title: string) {
+  const created = await analyst.request("POST", "/api/briefs", {
+    json: { title, topic: "Smoking", condition: "Tobacco dependence", population: "Adults who smoke" },
+  });
+  expect(created.status).toBe(201);
+  const briefId = String(created.body.id);
+  const outcome = await analyst.request("POST", `/api/briefs/${briefId}/outcomes`, { json: smokingOutcome });
+  expect(outcome.status).toBe(201);
+  return { briefId, slug: String(created.body.slug), outcomeId: String((outcome.body.outcome as { id: string }).id) };
+}
+
+describe("briefs", () => {
+  it("creates a brief with a slug from its title, unique when the title repeats", async () => {
+    const first = await newBriefWithOutcome("Counselling to stop smoking (test)");
+    const second = await newBriefWithOutcome("Counselling to stop smoking (test)");
+    expect(first.slug).toBe("counselling-to-stop-smoking-test");
+    expect(second.slug).toBe("counselling-to-stop-smoking-test-2");
+  });
+
+  it("refuses an outcome whose measure does not fit its kind, naming the field", async () => {
+    const { briefId } = await newBriefWithOutcome("Measure check");
+    const response = await analyst.request("POST", `/api/briefs/${briefId}/outcomes`, { json: { ...smokingOutcome, measure: "MD" } });
+    expect(response.status).toBe(400);
+    expect(response.body.error?.details).toEqual([expect.objectContaining({ field: "measure" })]);
+  });
+
+  it("answers one of two concurrent PATCHes with 409 and the current version", async () => {
+    const { briefId } = await newBriefWithOutcome("Concurrent edits");
+    const other = new ApiClient(app.url);
+    await other.signIn("editor@fairweigh.example", demoPassword);
+    const [a, b] = await Promise.all([
+      analyst.request("PATCH", `/api/briefs/${briefId}`, { json: { rowVersion: 1, title: "Title from the analyst" } }),
+      other.request("PATCH", `/api/briefs/${briefId}`, { json: { rowVersion: 1, title: "Title from the editor" } }),
+    ]);
+    const statuses = [a.status, b.status].sort();
+    expect(statuses).toEqual([200, 409]);
+    const conflict = a.status === 409 ? a : b;
+    const winner = a.status === 200 ? a : b;
+    const current = (conflict.body.error?.details as { current: { title: string; rowVersion: number } }).current;
+    expect(current.rowVersion).toBe(2);
+    expect(current.title).toBe((winner.body.brief as { title: string }).title);
+  });
+});
+
+describe("data upload", () => {
+  it("stores a valid file with its checksum and gives the reference values", async () => {
+    const { briefId, outcomeId } = await newBriefWithOutcome("Upload of the reference data");
+    const response = await analyst.upload(`/api/outcomes/${outcomeId}/dataset`, { name: "hasselblad1998.csv", bytes: hasselbladCsv }, { format: "arm-binary" });
+    expect(response.status).toBe(200);
+    expect(response.body).toMatchObject({ valid: true, studies: 24, treatments: expected.treatments });
+    const { createHash } = await import("node:crypto");
+    expect(response.body.sha256).toBe(createHash("sha256").update(hasselbladCsv).digest("hex"));
+
+    const result = await analyst.request("GET", `/api/outcomes/${outcomeId}/result`);
+    expect(result.status).toBe(200);
+    expect(result.body.tau2 as number).toBeCloseTo(expected.random.tau2, 6);
+    const pair = (result.body.comparisons as { treatment: string; comparator: string; network: { estimate: number; se: number } }[]).find(
+      (c) => c.treatment === "grp_counseling" && c.comparator === "ind_counseling",
+    )!;
+    const reference = expected.random.comparisons[0];
+    expect(Math.abs(pair.network.estimate - reference.network.estimate) / Math.abs(reference.network.estimate)).toBeLessThan(1e-5);
+    expect(Math.abs(pair.network.se - reference.network.se) / reference.network.se).toBeLessThan(1e-5);
+
+    const { rows } = await app.connection.pool.query("select original from datasets where outcome_id = $1", [outcomeId]);
+    expect(Buffer.compare(rows[0].original, hasselbladCsv)).toBe(0);
+
+    const brief = await analyst.request("GET", `/api/briefs/${briefId}`);
+    const outcome = (brief.body.brief as { outcomes: { analysis: { state: string; engineVersion: string } }[] }).outcomes[0]!;
+    expect(outcome.analysis).toMatchObject({ state: "current", engineVersion: "1.0.0" });
+  });
+
+  it("answers a broken file with 422 and row-level errors, and keeps the data stored before", async () => {
+    const { outcomeId } = await newBriefWithOutcome("Broken upload");
+    await analyst.upload(`/api/outcomes/${outcomeId}/dataset`, { name: "good.csv", bytes: hasselbladCsv }, { format: "arm-binary" });
+    const broken = "study,treatment,events,total\nS1,a,12,10\nS1,b,3,10\nS2,a,1,10\n";
+    const response = await analyst.upload(`/api/outcomes/${outcomeId}/dataset`, { name: "broken.csv", bytes: broken }, { format: "arm-binary" });
+    expect(response.status).toBe(422);
+    expect(response.body.issues).toEqual([
+      expect.objectContaining({ row: 2, column: "events", rule: "events-exceed-total" }),
+      expect.objectContaining({ row: 4, rule: "too-few-arms", value: "S2" }),
+    ]);
+    const { rows } = await app.connection.pool.query("select file_name from datasets where outcome_id = $1", [outcomeId]);
+    expect(rows.map((r) => r.file_name)).toEqual(["good.csv"]);
+    const result = await analyst.request("GET", `/api/outcomes/${outcomeId}/result`);
+    expect(result.body.studies).toBe(24);
+  });
+
+  it("keeps the previous upload in the history when the data are replaced", async () => {
+    const { outcomeId } = await newBriefWithOutcome("Replaced data");
+    await analyst.upload(`/api/outcomes/${outcomeId}/dataset`, { name: "first.csv", bytes: hasselbladCsv }, { format: "arm-binary" });
+    const second = Buffer.from(hasselbladCsv.toString().replace("S001,no_contact,75,731", "S001,no_contact,76,731"));
+    await analyst.upload(`/api/outcomes/${outcomeId}/dataset`, { name: "second.csv", bytes: second }, { format: "arm-binary" });
+    const { rows } = await app.connection.pool.query("select file_name from datasets where outcome_id = $1 order by uploaded_at", [outcomeId]);
+    expect(rows.map((r) => r.file_name)).toEqual(["first.csv", "second.csv"]);
+  });
+
+  it("refuses an editor without the analyst role with 403", async () => {
+    const { outcomeId } = await newBriefWithOutcome("Role check");
+    const editor = new ApiClient(app.url);
+    await editor.signIn("editor@fairweigh.example", demoPassword);
+    const response = await editor.upload(`/api/outcomes/${outcomeId}/dataset`, { name: "x.csv", bytes: hasselbladCsv }, { format: "arm-binary" });
+    expect(response.status).toBe(403);
+  });
+
+  it("names a missing format field", async () => {
+    const { outcomeId } = await newBriefWithOutcome("Format check");
+    const response = await analyst.upload(`/api/outcomes/${outcomeId}/dataset`, { name: "x.csv", bytes: hasselbladCsv }, {});
+    expect(response.status).toBe(400);
+    expect(response.body.error?.key).toBe("errors.upload.format");
+  });
+});
