@@ -2,7 +2,9 @@ import { QueryClient, QueryClientProvider } from "@tanstack/react-query";
 import { useEffect, useState } from "react";
 import { useTranslation } from "react-i18next";
 import { BrowserRouter, Route, Routes } from "react-router";
+import { BriefScreen } from "./BriefScreen";
 import { DeskHome } from "./DeskHome";
+import { ResultsScreen } from "./ResultsScreen";
 import { useSignedInPerson, useSignOut } from "./queries";
 
 export function DeskApp() {
@@ -39,6 +41,8 @@ function SignedInDesk() {
   return (
     <Routes>
       <Route index element={<DeskHome person={person} onSignOut={() => signOut.mutate()} />} />
+      <Route path="briefs/:briefId" element={<BriefScreen canAnalyse={person.roles.includes("analyst")} />} />
+      <Route path="briefs/:briefId/outcomes/:outcomeId" element={<ResultsScreen />} />
       <Route path="*" element={<p>{t("desk.notFound")}</p>} />
     </Routes>
   );

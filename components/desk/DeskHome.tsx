@@ -1,8 +1,16 @@
 import { useTranslation } from "react-i18next";
+import { useNavigate } from "react-router";
 import type { SignedInPerson } from "./api";
+import { BriefList } from "./BriefList";
+import { NewBriefForm } from "./NewBriefForm";
+import { useBriefs, useCreateBrief } from "./queries";
 
 export function DeskHome({ person, onSignOut }: { person: SignedInPerson; onSignOut: () => void }) {
   const { t } = useTranslation();
+  const navigate = useNavigate();
+  const staff = person.roles.some((role) => role !== "press");
+  const briefs = useBriefs();
+  const createBrief = useCreateBrief();
   return (
     <>
       <h1 className="text-4xl font-semibold tracking-tight">{t("desk.title")}</h1>
@@ -15,6 +23,22 @@ export function DeskHome({ person, onSignOut }: { person: SignedInPerson; onSign
           </li>
         ))}
       </ul>
+      {staff ? (
+        <section className="mt-10">
+          <h2 className="mb-3 font-sans text-sm font-semibold uppercase tracking-wide">{t("desk.briefs")}</h2>
+          {briefs.data ? <BriefList briefs={briefs.data} /> : <p aria-live="polite">{t("desk.loading")}</p>}
+        </section>
+      ) : null}
+      {person.roles.includes("analyst") ? (
+        <section className="mt-10 border-t border-rule pt-6">
+          <h2 className="mb-4 text-xl font-semibold">{t("desk.newBrief")}</h2>
+          <NewBriefForm
+            busy={createBrief.isPending}
+            error={createBrief.error?.message ?? null}
+            onCreate={(fields) => createBrief.mutate(fields, { onSuccess: ({ id }) => navigate(`/briefs/${id}`) })}
+          />
+        </section>
+      ) : null}
       <button type="button" onClick={onSignOut} className="mt-10 border border-accent px-4 py-2 font-sans text-accent">
         {t("desk.signOut")}
       </button>

@@ -14,6 +14,8 @@ export class ApiError extends Error {
     readonly status: number,
     readonly key: string,
     message: string,
+    /** The whole answer, for errors that carry more than a message (a validation report, a conflict). */
+    readonly payload: unknown = null,
   ) {
     super(message);
   }
@@ -27,24 +29,26 @@ async function fetchCsrfToken(): Promise<string> {
   return body.token;
 }
 
+/** JSON bodies are sent as JSON; FormData (file uploads) as multipart. */
 export async function callApi<T>(method: string, path: string, body?: unknown): Promise<T> {
   const headers: Record<string, string> = { accept: "application/json" };
   if (method !== "GET") {
     csrfToken ??= await fetchCsrfToken();
     headers["x-csrf-token"] = csrfToken;
   }
-  if (body !== undefined) headers["content-type"] = "application/json";
+  const isForm = body instanceof FormData;
+  if (body !== undefined && !isForm) headers["content-type"] = "application/json";
   const response = await fetch(path, {
     method,
     headers,
     credentials: "same-origin",
-    body: body === undefined ? undefined : JSON.stringify(body),
+    body: body === undefined ? undefined : isForm ? body : JSON.stringify(body),
   });
   if (response.status === 204) return undefined as T;
   const payload = await response.json().catch(() => ({}));
   if (!response.ok) {
     const error = (payload as { error?: { key?: string; message?: string } }).error;
-    throw new ApiError(response.status, error?.key ?? "errors.internal", error?.message ?? response.statusText);
+    throw new ApiError(response.status, error?.key ?? "errors.internal", error?.message ?? response.statusText, payload);
   }
   return payload as T;
 }

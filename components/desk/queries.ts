@@ -1,6 +1,8 @@
 // TanStack Query hooks: the only place the desk's screens get their data from.
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
+import type { AnalysisResult } from "../../server/nma/analyse";
 import { ApiError, callApi, forgetCsrfToken, type SignedInPerson } from "./api";
+import type { BriefDetail, BriefSummary, Format, UploadReport } from "./types";
 
 /** The signed-in person, or null when nobody is (a 401 is an answer here, not an error). */
 export function useSignedInPerson() {
@@ -26,4 +28,57 @@ export function useSignOut() {
       queryClient.setQueryData(["session"], null);
     },
   });
+}
+
+export function useBriefs() {
+  return useQuery({ queryKey: ["briefs"], queryFn: async () => (await callApi<{ briefs: BriefSummary[] }>("GET", "/api/briefs")).briefs });
+}
+
+export function useBrief(id: string) {
+  return useQuery({ queryKey: ["brief", id], queryFn: async () => (await callApi<{ brief: BriefDetail }>("GET", `/api/briefs/${id}`)).brief });
+}
+
+export function useCreateBrief() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (fields: { title: string; topic: string; condition: string; population: string }) =>
+      callApi<{ id: string; slug: string }>("POST", "/api/briefs", fields),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: ["briefs"] }),
+  });
+}
+
+export function useCreateOutcome(briefId: string) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (fields: Record<string, unknown>) => callApi("POST", `/api/briefs/${briefId}/outcomes`, fields),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: ["brief", briefId] }),
+  });
+}
+
+/** A rejected file is an answer, not a failure: its report comes back either way. */
+export function useUploadDataset(briefId: string, outcomeId: string) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: async ({ file, format }: { file: File; format: Format }): Promise<UploadReport> => {
+      const form = new FormData();
+      form.set("format", format);
+      form.set("file", file);
+      try {
+        return await callApi<UploadReport>("PUT", `/api/outcomes/${outcomeId}/dataset`, form);
+      } catch (error) {
+        if (error instanceof ApiError && error.status === 422) return error.payload as UploadReport;
+        throw error;
+      }
+    },
+    onSuccess: (report) => {
+      if (report.valid) {
+        void queryClient.invalidateQueries({ queryKey: ["brief", briefId] });
+        void queryClient.invalidateQueries({ queryKey: ["result", outcomeId] });
+      }
+    },
+  });
+}
+
+export function useResult(outcomeId: string) {
+  return useQuery({ queryKey: ["result", outcomeId], queryFn: () => callApi<AnalysisResult>("GET", `/api/outcomes/${outcomeId}/result`) });
 }

@@ -3,7 +3,8 @@ import fc from "fast-check";
 import { readFileSync } from "node:fs";
 import path from "node:path";
 import { describe, expect, it } from "vitest";
-import { analyse, comparisonOf, type AnalysisResult } from "../../../server/nma/analyse";
+import { analyse, type AnalysisResult } from "../../../server/nma/analyse";
+import { comparisonOf } from "../../../server/nma/comparison";
 import { parseDataset } from "../../../server/nma/parse";
 import type { AnalysisOptions } from "../../../server/nma/types";
 

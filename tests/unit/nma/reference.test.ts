@@ -4,7 +4,8 @@
 import { readFileSync } from "node:fs";
 import path from "node:path";
 import { describe, expect, it } from "vitest";
-import { analyse, comparisonOf, type AnalysisResult } from "../../../server/nma/analyse";
+import { analyse, type AnalysisResult } from "../../../server/nma/analyse";
+import { comparisonOf } from "../../../server/nma/comparison";
 import { parseDataset } from "../../../server/nma/parse";
 import type { Better, Format, Measure } from "../../../server/nma/types";
 

@@ -1,0 +1,62 @@
+// A forest plot of each treatment against the reference: point estimate and 95% CI, the line of no
+// effect, ratios on a log axis. The rows are also given as text beside the figure (table below it).
+import { AxisBottom } from "@visx/axis";
+import { Group } from "@visx/group";
+import { scaleLinear } from "@visx/scale";
+import { Line } from "@visx/shape";
+import type { Measure } from "../../server/nma/types";
+import { formatEffect } from "./scale";
+
+export interface ForestRow {
+  label: string;
+  estimate: number;
+  lower: number;
+  upper: number;
+}
+
+const rowHeight = 28;
+const margin = { top: 8, right: 24, bottom: 40, left: 180 };
+const width = 640;
+
+export function ForestPlot({ rows, measure, title }: { rows: ForestRow[]; measure: Measure; title: string }) {
+  const height = margin.top + margin.bottom + rows.length * rowHeight;
+  const lowest = Math.min(0, ...rows.map((r) => r.lower));
+  const highest = Math.max(0, ...rows.map((r) => r.upper));
+  const pad = (highest - lowest) * 0.05 || 0.1;
+  const x = scaleLinear({ domain: [lowest - pad, highest + pad], range: [0, width - margin.left - margin.right], nice: true });
+  return (
+    <figure className="my-6">
+      <svg viewBox={`0 0 ${width} ${height}`} role="img" aria-label={title} className="w-full max-w-2xl font-sans" data-testid="forest-plot">
+        <title>{title}</title>
+        <Group left={margin.left} top={margin.top}>
+          <Line from={{ x: x(0), y: 0 }} to={{ x: x(0), y: rows.length * rowHeight }} stroke="#5b554d" strokeDasharray="4 3" />
+          {rows.map((row, i) => {
+            const y = i * rowHeight + rowHeight / 2;
+            return (
+              <g key={row.label}>
+                <text x={-12} y={y} dy="0.35em" textAnchor="end" fontSize={13} fill="#1d1a17">
+                  {row.label}
+                </text>
+                <Line from={{ x: x(row.lower), y }} to={{ x: x(row.upper), y }} stroke="#6d1f35" strokeWidth={2} />
+                <rect x={x(row.estimate) - 5} y={y - 5} width={10} height={10} fill="#6d1f35" />
+              </g>
+            );
+          })}
+          <AxisBottom
+            top={rows.length * rowHeight}
+            scale={x}
+            numTicks={6}
+            tickFormat={(value) => formatEffect(measure, Number(value))}
+            tickLabelProps={{ fontSize: 11, fill: "#5b554d", textAnchor: "middle" }}
+            stroke="#d9d1c5"
+            tickStroke="#d9d1c5"
+          />
+        </Group>
+      </svg>
+      <figcaption className="sr-only">
+        {rows.map((r) => `${r.label}: ${formatEffect(measure, r.estimate)} (${formatEffect(measure, r.lower)} to ${formatEffect(measure, r.upper)})`).join("; ")}
+      </figcaption>
+    </figure>
+  );
+}
+

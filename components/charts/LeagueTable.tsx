@@ -1,0 +1,58 @@
+// The league table: every treatment against every other, row vs column, with its 95% CI.
+import type { Measure } from "../../server/nma/types";
+import { formatEffect } from "./scale";
+
+export interface LeagueCell {
+  estimate: number;
+  lower: number;
+  upper: number;
+}
+
+export function LeagueTable({
+  treatments,
+  cell,
+  measure,
+  caption,
+}: {
+  treatments: { id: string; label: string }[];
+  cell: (row: string, column: string) => LeagueCell | null;
+  measure: Measure;
+  caption: string;
+}) {
+  return (
+    <div className="overflow-x-auto">
+      <table className="border-collapse font-sans text-xs" data-testid="league-table">
+        <caption className="mb-2 text-start text-sm text-muted">{caption}</caption>
+        <thead>
+          <tr>
+            <td />
+            {treatments.map((t) => (
+              <th key={t.id} scope="col" className="border border-rule px-2 py-1 font-semibold">
+                {t.label}
+              </th>
+            ))}
+          </tr>
+        </thead>
+        <tbody>
+          {treatments.map((row) => (
+            <tr key={row.id}>
+              <th scope="row" className="border border-rule px-2 py-1 text-start font-semibold">
+                {row.label}
+              </th>
+              {treatments.map((column) => {
+                const value = row.id === column.id ? null : cell(row.id, column.id);
+                return (
+                  <td key={column.id} className="border border-rule px-2 py-1 text-center whitespace-nowrap">
+                    {value
+                      ? `${formatEffect(measure, value.estimate)} (${formatEffect(measure, value.lower)} to ${formatEffect(measure, value.upper)})`
+                      : "—"}
+                  </td>
+                );
+              })}
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}

@@ -1,0 +1,59 @@
+// The network: treatments on a circle, node area by participants, edge width by number of studies.
+import { Group } from "@visx/group";
+
+export interface NetworkNode {
+  id: string;
+  label: string;
+  participants: number | null;
+}
+export interface NetworkEdge {
+  from: string;
+  to: string;
+  studies: number;
+}
+
+const size = 420;
+
+export function NetworkDiagram({ nodes, edges, title }: { nodes: NetworkNode[]; edges: NetworkEdge[]; title: string }) {
+  const radius = size / 2 - 70;
+  const position = new Map(
+    nodes.map((node, i) => {
+      const angle = (2 * Math.PI * i) / nodes.length - Math.PI / 2;
+      return [node.id, { x: radius * Math.cos(angle), y: radius * Math.sin(angle), angle }] as const;
+    }),
+  );
+  const largest = Math.max(1, ...nodes.map((n) => n.participants ?? 0));
+  const mostStudies = Math.max(1, ...edges.map((e) => e.studies));
+  const nodeRadius = (n: NetworkNode) => (n.participants === null ? 8 : 5 + 14 * Math.sqrt(n.participants / largest));
+  return (
+    <svg viewBox={`0 0 ${size} ${size}`} role="img" aria-label={title} className="w-full max-w-md font-sans" data-testid="network-diagram">
+      <title>{title}</title>
+      <Group left={size / 2} top={size / 2}>
+        {edges.map((edge) => {
+          const a = position.get(edge.from)!;
+          const b = position.get(edge.to)!;
+          return <line key={`${edge.from}-${edge.to}`} x1={a.x} y1={a.y} x2={b.x} y2={b.y} stroke="#b9a9a0" strokeWidth={1 + 5 * (edge.studies / mostStudies)} />;
+        })}
+        {nodes.map((node) => {
+          const p = position.get(node.id)!;
+          const labelDistance = nodeRadius(node) + 6;
+          return (
+            <g key={node.id}>
+              <circle cx={p.x} cy={p.y} r={nodeRadius(node)} fill="#6d1f35" />
+              <text
+                x={p.x + labelDistance * Math.cos(p.angle)}
+                y={p.y + labelDistance * Math.sin(p.angle)}
+                textAnchor={Math.cos(p.angle) > 0.3 ? "start" : Math.cos(p.angle) < -0.3 ? "end" : "middle"}
+                dy="0.35em"
+                fontSize={12}
+                fill="#1d1a17"
+              >
+                {node.label}
+              </text>
+            </g>
+          );
+        })}
+      </Group>
+    </svg>
+  );
+}

@@ -1,0 +1,71 @@
+import { useTranslation } from "react-i18next";
+import { Link, useParams } from "react-router";
+import { OutcomeForm } from "./OutcomeForm";
+import { useBrief, useCreateOutcome, useUploadDataset } from "./queries";
+import type { OutcomeSummary } from "./types";
+import { UploadForm } from "./UploadForm";
+
+export function BriefScreen({ canAnalyse }: { canAnalyse: boolean }) {
+  const { t } = useTranslation();
+  const { briefId = "" } = useParams();
+  const brief = useBrief(briefId);
+  const createOutcome = useCreateOutcome(briefId);
+  if (brief.isError) return <p role="alert">{t("desk.error", { message: brief.error.message })}</p>;
+  if (!brief.data) return <p aria-live="polite">{t("desk.loading")}</p>;
+  const { data } = brief;
+  return (
+    <>
+      <p className="font-sans text-sm">
+        <Link to="/">{t("desk.briefs")}</Link>
+      </p>
+      <h1 className="mt-2 text-3xl font-semibold">{data.title}</h1>
+      <p className="mt-2 font-sans text-sm text-muted">
+        {data.topic} · {data.condition} · {data.population} · {t(`desk.status.${data.status}`)}
+      </p>
+      <h2 className="mt-10 font-sans text-sm font-semibold uppercase tracking-wide">{t("desk.outcomes")}</h2>
+      {data.outcomes.length === 0 ? <p className="mt-3 text-muted">{t("desk.noOutcomes")}</p> : null}
+      {data.outcomes.map((outcome) => (
+        <OutcomePanel key={outcome.id} briefId={briefId} outcome={outcome} canAnalyse={canAnalyse} />
+      ))}
+      {canAnalyse ? (
+        <section className="mt-10 border-t border-rule pt-6">
+          <h2 className="mb-4 text-xl font-semibold">{t("desk.addOutcome")}</h2>
+          <OutcomeForm onSubmit={(fields) => createOutcome.mutate(fields)} busy={createOutcome.isPending} error={createOutcome.error?.message ?? null} />
+        </section>
+      ) : null}
+    </>
+  );
+}
+
+function OutcomePanel({ briefId, outcome, canAnalyse }: { briefId: string; outcome: OutcomeSummary; canAnalyse: boolean }) {
+  const { t } = useTranslation();
+  const upload = useUploadDataset(briefId, outcome.id);
+  return (
+    <section className="mt-4 border border-rule bg-white p-5" aria-label={outcome.name}>
+      <h3 className="text-xl font-semibold">{outcome.name}</h3>
+      <p className="mt-1 font-sans text-sm text-muted">
+        {outcome.measure} · {t(`desk.model.${outcome.model}`)} · {outcome.referenceTreatment} · {t(`desk.direction.${outcome.direction}`)}
+      </p>
+      <p className="mt-2 font-sans text-sm" data-testid="analysis-state">
+        {t(`desk.analysis.${outcome.analysis.state}`, { file: outcome.analysis.fileName })}
+        {outcome.analysis.state !== "no-data" ? (
+          <>
+            {" · "}
+            <Link to={`/briefs/${briefId}/outcomes/${outcome.id}`}>{t("desk.results")}</Link>
+          </>
+        ) : null}
+      </p>
+      {canAnalyse ? (
+        <div className="mt-4">
+          <UploadForm
+            kind={outcome.kind}
+            busy={upload.isPending}
+            report={upload.data}
+            error={upload.error?.message ?? null}
+            onUpload={(file, format) => upload.mutate({ file, format })}
+          />
+        </div>
+      ) : null}
+    </section>
+  );
+}

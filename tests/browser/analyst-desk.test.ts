@@ -1,0 +1,63 @@
+// The analyst's path in a real browser: sign in, create a brief, add an outcome, upload a file, see the results.
+import path from "node:path";
+import type { Browser } from "playwright-core";
+import { afterAll, beforeAll, expect, it } from "vitest";
+import en from "../../locales/en/common.json";
+import { demoPassword } from "../../server/db/seed";
+import { launchChromium } from "../support/browser";
+import { startProductionServer, type RunningServer } from "../support/production-server";
+
+const hasselblad = path.resolve(__dirname, "../../../shared/reference/hasselblad1998.csv");
+
+let server: RunningServer;
+let browser: Browser;
+beforeAll(async () => {
+  server = await startProductionServer();
+  browser = await launchChromium();
+});
+afterAll(async () => {
+  await browser?.close();
+  await server?.stop();
+});
+
+it("goes from a CSV file to a forest plot, and shows a validation report for a broken file", async () => {
+  const page = await (await browser.newContext()).newPage();
+  const errors: string[] = [];
+  page.on("pageerror", (error) => errors.push(error.message));
+
+  await page.goto(`${server.url}/sign-in`);
+  await page.fill("input[name=email]", "analyst@fairweigh.example");
+  await page.fill("input[name=password]", demoPassword);
+  await Promise.all([page.waitForURL(`${server.url}/desk`), page.click("button[type=submit]")]);
+
+  const briefForm = page.getByRole("form", { name: en.desk.newBrief });
+  await briefForm.getByLabel(en.desk.field.title).fill("Support to stop smoking (browser test)");
+  await briefForm.getByLabel(en.desk.field.topic).fill("Smoking");
+  await briefForm.getByLabel(en.desk.field.condition).fill("Tobacco dependence");
+  await briefForm.getByLabel(en.desk.field.population).fill("Adults who smoke");
+  await Promise.all([page.waitForURL(/\/desk\/briefs\/[0-9a-f-]+$/), briefForm.getByRole("button", { name: en.desk.create }).click()]);
+  await expect(page.locator("h1").textContent()).resolves.toBe("Support to stop smoking (browser test)");
+
+  const outcomeForm = page.getByRole("form", { name: en.desk.addOutcome });
+  await outcomeForm.getByLabel(en.desk.field.name).fill("Quit smoking");
+  await outcomeForm.getByLabel(en.desk.field.reference).fill("no_contact");
+  await outcomeForm.getByRole("button", { name: en.desk.addOutcome }).click();
+  const panel = page.getByRole("region", { name: "Quit smoking" });
+  await expect(panel.getByTestId("analysis-state").textContent()).resolves.toContain(en.desk.analysis["no-data"]);
+
+  const broken = { name: "broken.csv", mimeType: "text/csv", buffer: Buffer.from("study,treatment,events,total\nS1,a,12,10\nS1,b,1,10\n") };
+  await panel.locator("input[type=file]").setInputFiles(broken);
+  await panel.getByRole("button", { name: en.desk.uploadSubmit }).click();
+  await expect(panel.getByTestId("validation-report").textContent()).resolves.toContain("Line 2, column events: events (12) exceed total (10)");
+
+  await panel.locator("input[type=file]").setInputFiles(hasselblad);
+  await panel.getByRole("button", { name: en.desk.uploadSubmit }).click();
+  await expect(panel.getByRole("status").textContent()).resolves.toContain("24 studies, 4 treatments");
+
+  await panel.getByRole("link", { name: en.desk.results }).click();
+  await page.getByTestId("forest-plot").waitFor();
+  const forest = await page.getByTestId("forest-plot").textContent();
+  for (const treatment of ["grp_counseling", "ind_counseling", "self_help"]) expect(forest).toContain(treatment);
+  expect(await page.textContent("main")).toContain("Heterogeneity is substantial");
+  expect(errors).toEqual([]);
+});
