@@ -12,10 +12,12 @@ export interface NetworkEdge {
   studies: number;
 }
 
-const size = 420;
+// Wide enough that labels beside the circle's left and right nodes are not cut off.
+const width = 600;
+const height = 440;
 
 export function NetworkDiagram({ nodes, edges, title }: { nodes: NetworkNode[]; edges: NetworkEdge[]; title: string }) {
-  const radius = size / 2 - 70;
+  const radius = height / 2 - 60;
   const position = new Map(
     nodes.map((node, i) => {
       const angle = (2 * Math.PI * i) / nodes.length - Math.PI / 2;
@@ -26,9 +28,9 @@ export function NetworkDiagram({ nodes, edges, title }: { nodes: NetworkNode[]; 
   const mostStudies = Math.max(1, ...edges.map((e) => e.studies));
   const nodeRadius = (n: NetworkNode) => (n.participants === null ? 8 : 5 + 14 * Math.sqrt(n.participants / largest));
   return (
-    <svg viewBox={`0 0 ${size} ${size}`} role="img" aria-label={title} className="w-full max-w-md font-sans" data-testid="network-diagram">
+    <svg viewBox={`0 0 ${width} ${height}`} role="img" aria-label={title} className="w-full max-w-xl font-sans" data-testid="network-diagram">
       <title>{title}</title>
-      <Group left={size / 2} top={size / 2}>
+      <Group left={width / 2} top={height / 2}>
         {edges.map((edge) => {
           const a = position.get(edge.from)!;
           const b = position.get(edge.to)!;

@@ -9,5 +9,7 @@ export function displayValue(measure: Measure, value: number): number {
 
 export function formatEffect(measure: Measure, value: number): string {
   const shown = displayValue(measure, value);
-  return isRatio(measure) ? shown.toFixed(2) : shown.toFixed(Math.abs(shown) < 10 ? 2 : 1);
+  const text = isRatio(measure) ? shown.toFixed(2) : shown.toFixed(Math.abs(shown) < 10 ? 2 : 1);
+  // A value that rounds to zero reads as zero, not "-0.00".
+  return /^-0(\.0+)?$/.test(text) ? text.slice(1) : text;
 }
