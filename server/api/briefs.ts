@@ -9,6 +9,10 @@ import { createOutcome, findOutcome, outcomeInput } from "../briefs/outcomes";
 import type { Database } from "../db/client";
 import { sendError, validateBody } from "../http/errors";
 import { DatasetError, formats } from "../nma/types";
+import { assessCertainty } from "../grade/assess";
+import { judgementInput, loadJudgements, saveJudgement } from "../grade/judgements";
+import type { AnalysisResult } from "../nma/analyse";
+import type { OutcomeRow } from "../briefs/outcomes";
 
 const briefFields = {
   title: z.string().trim().min(1).max(300),
@@ -121,6 +125,38 @@ export function briefRoutes(db: Database): Router {
     const stored = await latestResult(db, String(req.params.id));
     if (!stored) return sendError(res, 404, { key: "errors.noResult", message: "This outcome has no analysis yet: upload its data first." });
     res.json(stored.result);
+  });
+
+  /** Certainty of every comparison of the outcome's latest result, with suggestions and what is pending. */
+  async function certaintyOf(outcome: OutcomeRow) {
+    const stored = await latestResult(db, outcome.id);
+    if (!stored) return null;
+    const thresholds = { small: outcome.thresholdSmall, moderate: outcome.thresholdModerate, large: outcome.thresholdLarge };
+    return assessCertainty(stored.result as AnalysisResult, await loadJudgements(db, outcome.id), thresholds);
+  }
+
+  router.get("/outcomes/:id/certainty", requireRole(...deskRoles), async (req, res) => {
+    const outcome = await findOutcome(db, String(req.params.id));
+    const comparisons = outcome ? await certaintyOf(outcome) : null;
+    if (!comparisons) return sendError(res, 404, { key: "errors.noResult", message: "This outcome has no analysis yet: upload its data first." });
+    res.json({ comparisons });
+  });
+
+  router.put("/outcomes/:id/certainty/:treatment/:comparator", requireRole("analyst"), validateBody(judgementInput), async (req, res) => {
+    const outcome = await findOutcome(db, String(req.params.id));
+    const before = outcome ? await certaintyOf(outcome) : null;
+    if (!outcome || !before) return sendError(res, 404, { key: "errors.noResult", message: "This outcome has no analysis yet: upload its data first." });
+    const treatment = String(req.params.treatment);
+    const comparator = String(req.params.comparator);
+    if (!before.some((c) => c.treatment === treatment && c.comparator === comparator)) {
+      return sendError(res, 404, {
+        key: "errors.noComparison",
+        message: `The result has no comparison ${treatment} vs ${comparator}; pairs are named in the order the result lists them.`,
+      });
+    }
+    await saveJudgement(db, { outcomeId: outcome.id, treatment, comparator }, req.body, req.user!.id);
+    const after = await certaintyOf(outcome);
+    res.json({ comparison: after!.find((c) => c.treatment === treatment && c.comparator === comparator) });
   });
 
   return router;

@@ -173,3 +173,20 @@ export const analysisResults = pgTable(
   },
   (table) => [index("analysis_results_outcome_idx").on(table.outcomeId, table.createdAt)],
 );
+
+/** The analyst's certainty judgements for one comparison of an outcome (server/grade/assess.ts). */
+export const certaintyJudgements = pgTable(
+  "certainty_judgements",
+  {
+    outcomeId: uuid("outcome_id")
+      .notNull()
+      .references(() => outcomes.id),
+    /** The pair in the order the result lists it (sorted treatment labels). */
+    treatment: text("treatment").notNull(),
+    comparator: text("comparator").notNull(),
+    judgement: jsonb("judgement").notNull(),
+    updatedBy: uuid("updated_by").references(() => people.id),
+    updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (table) => [primaryKey({ columns: [table.outcomeId, table.treatment, table.comparator] })],
+);

@@ -146,3 +146,46 @@ describe("data upload", () => {
     expect(response.body.error?.key).toBe("errors.upload.format");
   });
 });
+
+describe("certainty judgements", () => {
+  const clean = { levels: 0, reason: "" };
+  const domains = { riskOfBias: clean, inconsistency: clean, indirectness: clean, publicationBias: clean };
+
+  it("lists what needs a judgement, then derives ratings from what the analyst records", async () => {
+    const { outcomeId } = await newBriefWithOutcome("Certainty");
+    await analyst.upload(`/api/outcomes/${outcomeId}/dataset`, { name: "h.csv", bytes: hasselbladCsv }, { format: "arm-binary" });
+    const before = await analyst.request("GET", `/api/outcomes/${outcomeId}/certainty`);
+    expect(before.status).toBe(200);
+    const comparisons = before.body.comparisons as { treatment: string; comparator: string; pending: string[]; suggestions: { imprecision: { levels: number } } }[];
+    expect(comparisons).toHaveLength(6);
+    expect(comparisons.every((c) => c.pending.includes("incoherence") && c.pending.includes("imprecision"))).toBe(true);
+
+    const pair = `/api/outcomes/${outcomeId}/certainty/grp_counseling/ind_counseling`;
+    const saved = await analyst.request("PUT", pair, {
+      json: { direct: { ...domains, riskOfBias: { levels: 1, reason: "Most trials did not conceal allocation" } }, incoherence: { levels: 0, reason: "" }, imprecision: { levels: 2, reason: "" } },
+    });
+    expect(saved.status).toBe(200);
+    expect(saved.body.comparison).toMatchObject({ direct: "moderate", pending: ["indirect"] });
+
+    const { rows } = await app.connection.pool.query("select action from audit_log where entity_id = $1 order by id desc limit 1", [outcomeId]);
+    expect(rows[0].action).toBe("judge-certainty");
+  });
+
+  it("requires a reason for rating down, naming the field", async () => {
+    const { outcomeId } = await newBriefWithOutcome("Certainty reasons");
+    await analyst.upload(`/api/outcomes/${outcomeId}/dataset`, { name: "h.csv", bytes: hasselbladCsv }, { format: "arm-binary" });
+    const response = await analyst.request("PUT", `/api/outcomes/${outcomeId}/certainty/grp_counseling/ind_counseling`, {
+      json: { direct: { ...domains, indirectness: { levels: 1, reason: "" } } },
+    });
+    expect(response.status).toBe(400);
+    expect(response.body.error?.details).toEqual([expect.objectContaining({ field: "direct.indirectness.reason" })]);
+  });
+
+  it("refuses an editor with 403", async () => {
+    const { outcomeId } = await newBriefWithOutcome("Certainty roles");
+    const editor = new ApiClient(app.url);
+    await editor.signIn("editor@fairweigh.example", demoPassword);
+    const response = await editor.request("PUT", `/api/outcomes/${outcomeId}/certainty/a/b`, { json: {} });
+    expect(response.status).toBe(403);
+  });
+});

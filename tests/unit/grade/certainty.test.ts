@@ -89,3 +89,36 @@ describe("suggestions", () => {
     expect(imprecisionSuggestion({ lower: 0.1, upper: 0.4 }, noThresholds).levels).toBe(0);
   });
 });
+
+describe("assessing every comparison of an outcome (METHODS.md §8)", async () => {
+  const { assessCertainty } = await import("../../../server/grade/assess");
+  const { analyse } = await import("../../../server/nma/analyse");
+  const { parseDataset } = await import("../../../server/nma/parse");
+  const { pairKey } = await import("../../../server/grade/certainty");
+  // The hand-worked triangle of tests/unit/nma/worked-example.test.ts: every pair has direct evidence.
+  const csv = "study,treatment1,treatment2,estimate,se\nS1,B,A,1.0,0.5\nS2,C,A,2.0,0.5\nS3,C,B,0.5,1.0\n";
+  const result = analyse(parseDataset(csv, "contrast"), { measure: "MD", model: "fixed", reference: "A", better: "higher" });
+  const thresholds = { small: null, moderate: null, large: null };
+  const clean = { riskOfBias: none, inconsistency: none, indirectness: none, publicationBias: none };
+  const oneDown = { ...clean, riskOfBias: { levels: 1 as const, reason: "open-label trial" } };
+
+  it("lists every part as pending before any judgement", () => {
+    const [first] = assessCertainty(result, new Map(), thresholds);
+    expect(first!.pending).toEqual(["direct", "indirect", "incoherence", "imprecision"]);
+    expect(first!.network).toBeNull();
+  });
+
+  it("derives indirect certainty from the loop's direct judgements and the network certainty from the decisions", () => {
+    const judgements = new Map([
+      [pairKey("A", "B"), { direct: clean, incoherence: { levels: 0, reason: "" }, imprecision: { levels: 0, reason: "" } }],
+      [pairKey("A", "C"), { direct: clean }],
+      [pairKey("B", "C"), { direct: oneDown }],
+    ]);
+    const ab = assessCertainty(result, judgements, thresholds).find((c) => c.treatment === "A" && c.comparator === "B")!;
+    expect(ab.direct).toBe("high");
+    expect(ab.indirectVia).toBe("C");
+    expect(ab.indirect).toBe("moderate"); // the lower of A–C (high) and C–B (moderate)
+    expect(ab.network).toBe("high"); // the higher of direct and indirect, nothing confirmed against it
+    expect(ab.pending).toEqual([]);
+  });
+});
