@@ -3,6 +3,7 @@ import { useEffect, useState } from "react";
 import { useTranslation } from "react-i18next";
 import { BrowserRouter, Route, Routes } from "react-router";
 import { BriefScreen } from "./BriefScreen";
+import { CertaintyScreen } from "./CertaintyScreen";
 import { DeskHome } from "./DeskHome";
 import { ResultsScreen } from "./ResultsScreen";
 import { useSignedInPerson, useSignOut } from "./queries";
@@ -43,6 +44,7 @@ function SignedInDesk() {
       <Route index element={<DeskHome person={person} onSignOut={() => signOut.mutate()} />} />
       <Route path="briefs/:briefId" element={<BriefScreen canAnalyse={person.roles.includes("analyst")} />} />
       <Route path="briefs/:briefId/outcomes/:outcomeId" element={<ResultsScreen />} />
+      <Route path="briefs/:briefId/outcomes/:outcomeId/certainty" element={<CertaintyScreen canJudge={person.roles.includes("analyst")} />} />
       <Route path="*" element={<p>{t("desk.notFound")}</p>} />
     </Routes>
   );

@@ -29,6 +29,9 @@ export function ResultsScreen() {
         <Link to={`/briefs/${briefId}`}>{t("desk.backToBrief")}</Link>
       </p>
       <h1 className="mt-2 text-3xl font-semibold">{t("desk.results")}</h1>
+      <p className="mt-2 font-sans text-sm">
+        <Link to={`/briefs/${briefId}/outcomes/${outcomeId}/certainty`}>{t("desk.certainty")}</Link>
+      </p>
       <section className="mt-6 space-y-2 font-sans text-sm">
         <p>{t("desk.heterogeneity", { tau2: fixed3(result.tau2), i2: (heterogeneity.I2 * 100).toFixed(0), q: heterogeneity.Q.toFixed(2), df: heterogeneity.df })}</p>
         <p>{t("desk.inconsistency", { q: inconsistency.Qbetween.toFixed(2), df: inconsistency.dfBetween, p: inconsistency.pBetween === null ? "—" : inconsistency.pBetween.toPrecision(2) })}</p>

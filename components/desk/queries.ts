@@ -1,5 +1,6 @@
 // TanStack Query hooks: the only place the desk's screens get their data from.
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
+import type { ComparisonCertainty, ComparisonJudgement } from "../../server/grade/assess";
 import type { AnalysisResult } from "../../server/nma/analyse";
 import { ApiError, callApi, forgetCsrfToken, type SignedInPerson } from "./api";
 import type { BriefDetail, BriefSummary, Format, UploadReport } from "./types";
@@ -81,4 +82,20 @@ export function useUploadDataset(briefId: string, outcomeId: string) {
 
 export function useResult(outcomeId: string) {
   return useQuery({ queryKey: ["result", outcomeId], queryFn: () => callApi<AnalysisResult>("GET", `/api/outcomes/${outcomeId}/result`) });
+}
+
+export function useCertainty(outcomeId: string) {
+  return useQuery({
+    queryKey: ["certainty", outcomeId],
+    queryFn: async () => (await callApi<{ comparisons: ComparisonCertainty[] }>("GET", `/api/outcomes/${outcomeId}/certainty`)).comparisons,
+  });
+}
+
+export function useSaveJudgement(outcomeId: string) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: ({ treatment, comparator, judgement }: { treatment: string; comparator: string; judgement: ComparisonJudgement }) =>
+      callApi("PUT", `/api/outcomes/${outcomeId}/certainty/${encodeURIComponent(treatment)}/${encodeURIComponent(comparator)}`, judgement),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: ["certainty", outcomeId] }),
+  });
 }

@@ -20,7 +20,7 @@ afterAll(async () => {
   await server?.stop();
 });
 
-it("goes from a CSV file to a forest plot, and shows a validation report for a broken file", async () => {
+it("goes from a CSV file to a forest plot and a certainty judgement, with a validation report for a broken file", async () => {
   const page = await (await browser.newContext()).newPage();
   const errors: string[] = [];
   page.on("pageerror", (error) => errors.push(error.message));
@@ -59,5 +59,16 @@ it("goes from a CSV file to a forest plot, and shows a validation report for a b
   const forest = await page.getByTestId("forest-plot").textContent();
   for (const treatment of ["grp_counseling", "ind_counseling", "self_help"]) expect(forest).toContain(treatment);
   expect(await page.textContent("main")).toContain("Heterogeneity is substantial");
+
+  await page.getByRole("link", { name: en.desk.certainty }).click();
+  await expect(page.getByTestId("pending-count").textContent()).resolves.toBe("6 comparisons still need a judgement.");
+  const row = page.getByRole("row", { name: /grp_counseling vs ind_counseling/ });
+  await row.getByRole("button", { name: en.desk.judge }).click();
+  const form = page.getByRole("form", { name: `${en.desk.judge}: grp_counseling vs ind_counseling` });
+  await form.getByLabel(en.desk.domain.riskOfBias, { exact: true }).selectOption("1");
+  await form.getByLabel(`${en.desk.domain.riskOfBias}: ${en.desk.reason}`).fill("Allocation was not concealed in most trials");
+  await form.getByRole("button", { name: en.desk.saveJudgement }).click();
+  await form.getByRole("status").waitFor();
+  await expect(row.locator("td").first().textContent()).resolves.toBe(en.certainty.rating.moderate);
   expect(errors).toEqual([]);
 });
