@@ -3,11 +3,11 @@
 import { createHash } from "node:crypto";
 import { and, desc, eq } from "drizzle-orm";
 import { recordAudit } from "../audit";
-import type { Database } from "../db/client";
+import type { Database, Executor } from "../db/client";
 import { analysisResults, datasets, type outcomes } from "../db/schema";
 import { analyse, engineVersion } from "../nma/analyse";
 import { parseDataset } from "../nma/parse";
-import type { AnalysisOptions, Format } from "../nma/types";
+import type { AnalysisOptions, Format, ParsedDataset } from "../nma/types";
 
 type Outcome = typeof outcomes.$inferSelect;
 
@@ -75,7 +75,23 @@ export async function storeDataset(
   });
 }
 
-export async function latestDataset(db: Database, outcomeId: string) {
+/** Analyses the outcome's current data again with its current settings (after the settings changed). */
+export async function rerunLatest(db: Executor, outcome: Outcome): Promise<void> {
+  const dataset = await latestDataset(db, outcome.id);
+  if (!dataset) return;
+  const settings = analysisSettings(outcome);
+  const result = analyse(dataset.parsed as ParsedDataset, settings);
+  await db.insert(analysisResults).values({
+    outcomeId: outcome.id,
+    datasetId: dataset.id,
+    engineVersion,
+    inputChecksum: inputChecksum(dataset.sha256, settings),
+    settings,
+    result,
+  });
+}
+
+export async function latestDataset(db: Executor, outcomeId: string) {
   return (await db.query.datasets.findFirst({ where: eq(datasets.outcomeId, outcomeId), orderBy: desc(datasets.uploadedAt) })) ?? null;
 }
 

@@ -2,12 +2,12 @@
 import { Router } from "express";
 import multer from "multer";
 import { z } from "zod";
-import { latestResult, formatFitsOutcome, storeDataset } from "../analysis/run";
+import { formatFitsOutcome, latestResult, rerunLatest, storeDataset } from "../analysis/run";
 import { requireRole } from "../auth/require-role";
 import { briefWithOutcomes, createBrief, findBrief, listBriefs, updateBrief } from "../briefs/briefs";
-import { createOutcome, findOutcome, outcomeInput } from "../briefs/outcomes";
+import { createOutcome, findOutcome, outcomeInput, outcomePatch, updateOutcome } from "../briefs/outcomes";
 import type { Database } from "../db/client";
-import { sendError, validateBody } from "../http/errors";
+import { fieldIssues, sendError, validateBody } from "../http/errors";
 import { DatasetError, formats } from "../nma/types";
 import { assessCertainty } from "../grade/assess";
 import { judgementInput, loadJudgements, saveJudgement } from "../grade/judgements";
@@ -75,6 +75,29 @@ export function briefRoutes(db: Database): Router {
     if (!(await findBrief(db, String(req.params.id)))) return sendError(res, 404, { key: "errors.notFound", message: "There is no such brief." });
     const outcome = await createOutcome(db, String(req.params.id), req.body, req.user!.id);
     res.status(201).json({ outcome });
+  });
+
+  router.patch("/outcomes/:id", requireRole("analyst"), validateBody(outcomePatch), async (req, res) => {
+    const { rowVersion, ...changes } = req.body as z.infer<typeof outcomePatch>;
+    try {
+      const update = await updateOutcome(db, String(req.params.id), rowVersion, changes, req.user!.id, rerunLatest);
+      if (update.ok) return res.json({ outcome: update.outcome });
+      if (update.reason === "not-found") return sendError(res, 404, { key: "errors.notFound", message: "There is no such outcome." });
+      if (update.reason === "invalid") {
+        return sendError(res, 400, { key: "errors.invalidRequest", message: "The changed outcome is not valid.", details: fieldIssues(update.error) });
+      }
+      sendError(res, 409, {
+        key: "errors.conflict",
+        message: `Someone else changed this outcome (now version ${update.current.rowVersion}, you edited version ${rowVersion}).`,
+        details: { current: update.current },
+      });
+    } catch (error) {
+      if (!(error instanceof DatasetError)) throw error;
+      res.status(422).json({
+        error: { key: "errors.outcome.notAnalysable", message: "The current data cannot be analysed with these settings; nothing was changed." },
+        issues: error.issues,
+      });
+    }
   });
 
   router.put("/outcomes/:id/dataset", requireRole("analyst"), (req, res, next) => {

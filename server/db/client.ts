@@ -17,3 +17,6 @@ export function connectDatabase(url: string): DatabaseConnection {
   const db = drizzle(pool, { schema });
   return { pool, db, close: () => pool.end() };
 }
+
+/** The database or a transaction on it: code that reads and writes works inside either. */
+export type Executor = Database | Parameters<Parameters<Database["transaction"]>[0]>[0];

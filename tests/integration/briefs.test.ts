@@ -189,3 +189,32 @@ describe("certainty judgements", () => {
     expect(response.status).toBe(403);
   });
 });
+
+describe("changing an outcome's settings", () => {
+  it("re-runs the analysis of the current data with the new settings", async () => {
+    const { briefId, outcomeId } = await newBriefWithOutcome("Settings change");
+    await analyst.upload(`/api/outcomes/${outcomeId}/dataset`, { name: "h.csv", bytes: hasselbladCsv }, { format: "arm-binary" });
+    const response = await analyst.request("PATCH", `/api/outcomes/${outcomeId}`, { json: { rowVersion: 1, model: "fixed" } });
+    expect(response.status).toBe(200);
+    const result = await analyst.request("GET", `/api/outcomes/${outcomeId}/result`);
+    expect(result.body).toMatchObject({ model: "fixed", tau2: 0 });
+    const brief = await analyst.request("GET", `/api/briefs/${briefId}`);
+    expect((brief.body.brief as { outcomes: { analysis: { state: string } }[] }).outcomes[0]!.analysis.state).toBe("current");
+  });
+
+  it("refuses a reference the data do not have with 422 and changes nothing", async () => {
+    const { outcomeId } = await newBriefWithOutcome("Settings refused");
+    await analyst.upload(`/api/outcomes/${outcomeId}/dataset`, { name: "h.csv", bytes: hasselbladCsv }, { format: "arm-binary" });
+    const response = await analyst.request("PATCH", `/api/outcomes/${outcomeId}`, { json: { rowVersion: 1, referenceTreatment: "placebo" } });
+    expect(response.status).toBe(422);
+    expect(response.body.issues).toEqual([expect.objectContaining({ rule: "unknown-reference", value: "placebo" })]);
+    const { rows } = await app.connection.pool.query("select reference_treatment, row_version from outcomes where id = $1", [outcomeId]);
+    expect(rows[0]).toEqual({ reference_treatment: "no_contact", row_version: 1 });
+  });
+
+  it("answers a stale row version with 409", async () => {
+    const { outcomeId } = await newBriefWithOutcome("Settings conflict");
+    expect((await analyst.request("PATCH", `/api/outcomes/${outcomeId}`, { json: { rowVersion: 1, name: "First" } })).status).toBe(200);
+    expect((await analyst.request("PATCH", `/api/outcomes/${outcomeId}`, { json: { rowVersion: 1, name: "Second" } })).status).toBe(409);
+  });
+});
