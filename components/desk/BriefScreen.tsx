@@ -1,7 +1,8 @@
 import { useTranslation } from "react-i18next";
 import { Link, useParams } from "react-router";
 import { OutcomeForm } from "./OutcomeForm";
-import { useBrief, useCreateOutcome, useUploadDataset } from "./queries";
+import { TreatmentNamesForm } from "./TreatmentNamesForm";
+import { useBrief, useCreateOutcome, useNameTreatments, useUploadDataset } from "./queries";
 import type { OutcomeSummary } from "./types";
 import { UploadForm } from "./UploadForm";
 
@@ -10,6 +11,7 @@ export function BriefScreen({ canAnalyse }: { canAnalyse: boolean }) {
   const { briefId = "" } = useParams();
   const brief = useBrief(briefId);
   const createOutcome = useCreateOutcome(briefId);
+  const nameTreatments = useNameTreatments(briefId);
   if (brief.isError) return <p role="alert">{t("desk.error", { message: brief.error.message })}</p>;
   if (!brief.data) return <p aria-live="polite">{t("desk.loading")}</p>;
   const { data } = brief;
@@ -27,6 +29,14 @@ export function BriefScreen({ canAnalyse }: { canAnalyse: boolean }) {
       {data.outcomes.map((outcome) => (
         <OutcomePanel key={outcome.id} briefId={briefId} outcome={outcome} canAnalyse={canAnalyse} />
       ))}
+      {canAnalyse && data.treatments.length > 0 ? (
+        <TreatmentNamesForm
+          treatments={data.treatments}
+          busy={nameTreatments.isPending}
+          saved={nameTreatments.isSuccess}
+          onSave={(names) => nameTreatments.mutate(names)}
+        />
+      ) : null}
       {canAnalyse ? (
         <section className="mt-10 border-t border-rule pt-6">
           <h2 className="mb-4 text-xl font-semibold">{t("desk.addOutcome")}</h2>

@@ -6,19 +6,20 @@ import { comparisonOf } from "../../server/nma/comparison";
 import { ForestPlot } from "../charts/ForestPlot";
 import { LeagueTable } from "../charts/LeagueTable";
 import { NetworkDiagram } from "../charts/NetworkDiagram";
-import { useResult } from "./queries";
+import { useResult, useTreatmentName } from "./queries";
 
 export function ResultsScreen() {
   const { t } = useTranslation();
   const { briefId = "", outcomeId = "" } = useParams();
   const query = useResult(outcomeId);
+  const name = useTreatmentName(briefId);
   if (query.isError) return <p role="alert">{t("desk.error", { message: query.error.message })}</p>;
   if (!query.data) return <p aria-live="polite">{t("desk.loading")}</p>;
   const result = query.data;
   const others = result.treatments.filter((x) => x !== result.reference);
   const forestRows = others.map((treatment) => {
     const c = comparisonOf(result, treatment, result.reference)!;
-    return { label: treatment, estimate: c.network.estimate, lower: c.network.lower, upper: c.network.upper };
+    return { label: name(treatment), estimate: c.network.estimate, lower: c.network.lower, upper: c.network.upper };
   });
   const incoherent = result.comparisons.filter((c) => c.incoherence && c.incoherence.p < 0.05);
   const { heterogeneity, inconsistency } = result;
@@ -39,22 +40,22 @@ export function ResultsScreen() {
         {inconsistency.pBetween !== null && inconsistency.pBetween < 0.05 ? <p role="note" className="border-s-4 border-accent ps-3">{t("desk.inconsistencyWarning")}</p> : null}
         {incoherent.length > 0 ? (
           <p role="note" className="border-s-4 border-accent ps-3">
-            {t("desk.incoherentPairs", { pairs: incoherent.map((c) => `${c.treatment} vs ${c.comparator}`).join(", ") })}
+            {t("desk.incoherentPairs", { pairs: incoherent.map((c) => `${name(c.treatment)} vs ${name(c.comparator)}`).join(", ") })}
           </p>
         ) : null}
         {result.excludedStudies.length > 0 ? <p>{t("desk.excluded", { studies: result.excludedStudies.join(", ") })}</p> : null}
       </section>
-      <ForestPlot rows={forestRows} measure={result.measure} title={t("desk.forestTitle", { reference: result.reference, measure: result.measure })} />
+      <ForestPlot rows={forestRows} measure={result.measure} title={t("desk.forestTitle", { reference: name(result.reference), measure: result.measure })} />
       <NetworkDiagram
         title={t("desk.networkTitle")}
-        nodes={result.treatments.map((id) => ({ id, label: id, participants: result.network.participants[id] ?? null }))}
+        nodes={result.treatments.map((id) => ({ id, label: name(id), participants: result.network.participants[id] ?? null }))}
         edges={result.network.edges.map((e) => ({ from: e.treatment, to: e.comparator, studies: e.studies }))}
       />
       <details className="mt-8">
         <summary className="cursor-pointer font-sans font-semibold">{t("desk.leagueTable")}</summary>
         <div className="mt-4">
           <LeagueTable
-            treatments={result.treatments.map((id) => ({ id, label: id }))}
+            treatments={result.treatments.map((id) => ({ id, label: name(id) }))}
             measure={result.measure}
             caption={t("desk.leagueCaption", { measure: result.measure })}
             cell={(row, column) => comparisonOf(result, row, column)?.network ?? null}

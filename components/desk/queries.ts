@@ -99,3 +99,17 @@ export function useSaveJudgement(outcomeId: string) {
     onSuccess: () => queryClient.invalidateQueries({ queryKey: ["certainty", outcomeId] }),
   });
 }
+
+export function useNameTreatments(briefId: string) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (names: Record<string, string>) => callApi("PUT", `/api/briefs/${briefId}/treatments`, { names }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: ["brief", briefId] }),
+  });
+}
+
+/** The name readers see for a treatment label of the brief's data. */
+export function useTreatmentName(briefId: string): (label: string) => string {
+  const brief = useBrief(briefId);
+  return (label) => brief.data?.treatments.find((t) => t.label === label)?.displayName ?? label;
+}

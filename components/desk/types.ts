@@ -25,6 +25,7 @@ export interface BriefDetail extends BriefSummary {
   condition: string;
   population: string;
   outcomes: OutcomeSummary[];
+  treatments: { label: string; displayName: string }[];
 }
 
 export interface UploadReport {

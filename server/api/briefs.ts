@@ -4,7 +4,7 @@ import multer from "multer";
 import { z } from "zod";
 import { formatFitsOutcome, latestResult, rerunLatest, storeDataset } from "../analysis/run";
 import { requireRole } from "../auth/require-role";
-import { briefWithOutcomes, createBrief, findBrief, listBriefs, updateBrief } from "../briefs/briefs";
+import { briefWithOutcomes, createBrief, findBrief, listBriefs, nameTreatments, updateBrief } from "../briefs/briefs";
 import { createOutcome, findOutcome, outcomeInput, outcomePatch, updateOutcome } from "../briefs/outcomes";
 import type { Database } from "../db/client";
 import { fieldIssues, sendError, validateBody } from "../http/errors";
@@ -69,6 +69,14 @@ export function briefRoutes(db: Database): Router {
       message: `Someone else changed this brief (now version ${outcome.current.rowVersion}, you edited version ${rowVersion}). Review their change, then apply yours again.`,
       details: { current: outcome.current },
     });
+  });
+
+  const treatmentNamesBody = z.object({ names: z.record(z.string().min(1).max(200), z.string().trim().min(1).max(200)) }).strict();
+  router.put("/briefs/:id/treatments", requireRole("analyst"), validateBody(treatmentNamesBody), async (req, res) => {
+    if (!(await findBrief(db, String(req.params.id)))) return sendError(res, 404, { key: "errors.notFound", message: "There is no such brief." });
+    await nameTreatments(db, String(req.params.id), (req.body as z.infer<typeof treatmentNamesBody>).names, req.user!.id);
+    const brief = await briefWithOutcomes(db, String(req.params.id));
+    res.json({ treatments: brief!.treatments });
   });
 
   router.post("/briefs/:id/outcomes", requireRole("analyst"), validateBody(outcomeInput), async (req, res) => {

@@ -2,8 +2,9 @@
 import { and, asc, eq } from "drizzle-orm";
 import { recordAudit } from "../audit";
 import type { Database } from "../db/client";
-import { briefs, outcomes } from "../db/schema";
-import { analysisStatus } from "../analysis/run";
+import { briefs, outcomes, treatmentNames } from "../db/schema";
+import { analysisStatus, latestResult } from "../analysis/run";
+import type { AnalysisResult } from "../nma/analyse";
 
 export type BriefRow = typeof briefs.$inferSelect;
 
@@ -47,13 +48,37 @@ export async function listBriefs(db: Database): Promise<BriefRow[]> {
   return db.select().from(briefs).orderBy(asc(briefs.createdAt));
 }
 
-/** The brief with its outcomes and, per outcome, whether its stored result is current. */
+/**
+ * The brief with its outcomes, whether each outcome's stored result is current, and the name shown
+ * for every treatment label found in the outcomes' data (the label itself until one is given).
+ */
 export async function briefWithOutcomes(db: Database, id: string) {
   const brief = await findBrief(db, id);
   if (!brief) return null;
   const rows = await db.select().from(outcomes).where(eq(outcomes.briefId, id)).orderBy(asc(outcomes.position));
   const withStatus = await Promise.all(rows.map(async (outcome) => ({ ...outcome, analysis: await analysisStatus(db, outcome) })));
-  return { ...brief, outcomes: withStatus };
+  const labels = new Set<string>();
+  for (const outcome of rows) {
+    const stored = await latestResult(db, outcome.id);
+    for (const label of (stored?.result as AnalysisResult | undefined)?.treatments ?? []) labels.add(label);
+  }
+  const named = new Map((await db.select().from(treatmentNames).where(eq(treatmentNames.briefId, id))).map((r) => [r.label, r.displayName]));
+  const treatments = [...labels].sort().map((label) => ({ label, displayName: named.get(label) ?? label }));
+  return { ...brief, outcomes: withStatus, treatments };
+}
+
+/** Sets the names readers see for treatment labels of the data; an empty name falls back to the label. */
+export async function nameTreatments(db: Database, briefId: string, names: Record<string, string>, actorId: string): Promise<void> {
+  await db.transaction(async (tx) => {
+    const before = await tx.select().from(treatmentNames).where(eq(treatmentNames.briefId, briefId));
+    for (const [label, displayName] of Object.entries(names)) {
+      await tx
+        .insert(treatmentNames)
+        .values({ briefId, label, displayName })
+        .onConflictDoUpdate({ target: [treatmentNames.briefId, treatmentNames.label], set: { displayName } });
+    }
+    await recordAudit(tx, { actorId, action: "name-treatments", entity: "brief", entityId: briefId, before, after: names });
+  });
 }
 
 export type UpdateResult = { ok: true; brief: BriefRow } | { ok: false; current: BriefRow | null };

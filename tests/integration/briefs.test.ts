@@ -218,3 +218,18 @@ describe("changing an outcome's settings", () => {
     expect((await analyst.request("PATCH", `/api/outcomes/${outcomeId}`, { json: { rowVersion: 1, name: "Second" } })).status).toBe(409);
   });
 });
+
+describe("treatment names", () => {
+  it("keeps the names readers see apart from the labels in the data", async () => {
+    const { briefId, outcomeId } = await newBriefWithOutcome("Treatment names");
+    await analyst.upload(`/api/outcomes/${outcomeId}/dataset`, { name: "h.csv", bytes: hasselbladCsv }, { format: "arm-binary" });
+    const response = await analyst.request("PUT", `/api/briefs/${briefId}/treatments`, { json: { names: { no_contact: "No contact", self_help: "Self-help materials" } } });
+    expect(response.status).toBe(200);
+    expect(response.body.treatments).toEqual([
+      { label: "grp_counseling", displayName: "grp_counseling" },
+      { label: "ind_counseling", displayName: "ind_counseling" },
+      { label: "no_contact", displayName: "No contact" },
+      { label: "self_help", displayName: "Self-help materials" },
+    ]);
+  });
+});
