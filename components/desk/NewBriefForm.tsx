@@ -1,5 +1,5 @@
 import { useTranslation } from "react-i18next";
-import { Field, buttonClass, formValues, inputClass } from "./forms";
+import { Field, SubmitRow, formValues, inputClass } from "./forms";
 
 export function NewBriefForm({ onCreate, busy, error }: { onCreate: (fields: { title: string; topic: string; condition: string; population: string }) => void; busy: boolean; error: string | null }) {
   const { t } = useTranslation();
@@ -18,12 +18,7 @@ export function NewBriefForm({ onCreate, busy, error }: { onCreate: (fields: { t
           <input name={name} required className={inputClass} />
         </Field>
       ))}
-      <div className="sm:col-span-2">
-        <button type="submit" disabled={busy} className={buttonClass}>
-          {busy ? t("desk.saving") : t("desk.create")}
-        </button>
-        {error ? <p role="alert" className="mt-2 text-accent">{t("desk.error", { message: error })}</p> : null}
-      </div>
+      <SubmitRow label={t("desk.create")} busy={busy} error={error} />
     </form>
   );
 }

@@ -1,6 +1,6 @@
 import { useState } from "react";
 import { useTranslation } from "react-i18next";
-import { Field, buttonClass, formValues, inputClass } from "./forms";
+import { Field, SubmitRow, formValues, inputClass } from "./forms";
 
 const optionalNumber = (value: string | undefined) => (value && value.trim() !== "" ? Number(value) : null);
 
@@ -76,12 +76,7 @@ export function OutcomeForm({ onSubmit, busy, error }: { onSubmit: (fields: Reco
           <input name={name} type="number" step="any" min="0" className={inputClass} />
         </Field>
       ))}
-      <div className="sm:col-span-2">
-        <button type="submit" disabled={busy} className={buttonClass}>
-          {busy ? t("desk.saving") : t("desk.addOutcome")}
-        </button>
-        {error ? <p role="alert" className="mt-2 text-accent">{t("desk.error", { message: error })}</p> : null}
-      </div>
+      <SubmitRow label={t("desk.addOutcome")} busy={busy} error={error} />
     </form>
   );
 }

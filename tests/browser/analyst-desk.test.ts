@@ -1,34 +1,23 @@
 // The analyst's path in a real browser: sign in, create a brief, add an outcome, upload a file, see the results.
 import path from "node:path";
-import type { Browser } from "playwright-core";
-import { afterAll, beforeAll, expect, it } from "vitest";
+import { expect, it } from "vitest";
 import en from "../../locales/en/common.json";
 import { demoPassword } from "../../server/db/seed";
-import { launchChromium } from "../support/browser";
-import { startProductionServer, type RunningServer } from "../support/production-server";
+import { withServerAndBrowser } from "../support/browser";
 
 const hasselblad = path.resolve(__dirname, "../../../shared/reference/hasselblad1998.csv");
 
-let server: RunningServer;
-let browser: Browser;
-beforeAll(async () => {
-  server = await startProductionServer();
-  browser = await launchChromium();
-});
-afterAll(async () => {
-  await browser?.close();
-  await server?.stop();
-});
+const setup = withServerAndBrowser();
 
 it("goes from a CSV file to a forest plot and a certainty judgement, with a validation report for a broken file", async () => {
-  const page = await (await browser.newContext()).newPage();
+  const page = await (await setup.browser.newContext()).newPage();
   const errors: string[] = [];
   page.on("pageerror", (error) => errors.push(error.message));
 
-  await page.goto(`${server.url}/sign-in`);
+  await page.goto(`${setup.server.url}/sign-in`);
   await page.fill("input[name=email]", "analyst@fairweigh.example");
   await page.fill("input[name=password]", demoPassword);
-  await Promise.all([page.waitForURL(`${server.url}/desk`), page.click("button[type=submit]")]);
+  await Promise.all([page.waitForURL(`${setup.server.url}/desk`), page.click("button[type=submit]")]);
 
   const briefForm = page.getByRole("form", { name: en.desk.newBrief });
   await briefForm.getByLabel(en.desk.field.title).fill("Support to stop smoking (browser test)");

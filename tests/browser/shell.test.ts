@@ -1,27 +1,16 @@
 // The shell in a real browser: server-rendered pages without JavaScript, and the sign-in form into the desk.
-import type { Browser } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import { demoPassword } from "../../server/db/seed";
 import en from "../../locales/en/common.json";
-import { launchChromium } from "../support/browser";
-import { startProductionServer, type RunningServer } from "../support/production-server";
+import { withServerAndBrowser } from "../support/browser";
 
-let server: RunningServer;
-let browser: Browser;
-beforeAll(async () => {
-  server = await startProductionServer();
-  browser = await launchChromium();
-});
-afterAll(async () => {
-  await browser?.close();
-  await server?.stop();
-});
+const setup = withServerAndBrowser();
 
 describe("with JavaScript disabled", () => {
   it("the home page's text and the health caution are in the server's HTML", async () => {
-    const context = await browser.newContext({ javaScriptEnabled: false });
+    const context = await setup.browser.newContext({ javaScriptEnabled: false });
     const page = await context.newPage();
-    const response = await page.goto(`${server.url}/`);
+    const response = await page.goto(`${setup.server.url}/`);
     expect(response?.status()).toBe(200);
     await expect(page.locator("h1").textContent()).resolves.toBe(en.home.title);
     expect(await page.textContent("footer")).toContain(en.caution.body);
@@ -30,22 +19,22 @@ describe("with JavaScript disabled", () => {
   });
 
   it("the sign-in form signs in and lands on /desk", async () => {
-    const context = await browser.newContext({ javaScriptEnabled: false });
+    const context = await setup.browser.newContext({ javaScriptEnabled: false });
     const page = await context.newPage();
-    await page.goto(`${server.url}/sign-in`);
+    await page.goto(`${setup.server.url}/sign-in`);
     await page.fill("input[name=email]", "editor@fairweigh.example");
     await page.fill("input[name=password]", demoPassword);
-    await Promise.all([page.waitForURL(`${server.url}/desk`), page.click("button[type=submit]")]);
-    const session = await context.request.get(`${server.url}/api/session`);
+    await Promise.all([page.waitForURL(`${setup.server.url}/desk`), page.click("button[type=submit]")]);
+    const session = await context.request.get(`${setup.server.url}/api/session`);
     expect(session.status()).toBe(200);
     expect((await session.json()).person.roles).toEqual(["editor"]);
     await context.close();
   });
 
   it("a wrong password brings the form back with the message", async () => {
-    const context = await browser.newContext({ javaScriptEnabled: false });
+    const context = await setup.browser.newContext({ javaScriptEnabled: false });
     const page = await context.newPage();
-    await page.goto(`${server.url}/sign-in`);
+    await page.goto(`${setup.server.url}/sign-in`);
     await page.fill("input[name=email]", "editor@fairweigh.example");
     await page.fill("input[name=password]", "not-the-password");
     await Promise.all([page.waitForURL(/\/sign-in\?error=invalid/), page.click("button[type=submit]")]);
@@ -56,25 +45,25 @@ describe("with JavaScript disabled", () => {
 
 describe("with JavaScript", () => {
   it("the desk sends an anonymous visitor to sign in", async () => {
-    const context = await browser.newContext();
+    const context = await setup.browser.newContext();
     const page = await context.newPage();
-    await page.goto(`${server.url}/desk`);
+    await page.goto(`${setup.server.url}/desk`);
     await page.waitForURL(/\/sign-in\?next=%2Fdesk/);
     await context.close();
   });
 
   it("signing in through the form reaches /desk and shows the person's roles", async () => {
-    const context = await browser.newContext();
+    const context = await setup.browser.newContext();
     const page = await context.newPage();
     const errors: string[] = [];
     page.on("pageerror", (error) => errors.push(error.message));
     page.on("console", (message) => {
       if (message.type() === "error") errors.push(message.text());
     });
-    await page.goto(`${server.url}/sign-in`);
+    await page.goto(`${setup.server.url}/sign-in`);
     await page.fill("input[name=email]", "analyst@fairweigh.example");
     await page.fill("input[name=password]", demoPassword);
-    await Promise.all([page.waitForURL(`${server.url}/desk`), page.click("button[type=submit]")]);
+    await Promise.all([page.waitForURL(`${setup.server.url}/desk`), page.click("button[type=submit]")]);
     await expect(page.getByTestId("roles").textContent()).resolves.toBe(en.desk.role.analyst);
     expect(await page.textContent("main")).toContain("analyst@fairweigh.example");
     expect(errors).toEqual([]);

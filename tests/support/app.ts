@@ -18,8 +18,9 @@ export interface TestApp {
   close(): Promise<void>;
 }
 
-export async function startTestApp(): Promise<TestApp> {
-  const connection = connectDatabase(testDatabaseUrl());
+/** `databaseUrl` defaults to the test cluster; a test of an unreachable database passes its own. */
+export async function startTestApp(databaseUrl = testDatabaseUrl()): Promise<TestApp> {
+  const connection = connectDatabase(databaseUrl);
   const app = await createApp({
     db: connection.db,
     pool: connection.pool,
