@@ -1,5 +1,5 @@
 // Briefs in the database: created by analysts, changed only with the row version the writer read.
-import { and, asc, eq } from "drizzle-orm";
+import { and, asc, eq, like } from "drizzle-orm";
 import { recordAudit } from "../audit";
 import type { Database } from "../db/client";
 import { briefs, outcomes, treatmentNames } from "../db/schema";
@@ -31,7 +31,7 @@ export function slugify(title: string): string {
 export async function createBrief(db: Database, fields: BriefFields, actorId: string): Promise<BriefRow> {
   return db.transaction(async (tx) => {
     const base = slugify(fields.title);
-    const taken = new Set((await tx.select({ slug: briefs.slug }).from(briefs)).map((r) => r.slug));
+    const taken = new Set((await tx.select({ slug: briefs.slug }).from(briefs).where(like(briefs.slug, `${base}%`))).map((r) => r.slug));
     let slug = base;
     for (let n = 2; taken.has(slug); n++) slug = `${base}-${n}`;
     const [row] = await tx.insert(briefs).values({ ...fields, slug, createdBy: actorId }).returning();

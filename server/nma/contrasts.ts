@@ -2,8 +2,10 @@
 // Lambert, Stat Med 2004;23:1351, common practice), and the least-squares reconstruction of arm
 // effects for multi-arm studies given as contrasts (§1).
 import { Matrix, solve } from "ml-matrix";
-import { reconstructionTolerance } from "./parse";
 import { DatasetError, type ArmEffects, type BinaryArm, type DatasetIssue, type Measure, type ParsedStudy } from "./types";
+
+/** The tolerance of the least-squares reconstruction of multi-arm contrast studies (§1). */
+const reconstructionTolerance = 1e-4;
 
 export interface Exclusion {
   study: string;

@@ -20,8 +20,6 @@ const columnsByFormat: Record<Format, string[]> = {
   contrast: ["study", "treatment1", "treatment2", "estimate", "se"],
 };
 
-/** The tolerance of the least-squares reconstruction of multi-arm contrast studies (§1). */
-const reconstructionTolerance = 1e-4;
 
 class IssueList {
   readonly issues: DatasetIssue[] = [];
@@ -229,5 +227,3 @@ function readContrastStudy(study: string, cells: Record<string, string | number>
   }
   return { format: "contrast", study, contrasts };
 }
-
-export { reconstructionTolerance };
