@@ -3,7 +3,7 @@ import { useState } from "react";
 import { useTranslation } from "react-i18next";
 import { Link, useParams } from "react-router";
 import type { ComparisonCertainty, ComparisonJudgement } from "../../server/grade/assess";
-import type { Downgrade } from "../../server/grade/certainty";
+import { ratings, type Downgrade, type Rating } from "../../server/grade/certainty";
 import { buttonClass, inputClass } from "./forms";
 import { useCertainty, useSaveJudgement } from "./queries";
 
@@ -109,6 +109,9 @@ function JudgementForm({ outcomeId, comparison }: { outcomeId: string; compariso
         const judgement: ComparisonJudgement = {
           ...(hasDirect ? { direct: { riskOfBias: read("riskOfBias"), inconsistency: read("inconsistency"), indirectness: read("indirectness"), publicationBias: read("publicationBias") } } : {}),
           ...(hasLoop ? { intransitivity: read("intransitivity") } : {}),
+          ...(hasIndirect && !hasLoop && data.get("indirectRating")
+            ? { indirectRating: { rating: data.get("indirectRating") as Rating, reason: String(data.get("indirectRating.reason") ?? "") } }
+            : {}),
           incoherence: read("incoherence"),
           imprecision: read("imprecision"),
         };
@@ -120,6 +123,21 @@ function JudgementForm({ outcomeId, comparison }: { outcomeId: string; compariso
       </h2>
       {hasDirect ? domains.map((d) => <DowngradeField key={d} name={d} label={t(`desk.domain.${d}`)} value={j.direct?.[d]} />) : null}
       {hasLoop && hasIndirect ? <DowngradeField name="intransitivity" label={t("desk.domain.intransitivity", { via: comparison.indirectVia })} value={j.intransitivity} /> : null}
+      {hasIndirect && !hasLoop ? (
+        <fieldset className="grid gap-2 sm:grid-cols-[14rem_12rem_1fr] sm:items-center">
+          <legend className="sr-only">{t("desk.indirectRatingLabel")}</legend>
+          <span className="font-semibold">{t("desk.indirectRatingLabel")}</span>
+          <select name="indirectRating" defaultValue={j.indirectRating?.rating ?? ""} className={inputClass} aria-label={t("desk.indirectRatingLabel")}>
+            <option value="">—</option>
+            {[...ratings].reverse().map((r) => (
+              <option key={r} value={r}>
+                {t(`certainty.rating.${r}`)}
+              </option>
+            ))}
+          </select>
+          <input name="indirectRating.reason" defaultValue={j.indirectRating?.reason ?? ""} placeholder={t("desk.reason")} aria-label={`${t("desk.indirectRatingLabel")}: ${t("desk.reason")}`} className={inputClass} />
+        </fieldset>
+      ) : null}
       {(["incoherence", "imprecision"] as const).map((name) => (
         <div key={name}>
           <DowngradeField name={name} label={t(`desk.domain.${name}`)} value={decision(name) as Downgrade} />

@@ -185,7 +185,20 @@ export function briefRoutes(db: Database): Router {
         message: `The result has no comparison ${treatment} vs ${comparator}; pairs are named in the order the result lists them.`,
       });
     }
-    await saveJudgement(db, { outcomeId: outcome.id, treatment, comparator }, req.body, req.user!.id);
+    // A suggestion may be overridden, but only with a reason: the reason is published as a footnote.
+    const current = before.find((c) => c.treatment === treatment && c.comparator === comparator)!;
+    const judgement = req.body as z.infer<typeof judgementInput>;
+    const unexplained = (["incoherence", "imprecision"] as const).filter(
+      (name) => judgement[name] && judgement[name].levels !== current.suggestions[name].levels && judgement[name].reason === "",
+    );
+    if (unexplained.length > 0) {
+      return sendError(res, 400, {
+        key: "errors.certainty.overrideReason",
+        message: `Give the reason for departing from the suggestion: ${unexplained.join(", ")}.`,
+        details: unexplained.map((name) => ({ field: `${name}.reason`, message: "a reason is required to depart from the suggestion" })),
+      });
+    }
+    await saveJudgement(db, { outcomeId: outcome.id, treatment, comparator }, judgement, req.user!.id);
     const after = await certaintyOf(outcome);
     res.json({ comparison: after!.find((c) => c.treatment === treatment && c.comparator === comparator) });
   });

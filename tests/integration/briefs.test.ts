@@ -181,6 +181,20 @@ describe("certainty judgements", () => {
     expect(response.body.error?.details).toEqual([expect.objectContaining({ field: "direct.indirectness.reason" })]);
   });
 
+  it("requires a reason to depart from a computed suggestion", async () => {
+    const { outcomeId } = await newBriefWithOutcome("Certainty override");
+    await analyst.upload(`/api/outcomes/${outcomeId}/dataset`, { name: "h.csv", bytes: hasselbladCsv }, { format: "arm-binary" });
+    const { body } = await analyst.request("GET", `/api/outcomes/${outcomeId}/certainty`);
+    const pair = (body.comparisons as { treatment: string; comparator: string; suggestions: { imprecision: { levels: number } } }[])[0]!;
+    const other = pair.suggestions.imprecision.levels === 0 ? 1 : 0;
+    const path = `/api/outcomes/${outcomeId}/certainty/${pair.treatment}/${pair.comparator}`;
+    const refused = await analyst.request("PUT", path, { json: { imprecision: { levels: other, reason: "" } } });
+    expect(refused.status).toBe(400);
+    expect(refused.body.error?.details).toEqual([expect.objectContaining({ field: "imprecision.reason" })]);
+    const accepted = await analyst.request("PUT", path, { json: { imprecision: { levels: other, reason: "The interval is narrow enough for the decision" } } });
+    expect(accepted.status).toBe(200);
+  });
+
   it("refuses an editor with 403", async () => {
     const { outcomeId } = await newBriefWithOutcome("Certainty roles");
     const editor = new ApiClient(app.url);
