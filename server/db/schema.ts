@@ -12,6 +12,7 @@ import {
   pgEnum,
   pgTable,
   primaryKey,
+  uniqueIndex,
   text,
   timestamp,
   uuid,
@@ -189,4 +190,27 @@ export const certaintyJudgements = pgTable(
     updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
   },
   (table) => [primaryKey({ columns: [table.outcomeId, table.treatment, table.comparator] })],
+);
+
+/**
+ * A published (or scheduled) version of a brief: a frozen snapshot of everything a reader sees.
+ * The database refuses any UPDATE or DELETE of a row here (trigger in drizzle/0004_frozen-versions.sql).
+ */
+export const briefVersions = pgTable(
+  "brief_versions",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    briefId: uuid("brief_id")
+      .notNull()
+      .references(() => briefs.id),
+    number: integer("number").notNull(),
+    /** Before this moment only the press and the editors may read it (the embargo). */
+    releaseAt: timestamp("release_at", { withTimezone: true }).notNull(),
+    /** The public correction note of a version after the first. */
+    note: text("note"),
+    snapshot: jsonb("snapshot").notNull(),
+    createdBy: uuid("created_by").references(() => people.id),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (table) => [uniqueIndex("brief_versions_number_idx").on(table.briefId, table.number)],
 );

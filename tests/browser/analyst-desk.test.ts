@@ -25,7 +25,8 @@ it("goes from a CSV file to a forest plot and a certainty judgement, with a vali
   await briefForm.getByLabel(en.desk.field.condition).fill("Tobacco dependence");
   await briefForm.getByLabel(en.desk.field.population).fill("Adults who smoke");
   await Promise.all([page.waitForURL(/\/desk\/briefs\/[0-9a-f-]+$/), briefForm.getByRole("button", { name: en.desk.create }).click()]);
-  await expect(page.locator("h1").textContent()).resolves.toBe("Support to stop smoking (browser test)");
+  // The desk navigates without reloading: wait for the brief's own heading.
+  await page.locator("h1", { hasText: "Support to stop smoking (browser test)" }).waitFor();
 
   const outcomeForm = page.getByRole("form", { name: en.desk.addOutcome });
   await outcomeForm.getByLabel(en.desk.field.name).fill("Quit smoking");
@@ -58,6 +59,7 @@ it("goes from a CSV file to a forest plot and a certainty judgement, with a vali
   await form.getByLabel(`${en.desk.domain.riskOfBias}: ${en.desk.reason}`).fill("Allocation was not concealed in most trials");
   await form.getByRole("button", { name: en.desk.saveJudgement }).click();
   await form.getByRole("status").waitFor();
-  await expect(row.locator("td").first().textContent()).resolves.toBe(en.certainty.rating.moderate);
+  // The table refreshes after the save; wait for the new rating rather than reading it at once.
+  await row.locator("td").first().filter({ hasText: en.certainty.rating.moderate }).waitFor();
   expect(errors).toEqual([]);
 });

@@ -1,0 +1,99 @@
+// Publishing: frozen versions, the database refusing changes, and the embargo.
+import { readFileSync } from "node:fs";
+import path from "node:path";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { demoPassword } from "../../server/db/seed";
+import { startTestApp, type TestApp } from "../support/app";
+import { ApiClient } from "../support/client";
+
+const hasselbladCsv = readFileSync(path.resolve(__dirname, "../../../shared/reference/hasselblad1998.csv"));
+
+let app: TestApp;
+const clients: Record<string, ApiClient> = {};
+beforeAll(async () => {
+  app = await startTestApp();
+  for (const role of ["analyst", "editor", "press"]) {
+    clients[role] = new ApiClient(app.url);
+    await clients[role].signIn(`${role}@fairweigh.example`, demoPassword);
+  }
+});
+afterAll(async () => {
+  await app.close();
+});
+
+async function analysedBrief(title: string) {
+  const analyst = clients.analyst!;
+  const created = await analyst.request("POST", "/api/briefs", { json: { title, topic: "Smoking", condition: "Tobacco dependence", population: "Adults" } });
+  const briefId = String(created.body.id);
+  const outcome = await analyst.request("POST", `/api/briefs/${briefId}/outcomes`, {
+    json: { name: "Quit smoking", kind: "binary", measure: "OR", model: "random", referenceTreatment: "no_contact", direction: "higher", baselineRisk: 0.07 },
+  });
+  const outcomeId = String((outcome.body.outcome as { id: string }).id);
+  await analyst.upload(`/api/outcomes/${outcomeId}/dataset`, { name: "h.csv", bytes: hasselbladCsv }, { format: "arm-binary" });
+  return { briefId, slug: String(created.body.slug), outcomeId };
+}
+
+describe("publishing a version", () => {
+  it("creates version 1 with its URL, and the snapshot stays byte-identical after the draft changes", async () => {
+    const { briefId, slug, outcomeId } = await analysedBrief("Frozen version");
+    const published = await clients.editor!.request("POST", `/api/briefs/${briefId}/versions`, { json: {} });
+    expect(published.status).toBe(201);
+    expect(published.body).toEqual({ version: 1, url: `/briefs/${slug}/v/1` });
+
+    const anonymous = new ApiClient(app.url);
+    const first = await fetch(`${app.url}/api/briefs/${slug}/versions/1`).then((r) => r.text());
+    const snapshot = JSON.parse(first);
+    expect(snapshot).toMatchObject({ version: 1, brief: { title: "Frozen version" } });
+    expect(snapshot.outcomes[0].result.studies).toBe(24);
+
+    await clients.analyst!.request("PATCH", `/api/briefs/${briefId}`, { json: { rowVersion: 2, title: "Changed draft title" } });
+    await clients.analyst!.request("PATCH", `/api/outcomes/${outcomeId}`, { json: { rowVersion: 1, model: "fixed" } });
+    const again = await fetch(`${app.url}/api/briefs/${slug}/versions/1`).then((r) => r.text());
+    expect(again).toBe(first);
+    expect((await anonymous.request("GET", `/api/briefs/${slug}/versions/2`)).status).toBe(404);
+  });
+
+  it("is refused by the database when anything tries to change or delete a version", async () => {
+    const { briefId } = await analysedBrief("Trigger check");
+    await clients.editor!.request("POST", `/api/briefs/${briefId}/versions`, { json: {} });
+    await expect(app.connection.pool.query("update brief_versions set note = 'edited' where brief_id = $1", [briefId])).rejects.toThrow(/frozen/);
+    await expect(app.connection.pool.query("delete from brief_versions where brief_id = $1", [briefId])).rejects.toThrow(/frozen/);
+  });
+
+  it("needs a public note for a correction, then creates version 2", async () => {
+    const { briefId, slug } = await analysedBrief("Correction");
+    await clients.editor!.request("POST", `/api/briefs/${briefId}/versions`, { json: {} });
+    const refused = await clients.editor!.request("POST", `/api/briefs/${briefId}/versions`, { json: {} });
+    expect(refused.status).toBe(400);
+    const corrected = await clients.editor!.request("POST", `/api/briefs/${briefId}/versions`, { json: { note: "A study's events were entered twice." } });
+    expect(corrected.body).toEqual({ version: 2, url: `/briefs/${slug}/v/2` });
+  });
+
+  it("is refused for a brief whose outcome has no analysis", async () => {
+    const created = await clients.analyst!.request("POST", "/api/briefs", { json: { title: "Empty", topic: "t", condition: "c", population: "p" } });
+    const response = await clients.editor!.request("POST", `/api/briefs/${String(created.body.id)}/versions`, { json: {} });
+    expect(response.status).toBe(409);
+    expect(response.body.error?.key).toBe("errors.publish.notReady");
+  });
+
+  it("is for editors only", async () => {
+    const { briefId } = await analysedBrief("Editors only");
+    expect((await clients.analyst!.request("POST", `/api/briefs/${briefId}/versions`, { json: {} })).status).toBe(403);
+  });
+});
+
+describe("the embargo", () => {
+  it("hides a scheduled version from the public and from analysts, and shows it to the press", async () => {
+    const { briefId, slug } = await analysedBrief("Embargoed");
+    const releaseAt = new Date(Date.now() + 24 * 3600 * 1000).toISOString();
+    expect((await clients.editor!.request("POST", `/api/briefs/${briefId}/versions`, { json: { releaseAt } })).status).toBe(201);
+    const url = `/api/briefs/${slug}/versions/1`;
+    expect((await new ApiClient(app.url).request("GET", url)).status).toBe(404);
+    expect((await clients.analyst!.request("GET", url)).status).toBe(404);
+    const press = await clients.press!.request("GET", url);
+    expect(press.status).toBe(200);
+    expect(press.body.releaseAt).toBe(releaseAt);
+    const brief = await clients.analyst!.request("GET", `/api/briefs/${briefId}`);
+    expect((brief.body.brief as { status: string }).status).toBe("scheduled");
+  });
+});
