@@ -1,3 +1,4 @@
+import type { Database } from "../server/db/client";
 import type { Person } from "../server/people";
 
 declare global {
@@ -5,6 +6,8 @@ declare global {
     interface PageContext {
       /** The signed-in person, on the server only. */
       person?: Person | null;
+      /** The database, for +data hooks; on the server only, never passed to the client. */
+      db?: Database;
       /** For pages with a form that posts without JavaScript; see server/pages.ts. */
       csrfToken?: string;
     }

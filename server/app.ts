@@ -70,7 +70,7 @@ export async function createApp(options: AppOptions): Promise<express.Express> {
 
   const csrf = createCsrf(sessionSecret, secureTransport);
   app.use("/api", apiRoutes({ db, pool, passport, csrf }));
-  if (options.pages !== false) app.use(await pageRoutes({ root: projectRoot, production, csrf }));
+  if (options.pages !== false) app.use(await pageRoutes({ root: projectRoot, production, csrf, db }));
 
   app.use((error: unknown, req: Request, res: Response, _next: NextFunction) => {
     req.log.error({ err: error }, "request failed");

@@ -2,6 +2,7 @@
 import path from "node:path";
 import express, { Router } from "express";
 import { createDevMiddleware, renderPage } from "vike/server";
+import type { Database } from "./db/client";
 import type { createCsrf } from "./http/security";
 
 /** Pages whose HTML carries a CSRF token, because they hold a form that posts without JavaScript. */
@@ -11,8 +12,9 @@ export async function pageRoutes(options: {
   root: string;
   production: boolean;
   csrf: ReturnType<typeof createCsrf>;
+  db: Database;
 }): Promise<Router> {
-  const { root, production, csrf } = options;
+  const { root, production, csrf, db } = options;
   const router = Router();
   if (production) {
     // Built assets carry a content hash in their name, so they can be cached for a year.
@@ -39,6 +41,7 @@ export async function pageRoutes(options: {
         headersOriginal: req.headers,
         cspNonce: res.locals.cspNonce as string,
         person: req.user ?? null,
+        db,
         csrfToken,
       });
       const { httpResponse } = pageContext;

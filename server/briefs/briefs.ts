@@ -28,7 +28,7 @@ export function slugify(title: string): string {
   return slug || "brief";
 }
 
-export async function createBrief(db: Database, fields: BriefFields, actorId: string): Promise<BriefRow> {
+export async function createBrief(db: Database, fields: BriefFields & { demo?: boolean }, actorId: string): Promise<BriefRow> {
   return db.transaction(async (tx) => {
     const base = slugify(fields.title);
     const taken = new Set((await tx.select({ slug: briefs.slug }).from(briefs).where(like(briefs.slug, `${base}%`))).map((r) => r.slug));

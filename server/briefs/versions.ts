@@ -1,6 +1,6 @@
 // Publishing: a version is a frozen snapshot of a brief — data, results, certainty, groups — built
 // once and never changed (the database refuses it too). Version 1 publishes; later versions correct.
-import { and, desc, eq } from "drizzle-orm";
+import { and, desc, eq, lte, sql } from "drizzle-orm";
 import { analysisSettings, latestDataset, latestResult } from "../analysis/run";
 import { recordAudit } from "../audit";
 import type { Role } from "../auth/roles";
@@ -53,7 +53,7 @@ async function buildSnapshot(db: Database, briefId: string) {
   }
   return {
     snapshot: {
-      brief: { slug: brief.slug, title: brief.title, topic: brief.topic, condition: brief.condition, population: brief.population },
+      brief: { slug: brief.slug, title: brief.title, topic: brief.topic, condition: brief.condition, population: brief.population, demo: brief.demo },
       treatments: brief.treatments,
       outcomes,
     },
@@ -98,4 +98,37 @@ export async function readVersion(db: Database, slug: string, number: number, ro
   const released = row.releaseAt.getTime() <= Date.now();
   if (!released && !roles.some((role) => embargoReaders.includes(role))) return null;
   return JSON.stringify(row.snapshot);
+}
+
+export interface ReleasedBrief {
+  slug: string;
+  title: string;
+  topic: string;
+  demo: boolean;
+  version: number;
+  releasedAt: string;
+}
+
+/** The latest released version of every brief, newest first: what the public may see now. */
+export async function listReleasedBriefs(db: Database): Promise<ReleasedBrief[]> {
+  const rows = await db
+    .select({
+      slug: briefs.slug,
+      // The title a reader sees is the frozen one; the draft's may have moved on.
+      title: sql<string>`${briefVersions.snapshot}->'brief'->>'title'`,
+      topic: sql<string>`${briefVersions.snapshot}->'brief'->>'topic'`,
+      demo: briefs.demo,
+      version: briefVersions.number,
+      releaseAt: briefVersions.releaseAt,
+    })
+    .from(briefVersions)
+    .innerJoin(briefs, eq(briefs.id, briefVersions.briefId))
+    .where(lte(briefVersions.releaseAt, new Date()))
+    .orderBy(desc(briefVersions.releaseAt));
+  const latest = new Map<string, ReleasedBrief>();
+  for (const row of rows) {
+    if (latest.has(row.slug)) continue;
+    latest.set(row.slug, { slug: row.slug, title: row.title, topic: row.topic, demo: row.demo, version: row.version, releasedAt: row.releaseAt.toISOString() });
+  }
+  return [...latest.values()];
 }

@@ -3,6 +3,7 @@
 import { sql } from "drizzle-orm";
 import {
   bigserial,
+  boolean,
   customType,
   doublePrecision,
   integer,
@@ -90,6 +91,8 @@ export const briefs = pgTable("briefs", {
   condition: text("condition").notNull(),
   population: text("population").notNull(),
   status: briefStatus("status").notNull().default("draft"),
+  /** Invented demonstration content: every page of it says so. */
+  demo: boolean("demo").notNull().default(false),
   /** Incremented by every change; a PATCH must name the version it read (409 otherwise). */
   rowVersion: integer("row_version").notNull().default(1),
   createdBy: uuid("created_by").references(() => people.id),

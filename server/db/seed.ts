@@ -1,8 +1,18 @@
 // Demo content for a local cluster. Only scripts/start.ts and the test set-up call this, and
 // only against the cluster they manage: a server given an outside DATABASE_URL never seeds.
+import { eq } from "drizzle-orm";
 import type { Database } from "./client";
-import { ensurePerson } from "../people";
+import { briefs } from "./schema";
+import { storeDataset } from "../analysis/run";
 import type { Role } from "../auth/roles";
+import { createBrief, nameTreatments } from "../briefs/briefs";
+import { createOutcome } from "../briefs/outcomes";
+import { publishVersion } from "../briefs/versions";
+import { assessCertainty } from "../grade/assess";
+import { saveJudgement } from "../grade/judgements";
+import type { AnalysisResult } from "../nma/analyse";
+import { ensurePerson, type Person } from "../people";
+import { demoBriefs } from "./demo-briefs";
 
 export const demoPassword = "fairweigh-demo";
 
@@ -14,9 +24,62 @@ export const demoAccounts: { email: string; displayName: string; roles: Role[] }
   { email: "press@fairweigh.example", displayName: "Demo reporter", roles: ["press"] },
 ];
 
-/** Idempotent: accounts that exist already are left as they are. */
+/** Idempotent: accounts and briefs that exist already are left as they are. */
 export async function seedDemo(db: Database): Promise<void> {
-  for (const account of demoAccounts) {
-    await ensurePerson(db, { ...account, password: demoPassword }, null);
+  const people: Person[] = [];
+  for (const account of demoAccounts) people.push(await ensurePerson(db, { ...account, password: demoPassword }, null));
+  const analyst = people.find((p) => p.roles.includes("analyst"))!;
+  const editor = people.find((p) => p.roles.includes("editor"))!;
+  for (const demo of demoBriefs()) {
+    if (await db.query.briefs.findFirst({ where: eq(briefs.title, demo.title) })) continue;
+    await publishDemoBrief(db, demo, analyst.id, editor.id);
   }
+}
+
+/**
+ * Goes the way a real brief goes: an analyst creates it, uploads the data and records certainty
+ * (no domain rated down, every computed suggestion confirmed: a demonstration, not an appraisal);
+ * an editor publishes it.
+ */
+async function publishDemoBrief(db: Database, demo: ReturnType<typeof demoBriefs>[number], analystId: string, editorId: string) {
+  const brief = await createBrief(db, { title: demo.title, topic: demo.topic, condition: demo.condition, population: demo.population, demo: true }, analystId);
+  for (const spec of demo.outcomes) {
+    const outcome = await createOutcome(
+      db,
+      brief.id,
+      {
+        name: spec.name,
+        kind: spec.kind,
+        measure: spec.measure,
+        model: "random",
+        referenceTreatment: spec.reference,
+        direction: spec.direction,
+        baselineRisk: spec.baselineRisk,
+        unit: spec.unit,
+        thresholdSmall: spec.thresholds.small,
+        thresholdModerate: spec.thresholds.moderate,
+        thresholdLarge: spec.thresholds.large,
+      },
+      analystId,
+    );
+    const format = spec.kind === "binary" ? "arm-binary" : "arm-continuous";
+    const { result } = await storeDataset(db, outcome, { name: "fictional-demo.csv", bytes: Buffer.from(spec.csv) }, format, analystId);
+    const none = { levels: 0 as const, reason: "" };
+    for (const comparison of assessCertainty(result as AnalysisResult, new Map(), spec.thresholds)) {
+      await saveJudgement(
+        db,
+        { outcomeId: outcome.id, treatment: comparison.treatment, comparator: comparison.comparator },
+        {
+          ...(comparison.pending.includes("direct") ? { direct: { riskOfBias: none, inconsistency: none, indirectness: none, publicationBias: none } } : {}),
+          ...(comparison.pending.includes("indirect") && !comparison.indirectVia ? { indirectRating: { rating: "low" as const, reason: "Fictional demonstration: no first-order loop." } } : {}),
+          incoherence: { levels: comparison.suggestions.incoherence.levels, reason: "" },
+          imprecision: { levels: comparison.suggestions.imprecision.levels, reason: "" },
+        },
+        analystId,
+      );
+    }
+  }
+  await nameTreatments(db, brief.id, demo.treatmentNames, analystId);
+  const published = await publishVersion(db, brief.id, {}, editorId);
+  if (!published.ok) throw new Error(`the demo brief "${demo.title}" could not be published: ${published.detail}`);
 }

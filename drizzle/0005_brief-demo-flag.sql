@@ -1,0 +1,1 @@
+ALTER TABLE "briefs" ADD COLUMN "demo" boolean DEFAULT false NOT NULL;
