@@ -1,7 +1,7 @@
 // Uploading data and running the engine for an outcome. The stored result carries the engine
 // version and a checksum of everything it was computed from, so a stale result shows as stale.
 import { createHash } from "node:crypto";
-import { and, desc, eq } from "drizzle-orm";
+import { and, desc, eq, sql } from "drizzle-orm";
 import { recordAudit } from "../audit";
 import type { Database, Executor } from "../db/client";
 import { analysisResults, datasets, type outcomes } from "../db/schema";
@@ -102,6 +102,17 @@ export async function latestResult(db: Database, outcomeId: string) {
       orderBy: desc(analysisResults.createdAt),
     })) ?? null
   );
+}
+
+/** The treatment labels of the outcome's latest result, without loading the whole result. */
+export async function latestTreatments(db: Database, outcomeId: string): Promise<string[]> {
+  const [row] = await db
+    .select({ treatments: sql<string[]>`${analysisResults.result}->'treatments'` })
+    .from(analysisResults)
+    .where(eq(analysisResults.outcomeId, outcomeId))
+    .orderBy(desc(analysisResults.createdAt))
+    .limit(1);
+  return row?.treatments ?? [];
 }
 
 /** Whether the outcome has data and a result, and whether that result still matches the data and settings. */

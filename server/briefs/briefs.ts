@@ -3,8 +3,7 @@ import { and, asc, eq, like } from "drizzle-orm";
 import { recordAudit } from "../audit";
 import type { Database } from "../db/client";
 import { briefs, outcomes, treatmentNames } from "../db/schema";
-import { analysisStatus, latestResult } from "../analysis/run";
-import type { AnalysisResult } from "../nma/analyse";
+import { analysisStatus, latestTreatments } from "../analysis/run";
 
 export type BriefRow = typeof briefs.$inferSelect;
 
@@ -58,10 +57,7 @@ export async function briefWithOutcomes(db: Database, id: string) {
   const rows = await db.select().from(outcomes).where(eq(outcomes.briefId, id)).orderBy(asc(outcomes.position));
   const withStatus = await Promise.all(rows.map(async (outcome) => ({ ...outcome, analysis: await analysisStatus(db, outcome) })));
   const labels = new Set<string>();
-  for (const outcome of rows) {
-    const stored = await latestResult(db, outcome.id);
-    for (const label of (stored?.result as AnalysisResult | undefined)?.treatments ?? []) labels.add(label);
-  }
+  for (const outcome of rows) for (const label of await latestTreatments(db, outcome.id)) labels.add(label);
   const named = new Map((await db.select().from(treatmentNames).where(eq(treatmentNames.briefId, id))).map((r) => [r.label, r.displayName]));
   const treatments = [...labels].sort().map((label) => ({ label, displayName: named.get(label) ?? label }));
   return { ...brief, outcomes: withStatus, treatments };
