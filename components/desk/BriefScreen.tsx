@@ -2,16 +2,19 @@ import { useTranslation } from "react-i18next";
 import { Link, useParams } from "react-router";
 import { OutcomeForm } from "./OutcomeForm";
 import { TreatmentNamesForm } from "./TreatmentNamesForm";
-import { useBrief, useCreateOutcome, useNameTreatments, useUploadDataset } from "./queries";
+import { ApiError } from "./api";
+import { previewMarkdown, useBrief, useCreateOutcome, useNameTreatments, useSaveTexts, useUploadDataset } from "./queries";
+import { TextsForm } from "./TextsForm";
 import type { OutcomeSummary } from "./types";
 import { UploadForm } from "./UploadForm";
 
-export function BriefScreen({ canAnalyse }: { canAnalyse: boolean }) {
+export function BriefScreen({ canAnalyse, canEdit }: { canAnalyse: boolean; canEdit: boolean }) {
   const { t } = useTranslation();
   const { briefId = "" } = useParams();
   const brief = useBrief(briefId);
   const createOutcome = useCreateOutcome(briefId);
   const nameTreatments = useNameTreatments(briefId);
+  const saveTexts = useSaveTexts(briefId);
   if (brief.isError) return <p role="alert">{t("desk.error", { message: brief.error.message })}</p>;
   if (!brief.data) return <p aria-live="polite">{t("desk.loading")}</p>;
   const { data } = brief;
@@ -29,6 +32,17 @@ export function BriefScreen({ canAnalyse }: { canAnalyse: boolean }) {
       {data.outcomes.map((outcome) => (
         <OutcomePanel key={outcome.id} briefId={briefId} outcome={outcome} canAnalyse={canAnalyse} />
       ))}
+      {canEdit ? (
+        <TextsForm
+          initial={{ laySummary: data.laySummary, keyMessages: data.keyMessages }}
+          onPreview={previewMarkdown}
+          onSave={(texts) => saveTexts.mutate({ rowVersion: data.rowVersion, ...texts })}
+          busy={saveTexts.isPending}
+          saved={saveTexts.isSuccess}
+          error={saveTexts.error instanceof ApiError && saveTexts.error.status === 409 ? t("desk.conflict") : (saveTexts.error?.message ?? null)}
+          theirs={saveTexts.error instanceof ApiError && saveTexts.error.status === 409 ? { laySummary: data.laySummary, keyMessages: data.keyMessages } : null}
+        />
+      ) : null}
       {canAnalyse && data.treatments.length > 0 ? (
         <TreatmentNamesForm
           treatments={data.treatments}

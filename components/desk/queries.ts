@@ -113,3 +113,17 @@ export function useTreatmentName(briefId: string): (label: string) => string {
   const brief = useBrief(briefId);
   return (label) => brief.data?.treatments.find((t) => t.label === label)?.displayName ?? label;
 }
+
+export function previewMarkdown(markdown: string): Promise<string> {
+  return callApi<{ html: string }>("POST", "/api/preview", { markdown }).then((r) => r.html);
+}
+
+/** Saves the editor's texts; a 409 means someone else saved first: the brief is reloaded to show their change. */
+export function useSaveTexts(briefId: string) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: ({ rowVersion, ...texts }: { rowVersion: number; laySummary: string; keyMessages: string }) =>
+      callApi("PATCH", `/api/briefs/${briefId}`, { rowVersion, ...texts }),
+    onSettled: () => queryClient.invalidateQueries({ queryKey: ["brief", briefId] }),
+  });
+}

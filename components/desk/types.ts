@@ -24,6 +24,8 @@ export interface OutcomeSummary {
 export interface BriefDetail extends BriefSummary {
   condition: string;
   population: string;
+  laySummary: string;
+  keyMessages: string;
   outcomes: OutcomeSummary[];
   treatments: { label: string; displayName: string }[];
 }

@@ -5,6 +5,7 @@ import { z } from "zod";
 import { formatFitsOutcome, latestResult, rerunLatest, storeDataset } from "../analysis/run";
 import { requireRole } from "../auth/require-role";
 import { publishVersion, readVersion } from "../briefs/versions";
+import { renderMarkdown } from "../content/markdown";
 import { briefWithOutcomes, createBrief, findBrief, listBriefs, nameTreatments, updateBrief } from "../briefs/briefs";
 import { createOutcome, findOutcome, outcomeInput, outcomePatch, updateOutcome } from "../briefs/outcomes";
 import type { Database } from "../db/client";
@@ -23,8 +24,19 @@ const briefFields = {
 };
 const createBriefBody = z.object(briefFields).strict();
 const patchBriefBody = z
-  .object({ rowVersion: z.number().int().positive(), ...Object.fromEntries(Object.entries(briefFields).map(([k, v]) => [k, v.optional()])) })
+  .object({
+    rowVersion: z.number().int().positive(),
+    title: briefFields.title.optional(),
+    topic: briefFields.topic.optional(),
+    condition: briefFields.condition.optional(),
+    population: briefFields.population.optional(),
+    laySummary: z.string().max(20_000).optional(),
+    keyMessages: z.string().max(20_000).optional(),
+  })
   .strict();
+
+/** Who may change what in a brief: analysts its description, editors also its texts. */
+const editorialFields = ["laySummary", "keyMessages"] as const;
 
 const uuid = z.string().uuid();
 const maximumUploadBytes = 5 * 1024 * 1024;
@@ -62,6 +74,9 @@ export function briefRoutes(db: Database): Router {
 
   router.patch("/briefs/:id", requireRole("analyst", "editor"), validateBody(patchBriefBody), async (req, res) => {
     const { rowVersion, ...changes } = req.body as z.infer<typeof patchBriefBody>;
+    if (editorialFields.some((field) => field in changes) && !req.user!.roles.includes("editor")) {
+      return sendError(res, 403, { key: "errors.roleRequired", message: "The lay summary and key messages need the role editor.", details: { required: ["editor"] } });
+    }
     const outcome = await updateBrief(db, String(req.params.id), rowVersion, changes, req.user!.id);
     if (outcome.ok) return res.json({ brief: outcome.brief });
     if (!outcome.current) return sendError(res, 404, { key: "errors.notFound", message: "There is no such brief." });
@@ -78,6 +93,11 @@ export function briefRoutes(db: Database): Router {
     await nameTreatments(db, String(req.params.id), (req.body as z.infer<typeof treatmentNamesBody>).names, req.user!.id);
     const brief = await briefWithOutcomes(db, String(req.params.id));
     res.json({ treatments: brief!.treatments });
+  });
+
+  const previewBody = z.object({ markdown: z.string().max(20_000) }).strict();
+  router.post("/preview", requireRole(...deskRoles), validateBody(previewBody), (req, res) => {
+    res.json({ html: renderMarkdown((req.body as z.infer<typeof previewBody>).markdown) });
   });
 
   const publishBody = z

@@ -14,6 +14,12 @@ export interface BriefFields {
   population: string;
 }
 
+/** What the editor writes: Markdown, rendered and sanitised wherever it is shown. */
+export interface EditorialFields {
+  laySummary: string;
+  keyMessages: string;
+}
+
 /** Lower-case words joined by hyphens, from the title; a number is added when the slug is taken. */
 export function slugify(title: string): string {
   const slug = title
@@ -84,7 +90,7 @@ export async function updateBrief(
   db: Database,
   id: string,
   rowVersion: number,
-  changes: Partial<BriefFields>,
+  changes: Partial<BriefFields & EditorialFields>,
   actorId: string,
 ): Promise<UpdateResult> {
   return db.transaction(async (tx) => {

@@ -12,6 +12,7 @@ import { groupTreatments } from "../grade/groups";
 import { loadJudgements } from "../grade/judgements";
 import type { AnalysisResult } from "../nma/analyse";
 import { comparisonOf } from "../nma/comparison";
+import { renderMarkdown } from "../content/markdown";
 import { briefWithOutcomes } from "./briefs";
 
 export type PublishOutcome =
@@ -55,6 +56,7 @@ async function buildSnapshot(db: Database, briefId: string) {
     snapshot: {
       brief: { slug: brief.slug, title: brief.title, topic: brief.topic, condition: brief.condition, population: brief.population, demo: brief.demo },
       treatments: brief.treatments,
+      texts: { laySummaryHtml: renderMarkdown(brief.laySummary), keyMessagesHtml: renderMarkdown(brief.keyMessages) },
       outcomes,
     },
   };

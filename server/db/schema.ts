@@ -90,6 +90,9 @@ export const briefs = pgTable("briefs", {
   topic: text("topic").notNull(),
   condition: text("condition").notNull(),
   population: text("population").notNull(),
+  /** The editor's plain-language summary and key messages, in Markdown (rendered and sanitised on the server). */
+  laySummary: text("lay_summary").notNull().default(""),
+  keyMessages: text("key_messages").notNull().default(""),
   status: briefStatus("status").notNull().default("draft"),
   /** Invented demonstration content: every page of it says so. */
   demo: boolean("demo").notNull().default(false),

@@ -63,3 +63,23 @@ it("goes from a CSV file to a forest plot and a certainty judgement, with a vali
   await row.locator("td").first().filter({ hasText: en.certainty.rating.moderate }).waitFor();
   expect(errors).toEqual([]);
 });
+
+// Uses the brief the test above created (tests in a file run in order).
+it("lets an editor write the lay summary with a sanitised preview", async () => {
+  const context = await setup.browser.newContext();
+  const page = await context.newPage();
+  await page.goto(`${setup.server.url}/sign-in`);
+  await page.fill("input[name=email]", "editor@fairweigh.example");
+  await page.fill("input[name=password]", demoPassword);
+  await Promise.all([page.waitForURL(`${setup.server.url}/desk`), page.click("button[type=submit]")]);
+  await page.getByRole("link", { name: "Support to stop smoking (browser test)" }).click();
+  const form = page.getByRole("form", { name: en.desk.texts });
+  await form.getByLabel(en.desk.laySummary).fill("Group counselling **probably** helps. <script>window.hacked = 1</script>");
+  await form.getByRole("button", { name: en.desk.preview }).click();
+  const preview = page.getByTestId("texts-preview");
+  await preview.locator("strong", { hasText: "probably" }).waitFor();
+  expect(await preview.innerHTML()).not.toContain("<script");
+  await form.getByRole("button", { name: en.desk.saveTexts }).click();
+  await form.getByRole("status").waitFor();
+  await context.close();
+});

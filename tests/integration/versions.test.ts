@@ -82,6 +82,23 @@ describe("publishing a version", () => {
   });
 });
 
+describe("the editor's texts", () => {
+  it("are frozen into the version as sanitised HTML, and only editors may write them", async () => {
+    const { briefId, slug } = await analysedBrief("Lay summary");
+    const denied = await clients.analyst!.request("PATCH", `/api/briefs/${briefId}`, { json: { rowVersion: 1, laySummary: "x" } });
+    expect(denied.status).toBe(403);
+    const written = await clients.editor!.request("PATCH", `/api/briefs/${briefId}`, {
+      json: { rowVersion: 1, laySummary: "Counselling **probably** helps. <script>alert(1)</script>", keyMessages: "- [more](javascript:alert(1))" },
+    });
+    expect(written.status).toBe(200);
+    await clients.editor!.request("POST", `/api/briefs/${briefId}/versions`, { json: {} });
+    const snapshot = (await new ApiClient(app.url).request("GET", `/api/briefs/${slug}/versions/1`)).body as { texts: { laySummaryHtml: string; keyMessagesHtml: string } };
+    expect(snapshot.texts.laySummaryHtml).toContain("<strong>probably</strong>");
+    expect(snapshot.texts.laySummaryHtml).not.toMatch(/<script/i);
+    expect(snapshot.texts.keyMessagesHtml).not.toMatch(/javascript:/i);
+  });
+});
+
 describe("the embargo", () => {
   it("hides a scheduled version from the public and from analysts, and shows it to the press", async () => {
     const { briefId, slug } = await analysedBrief("Embargoed");
