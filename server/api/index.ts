@@ -7,6 +7,8 @@ import { sendError } from "../http/errors";
 import type { createCsrf } from "../http/security";
 import { briefRoutes } from "./briefs";
 import { healthRoutes } from "./health";
+import { outcomeRoutes } from "./outcomes";
+import { versionRoutes } from "./versions";
 import { peopleRoutes } from "./people";
 import { sessionRoutes } from "./session";
 
@@ -45,6 +47,8 @@ export function apiRoutes({ db, pool, passport, csrf }: ApiDependencies): Router
   api.use("/session", sessionRoutes(db, passport));
   api.use("/people", peopleRoutes(db));
   api.use(briefRoutes(db));
+  api.use(versionRoutes(db));
+  api.use(outcomeRoutes(db));
 
   api.use((_req, res) => sendError(res, 404, { key: "errors.notFound", message: "There is no such API route." }));
   return api;

@@ -50,3 +50,11 @@ export function validateQuery<T extends z.ZodType>(schema: T) {
     next();
   };
 }
+
+const uuid = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+
+/** For router.param("id"): an id that is not a UUID names nothing, so it is a 404, not a database error. */
+export function rejectMalformedId(_req: Request, res: Response, next: NextFunction, id: string): void {
+  if (!uuid.test(id)) return sendError(res, 404, { key: "errors.notFound", message: `There is nothing with the id ${id}.` });
+  next();
+}
