@@ -5,7 +5,7 @@ import { and, desc, eq, sql } from "drizzle-orm";
 import { recordAudit } from "../audit";
 import type { Database, Executor } from "../db/client";
 import { analysisResults, datasets, type outcomes } from "../db/schema";
-import { analyse, engineVersion } from "../nma/analyse";
+import { analyse, engineVersion, type AnalysisResult } from "../nma/analyse";
 import { parseDataset } from "../nma/parse";
 import type { AnalysisOptions, Format, ParsedDataset } from "../nma/types";
 
@@ -52,17 +52,7 @@ export async function storeDataset(
       .insert(datasets)
       .values({ outcomeId: outcome.id, format, fileName: file.name, original: file.bytes, sha256, parsed, uploadedBy: actorId })
       .returning({ id: datasets.id, sha256: datasets.sha256, uploadedAt: datasets.uploadedAt });
-    const [stored] = await tx
-      .insert(analysisResults)
-      .values({
-        outcomeId: outcome.id,
-        datasetId: dataset!.id,
-        engineVersion,
-        inputChecksum: inputChecksum(sha256, settings),
-        settings,
-        result,
-      })
-      .returning({ id: analysisResults.id });
+    const stored = await recordResult(tx, outcome.id, dataset!, settings, result);
     await recordAudit(tx, {
       actorId,
       action: "upload",
@@ -80,15 +70,22 @@ export async function rerunLatest(db: Executor, outcome: Outcome): Promise<void>
   const dataset = await latestDataset(db, outcome.id);
   if (!dataset) return;
   const settings = analysisSettings(outcome);
-  const result = analyse(dataset.parsed as ParsedDataset, settings);
-  await db.insert(analysisResults).values({
-    outcomeId: outcome.id,
-    datasetId: dataset.id,
-    engineVersion,
-    inputChecksum: inputChecksum(dataset.sha256, settings),
-    settings,
-    result,
-  });
+  await recordResult(db, outcome.id, dataset, settings, analyse(dataset.parsed as ParsedDataset, settings));
+}
+
+/** Stores one engine run with what it was computed from: the engine version and the input checksum. */
+async function recordResult(
+  db: Executor,
+  outcomeId: string,
+  dataset: { id: string; sha256: string },
+  settings: AnalysisOptions,
+  result: AnalysisResult,
+): Promise<{ id: string }> {
+  const [row] = await db
+    .insert(analysisResults)
+    .values({ outcomeId, datasetId: dataset.id, engineVersion, inputChecksum: inputChecksum(dataset.sha256, settings), settings, result })
+    .returning({ id: analysisResults.id });
+  return row!;
 }
 
 export async function latestDataset(db: Executor, outcomeId: string) {
@@ -117,12 +114,20 @@ export async function latestTreatments(db: Database, outcomeId: string): Promise
 
 /** Whether the outcome has data and a result, and whether that result still matches the data and settings. */
 export async function analysisStatus(db: Database, outcome: Outcome) {
-  const dataset = await latestDataset(db, outcome.id);
+  // Only the small columns: the file's bytes, its parsed rows and the result stay in the database.
+  const [dataset] = await db
+    .select({ id: datasets.id, fileName: datasets.fileName, sha256: datasets.sha256, uploadedAt: datasets.uploadedAt })
+    .from(datasets)
+    .where(eq(datasets.outcomeId, outcome.id))
+    .orderBy(desc(datasets.uploadedAt))
+    .limit(1);
   if (!dataset) return { state: "no-data" as const };
-  const result = await db.query.analysisResults.findFirst({
-    where: and(eq(analysisResults.outcomeId, outcome.id), eq(analysisResults.datasetId, dataset.id)),
-    orderBy: desc(analysisResults.createdAt),
-  });
+  const [result] = await db
+    .select({ id: analysisResults.id, inputChecksum: analysisResults.inputChecksum, engineVersion: analysisResults.engineVersion })
+    .from(analysisResults)
+    .where(and(eq(analysisResults.outcomeId, outcome.id), eq(analysisResults.datasetId, dataset.id)))
+    .orderBy(desc(analysisResults.createdAt))
+    .limit(1);
   const expected = inputChecksum(dataset.sha256, analysisSettings(outcome));
   return {
     state: result && result.inputChecksum === expected ? ("current" as const) : ("stale" as const),
