@@ -7,11 +7,9 @@ import type { Role } from "../auth/roles";
 import type { Database } from "../db/client";
 import { briefs, briefVersions } from "../db/schema";
 import { assessCertainty } from "../grade/assess";
-import { pairKey } from "../grade/certainty";
-import { groupTreatments } from "../grade/groups";
+import { concludeOutcome } from "../grade/conclusions";
 import { loadJudgements } from "../grade/judgements";
 import type { AnalysisResult } from "../nma/analyse";
-import { comparisonOf } from "../nma/comparison";
 import { renderMarkdown } from "../content/markdown";
 import { briefWithOutcomes } from "./briefs";
 
@@ -34,11 +32,7 @@ async function buildSnapshot(db: Database, briefId: string) {
     const dataset = (await latestDataset(db, outcome.id))!;
     const thresholds = { small: outcome.thresholdSmall, moderate: outcome.thresholdModerate, large: outcome.thresholdLarge };
     const certainty = assessCertainty(result, await loadJudgements(db, outcome.id), thresholds);
-    const rated = new Map(certainty.map((c) => [pairKey(c.treatment, c.comparator), c.network]));
-    const groups = groupTreatments(result.treatments, result.reference, result.better, (t, u) => ({
-      ...comparisonOf(result, t, u)!.network,
-      certainty: rated.get(pairKey(t, u)) ?? null,
-    }));
+    const conclusions = concludeOutcome(result, certainty, { name: outcome.name, baselineRisk: outcome.baselineRisk, thresholds, names: Object.fromEntries(brief.treatments.map((t) => [t.label, t.displayName])) });
     outcomes.push({
       name: outcome.name,
       kind: outcome.kind,
@@ -49,7 +43,7 @@ async function buildSnapshot(db: Database, briefId: string) {
       dataset: { fileName: dataset.fileName, sha256: dataset.sha256, format: dataset.format, parsed: dataset.parsed },
       result,
       certainty,
-      groups,
+      ...conclusions,
     });
   }
   return {

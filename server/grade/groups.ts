@@ -1,6 +1,8 @@
-// Groups of treatments by the minimally contextualised framework (METHODS.md §9;
-// Brignardello-Petersen et al., BMJ 2020;371:m3900). Pure.
+// Groups of treatments by the minimally contextualised framework, and its partially contextualised
+// variant when the outcome has thresholds (METHODS.md §9; Brignardello-Petersen et al., BMJ
+// 2020;371:m3900). Pure.
 import type { Better } from "../nma/types";
+import type { Thresholds } from "./assess";
 import type { Rating } from "./certainty";
 
 export interface PairEvidence {
@@ -68,9 +70,44 @@ export function groupTreatments(
   for (const t of betterThanReference) depth(t, betterThanReference, better);
   for (const t of worseThanReference) depth(t, worseThanReference, worse);
 
+  return splitByFirmness(treatments, reference, evidence, (t) => levels.get(t) ?? 0);
+}
+
+/**
+ * The partially contextualised variant: the thresholds for small, moderate and large effects replace
+ * the null, and a treatment's level is the size of its point estimate against the reference — 1
+ * small, 2 moderate, 3 large on the beneficial side, mirrored for harm, 0 below the smallest given
+ * threshold. A threshold left empty is skipped, so an outcome with only a "small" threshold has
+ * levels −1, 0 and 1. Certainty splits each level as in the minimally contextualised framework.
+ */
+export function groupByMagnitude(
+  treatments: string[],
+  reference: string,
+  better: Better,
+  thresholds: Thresholds,
+  evidence: (t: string, u: string) => PairEvidence,
+): TreatmentGroup[] {
+  const steps = [thresholds.small, thresholds.moderate, thresholds.large];
+  const levelOf = (t: string) => {
+    if (t === reference) return 0;
+    const estimate = evidence(t, reference).estimate;
+    const benefit = better === "higher" ? estimate : -estimate;
+    const size = steps.reduce<number>((level, threshold, i) => (threshold !== null && Math.abs(benefit) >= threshold ? i + 1 : level), 0);
+    return size === 0 ? 0 : benefit < 0 ? -size : size;
+  };
+  return splitByFirmness(treatments, reference, evidence, levelOf);
+}
+
+/** Each level split by firmness, best level first, firm before "may"; the very uncertain last, apart. */
+function splitByFirmness(
+  treatments: string[],
+  reference: string,
+  evidence: (t: string, u: string) => PairEvidence,
+  levelOf: (t: string) => number,
+): TreatmentGroup[] {
   const groups = new Map<string, TreatmentGroup>();
   for (const t of treatments) {
-    const level = levels.get(t) ?? 0;
+    const level = levelOf(t);
     const certainty = t === reference ? "high" : evidence(t, reference).certainty;
     const kind = t === reference ? "firm" : firmness(certainty);
     const key = `${kind === "very-uncertain" ? "apart" : level}|${kind}`;
@@ -78,7 +115,6 @@ export function groupTreatments(
     group.treatments.push(t);
     groups.set(key, group);
   }
-  // Best level first, firm before "may"; the very uncertain come last, apart.
   const sortKey = (g: TreatmentGroup) => [g.firmness === "very-uncertain" ? 1 : 0, -g.level, g.firmness === "may" ? 1 : 0];
   return [...groups.values()]
     .map((g) => ({ ...g, treatments: g.treatments.sort() }))

@@ -1,7 +1,7 @@
 // Grouping by the minimally contextualised framework (Brignardello-Petersen et al., BMJ 2020;371:m3900; METHODS.md §9).
 import { describe, expect, it } from "vitest";
 import type { Rating } from "../../../server/grade/certainty";
-import { groupTreatments, type PairEvidence } from "../../../server/grade/groups";
+import { groupByMagnitude, groupTreatments, type PairEvidence } from "../../../server/grade/groups";
 
 /** Evidence from a table of "t vs u" entries; the reverse order is the negation; unlisted pairs are null effects. */
 function table(entries: Record<string, [number, number, Rating | null]>) {
@@ -88,5 +88,50 @@ describe("edge cases", () => {
       [1, ["A"]],
       [0, ["R"]],
     ]);
+  });
+});
+
+describe("the partially contextualised variant (same paper: thresholds replace the null)", () => {
+  // Thresholds small 0.2, moderate 0.5, large 1.0, higher is better. Against R, by point estimate:
+  //   A 0.5 (0.2 to 0.8, high) reaches the moderate threshold: level 2, firm.
+  //   B 1.0 (0.5 to 1.5, moderate) reaches large: level 3, firm.
+  //   C 0.55 (0.1 to 1.0, low) is moderate too, but low certainty: level 2, "may".
+  //   D 0.1 (−0.2 to 0.4) is under the small threshold: level 0 with R.
+  //   E −0.6 (−1.0 to −0.2, moderate) is a moderate harm: level −2.
+  //   F 0.6 (0.3 to 0.9, very low) is listed apart.
+  // Comparisons between non-reference treatments play no part here, unlike the minimal framework.
+  const evidence = table({
+    "A vs R": [0.2, 0.8, "high"],
+    "B vs R": [0.5, 1.5, "moderate"],
+    "C vs R": [0.1, 1.0, "low"],
+    "D vs R": [-0.2, 0.4, "high"],
+    "E vs R": [-1.0, -0.2, "moderate"],
+    "F vs R": [0.3, 0.9, "very_low"],
+  });
+  const thresholds = { small: 0.2, moderate: 0.5, large: 1.0 };
+
+  it("places each treatment by the size of its effect against the reference", () => {
+    expect(groupByMagnitude(["A", "B", "C", "D", "E", "F", "R"], "R", "higher", thresholds, evidence)).toEqual([
+      { level: 3, firmness: "firm", treatments: ["B"] },
+      { level: 2, firmness: "firm", treatments: ["A"] },
+      { level: 2, firmness: "may", treatments: ["C"] },
+      { level: 0, firmness: "firm", treatments: ["D", "R"] },
+      { level: -2, firmness: "firm", treatments: ["E"] },
+      { level: 0, firmness: "very-uncertain", treatments: ["F"] },
+    ]);
+  });
+
+  it("skips a threshold left empty: with only 'small', levels run from −1 to 1", () => {
+    const groups = groupByMagnitude(["A", "B", "E", "R"], "R", "higher", { small: 0.2, moderate: null, large: null }, evidence);
+    expect(groups.map((g) => [g.level, g.treatments])).toEqual([
+      [1, ["A", "B"]],
+      [0, ["R"]],
+      [-1, ["E"]],
+    ]);
+  });
+
+  it("reads the estimate the other way when lower is better", () => {
+    const groups = groupByMagnitude(["E", "R"], "R", "lower", thresholds, evidence);
+    expect(groups[0]).toEqual({ level: 2, firmness: "firm", treatments: ["E"] });
   });
 });

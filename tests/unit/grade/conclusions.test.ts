@@ -1,0 +1,89 @@
+// What a version says about an outcome: groups with labels, a statement and an absolute effect for
+// every comparison in both directions (METHODS.md §7, §9, §10).
+import { describe, expect, it } from "vitest";
+import { createI18n } from "../../../components/i18n";
+import type { ComparisonCertainty } from "../../../server/grade/assess";
+import type { Rating } from "../../../server/grade/certainty";
+import { concludeOutcome, magnitudeFor } from "../../../server/grade/conclusions";
+import { analyse } from "../../../server/nma/analyse";
+import { comparisonOf } from "../../../server/nma/comparison";
+import { parseDataset } from "../../../server/nma/parse";
+
+// An invented three-arm network, binary outcome, higher is better.
+const csv = `study,treatment,events,total
+s1,placebo,20,100
+s1,alpha,40,100
+s2,placebo,18,90
+s2,beta,30,90
+s3,alpha,35,80
+s3,beta,30,80
+s4,placebo,25,120
+s4,alpha,50,120
+`;
+const result = analyse(parseDataset(Buffer.from(csv), "arm-binary"), { measure: "OR", model: "fixed", reference: "placebo", better: "higher", draws: 500 });
+const rated = (rating: Rating): ComparisonCertainty[] =>
+  result.comparisons.map((c) => ({ treatment: c.treatment, comparator: c.comparator, network: rating }) as ComparisonCertainty);
+const names = { placebo: "Placebo", alpha: "Alpha", beta: "Beta" };
+const none = { small: null, moderate: null, large: null };
+const t = createI18n("en").t;
+
+describe("conclusions of an outcome", () => {
+  it("uses the minimally contextualised framework without thresholds and the partial one with them", () => {
+    expect(concludeOutcome(result, rated("high"), { name: "Response", baselineRisk: 0.2, thresholds: none, names }).framework).toBe("minimal");
+    expect(concludeOutcome(result, rated("high"), { name: "Response", baselineRisk: 0.2, thresholds: { small: 0.2, moderate: null, large: null }, names }).framework).toBe("partial");
+  });
+
+  it("reads every comparison in both directions, with opposite wording", () => {
+    const { readings } = concludeOutcome(result, rated("moderate"), { name: "Response to treatment", baselineRisk: 0.2, thresholds: none, names });
+    expect(readings).toHaveLength(3 * 2);
+    const alpha = readings.find((r) => r.treatment === "alpha" && r.comparator === "placebo")!;
+    const placebo = readings.find((r) => r.treatment === "placebo" && r.comparator === "alpha")!;
+    // Alpha's CI excludes the null here (about OR 2.3), so without thresholds the wording is the unqualified one.
+    expect(comparisonOf(result, "alpha", "placebo")!.network.lower).toBeGreaterThan(0);
+    expect(t(alpha.statement!.key, alpha.statement!.values)).toBe("Alpha probably increases response to treatment compared with Placebo.");
+    expect(t(placebo.statement!.key, placebo.statement!.values)).toBe("Placebo probably reduces response to treatment compared with Alpha.");
+  });
+
+  it("gives the absolute effect per 1000 from the baseline risk (METHODS.md §7, worked by hand here)", () => {
+    const { readings } = concludeOutcome(result, rated("high"), { name: "Response", baselineRisk: 0.2, thresholds: none, names });
+    const alpha = readings.find((r) => r.treatment === "alpha" && r.comparator === "placebo")!;
+    const or = Math.exp(comparisonOf(result, "alpha", "placebo")!.network.estimate);
+    const p1 = (or * 0.2) / (1 - 0.2 + or * 0.2);
+    expect(alpha.absolute!.baselinePer1000).toBeCloseTo(200, 10);
+    expect(alpha.absolute!.differencePer1000.estimate).toBeCloseTo(1000 * (p1 - 0.2), 10);
+    expect(alpha.absolute!.statement.key).toBe("statement.absolute.more");
+    // Beta vs Alpha: the comparator's risk is Alpha's, taken from the baseline through Alpha vs placebo.
+    const beta = readings.find((r) => r.treatment === "beta" && r.comparator === "alpha")!;
+    expect(beta.absolute!.baselinePer1000).toBeCloseTo(1000 * p1, 10);
+  });
+
+  it("has no absolute effect without a baseline risk, and no statement for an unrated comparison", () => {
+    const { readings } = concludeOutcome(result, [], { name: "Response", baselineRisk: null, thresholds: none, names });
+    expect(readings.every((r) => r.absolute === null && r.statement === null && r.certainty === null)).toBe(true);
+  });
+
+  it("labels every group with words the locale has", () => {
+    for (const thresholds of [none, { small: 0.2, moderate: 0.5, large: 1 }]) {
+      for (const rating of ["high", "low", "very_low"] as const) {
+        const { groups } = concludeOutcome(result, rated(rating), { name: "Response", baselineRisk: 0.2, thresholds, names });
+        for (const group of groups) expect(t(group.label.key, group.label.values)).not.toBe(group.label.key);
+      }
+    }
+    const { groups } = concludeOutcome(result, rated("low"), { name: "Response", baselineRisk: 0.2, thresholds: none, names });
+    expect(groups.map((g) => t(g.label.key, g.label.values))[0]).toMatch(/^May be among the most effective/);
+  });
+});
+
+describe("the size of an effect for its statement", () => {
+  it("follows the thresholds when there are any (METHODS.md §10)", () => {
+    const thresholds = { small: 0.1, moderate: 0.3, large: 0.6 };
+    expect(magnitudeFor({ estimate: 0.35, lower: -0.1, upper: 0.8 }, thresholds)).toBe("moderate");
+    expect(magnitudeFor({ estimate: -0.05, lower: -0.2, upper: 0.1 }, thresholds)).toBe("trivial");
+    expect(magnitudeFor({ estimate: 0.7, lower: 0.65, upper: 0.75 }, { small: 0.1, moderate: null, large: null })).toBe("small");
+  });
+
+  it("without thresholds, is trivial when the CI includes the null and unqualified otherwise (our rule, decision 0008)", () => {
+    expect(magnitudeFor({ estimate: 0.2, lower: -0.1, upper: 0.5 }, none)).toBe("trivial");
+    expect(magnitudeFor({ estimate: 0.2, lower: 0.1, upper: 0.3 }, none)).toBe("moderate");
+  });
+});
