@@ -1,60 +1,17 @@
 // Publishing: a version is a frozen snapshot of a brief — data, results, certainty, groups — built
 // once and never changed (the database refuses it too). Version 1 publishes; later versions correct.
-import { and, desc, eq, lte, sql } from "drizzle-orm";
-import { analysisSettings, latestDataset, latestResult } from "../analysis/run";
+import { and, desc, eq, gte, isNull, lte, sql } from "drizzle-orm";
 import { recordAudit } from "../audit";
 import type { Role } from "../auth/roles";
 import type { Database } from "../db/client";
 import { briefs, briefVersions } from "../db/schema";
-import { assessCertainty } from "../grade/assess";
-import { concludeOutcome } from "../grade/conclusions";
-import { loadJudgements } from "../grade/judgements";
-import type { AnalysisResult } from "../nma/analyse";
-import { renderMarkdown } from "../content/markdown";
-import { briefWithOutcomes } from "./briefs";
+import { slugify } from "./briefs";
+import { approvalOf } from "./review";
+import { contentChecksum, draftSnapshot, type VersionSnapshot } from "./snapshot";
 
 export type PublishOutcome =
   | { ok: true; version: number; url: string }
-  | { ok: false; reason: "not-found" | "not-ready"; detail: string }
-  | { ok: false; reason: "note-required"; detail: string };
-
-/** Builds the snapshot from the current draft: every outcome must have a current analysis. */
-async function buildSnapshot(db: Database, briefId: string) {
-  const brief = await briefWithOutcomes(db, briefId);
-  if (!brief) return null;
-  const notReady = brief.outcomes.filter((o) => o.analysis.state !== "current").map((o) => o.name);
-  if (brief.outcomes.length === 0 || notReady.length > 0) {
-    return { error: brief.outcomes.length === 0 ? "the brief has no outcome" : `outcomes without a current analysis: ${notReady.join(", ")}` };
-  }
-  const outcomes = [];
-  for (const outcome of brief.outcomes) {
-    const result = (await latestResult(db, outcome.id))!.result as AnalysisResult;
-    const dataset = (await latestDataset(db, outcome.id))!;
-    const thresholds = { small: outcome.thresholdSmall, moderate: outcome.thresholdModerate, large: outcome.thresholdLarge };
-    const certainty = assessCertainty(result, await loadJudgements(db, outcome.id), thresholds);
-    const conclusions = concludeOutcome(result, certainty, { name: outcome.name, baselineRisk: outcome.baselineRisk, thresholds, names: Object.fromEntries(brief.treatments.map((t) => [t.label, t.displayName])) });
-    outcomes.push({
-      name: outcome.name,
-      kind: outcome.kind,
-      settings: analysisSettings(outcome),
-      baselineRisk: outcome.baselineRisk,
-      unit: outcome.unit,
-      thresholds,
-      dataset: { fileName: dataset.fileName, sha256: dataset.sha256, format: dataset.format, parsed: dataset.parsed },
-      result,
-      certainty,
-      ...conclusions,
-    });
-  }
-  return {
-    snapshot: {
-      brief: { slug: brief.slug, title: brief.title, topic: brief.topic, condition: brief.condition, population: brief.population, demo: brief.demo },
-      treatments: brief.treatments,
-      texts: { laySummaryHtml: renderMarkdown(brief.laySummary), keyMessagesHtml: renderMarkdown(brief.keyMessages) },
-      outcomes,
-    },
-  };
-}
+  | { ok: false; reason: "not-found" | "not-ready" | "not-approved" | "withdrawn" | "note-required"; detail: string };
 
 export async function publishVersion(
   db: Database,
@@ -62,16 +19,20 @@ export async function publishVersion(
   options: { releaseAt?: Date; note?: string },
   actorId: string,
 ): Promise<PublishOutcome> {
-  const built = await buildSnapshot(db, briefId);
-  if (!built) return { ok: false, reason: "not-found", detail: "there is no such brief" };
-  if ("error" in built) return { ok: false, reason: "not-ready", detail: built.error! };
+  const draft = await draftSnapshot(db, briefId);
+  if (!draft.ok) return draft;
   return db.transaction(async (tx) => {
     const [brief] = await tx.select().from(briefs).where(eq(briefs.id, briefId)).for("update");
+    if (brief!.withdrawnAt) return { ok: false, reason: "withdrawn", detail: "the brief has been withdrawn" };
+    const approval = await approvalOf(tx, briefId);
+    if (approval !== contentChecksum(draft.snapshot)) {
+      return { ok: false, reason: "not-approved", detail: approval ? "the draft has changed since it was approved; it needs a new review" : "the draft has not been approved in review" };
+    }
     const [last] = await tx.select({ number: briefVersions.number }).from(briefVersions).where(eq(briefVersions.briefId, briefId)).orderBy(desc(briefVersions.number)).limit(1);
     const number = (last?.number ?? 0) + 1;
     if (number > 1 && !options.note?.trim()) return { ok: false, reason: "note-required", detail: "a correction needs a public note saying what changed" };
     const releaseAt = options.releaseAt ?? new Date();
-    const snapshot = { ...built.snapshot, version: number, releaseAt: releaseAt.toISOString(), note: options.note ?? null };
+    const snapshot: VersionSnapshot = { ...draft.snapshot, version: number, releaseAt: releaseAt.toISOString(), note: options.note ?? null };
     await tx.insert(briefVersions).values({ briefId, number, releaseAt, note: options.note ?? null, snapshot, createdBy: actorId });
     const status = releaseAt.getTime() > Date.now() ? "scheduled" : number > 1 ? "corrected" : "published";
     await tx.update(briefs).set({ status, rowVersion: brief!.rowVersion + 1, updatedAt: new Date() }).where(eq(briefs.id, briefId));
@@ -83,24 +44,107 @@ export async function publishVersion(
 /** Who may read a version before its release: the press, and the editors who scheduled it. */
 const embargoReaders: Role[] = ["press", "editor"];
 
-/** The stored snapshot as JSON text, exactly as frozen; null when it does not exist or is not yet released for this reader. */
-export async function readVersion(db: Database, slug: string, number: number, roles: Role[]): Promise<string | null> {
+export interface FoundVersion {
+  /** The stored snapshot as JSON text, exactly as frozen. */
+  json: string;
+  snapshot: VersionSnapshot;
+  /** Not yet released: only an embargo reader gets here, and nothing about it may be cached. */
+  embargoed: boolean;
+  withdrawal: { at: string; reason: string } | null;
+}
+
+const mayReadEmbargoed = (roles: Role[]) => roles.some((role) => embargoReaders.includes(role));
+
+/** A version as frozen; null when it does not exist or is not yet released for this reader. */
+export async function readVersion(db: Database, slug: string, number: number, roles: Role[]): Promise<FoundVersion | null> {
   const [row] = await db
-    .select({ releaseAt: briefVersions.releaseAt, snapshot: briefVersions.snapshot })
+    .select({ releaseAt: briefVersions.releaseAt, snapshot: briefVersions.snapshot, withdrawnAt: briefs.withdrawnAt, withdrawalReason: briefs.withdrawalReason })
     .from(briefVersions)
     .innerJoin(briefs, eq(briefs.id, briefVersions.briefId))
     .where(and(eq(briefs.slug, slug), eq(briefVersions.number, number)));
   if (!row) return null;
-  const released = row.releaseAt.getTime() <= Date.now();
-  if (!released && !roles.some((role) => embargoReaders.includes(role))) return null;
-  return JSON.stringify(row.snapshot);
+  const embargoed = row.releaseAt.getTime() > Date.now();
+  if (embargoed && !mayReadEmbargoed(roles)) return null;
+  return {
+    json: JSON.stringify(row.snapshot),
+    snapshot: row.snapshot as VersionSnapshot,
+    embargoed,
+    withdrawal: row.withdrawnAt ? { at: row.withdrawnAt.toISOString(), reason: row.withdrawalReason ?? "" } : null,
+  };
+}
+
+export interface VersionEntry {
+  number: number;
+  releaseAt: string;
+  note: string | null;
+  embargoed: boolean;
+}
+
+/** The versions of a brief this reader may see, newest first: the version history of its pages. */
+export async function versionHistory(db: Database, slug: string, roles: Role[]): Promise<VersionEntry[]> {
+  const rows = await db
+    .select({ number: briefVersions.number, releaseAt: briefVersions.releaseAt, note: briefVersions.note })
+    .from(briefVersions)
+    .innerJoin(briefs, eq(briefs.id, briefVersions.briefId))
+    .where(eq(briefs.slug, slug))
+    .orderBy(desc(briefVersions.number));
+  const now = Date.now();
+  return rows
+    .map((row) => ({ number: row.number, releaseAt: row.releaseAt.toISOString(), note: row.note, embargoed: row.releaseAt.getTime() > now }))
+    .filter((entry) => !entry.embargoed || mayReadEmbargoed(roles));
+}
+
+/** What decides whether a cached page is still right: the release and withdrawal state, read from one row. */
+export async function versionState(db: Database, slug: string, number: number) {
+  const [row] = await db
+    .select({ releaseAt: briefVersions.releaseAt, withdrawnAt: briefs.withdrawnAt })
+    .from(briefVersions)
+    .innerJoin(briefs, eq(briefs.id, briefVersions.briefId))
+    .where(and(eq(briefs.slug, slug), eq(briefVersions.number, number)));
+  return row ?? null;
+}
+
+export interface PressRoomEntry {
+  slug: string;
+  title: string;
+  number: number;
+  releaseAt: string;
+  note: string | null;
+  embargoed: boolean;
+}
+
+/** Embargoed versions, soonest first, then the releases of the last 30 days, newest first. */
+export async function listPressRoom(db: Database): Promise<PressRoomEntry[]> {
+  const since = new Date(Date.now() - 30 * 24 * 3600 * 1000);
+  const rows = await db
+    .select({
+      slug: briefs.slug,
+      title: sql<string>`${briefVersions.snapshot}->'brief'->>'title'`,
+      number: briefVersions.number,
+      releaseAt: briefVersions.releaseAt,
+      note: briefVersions.note,
+    })
+    .from(briefVersions)
+    .innerJoin(briefs, eq(briefs.id, briefVersions.briefId))
+    .where(and(gte(briefVersions.releaseAt, since), isNull(briefs.withdrawnAt)));
+  const now = Date.now();
+  const entries = rows.map((row) => ({ ...row, releaseAt: row.releaseAt.toISOString(), embargoed: row.releaseAt.getTime() > now }));
+  const embargoed = entries.filter((e) => e.embargoed).sort((a, b) => a.releaseAt.localeCompare(b.releaseAt));
+  const released = entries.filter((e) => !e.embargoed).sort((a, b) => b.releaseAt.localeCompare(a.releaseAt));
+  return [...embargoed, ...released];
 }
 
 export interface ReleasedBrief {
   slug: string;
   title: string;
   topic: string;
+  topicSlug: string;
+  condition: string;
+  population: string;
+  /** The names readers see, for search. */
+  treatments: string[];
   demo: boolean;
+  withdrawn: boolean;
   version: number;
   releasedAt: string;
 }
@@ -110,21 +154,33 @@ export async function listReleasedBriefs(db: Database): Promise<ReleasedBrief[]>
   const rows = await db
     .select({
       slug: briefs.slug,
-      // The title a reader sees is the frozen one; the draft's may have moved on.
-      title: sql<string>`${briefVersions.snapshot}->'brief'->>'title'`,
-      topic: sql<string>`${briefVersions.snapshot}->'brief'->>'topic'`,
-      demo: briefs.demo,
+      // What a reader sees is the frozen brief; the draft may have moved on.
+      brief: sql<VersionSnapshot["brief"]>`${briefVersions.snapshot}->'brief'`,
+      treatments: sql<VersionSnapshot["treatments"]>`${briefVersions.snapshot}->'treatments'`,
+      withdrawnAt: briefs.withdrawnAt,
       version: briefVersions.number,
       releaseAt: briefVersions.releaseAt,
     })
     .from(briefVersions)
     .innerJoin(briefs, eq(briefs.id, briefVersions.briefId))
     .where(lte(briefVersions.releaseAt, new Date()))
-    .orderBy(desc(briefVersions.releaseAt));
+    .orderBy(desc(briefVersions.releaseAt), desc(briefVersions.number));
   const latest = new Map<string, ReleasedBrief>();
   for (const row of rows) {
     if (latest.has(row.slug)) continue;
-    latest.set(row.slug, { slug: row.slug, title: row.title, topic: row.topic, demo: row.demo, version: row.version, releasedAt: row.releaseAt.toISOString() });
+    latest.set(row.slug, {
+      slug: row.slug,
+      title: row.brief.title,
+      topic: row.brief.topic,
+      topicSlug: slugify(row.brief.topic),
+      condition: row.brief.condition,
+      population: row.brief.population,
+      treatments: row.treatments.map((t) => t.displayName),
+      demo: row.brief.demo,
+      withdrawn: row.withdrawnAt !== null,
+      version: row.version,
+      releasedAt: row.releaseAt.toISOString(),
+    });
   }
   return [...latest.values()];
 }

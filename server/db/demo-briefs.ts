@@ -20,6 +20,9 @@ export interface DemoBrief {
   topic: string;
   condition: string;
   population: string;
+  /** The editor's Markdown, as invented as the data. */
+  laySummary: string;
+  keyMessages: string;
   treatmentNames: Record<string, string>;
   outcomes: DemoOutcome[];
 }
@@ -60,6 +63,14 @@ const smallBrief: DemoBrief = {
   topic: "Sleep",
   condition: "Poor sleep after night-shift work",
   population: "Adults who work night shifts",
+  laySummary: `*This brief uses invented data to show how Fairweigh presents a network meta-analysis. No real study, person or product is described.*
+
+People who work night shifts often sleep badly during the day. This fictional analysis brings together 15 invented trials of five ways to help — bright-light sessions, a planned-nap schedule, two sleep aids and light sessions combined with naps — and compares each with usual care and with each other, even where no trial compared them directly.
+
+The groups below say which options the evidence supports and how sure we can be. They are not a ranking: options in the same group may not differ from each other at all.`,
+  keyMessages: `- Light sessions combined with a nap schedule **may** help most people sleep well, but the certainty is low.
+- Most single options give a small benefit or none compared with usual care.
+- Scores that place options "first" or "last" are not proof: read the groups and the certainty instead.`,
   treatmentNames: {
     usual_care: "Usual care",
     light: "Timed bright-light sessions",
@@ -111,6 +122,12 @@ function largeBrief(): DemoBrief {
     topic: "Headache",
     condition: "Episodic tension-type headache",
     population: "Adults with an occasional tension headache",
+    laySummary: `*This brief uses invented data to show how Fairweigh presents a large network. No real study, person or product is described.*
+
+Twenty-one fictional compounds for an everyday tension headache are compared with an inactive tablet and with each other. With this many options, a list from "best" to "worst" would suggest differences that the evidence does not show. The groups below keep together the compounds that the evidence cannot tell apart.`,
+    keyMessages: `- Every compound in this fictional network gives some benefit compared with the inactive tablet.
+- Most compounds cannot be told apart from each other: they fall in the same group.
+- A compound's rank score can be high by chance; the groups and their certainty say more.`,
     treatmentNames: Object.fromEntries(labels.map((l) => [l, l === "inactive" ? "Inactive tablet" : `Compound ${l.slice(-1).toUpperCase()} (fictional)`])),
     outcomes: [
       {

@@ -20,7 +20,7 @@ import {
   varchar,
 } from "drizzle-orm/pg-core";
 import { roleNames } from "../auth/roles";
-import { briefStatuses } from "../briefs/status";
+import { briefStatuses, reviewDecisions } from "../briefs/status";
 
 export const role = pgEnum("role", roleNames);
 
@@ -96,6 +96,9 @@ export const briefs = pgTable("briefs", {
   status: briefStatus("status").notNull().default("draft"),
   /** Invented demonstration content: every page of it says so. */
   demo: boolean("demo").notNull().default(false),
+  /** A withdrawn brief keeps its public page, which gives this reason; its versions stay as they were. */
+  withdrawnAt: timestamp("withdrawn_at", { withTimezone: true }),
+  withdrawalReason: text("withdrawal_reason"),
   /** Incremented by every change; a PATCH must name the version it read (409 otherwise). */
   rowVersion: integer("row_version").notNull().default(1),
   createdBy: uuid("created_by").references(() => people.id),
@@ -219,4 +222,28 @@ export const briefVersions = pgTable(
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   },
   (table) => [uniqueIndex("brief_versions_number_idx").on(table.briefId, table.number)],
+);
+
+export const reviewDecision = pgEnum("review_decision", reviewDecisions);
+
+/**
+ * The review of a brief's draft, one row per step: submitted, returned with comments, approved. An
+ * approval records the checksum of the snapshot it approved, so that only that content is published.
+ */
+export const briefReviews = pgTable(
+  "brief_reviews",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    briefId: uuid("brief_id")
+      .notNull()
+      .references(() => briefs.id),
+    decision: reviewDecision("decision").notNull(),
+    comment: text("comment"),
+    contentSha256: text("content_sha256").notNull(),
+    actorId: uuid("actor_id")
+      .notNull()
+      .references(() => people.id),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (table) => [index("brief_reviews_brief_idx").on(table.briefId, table.createdAt)],
 );

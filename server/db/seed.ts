@@ -5,8 +5,9 @@ import type { Database } from "./client";
 import { briefs } from "./schema";
 import { storeDataset } from "../analysis/run";
 import type { Role } from "../auth/roles";
-import { createBrief, nameTreatments } from "../briefs/briefs";
+import { createBrief, nameTreatments, updateBrief } from "../briefs/briefs";
 import { createOutcome } from "../briefs/outcomes";
+import { reviewBrief } from "../briefs/review";
 import { publishVersion } from "../briefs/versions";
 import { assessCertainty } from "../grade/assess";
 import { saveJudgement } from "../grade/judgements";
@@ -39,7 +40,7 @@ export async function seedDemo(db: Database): Promise<void> {
 /**
  * Goes the way a real brief goes: an analyst creates it, uploads the data and records certainty
  * (no domain rated down, every computed suggestion confirmed: a demonstration, not an appraisal);
- * an editor publishes it.
+ * an editor writes its texts; the analyst submits it for review; the editor approves and publishes it.
  */
 async function publishDemoBrief(db: Database, demo: ReturnType<typeof demoBriefs>[number], analystId: string, editorId: string) {
   const brief = await createBrief(db, { title: demo.title, topic: demo.topic, condition: demo.condition, population: demo.population, demo: true }, analystId);
@@ -80,6 +81,13 @@ async function publishDemoBrief(db: Database, demo: ReturnType<typeof demoBriefs
     }
   }
   await nameTreatments(db, brief.id, demo.treatmentNames, analystId);
-  const published = await publishVersion(db, brief.id, {}, editorId);
-  if (!published.ok) throw new Error(`the demo brief "${demo.title}" could not be published: ${published.detail}`);
+  const texts = await updateBrief(db, brief.id, brief.rowVersion, { laySummary: demo.laySummary, keyMessages: demo.keyMessages }, editorId);
+  if (!texts.ok) throw new Error(`the demo brief "${demo.title}" could not take its texts`);
+  const steps = [
+    await reviewBrief(db, brief.id, { decision: "submitted" }, analystId),
+    await reviewBrief(db, brief.id, { decision: "approved", comment: "Fictional demonstration: approved by the demo editor." }, editorId),
+    await publishVersion(db, brief.id, {}, editorId),
+  ];
+  const refused = steps.find((step) => !step.ok);
+  if (refused && !refused.ok) throw new Error(`the demo brief "${demo.title}" could not be published: ${refused.detail}`);
 }

@@ -33,9 +33,16 @@ async function analysedBrief(title: string) {
   return { briefId, slug: String(created.body.slug), outcomeId };
 }
 
+/** The review every version goes through: the analyst submits, an editor approves. */
+async function approve(briefId: string) {
+  expect((await clients.analyst!.request("POST", `/api/briefs/${briefId}/reviews`, { json: { decision: "submitted" } })).status).toBe(201);
+  expect((await clients.editor!.request("POST", `/api/briefs/${briefId}/reviews`, { json: { decision: "approved" } })).status).toBe(201);
+}
+
 describe("publishing a version", () => {
   it("creates version 1 with its URL, and the snapshot stays byte-identical after the draft changes", async () => {
     const { briefId, slug, outcomeId } = await analysedBrief("Frozen version");
+    await approve(briefId);
     const published = await clients.editor!.request("POST", `/api/briefs/${briefId}/versions`, { json: {} });
     expect(published.status).toBe(201);
     expect(published.body).toEqual({ version: 1, url: `/briefs/${slug}/v/1` });
@@ -46,8 +53,9 @@ describe("publishing a version", () => {
     expect(snapshot).toMatchObject({ version: 1, brief: { title: "Frozen version" } });
     expect(snapshot.outcomes[0].result.studies).toBe(24);
 
-    await clients.analyst!.request("PATCH", `/api/briefs/${briefId}`, { json: { rowVersion: 2, title: "Changed draft title" } });
-    await clients.analyst!.request("PATCH", `/api/outcomes/${outcomeId}`, { json: { rowVersion: 1, model: "fixed" } });
+    // Created, submitted, approved, published: the brief's row is at version 4.
+    expect((await clients.analyst!.request("PATCH", `/api/briefs/${briefId}`, { json: { rowVersion: 4, title: "Changed draft title" } })).status).toBe(200);
+    expect((await clients.analyst!.request("PATCH", `/api/outcomes/${outcomeId}`, { json: { rowVersion: 1, model: "fixed" } })).status).toBe(200);
     const again = await fetch(`${app.url}/api/briefs/${slug}/versions/1`).then((r) => r.text());
     expect(again).toBe(first);
     expect((await anonymous.request("GET", `/api/briefs/${slug}/versions/2`)).status).toBe(404);
@@ -55,6 +63,7 @@ describe("publishing a version", () => {
 
   it("is refused by the database when anything tries to change or delete a version", async () => {
     const { briefId } = await analysedBrief("Trigger check");
+    await approve(briefId);
     await clients.editor!.request("POST", `/api/briefs/${briefId}/versions`, { json: {} });
     await expect(app.connection.pool.query("update brief_versions set note = 'edited' where brief_id = $1", [briefId])).rejects.toThrow(/frozen/);
     await expect(app.connection.pool.query("delete from brief_versions where brief_id = $1", [briefId])).rejects.toThrow(/frozen/);
@@ -62,7 +71,9 @@ describe("publishing a version", () => {
 
   it("needs a public note for a correction, then creates version 2", async () => {
     const { briefId, slug } = await analysedBrief("Correction");
+    await approve(briefId);
     await clients.editor!.request("POST", `/api/briefs/${briefId}/versions`, { json: {} });
+    await approve(briefId);
     const refused = await clients.editor!.request("POST", `/api/briefs/${briefId}/versions`, { json: {} });
     expect(refused.status).toBe(400);
     const corrected = await clients.editor!.request("POST", `/api/briefs/${briefId}/versions`, { json: { note: "A study's events were entered twice." } });
@@ -91,6 +102,7 @@ describe("the editor's texts", () => {
       json: { rowVersion: 1, laySummary: "Counselling **probably** helps. <script>alert(1)</script>", keyMessages: "- [more](javascript:alert(1))" },
     });
     expect(written.status).toBe(200);
+    await approve(briefId);
     await clients.editor!.request("POST", `/api/briefs/${briefId}/versions`, { json: {} });
     const snapshot = (await new ApiClient(app.url).request("GET", `/api/briefs/${slug}/versions/1`)).body as { texts: { laySummaryHtml: string; keyMessagesHtml: string } };
     expect(snapshot.texts.laySummaryHtml).toContain("<strong>probably</strong>");
@@ -103,6 +115,7 @@ describe("the embargo", () => {
   it("hides a scheduled version from the public and from analysts, and shows it to the press", async () => {
     const { briefId, slug } = await analysedBrief("Embargoed");
     const releaseAt = new Date(Date.now() + 24 * 3600 * 1000).toISOString();
+    await approve(briefId);
     expect((await clients.editor!.request("POST", `/api/briefs/${briefId}/versions`, { json: { releaseAt } })).status).toBe(201);
     const url = `/api/briefs/${slug}/versions/1`;
     expect((await new ApiClient(app.url).request("GET", url)).status).toBe(404);
