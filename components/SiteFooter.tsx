@@ -4,7 +4,7 @@ import { HealthCaution } from "./HealthCaution";
 export function SiteFooter() {
   const { t } = useTranslation();
   return (
-    <footer className="mt-16 border-t border-rule bg-white/60">
+    <footer data-site-footer className="mt-16 border-t border-rule bg-white/60">
       <div className="mx-auto max-w-5xl px-6 py-10">
         <HealthCaution />
         <p className="mt-8 font-sans text-xs text-muted">{t("site.name")}</p>

@@ -3,7 +3,7 @@ import { useTranslation } from "react-i18next";
 export function SiteHeader() {
   const { t } = useTranslation();
   return (
-    <header className="border-b border-rule">
+    <header data-site-header className="border-b border-rule">
       <a href="#content" className="sr-only focus:not-sr-only focus:absolute focus:p-2">
         {t("site.skipToContent")}
       </a>

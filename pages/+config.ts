@@ -6,5 +6,6 @@ export default {
   title: "Fairweigh",
   description: "Network meta-analyses published so that readers can see what the evidence supports.",
   lang: "en",
+  favicon: "/favicon.svg",
   passToClient: ["csrfToken"],
 } satisfies Config;

@@ -10,6 +10,8 @@ declare global {
       db?: Database;
       /** For pages with a form that posts without JavaScript; see server/pages.ts. */
       csrfToken?: string;
+      /** The address readers use, for permalinks and citations (no trailing slash). */
+      siteUrl?: string;
     }
   }
 }

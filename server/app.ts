@@ -15,6 +15,7 @@ import type { Database } from "./db/client";
 import { sendError } from "./http/errors";
 import { createCsrf, cspNonce, securityHeaders } from "./http/security";
 import { pageRoutes } from "./pages";
+import { publicFileRoutes } from "./public/routes";
 
 export const projectRoot = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "..");
 
@@ -25,6 +26,8 @@ export interface AppOptions {
   production: boolean;
   secureTransport: boolean;
   logLevel: pino.LevelWithSilent;
+  /** The address readers use, for permalinks; by default the one each request came to. */
+  publicUrl?: string;
   /** Leave out the pages (integration tests of the API need no build). */
   pages?: boolean;
 }
@@ -70,7 +73,8 @@ export async function createApp(options: AppOptions): Promise<express.Express> {
 
   const csrf = createCsrf(sessionSecret, secureTransport);
   app.use("/api", apiRoutes({ db, pool, passport, csrf }));
-  if (options.pages !== false) app.use(await pageRoutes({ root: projectRoot, production, csrf, db }));
+  app.use(publicFileRoutes(db, options.publicUrl));
+  if (options.pages !== false) app.use(await pageRoutes({ root: projectRoot, production, csrf, db, publicUrl: options.publicUrl }));
 
   app.use((error: unknown, req: Request, res: Response, _next: NextFunction) => {
     req.log.error({ err: error }, "request failed");

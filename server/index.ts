@@ -16,6 +16,7 @@ export async function startServer(config: ServerConfig): Promise<{ url: string; 
     production: config.production,
     secureTransport: config.secureTransport,
     logLevel: config.logLevel,
+    publicUrl: config.publicUrl,
   });
   const server: Server = await new Promise((resolve) => {
     const listening = app.listen(config.port, config.host, () => resolve(listening));

@@ -1,21 +1,43 @@
-// Server-side rendering of the pages/ folder by Vike, and the built assets.
+// Server-side rendering of the pages/ folder by Vike, the built assets, and the HTTP caching of
+// public pages: released versions from memory with an ETag, other public pages revalidated.
 import path from "node:path";
-import express, { Router } from "express";
+import express, { Router, type Request, type Response } from "express";
 import { createDevMiddleware, renderPage } from "vike/server";
+import { defaultLocale } from "../components/i18n";
+import { versionState } from "./briefs/versions";
 import type { Database } from "./db/client";
 import type { createCsrf } from "./http/security";
+import { etagOf, PageCache, versionOfPath, type CachedPage } from "./page-cache";
 
 /** Pages whose HTML carries a CSRF token, because they hold a form that posts without JavaScript. */
 const pagesWithForms = new Set(["/sign-in"]);
+
+/**
+ * What a page's +data may say about its HTTP answer: a status other than 200 (410 for a withdrawn
+ * brief) and how it may be cached — "version" for a released version (frozen), "revalidate" for a
+ * public page that changes (the latest version, lists), "private" for what only some may see.
+ */
+export interface PageAnswer {
+  httpStatus?: number;
+  caching?: "version" | "revalidate" | "private";
+}
+
+const cacheControl = {
+  version: "public, max-age=3600",
+  revalidate: "public, no-cache",
+  private: "private, no-store",
+} as const;
 
 export async function pageRoutes(options: {
   root: string;
   production: boolean;
   csrf: ReturnType<typeof createCsrf>;
   db: Database;
+  publicUrl?: string;
 }): Promise<Router> {
-  const { root, production, csrf, db } = options;
+  const { root, production, csrf, db, publicUrl } = options;
   const router = Router();
+  const cache = new PageCache();
   if (production) {
     // Built assets carry a content hash in their name, so they can be cached for a year.
     router.use(
@@ -28,14 +50,36 @@ export async function pageRoutes(options: {
     router.use(devMiddleware);
   }
 
+  function send(req: Request, res: Response, page: Omit<CachedPage, "withdrawnAt">, caching: keyof typeof cacheControl) {
+    for (const [name, value] of page.headers) res.setHeader(name, value);
+    const policy = res.getHeader("content-security-policy");
+    const nonce = res.locals.cspNonce as string;
+    if (typeof policy === "string" && page.nonce !== nonce) res.setHeader("content-security-policy", policy.replace(`'nonce-${nonce}'`, `'nonce-${page.nonce}'`));
+    res.setHeader("Cache-Control", cacheControl[caching]);
+    if (caching !== "private") res.setHeader("ETag", page.etag);
+    if (caching !== "private" && page.status === 200 && req.fresh) return res.status(304).end();
+    res.status(page.status).type("html").send(page.html);
+  }
+
   router.use(async (req, res, next) => {
     if (req.method !== "GET" && req.method !== "HEAD") return next();
-    let csrfToken: string | undefined;
-    if (pagesWithForms.has(req.path)) {
-      req.session.csrfIssued = true;
-      csrfToken = csrf.generateCsrfToken(req, res, { overwrite: false });
-    }
+    const version = versionOfPath(req.path);
+    const key = PageCache.key(defaultLocale, req.path);
     try {
+      if (version) {
+        const cached = cache.get(key);
+        if (cached) {
+          const state = await versionState(db, version.slug, version.number);
+          if (state && (state.withdrawnAt?.toISOString() ?? null) === cached.withdrawnAt) return send(req, res, cached, "version");
+          cache.delete(key);
+        }
+      }
+
+      let csrfToken: string | undefined;
+      if (pagesWithForms.has(req.path)) {
+        req.session.csrfIssued = true;
+        csrfToken = csrf.generateCsrfToken(req, res, { overwrite: false });
+      }
       const pageContext = await renderPage({
         urlOriginal: req.originalUrl,
         headersOriginal: req.headers,
@@ -43,15 +87,18 @@ export async function pageRoutes(options: {
         person: req.user ?? null,
         db,
         csrfToken,
+        siteUrl: (publicUrl ?? `${req.protocol}://${req.get("host")}`).replace(/\/$/, ""),
       });
       const { httpResponse } = pageContext;
       if (!httpResponse) return next();
-      for (const [name, value] of httpResponse.headers) {
-        // helmet has set the full policy with the same nonce; Vike's shorter one would replace it.
-        if (name.toLowerCase() !== "content-security-policy") res.setHeader(name, value);
-      }
-      res.status(httpResponse.statusCode);
-      httpResponse.pipe(res);
+      const answer = ((pageContext as { data?: unknown }).data ?? {}) as PageAnswer & { withdrawal?: { at: string } | null };
+      const html = await httpResponse.getBody();
+      // helmet has set the full policy with the same nonce; Vike's shorter one would replace it.
+      const headers = httpResponse.headers.filter(([name]) => name.toLowerCase() !== "content-security-policy") as [string, string][];
+      const page = { html, etag: etagOf(html), status: answer.httpStatus ?? httpResponse.statusCode, headers, nonce: res.locals.cspNonce as string };
+      const caching = httpResponse.statusCode >= 400 && !answer.httpStatus ? "private" : (answer.caching ?? "private");
+      if (caching === "version" && version) cache.set(key, { ...page, withdrawnAt: answer.withdrawal?.at ?? null });
+      send(req, res, page, caching);
     } catch (error) {
       next(error);
     }

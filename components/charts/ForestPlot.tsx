@@ -15,10 +15,12 @@ export interface ForestRow {
 }
 
 const rowHeight = 28;
-const margin = { top: 8, right: 24, bottom: 40, left: 180 };
-const width = 640;
+const plotWidth = 460;
 
 export function ForestPlot({ rows, measure, title }: { rows: ForestRow[]; measure: Measure; title: string }) {
+  // Room on the left for the longest label at 13 px (about 7 px a character).
+  const margin = { top: 8, right: 24, bottom: 40, left: 24 + 7 * Math.max(8, ...rows.map((r) => r.label.length)) };
+  const width = margin.left + plotWidth + margin.right;
   const height = margin.top + margin.bottom + rows.length * rowHeight;
   const lowest = Math.min(0, ...rows.map((r) => r.lower));
   const highest = Math.max(0, ...rows.map((r) => r.upper));

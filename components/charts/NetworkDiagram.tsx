@@ -12,12 +12,14 @@ export interface NetworkEdge {
   studies: number;
 }
 
-// Wide enough that labels beside the circle's left and right nodes are not cut off.
-const width = 600;
-const height = 440;
-
 export function NetworkDiagram({ nodes, edges, title }: { nodes: NetworkNode[]; edges: NetworkEdge[]; title: string }) {
-  const radius = height / 2 - 60;
+  // Labels run outwards along the radius, so neighbours need only a line's height between them
+  // (about 18 px of circumference each): readable at 27 nodes and more. The figure leaves room for
+  // the longest label in every direction.
+  const radius = Math.max(140, (nodes.length * 18) / (2 * Math.PI));
+  const labelSpace = 30 + 7 * Math.max(0, ...nodes.map((n) => n.label.length));
+  const width = 2 * (radius + labelSpace);
+  const height = width;
   const position = new Map(
     nodes.map((node, i) => {
       const angle = (2 * Math.PI * i) / nodes.length - Math.PI / 2;
@@ -28,7 +30,7 @@ export function NetworkDiagram({ nodes, edges, title }: { nodes: NetworkNode[]; 
   const mostStudies = Math.max(1, ...edges.map((e) => e.studies));
   const nodeRadius = (n: NetworkNode) => (n.participants === null ? 8 : 5 + 14 * Math.sqrt(n.participants / largest));
   return (
-    <svg viewBox={`0 0 ${width} ${height}`} role="img" aria-label={title} className="w-full max-w-xl font-sans" data-testid="network-diagram">
+    <svg viewBox={`0 0 ${width} ${height}`} role="img" aria-label={title} className="w-full max-w-2xl font-sans" data-testid="network-diagram">
       <title>{title}</title>
       <Group left={width / 2} top={height / 2}>
         {edges.map((edge) => {
@@ -43,11 +45,10 @@ export function NetworkDiagram({ nodes, edges, title }: { nodes: NetworkNode[]; 
             <g key={node.id}>
               <circle cx={p.x} cy={p.y} r={nodeRadius(node)} fill="#6d1f35" />
               <text
-                x={p.x + labelDistance * Math.cos(p.angle)}
-                y={p.y + labelDistance * Math.sin(p.angle)}
-                textAnchor={Math.cos(p.angle) > 0.3 ? "start" : Math.cos(p.angle) < -0.3 ? "end" : "middle"}
+                transform={`translate(${p.x + labelDistance * Math.cos(p.angle)} ${p.y + labelDistance * Math.sin(p.angle)}) rotate(${labelRotation(p.angle)})`}
+                textAnchor={Math.cos(p.angle) >= -1e-9 ? "start" : "end"}
                 dy="0.35em"
-                fontSize={12}
+                fontSize={13}
                 fill="#1d1a17"
               >
                 {node.label}
@@ -58,4 +59,10 @@ export function NetworkDiagram({ nodes, edges, title }: { nodes: NetworkNode[]; 
       </Group>
     </svg>
   );
+}
+
+/** Degrees that lay a label along its radius, turned over on the left half so that it never reads upside down. */
+function labelRotation(angle: number): number {
+  const degrees = (angle * 180) / Math.PI;
+  return Math.cos(angle) >= -1e-9 ? degrees : degrees + 180;
 }

@@ -1,36 +1,45 @@
 import { useTranslation } from "react-i18next";
 import { useData } from "vike-react/useData";
+import { BriefList } from "../../components/BriefList";
 import type { Data } from "./+data";
 
 export default function Page() {
-  const { t, i18n } = useTranslation();
-  const { briefs } = useData<Data>();
-  const date = new Intl.DateTimeFormat(i18n.language, { dateStyle: "long", timeZone: "UTC" });
+  const { t } = useTranslation();
+  const { briefs, topics } = useData<Data>();
   return (
     <>
       <h1 className="text-4xl leading-tight font-semibold tracking-tight">{t("home.title")}</h1>
       <p className="mt-6 text-xl leading-relaxed text-muted">{t("home.lead")}</p>
+      <form action="/briefs" method="get" role="search" className="mt-10 flex flex-wrap gap-3 font-sans">
+        <label htmlFor="home-search" className="sr-only">{t("search.label")}</label>
+        <input id="home-search" name="q" type="search" placeholder={t("search.placeholder")} className="min-w-0 flex-1 border border-ink bg-white px-3 py-2" />
+        <button type="submit" className="bg-accent px-4 py-2 font-semibold text-white">{t("search.submit")}</button>
+      </form>
       <section aria-labelledby="latest-briefs" className="mt-14">
         <h2 id="latest-briefs" className="border-b border-rule pb-2 font-sans text-sm font-semibold uppercase tracking-wide">
           {t("home.latest")}
         </h2>
-        {briefs.length === 0 ? (
-          <p className="mt-6 text-lg text-muted">{t("home.empty")}</p>
-        ) : (
-          <ul className="mt-2 divide-y divide-rule" data-testid="released-briefs">
-            {briefs.map((brief) => (
-              <li key={brief.slug} className="py-5">
-                <p className="font-sans text-xs font-semibold uppercase tracking-wide text-muted">{brief.topic}</p>
-                <h3 className="mt-1 text-2xl leading-snug font-semibold">{brief.title}</h3>
-                <p className="mt-1 font-sans text-sm text-muted">
-                  {t("home.version", { version: brief.version, date: date.format(new Date(brief.releasedAt)) })}
-                  {brief.demo ? <span className="ms-3 border border-accent px-2 py-0.5 text-accent">{t("home.demo")}</span> : null}
-                </p>
+        {briefs.length === 0 ? <p className="mt-6 text-lg text-muted">{t("home.empty")}</p> : <BriefList briefs={briefs} />}
+        {briefs.length > 0 ? (
+          <p className="mt-4 font-sans text-sm">
+            <a href="/briefs">{t("home.allBriefs")}</a>
+          </p>
+        ) : null}
+      </section>
+      {topics.length > 0 ? (
+        <section aria-labelledby="topics" className="mt-14">
+          <h2 id="topics" className="border-b border-rule pb-2 font-sans text-sm font-semibold uppercase tracking-wide">{t("home.topics")}</h2>
+          <ul className="mt-4 flex flex-wrap gap-3 font-sans" data-testid="topics">
+            {topics.map((topic) => (
+              <li key={topic.slug}>
+                <a href={`/topics/${topic.slug}`} className="inline-block border border-rule bg-white px-3 py-1 no-underline">
+                  {t("home.topic", { name: topic.name, count: topic.count })}
+                </a>
               </li>
             ))}
           </ul>
-        )}
-      </section>
+        </section>
+      ) : null}
     </>
   );
 }

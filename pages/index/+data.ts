@@ -1,9 +1,11 @@
-// Runs on the server only: the latest released version of each brief.
+// Runs on the server only: the latest released version of each brief, and the topics.
 import type { PageContextServer } from "vike/types";
+import { topicsOf } from "../../server/briefs/search";
 import { listReleasedBriefs } from "../../server/briefs/versions";
 
 export async function data(pageContext: PageContextServer) {
-  return { briefs: await listReleasedBriefs(pageContext.db!) };
+  const briefs = await listReleasedBriefs(pageContext.db!);
+  return { briefs: briefs.slice(0, 10), topics: topicsOf(briefs), caching: "revalidate" as const };
 }
 
 export type Data = Awaited<ReturnType<typeof data>>;

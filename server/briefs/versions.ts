@@ -104,6 +104,22 @@ export async function versionState(db: Database, slug: string, number: number) {
   return row ?? null;
 }
 
+export interface PublicVersion {
+  found: FoundVersion;
+  history: VersionEntry[];
+  latestVersion: number;
+}
+
+/** A version of a brief for its pages, with its history; `"latest"` is the newest this reader may see. */
+export async function readPublicVersion(db: Database, slug: string, number: number | "latest", roles: Role[]): Promise<PublicVersion | null> {
+  const history = await versionHistory(db, slug, roles);
+  // The newest released version is "the latest"; an embargo reader reaches a scheduled one by its number.
+  const latestVersion = history.find((entry) => !entry.embargoed)?.number ?? history[0]?.number;
+  if (latestVersion === undefined) return null;
+  const found = await readVersion(db, slug, number === "latest" ? latestVersion : number, roles);
+  return found ? { found, history, latestVersion } : null;
+}
+
 export interface PressRoomEntry {
   slug: string;
   title: string;
@@ -183,4 +199,31 @@ export async function listReleasedBriefs(db: Database): Promise<ReleasedBrief[]>
     });
   }
   return [...latest.values()];
+}
+
+export interface ReleasedVersion {
+  slug: string;
+  title: string;
+  number: number;
+  releaseAt: string;
+  note: string | null;
+  withdrawnAt: string | null;
+}
+
+/** Every released version, newest first: the feed's entries and the sitemap's addresses. */
+export async function listReleasedVersions(db: Database): Promise<ReleasedVersion[]> {
+  const rows = await db
+    .select({
+      slug: briefs.slug,
+      title: sql<string>`${briefVersions.snapshot}->'brief'->>'title'`,
+      number: briefVersions.number,
+      releaseAt: briefVersions.releaseAt,
+      note: briefVersions.note,
+      withdrawnAt: briefs.withdrawnAt,
+    })
+    .from(briefVersions)
+    .innerJoin(briefs, eq(briefs.id, briefVersions.briefId))
+    .where(lte(briefVersions.releaseAt, new Date()))
+    .orderBy(desc(briefVersions.releaseAt), desc(briefVersions.number));
+  return rows.map((row) => ({ ...row, releaseAt: row.releaseAt.toISOString(), withdrawnAt: row.withdrawnAt?.toISOString() ?? null }));
 }

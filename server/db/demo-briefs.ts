@@ -68,8 +68,8 @@ const smallBrief: DemoBrief = {
 People who work night shifts often sleep badly during the day. This fictional analysis brings together 15 invented trials of five ways to help — bright-light sessions, a planned-nap schedule, two sleep aids and light sessions combined with naps — and compares each with usual care and with each other, even where no trial compared them directly.
 
 The groups below say which options the evidence supports and how sure we can be. They are not a ranking: options in the same group may not differ from each other at all.`,
-  keyMessages: `- Light sessions combined with a nap schedule **may** help most people sleep well, but the certainty is low.
-- Most single options give a small benefit or none compared with usual care.
+  keyMessages: `- Light sessions combined with a nap schedule, and sleep aid K, probably help people sleep well: a large benefit compared with usual care (moderate certainty).
+- The planned-nap schedule and sleep aid M **may** help a little, but the certainty is low.
 - Scores that place options "first" or "last" are not proof: read the groups and the certainty instead.`,
   treatmentNames: {
     usual_care: "Usual care",

@@ -70,10 +70,11 @@ function inSentence(name: string): string {
 
 const sizes = ["small", "moderate", "large"] as const;
 
-function groupLabel(group: TreatmentGroup, framework: Framework, extremes: { best: number; worst: number }, reference: string): Message {
-  const values = { reference };
+function groupLabel(group: TreatmentGroup, framework: Framework, extremes: { best: number; worst: number }, reference: { label: string; name: string }): Message {
+  const values = { reference: reference.name };
   if (group.firmness === "very-uncertain") return { key: "groups.veryUncertain", values };
   const firmness = group.firmness;
+  if (group.treatments.length === 1 && group.treatments[0] === reference.label) return { key: "groups.referenceOnly", values };
   if (framework === "partial") {
     if (group.level === 0) return { key: `groups.partial.trivial.${firmness}`, values };
     const side = group.level > 0 ? "benefit" : "harm";
@@ -128,7 +129,7 @@ export function concludeOutcome(result: AnalysisResult, certainty: ComparisonCer
 
   return {
     framework,
-    groups: groups.map((group) => ({ ...group, label: groupLabel(group, framework, extremes, name(result.reference)) })),
+    groups: groups.map((group) => ({ ...group, label: groupLabel(group, framework, extremes, { label: result.reference, name: name(result.reference) }) })),
     readings,
     rankScores: rankExplainer(result),
   };

@@ -1,0 +1,97 @@
+// A version of a brief, as the public reads it: notices, the editor's texts, the health caution,
+// each outcome, how to cite it, the data, and the version history. Rendered from the snapshot only.
+import { useTranslation } from "react-i18next";
+import type { BriefPageData } from "../../server/briefs/page-data";
+import { HealthCaution } from "../HealthCaution";
+import { CiteBlock } from "./CiteBlock";
+import { DemoBanner, VersionNotices } from "./Notices";
+import { OutcomeSection } from "./OutcomeSection";
+import { VersionHistory } from "./VersionHistory";
+
+export function BriefPage({ data }: { data: BriefPageData }) {
+  const { t, i18n } = useTranslation();
+  const { view, versionPath, citation } = data;
+  const date = new Intl.DateTimeFormat(i18n.language, { dateStyle: "long", timeZone: "UTC" });
+  return (
+    <article data-testid="brief">
+      {view.demo ? <DemoBanner /> : null}
+      <VersionNotices
+        withdrawal={view.withdrawal}
+        embargoed={view.embargoed}
+        releaseAt={view.releaseAt}
+        version={view.version}
+        latestVersion={view.latestVersion}
+        latestHref={`/briefs/${view.slug}`}
+      />
+      <header>
+        <p className="font-sans text-xs font-semibold uppercase tracking-wide text-muted">
+          <a href={`/topics/${view.topicSlug}`} className="text-muted">{view.topic}</a> · {view.condition}
+        </p>
+        <h1 className="mt-2 text-4xl leading-tight font-semibold tracking-tight">{view.title}</h1>
+        <p className="mt-3 text-lg text-muted">{t("brief.population", { population: view.population })}</p>
+        <p className="mt-3 font-sans text-sm">
+          {t("brief.versionLine", { version: view.version, date: date.format(new Date(view.releaseAt)) })}
+          {view.history.length > 1 ? (
+            <>
+              {" · "}
+              <a href="#history-title">{t("brief.allVersions", { count: view.history.length })}</a>
+            </>
+          ) : null}
+        </p>
+        {view.note ? <p className="mt-2 border-s-4 border-accent ps-3">{t("brief.correctionNote", { note: view.note })}</p> : null}
+      </header>
+
+      {view.texts.keyMessagesHtml ? (
+        <section aria-labelledby="key-messages" className="mt-10 bg-white p-6">
+          <h2 id="key-messages" className="font-sans text-sm font-semibold uppercase tracking-wide">{t("brief.keyMessages")}</h2>
+          <div className="prose-brief mt-3" dangerouslySetInnerHTML={{ __html: view.texts.keyMessagesHtml }} />
+        </section>
+      ) : null}
+      {view.texts.laySummaryHtml ? (
+        <section aria-labelledby="summary" className="mt-10">
+          <h2 id="summary" className="font-sans text-sm font-semibold uppercase tracking-wide">{t("brief.summary")}</h2>
+          <div className="prose-brief mt-3 text-lg leading-relaxed" dangerouslySetInnerHTML={{ __html: view.texts.laySummaryHtml }} />
+        </section>
+      ) : null}
+
+      <div className="mt-10">
+        <HealthCaution />
+      </div>
+
+      <p className="mt-10 border-s-4 border-rule ps-4 text-muted">{t("brief.notALeaderboard")}</p>
+
+      {view.outcomes.length > 1 ? (
+        <nav aria-label={t("brief.outcomesNav")} className="mt-10 font-sans text-sm print:hidden">
+          <p className="font-semibold">{t("brief.outcomesNav")}</p>
+          <ol className="mt-2 list-decimal ps-6">
+            {view.outcomes.map((outcome) => (
+              <li key={outcome.index}>
+                <a href={`#outcome-${outcome.index + 1}`}>{outcome.name}</a>
+              </li>
+            ))}
+          </ol>
+        </nav>
+      ) : null}
+
+      {view.outcomes.map((outcome) => (
+        <OutcomeSection key={outcome.index} outcome={outcome} versionHref={versionPath} />
+      ))}
+
+      <CiteBlock heading={t("cite.brief")} reference={citation.reference} accessed={citation.accessed} permalink={citation.permalink} filesHref={versionPath} />
+
+      <section aria-labelledby="data-title" className="mt-16 border-t border-rule pt-6 print:hidden">
+        <h2 id="data-title" className="text-xl font-semibold">{t("brief.data")}</h2>
+        <p className="mt-2">{t("brief.dataLead")}</p>
+        <ul className="mt-3 space-y-1 font-sans text-sm" data-testid="downloads">
+          {(["inputs.csv", "inputs.json", "results.csv", "results.json"] as const).map((file) => (
+            <li key={file}>
+              <a href={`${versionPath}/downloads/${file}`}>{t(`brief.download.${file.replace(".", "_")}`)}</a>
+            </li>
+          ))}
+        </ul>
+      </section>
+
+      <VersionHistory slug={view.slug} history={view.history} current={view.version} />
+    </article>
+  );
+}

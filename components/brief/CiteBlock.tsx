@@ -1,0 +1,22 @@
+// "Cite this": the formatted reference with its access date, the permalink, and the files for
+// reference managers. The reference itself is formatted on the server by the citation library.
+import { useTranslation } from "react-i18next";
+
+export function CiteBlock({ heading, reference, accessed, permalink, filesHref }: { heading: string; reference: string; accessed: string; permalink: string; filesHref: string }) {
+  const { t, i18n } = useTranslation();
+  const date = new Intl.DateTimeFormat(i18n.language, { dateStyle: "long", timeZone: "UTC" }).format(new Date(accessed));
+  return (
+    <section aria-labelledby="cite-title" className="mt-16 border-t border-rule pt-6 print:break-inside-avoid" data-testid="cite">
+      <h2 id="cite-title" className="text-xl font-semibold">{heading}</h2>
+      <p className="mt-3 bg-white p-4" data-testid="citation">
+        {reference} {t("cite.accessed", { date })}
+      </p>
+      <p className="mt-2 font-sans text-sm">
+        {t("cite.permalink")} <a href={permalink} className="break-all">{permalink}</a>
+      </p>
+      <p className="mt-2 font-sans text-sm print:hidden">
+        {t("cite.download")} <a href={`${filesHref}/cite.ris`}>RIS</a> · <a href={`${filesHref}/cite.bib`}>BibTeX</a> · <a href={`${filesHref}/cite.json`}>CSL-JSON</a>
+      </p>
+    </section>
+  );
+}

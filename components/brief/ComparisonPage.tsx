@@ -1,0 +1,137 @@
+// One comparison in one version, as reporters cite it: per outcome the plain-language statement,
+// the relative and absolute effect with 95% CI, the certainty in words with its footnoted reasons,
+// and the direct, indirect and network evidence side by side.
+import { useTranslation } from "react-i18next";
+import type { ComparisonOutcomeView } from "../../server/briefs/brief-page";
+import type { ComparisonPageData } from "../../server/briefs/page-data";
+import { HealthCaution } from "../HealthCaution";
+import { CertaintyMark } from "./CertaintyMark";
+import { CiteBlock } from "./CiteBlock";
+import { formatInterval } from "./format";
+import { DemoBanner, VersionNotices } from "./Notices";
+
+export function ComparisonPage({ data }: { data: ComparisonPageData }) {
+  const { t, i18n } = useTranslation();
+  const { view, versionPath, path, citation } = data;
+  const date = new Intl.DateTimeFormat(i18n.language, { dateStyle: "long", timeZone: "UTC" });
+  const versus = t("brief.versus", { treatment: view.treatment.name, comparator: view.comparator.name });
+  return (
+    <article data-testid="comparison">
+      {view.demo ? <DemoBanner /> : null}
+      <VersionNotices
+        withdrawal={view.withdrawal}
+        embargoed={view.embargoed}
+        releaseAt={view.releaseAt}
+        version={view.version}
+        latestVersion={view.latestVersion}
+        latestHref={`/briefs/${view.slug}`}
+      />
+      <p className="font-sans text-sm">
+        <a href={versionPath}>{t("compare.back", { title: view.title })}</a>
+      </p>
+      <h1 className="mt-3 text-4xl leading-tight font-semibold tracking-tight">{versus}</h1>
+      <p className="mt-3 font-sans text-sm text-muted">
+        {t("compare.inVersion", { version: view.version, date: date.format(new Date(view.releaseAt)) })} ·{" "}
+        <a href={`${versionPath}/compare/${encodeURIComponent(view.comparator.id)}/${encodeURIComponent(view.treatment.id)}`}>{t("compare.reverse")}</a>
+      </p>
+      {view.outcomes.map((outcome) => (
+        <OutcomeComparison key={outcome.index} outcome={outcome} />
+      ))}
+      <div className="mt-12">
+        <HealthCaution />
+      </div>
+      <CiteBlock heading={t("cite.comparison")} reference={citation.reference} accessed={citation.accessed} permalink={citation.permalink} filesHref={path} />
+    </article>
+  );
+}
+
+function OutcomeComparison({ outcome }: { outcome: ComparisonOutcomeView }) {
+  const { t } = useTranslation();
+  const to = t("brief.to");
+  const id = `outcome-${outcome.index + 1}`;
+  const unit = outcome.unit ? ` ${outcome.unit}` : "";
+  const notePrefix = `${id}-note-`;
+  return (
+    <section aria-labelledby={id} className="mt-12 border-t-2 border-ink pt-6" data-testid="comparison-outcome">
+      <h2 id={id} className="text-2xl font-semibold">{outcome.name}</h2>
+      <p className="mt-4 text-xl leading-relaxed" data-testid="statement">
+        {outcome.statement ? t(outcome.statement.key, outcome.statement.values) : t("compare.noStatement")}
+      </p>
+      <dl className="mt-6 grid gap-x-8 gap-y-3 sm:grid-cols-[max-content_1fr]">
+        <dt className="font-sans text-sm font-semibold">{t("compare.relative", { measure: t(`brief.measure.${outcome.measure}`) })}</dt>
+        <dd className="tabular-nums">
+          {formatInterval(outcome.measure, outcome.network, to)}
+          {unit}
+        </dd>
+        {outcome.absolute ? (
+          <>
+            <dt className="font-sans text-sm font-semibold">{t("compare.absolute")}</dt>
+            <dd>
+              {t(outcome.absolute.statement.key, outcome.absolute.statement.values)}
+              <span className="block font-sans text-sm text-muted">
+                {t("compare.risks", {
+                  comparator: Math.round(outcome.absolute.baselinePer1000),
+                  treatment: Math.round(outcome.absolute.treatmentPer1000.estimate),
+                })}
+              </span>
+            </dd>
+          </>
+        ) : null}
+        <dt className="font-sans text-sm font-semibold">{t("brief.certainty")}</dt>
+        <dd>
+          <CertaintyMark rating={outcome.certainty} />
+          {outcome.footnotes.map((_, i) => (
+            <sup key={i} className="ms-1">
+              <a href={`#${notePrefix}${i + 1}`} aria-label={t("compare.footnote", { number: i + 1 })}>{i + 1}</a>
+            </sup>
+          ))}
+        </dd>
+      </dl>
+
+      <div className="mt-6 overflow-x-auto">
+        <table className="w-full font-sans text-sm" data-testid="evidence-table">
+          <caption className="mb-2 text-start text-muted">{t("compare.evidenceCaption")}</caption>
+          <thead>
+            <tr className="border-b border-ink">
+              <th scope="col" className="py-2 pe-4 text-start">{t("compare.evidence")}</th>
+              <th scope="col" className="py-2 pe-4 text-start">{t("compare.estimate", { measure: outcome.measure })}</th>
+              <th scope="col" className="py-2 pe-4 text-end">{t("brief.studies")}</th>
+              <th scope="col" className="py-2 text-end">{t("compare.participants")}</th>
+            </tr>
+          </thead>
+          <tbody>
+            <tr className="border-b border-rule">
+              <th scope="row" className="py-2 pe-4 text-start font-normal">{t("compare.direct")}</th>
+              <td className="py-2 pe-4 tabular-nums">{outcome.direct ? formatInterval(outcome.measure, outcome.direct, to) : t("compare.none")}</td>
+              <td className="py-2 pe-4 text-end tabular-nums">{outcome.direct?.studies ?? 0}</td>
+              <td className="py-2 text-end tabular-nums">{outcome.direct?.participants ?? "—"}</td>
+            </tr>
+            <tr className="border-b border-rule">
+              <th scope="row" className="py-2 pe-4 text-start font-normal">{t("compare.indirect")}</th>
+              <td className="py-2 pe-4 tabular-nums">{outcome.indirect ? formatInterval(outcome.measure, outcome.indirect, to) : t("compare.none")}</td>
+              <td className="py-2 pe-4 text-end">—</td>
+              <td className="py-2 text-end">—</td>
+            </tr>
+            <tr className="border-b border-rule font-semibold">
+              <th scope="row" className="py-2 pe-4 text-start">{t("compare.network")}</th>
+              <td className="py-2 pe-4 tabular-nums">{formatInterval(outcome.measure, outcome.network, to)}</td>
+              <td className="py-2 pe-4 text-end">—</td>
+              <td className="py-2 text-end">—</td>
+            </tr>
+          </tbody>
+        </table>
+      </div>
+
+      {outcome.footnotes.length > 0 ? (
+        <ol className="mt-4 list-decimal space-y-1 ps-6 text-sm" aria-label={t("compare.footnotes")}>
+          {outcome.footnotes.map((note, i) => (
+            <li key={i} id={`${notePrefix}${i + 1}`}>
+              {note.levels > 0 ? t("compare.downgraded", { domain: t(note.domainKey), count: note.levels }) : `${t(note.domainKey)}.`}
+              {note.reason ? ` ${note.reason}` : note.because ? ` ${t(note.because.key, note.because.values)}` : null}
+            </li>
+          ))}
+        </ol>
+      ) : null}
+    </section>
+  );
+}

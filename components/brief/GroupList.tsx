@@ -1,0 +1,31 @@
+// The groups of an outcome (METHODS.md §9): what the evidence supports, with certainty in words.
+// Never a ranking: treatments within a group are listed alphabetically.
+import { useTranslation } from "react-i18next";
+import type { OutcomeView } from "../../server/briefs/brief-page";
+
+export function GroupList({ outcome }: { outcome: OutcomeView }) {
+  const { t } = useTranslation();
+  return (
+    <>
+      <p className="mt-2 text-muted">{t(`brief.framework.${outcome.framework}`, { reference: outcome.reference.name })}</p>
+      <ol className="mt-4 space-y-4" data-testid="groups">
+        {outcome.groups.map((group) => (
+          <li
+            key={`${group.level}-${group.firmness}`}
+            className={`border-s-4 bg-white p-4 ${group.firmness === "firm" ? "border-accent" : group.firmness === "may" ? "border-accent/50 border-dashed" : "border-rule"}`}
+          >
+            <h4 className="text-lg font-semibold">{t(group.label.key, group.label.values)}</h4>
+            {group.label.key === "groups.referenceOnly" ? null : (
+              <p className="font-sans text-xs uppercase tracking-wide text-muted">{t(`brief.firmness.${group.firmness}`)}</p>
+            )}
+            <ul className="mt-2 flex flex-wrap gap-x-4 gap-y-1">
+              {group.treatments.map((treatment) => (
+                <li key={treatment.id}>{treatment.name}</li>
+              ))}
+            </ul>
+          </li>
+        ))}
+      </ol>
+    </>
+  );
+}

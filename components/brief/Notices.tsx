@@ -1,0 +1,53 @@
+// The notices above a version's content: fictional data, withdrawal, embargo, a newer version.
+import { useTranslation } from "react-i18next";
+
+export function DemoBanner() {
+  const { t } = useTranslation();
+  return (
+    <p role="note" className="mb-8 border border-accent px-4 py-3 font-sans text-sm text-accent" data-testid="demo-banner">
+      <strong className="font-semibold">{t("brief.demo.title")}</strong> {t("brief.demo.body")}
+    </p>
+  );
+}
+
+export function VersionNotices({
+  withdrawal,
+  embargoed,
+  releaseAt,
+  version,
+  latestVersion,
+  latestHref,
+}: {
+  withdrawal: { at: string; reason: string } | null;
+  embargoed: boolean;
+  releaseAt: string;
+  version: number;
+  latestVersion: number;
+  latestHref: string;
+}) {
+  const { t, i18n } = useTranslation();
+  const when = new Intl.DateTimeFormat(i18n.language, { dateStyle: "long", timeStyle: "short", timeZone: "UTC" });
+  return (
+    <>
+      {withdrawal ? (
+        <section role="alert" aria-labelledby="withdrawn-title" className="mb-8 border-s-4 border-ink bg-white p-4" data-testid="withdrawn">
+          <h2 id="withdrawn-title" className="font-sans text-sm font-semibold uppercase tracking-wide">
+            {t("brief.withdrawn.title", { date: when.format(new Date(withdrawal.at)) })}
+          </h2>
+          <p className="mt-1">{withdrawal.reason}</p>
+          <p className="mt-1 text-sm text-muted">{t("brief.withdrawn.kept")}</p>
+        </section>
+      ) : null}
+      {embargoed ? (
+        <p role="note" className="mb-8 border-s-4 border-accent bg-white p-4 font-sans text-sm" data-testid="embargo">
+          {t("brief.embargo", { date: when.format(new Date(releaseAt)) })}
+        </p>
+      ) : null}
+      {version < latestVersion ? (
+        <p role="note" className="mb-8 border-s-4 border-rule bg-white p-4 font-sans text-sm">
+          {t("brief.olderVersion", { version, latest: latestVersion })} <a href={latestHref}>{t("brief.readLatest")}</a>
+        </p>
+      ) : null}
+    </>
+  );
+}

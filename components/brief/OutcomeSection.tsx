@@ -1,0 +1,154 @@
+// One outcome of a version: the groups first (what the evidence supports), then each option against
+// the reference as a forest plot with its table, the network of trials, the league table on demand,
+// the rank-score explainer, and the methods of this outcome.
+import { useTranslation } from "react-i18next";
+import type { OutcomeView } from "../../server/briefs/brief-page";
+import { ForestPlot } from "../charts/ForestPlot";
+import { LeagueTable } from "../charts/LeagueTable";
+import { NetworkDiagram } from "../charts/NetworkDiagram";
+import { CertaintyMark } from "./CertaintyMark";
+import { formatInterval } from "./format";
+import { GroupList } from "./GroupList";
+import { RankScores } from "./RankScores";
+
+export function OutcomeSection({ outcome, versionHref }: { outcome: OutcomeView; versionHref: string }) {
+  const { t } = useTranslation();
+  const id = `outcome-${outcome.index + 1}`;
+  const to = t("brief.to");
+  const compareHref = (a: string, b: string) => `${versionHref}/compare/${encodeURIComponent(a)}/${encodeURIComponent(b)}`;
+  const pairs = new Map(outcome.pairs.map((p) => [`${p.treatment}\u0000${p.comparator}`, p]));
+  const leagueCell = (row: string, column: string) => {
+    const listed = pairs.get(`${row}\u0000${column}`);
+    if (listed) return listed;
+    const reverse = pairs.get(`${column}\u0000${row}`);
+    return reverse ? { estimate: -reverse.estimate, lower: -reverse.upper, upper: -reverse.lower } : null;
+  };
+  const binary = outcome.effects.some((e) => e.absolute !== null);
+  return (
+    <section aria-labelledby={id} className="mt-16 border-t-2 border-ink pt-6" data-testid="outcome">
+      <h2 id={id} className="text-3xl leading-tight font-semibold">{outcome.name}</h2>
+      <p className="mt-2 font-sans text-sm text-muted">
+        {t("brief.outcomeFacts", {
+          measure: t(`brief.measure.${outcome.measure}`),
+          model: t(`brief.model.${outcome.model}`),
+          reference: outcome.reference.name,
+          direction: t(`brief.better.${outcome.better}`),
+        })}
+        {outcome.unit ? ` ${t("brief.unit", { unit: outcome.unit })}` : null}
+      </p>
+
+      <h3 className="mt-8 text-xl font-semibold">{t("brief.supports")}</h3>
+      <GroupList outcome={outcome} />
+
+      <h3 className="mt-10 text-xl font-semibold">{t("brief.againstReference", { reference: outcome.reference.name })}</h3>
+      <ForestPlot
+        rows={outcome.effects.map((e) => ({ label: e.name, ...e.network }))}
+        measure={outcome.measure}
+        title={t("brief.forestTitle", { reference: outcome.reference.name, measure: t(`brief.measure.${outcome.measure}`) })}
+      />
+      <div className="overflow-x-auto">
+        <table className="w-full font-sans text-sm" data-testid="effects-table">
+          <caption className="mb-2 text-start text-muted">{t("brief.effectsCaption", { reference: outcome.reference.name })}</caption>
+          <thead>
+            <tr className="border-b border-ink">
+              <th scope="col" className="py-2 pe-4 text-start">{t("brief.option")}</th>
+              <th scope="col" className="py-2 pe-4 text-start">{t("brief.relative", { measure: outcome.measure })}</th>
+              {binary ? <th scope="col" className="py-2 pe-4 text-start">{t("brief.absoluteHeading")}</th> : null}
+              <th scope="col" className="py-2 pe-4 text-start">{t("brief.certainty")}</th>
+              <th scope="col" className="py-2 text-start"><span className="sr-only">{t("brief.details")}</span></th>
+            </tr>
+          </thead>
+          <tbody>
+            {outcome.effects.map((effect) => (
+              <tr key={effect.id} className="border-b border-rule align-top">
+                <th scope="row" className="py-2 pe-4 text-start font-semibold">{effect.name}</th>
+                <td className="py-2 pe-4 tabular-nums">{formatInterval(outcome.measure, effect.network, to)}</td>
+                {binary ? (
+                  <td className="py-2 pe-4">
+                    {effect.absolute ? t(effect.absolute.statement.key, effect.absolute.statement.values) : "—"}
+                  </td>
+                ) : null}
+                <td className="py-2 pe-4"><CertaintyMark rating={effect.certainty} /></td>
+                <td className="py-2">
+                  <a href={compareHref(effect.id, outcome.reference.id)} aria-label={t("brief.compareLabel", { treatment: effect.name, comparator: outcome.reference.name })}>
+                    {t("brief.details")}
+                  </a>
+                </td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </div>
+      {binary && outcome.methods.baselineRisk !== null ? (
+        <p className="mt-2 font-sans text-xs text-muted">{t("brief.baseline", { count: Math.round(outcome.methods.baselineRisk * 1000), reference: outcome.reference.name })}</p>
+      ) : null}
+
+      <h3 className="mt-10 text-xl font-semibold">{t("brief.network")}</h3>
+      <p className="mt-2">{t("brief.networkSummary", { studies: outcome.methods.studies, options: outcome.network.nodes.length, pairs: outcome.network.edges.length })}</p>
+      <figure className="mt-4">
+        <NetworkDiagram title={t("brief.networkTitle")} nodes={outcome.network.nodes.map((n) => ({ id: n.id, label: n.name, participants: n.participants }))} edges={outcome.network.edges} />
+        <figcaption className="mt-2 font-sans text-xs text-muted">{t("brief.networkCaption")}</figcaption>
+      </figure>
+      <details className="mt-3">
+        <summary className="cursor-pointer font-sans text-sm font-semibold">{t("brief.networkTable")}</summary>
+        <table className="mt-3 font-sans text-sm">
+          <thead>
+            <tr className="border-b border-ink">
+              <th scope="col" className="py-1 pe-6 text-start">{t("brief.directPair")}</th>
+              <th scope="col" className="py-1 text-end">{t("brief.studies")}</th>
+            </tr>
+          </thead>
+          <tbody>
+            {outcome.network.edges.map((edge) => (
+              <tr key={`${edge.from}-${edge.to}`} className="border-b border-rule">
+                <th scope="row" className="py-1 pe-6 text-start font-normal">
+                  {t("brief.versus", { treatment: outcome.network.nodes.find((n) => n.id === edge.from)?.name, comparator: outcome.network.nodes.find((n) => n.id === edge.to)?.name })}
+                </th>
+                <td className="py-1 text-end tabular-nums">{edge.studies}</td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </details>
+
+      <details className="mt-6 border-t border-rule pt-4" data-testid="league">
+        <summary className="cursor-pointer font-sans font-semibold">{t("brief.leagueTable")}</summary>
+        <div className="mt-4">
+          <LeagueTable
+            treatments={outcome.network.nodes.map((n) => ({ id: n.id, label: n.name }))}
+            cell={leagueCell}
+            measure={outcome.measure}
+            caption={t("brief.leagueCaption", { measure: t(`brief.measure.${outcome.measure}`) })}
+          />
+        </div>
+      </details>
+
+      <RankScores scores={outcome.rankScores} />
+
+      <details className="mt-6 border-t border-rule pt-4">
+        <summary className="cursor-pointer font-sans font-semibold">{t("brief.methods")}</summary>
+        <dl className="mt-3 grid grid-cols-[max-content_1fr] gap-x-6 gap-y-1 font-sans text-sm">
+          <dt className="text-muted">{t("brief.methodsList.studies")}</dt>
+          <dd>{outcome.methods.studies}</dd>
+          {outcome.methods.excludedStudies.length > 0 ? (
+            <>
+              <dt className="text-muted">{t("brief.methodsList.excluded")}</dt>
+              <dd>{outcome.methods.excludedStudies.join(", ")}</dd>
+            </>
+          ) : null}
+          <dt className="text-muted">{t("brief.methodsList.model")}</dt>
+          <dd>{t(`desk.model.${outcome.model}`)}</dd>
+          <dt className="text-muted">{t("brief.methodsList.heterogeneity")}</dt>
+          <dd>{`τ² = ${outcome.methods.tau2.toFixed(3)}; I² = ${(outcome.methods.I2 * 100).toFixed(0)}%; Q = ${outcome.methods.Q.toFixed(2)} (df ${outcome.methods.df})`}</dd>
+          <dt className="text-muted">{t("brief.methodsList.incoherence")}</dt>
+          <dd>{`Q = ${outcome.methods.Qbetween.toFixed(2)} (df ${outcome.methods.dfBetween})${outcome.methods.pBetween === null ? "" : `; p = ${outcome.methods.pBetween.toPrecision(2)}`}`}</dd>
+          <dt className="text-muted">{t("brief.methodsList.data")}</dt>
+          <dd className="break-all">{`${outcome.methods.fileName} · SHA-256 ${outcome.methods.sha256}`}</dd>
+          <dt className="text-muted">{t("brief.methodsList.engine")}</dt>
+          <dd>{outcome.methods.engineVersion}</dd>
+        </dl>
+        <p className="mt-3 text-sm">{t(`brief.methodsText.${outcome.framework}`)}</p>
+      </details>
+    </section>
+  );
+}

@@ -1,0 +1,59 @@
+// The head of a version's pages: canonical permalink, citation meta tags for reference managers,
+// Open Graph and Twitter cards, and schema.org JSON-LD. Title and description come from +title and
+// +description (vike-react also writes them as og:title and og:description).
+export interface HeadFacts {
+  title: string;
+  siteUrl: string;
+  /** The permalink path of what is shown: the version, or one comparison in it. */
+  path: string;
+  version: number;
+  releaseAt: string;
+  condition: string;
+  description: string;
+  withdrawn: boolean;
+}
+
+const citationDate = (iso: string) => iso.slice(0, 10).replaceAll("-", "/");
+
+export function PageHead({ facts }: { facts: HeadFacts }) {
+  const url = `${facts.siteUrl}${facts.path}`;
+  const jsonLd = {
+    "@context": "https://schema.org",
+    "@type": "Report",
+    name: facts.title,
+    headline: facts.title,
+    description: facts.description,
+    url,
+    version: String(facts.version),
+    datePublished: facts.releaseAt,
+    inLanguage: "en",
+    isAccessibleForFree: true,
+    about: { "@type": "MedicalCondition", name: facts.condition },
+    author: { "@type": "Organization", name: "Fairweigh" },
+    publisher: { "@type": "Organization", name: "Fairweigh" },
+    ...(facts.withdrawn ? { creativeWorkStatus: "Withdrawn" } : {}),
+  };
+  return (
+    <>
+      <link rel="canonical" href={url} />
+      <link rel="alternate" type="application/atom+xml" title="Fairweigh" href="/feed.xml" />
+      <meta name="citation_title" content={facts.title} />
+      <meta name="citation_author" content="Fairweigh" />
+      <meta name="citation_publisher" content="Fairweigh" />
+      <meta name="citation_publication_date" content={citationDate(facts.releaseAt)} />
+      <meta name="citation_online_date" content={citationDate(facts.releaseAt)} />
+      <meta name="citation_technical_report_number" content={`Version ${facts.version}`} />
+      <meta name="citation_abstract_html_url" content={url} />
+      <meta name="citation_language" content="en" />
+      <meta property="og:type" content="article" />
+      <meta property="og:url" content={url} />
+      <meta property="og:site_name" content="Fairweigh" />
+      <meta property="article:published_time" content={facts.releaseAt} />
+      <meta name="twitter:card" content="summary" />
+      <meta name="twitter:title" content={facts.title} />
+      <meta name="twitter:description" content={facts.description} />
+      {/* JSON.stringify escapes quotes; "<" is escaped too so that no text can close the script element. */}
+      <script type="application/ld+json" dangerouslySetInnerHTML={{ __html: JSON.stringify(jsonLd).replace(/</g, "\\u003c") }} />
+    </>
+  );
+}

@@ -1,0 +1,26 @@
+// Every version of a brief with its release date and correction note; the one shown is marked.
+import { useTranslation } from "react-i18next";
+import type { VersionEntry } from "../../server/briefs/versions";
+
+export function VersionHistory({ slug, history, current }: { slug: string; history: VersionEntry[]; current: number }) {
+  const { t, i18n } = useTranslation();
+  const date = new Intl.DateTimeFormat(i18n.language, { dateStyle: "long", timeZone: "UTC" });
+  return (
+    <section aria-labelledby="history-title" className="mt-16 border-t border-rule pt-6" data-testid="history">
+      <h2 id="history-title" className="text-xl font-semibold">{t("brief.history")}</h2>
+      <ol className="mt-3 space-y-3">
+        {history.map((entry) => (
+          <li key={entry.number}>
+            {entry.number === current ? (
+              <strong aria-current="page">{t("brief.versionLine", { version: entry.number, date: date.format(new Date(entry.releaseAt)) })}</strong>
+            ) : (
+              <a href={`/briefs/${slug}/v/${entry.number}`}>{t("brief.versionLine", { version: entry.number, date: date.format(new Date(entry.releaseAt)) })}</a>
+            )}
+            {entry.embargoed ? <span className="ms-2 font-sans text-xs text-accent">{t("brief.embargoedShort")}</span> : null}
+            {entry.note ? <p className="mt-1 text-muted">{t("brief.correctionNote", { note: entry.note })}</p> : null}
+          </li>
+        ))}
+      </ol>
+    </section>
+  );
+}

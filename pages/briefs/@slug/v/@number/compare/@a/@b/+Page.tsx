@@ -1,0 +1,7 @@
+import { useData } from "vike-react/useData";
+import { ComparisonPage } from "../../../../../../../../components/brief/ComparisonPage";
+import type { ComparisonPageData } from "../../../../../../../../server/briefs/page-data";
+
+export default function Page() {
+  return <ComparisonPage data={useData<ComparisonPageData>()} />;
+}

@@ -1,0 +1,14 @@
+// /topics/:slug — the released briefs of one topic.
+import { render } from "vike/abort";
+import type { PageContextServer } from "vike/types";
+import { searchBriefs, topicsOf } from "../../../server/briefs/search";
+import { listReleasedBriefs } from "../../../server/briefs/versions";
+
+export async function data(pageContext: PageContextServer) {
+  const all = await listReleasedBriefs(pageContext.db!);
+  const topic = topicsOf(all).find((t) => t.slug === pageContext.routeParams.slug);
+  if (!topic) throw render(404);
+  return { topic, briefs: searchBriefs(all, { topic: topic.slug }), caching: "revalidate" as const };
+}
+
+export type Data = Awaited<ReturnType<typeof data>>;

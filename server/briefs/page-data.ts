@@ -1,0 +1,62 @@
+// The page data of a version's public pages (+data.ts of pages/briefs/…): read the frozen version
+// this reader may see, shape it for the page, format its citation, and say how it may be cached.
+import { render } from "vike/abort";
+import type { PageContextServer } from "vike/types";
+import { formattedReference } from "../public/citations";
+import { briefView, comparisonView, pageState } from "./brief-page";
+import { readPublicVersion, type PublicVersion } from "./versions";
+
+async function load(pageContext: PageContextServer, number: number | "latest"): Promise<PublicVersion> {
+  const { slug } = pageContext.routeParams;
+  if (number !== "latest" && (!Number.isInteger(number) || number < 1)) throw render(404);
+  const page = await readPublicVersion(pageContext.db!, String(slug), number, pageContext.person?.roles ?? []);
+  if (!page) throw render(404);
+  return page;
+}
+
+/** 410 for a withdrawn brief (its page stays); an embargoed version is never cached; the latest URL revalidates. */
+function answer(page: PublicVersion, latestUrl: boolean) {
+  return {
+    httpStatus: page.found.withdrawal ? 410 : undefined,
+    caching: page.found.embargoed ? ("private" as const) : latestUrl ? ("revalidate" as const) : ("version" as const),
+  };
+}
+
+function citation(pageContext: PageContextServer, page: PublicVersion, path: string, comparison?: string) {
+  const { snapshot } = page.found;
+  const accessed = new Date();
+  const permalink = `${pageContext.siteUrl ?? ""}${path}`;
+  return {
+    reference: formattedReference({ title: snapshot.brief.title, version: snapshot.version, releaseAt: snapshot.releaseAt, url: permalink, accessed, comparison }),
+    accessed: accessed.toISOString(),
+    permalink,
+  };
+}
+
+export async function briefPageData(pageContext: PageContextServer, number: number | "latest") {
+  const page = await load(pageContext, number);
+  const view = briefView(page.found.snapshot, pageState(page));
+  const versionPath = `/briefs/${view.slug}/v/${view.version}`;
+  return { view, versionPath, citation: citation(pageContext, page, versionPath), siteUrl: pageContext.siteUrl ?? "", ...answer(page, number === "latest") };
+}
+
+export type BriefPageData = Awaited<ReturnType<typeof briefPageData>>;
+
+export async function comparisonPageData(pageContext: PageContextServer) {
+  const page = await load(pageContext, Number(pageContext.routeParams.number));
+  const { a, b } = pageContext.routeParams;
+  const view = comparisonView(page.found.snapshot, String(a), String(b), pageState(page));
+  if (!view) throw render(404);
+  const versionPath = `/briefs/${view.slug}/v/${view.version}`;
+  const path = `${versionPath}/compare/${encodeURIComponent(view.treatment.id)}/${encodeURIComponent(view.comparator.id)}`;
+  return {
+    view,
+    versionPath,
+    path,
+    citation: citation(pageContext, page, path, `${view.treatment.name} vs ${view.comparator.name}`),
+    siteUrl: pageContext.siteUrl ?? "",
+    ...answer(page, false),
+  };
+}
+
+export type ComparisonPageData = Awaited<ReturnType<typeof comparisonPageData>>;

@@ -1,0 +1,113 @@
+// The public site's files beside its pages: citations, data downloads, the Atom feed, the sitemap
+// and robots.txt. Everything comes from released, frozen versions; embargoed ones answer 404 to
+// all but the press and editors, exactly as their pages do.
+import { Router, type Request } from "express";
+import { Feed } from "feed";
+import { comparisonView, pageState } from "../briefs/brief-page";
+import { listReleasedVersions, readPublicVersion } from "../briefs/versions";
+import type { Database } from "../db/client";
+import { citationFile, citationMedia, type CitationFormat } from "./citations";
+import { downloads } from "./downloads";
+
+/** The address readers use: the configured one, or the one this request came to. */
+export function siteUrl(req: Request, configured: string | undefined): string {
+  return (configured ?? `${req.protocol}://${req.get("host")}`).replace(/\/$/, "");
+}
+
+const notFound = "There is no such published version.";
+
+export function publicFileRoutes(db: Database, publicUrl: string | undefined): Router {
+  const router = Router();
+
+  const versionOf = async (req: Request) => {
+    const number = Number(req.params.number);
+    if (!Number.isInteger(number) || number < 1) return null;
+    return readPublicVersion(db, String(req.params.slug), number, req.user?.roles ?? []);
+  };
+  const formatOf = (value: unknown): CitationFormat | null => (value === "ris" || value === "bib" || value === "json" ? value : null);
+  const cacheFor = (embargoed: boolean) => (embargoed ? "private, no-store" : "public, max-age=3600");
+
+  router.get("/briefs/:slug/v/:number/cite.:format", async (req, res) => {
+    const format = formatOf(req.params.format);
+    const page = format ? await versionOf(req) : null;
+    if (!format || !page) return res.status(404).type("text/plain").send(notFound);
+    const { snapshot, embargoed } = page.found;
+    const url = `${siteUrl(req, publicUrl)}/briefs/${snapshot.brief.slug}/v/${snapshot.version}`;
+    const body = citationFile({ title: snapshot.brief.title, version: snapshot.version, releaseAt: snapshot.releaseAt, url, accessed: new Date() }, format);
+    res.set("Cache-Control", cacheFor(embargoed));
+    res.type(citationMedia[format]).attachment(`${snapshot.brief.slug}-v${snapshot.version}.${format === "json" ? "csl.json" : format}`).send(body);
+  });
+
+  router.get("/briefs/:slug/v/:number/compare/:a/:b/cite.:format", async (req, res) => {
+    const format = formatOf(req.params.format);
+    const page = format ? await versionOf(req) : null;
+    const view = page ? comparisonView(page.found.snapshot, String(req.params.a), String(req.params.b), pageState(page)) : null;
+    if (!format || !page || !view) return res.status(404).type("text/plain").send("There is no such comparison in this version.");
+    const url = `${siteUrl(req, publicUrl)}/briefs/${view.slug}/v/${view.version}/compare/${encodeURIComponent(view.treatment.id)}/${encodeURIComponent(view.comparator.id)}`;
+    const body = citationFile({ title: view.title, version: view.version, releaseAt: view.releaseAt, url, accessed: new Date(), comparison: `${view.treatment.name} vs ${view.comparator.name}` }, format);
+    res.set("Cache-Control", cacheFor(view.embargoed));
+    res.type(citationMedia[format]).attachment(`${view.slug}-v${view.version}-${view.treatment.id}-vs-${view.comparator.id}.${format === "json" ? "csl.json" : format}`).send(body);
+  });
+
+  router.get("/briefs/:slug/v/:number/downloads/:file", async (req, res) => {
+    const file = downloads[String(req.params.file) as keyof typeof downloads];
+    const page = file ? await versionOf(req) : null;
+    if (!file || !page) return res.status(404).type("text/plain").send("There is no such download.");
+    const { snapshot, embargoed } = page.found;
+    res.set("Cache-Control", cacheFor(embargoed));
+    res.type(file.media).attachment(`${snapshot.brief.slug}-v${snapshot.version}-${String(req.params.file)}`).send(file.build(snapshot));
+  });
+
+  router.get("/feed.xml", async (req, res) => {
+    const base = siteUrl(req, publicUrl);
+    const versions = await listReleasedVersions(db);
+    const feed = new Feed({
+      id: `${base}/`,
+      link: `${base}/`,
+      title: "Fairweigh: new and corrected briefs",
+      description: "Network meta-analyses published so that readers can see what the evidence supports.",
+      copyright: "Fairweigh",
+      updated: versions[0] ? new Date(versions[0].releaseAt) : new Date(0),
+      feedLinks: { atom: `${base}/feed.xml` },
+    });
+    for (const version of versions.slice(0, 50)) {
+      const url = `${base}/briefs/${version.slug}/v/${version.number}`;
+      feed.addItem({
+        id: url,
+        link: url,
+        title: version.number === 1 ? version.title : `Corrected (version ${version.number}): ${version.title}`,
+        description: version.number === 1 ? `New brief: ${version.title}` : `Correction note: ${version.note ?? ""}`,
+        date: new Date(version.releaseAt),
+      });
+    }
+    res.set("Cache-Control", "public, max-age=300").type("application/atom+xml; charset=utf-8").send(feed.atom1());
+  });
+
+  router.get("/sitemap.xml", async (req, res) => {
+    const base = siteUrl(req, publicUrl);
+    const versions = await listReleasedVersions(db);
+    const latest = new Map<string, string>();
+    for (const v of versions) if (!latest.has(v.slug)) latest.set(v.slug, v.releaseAt);
+    const entry = (path: string, lastmod?: string) => `  <url><loc>${escapeXml(base + path)}</loc>${lastmod ? `<lastmod>${lastmod.slice(0, 10)}</lastmod>` : ""}</url>`;
+    const urls = [
+      entry("/"),
+      entry("/briefs"),
+      ...[...latest].map(([slug, at]) => entry(`/briefs/${slug}`, at)),
+      ...versions.map((v) => entry(`/briefs/${v.slug}/v/${v.number}`, v.releaseAt)),
+    ];
+    res
+      .set("Cache-Control", "public, max-age=300")
+      .type("application/xml; charset=utf-8")
+      .send(`<?xml version="1.0" encoding="UTF-8"?>\n<urlset xmlns="http://www.sitemaps.org/schemas/sitemap/0.9">\n${urls.join("\n")}\n</urlset>\n`);
+  });
+
+  router.get("/robots.txt", (req, res) => {
+    res.type("text/plain").send(`User-agent: *\nDisallow: /desk\nDisallow: /api/\nDisallow: /sign-in\nDisallow: /preview/\nSitemap: ${siteUrl(req, publicUrl)}/sitemap.xml\n`);
+  });
+
+  return router;
+}
+
+function escapeXml(text: string): string {
+  return text.replace(/[<>&'"]/g, (c) => `&#${c.charCodeAt(0)};`);
+}
