@@ -46,7 +46,23 @@ export function OutcomeSection({ outcome, versionHref }: { outcome: OutcomeView;
         measure={outcome.measure}
         title={t("brief.forestTitle", { reference: outcome.reference.name, measure: t(`brief.measure.${outcome.measure}`) })}
       />
-      <div className="overflow-x-auto">
+      {/* On a phone, one card per option; from the sm breakpoint, the table. Only one is displayed, so assistive technology reads it once. */}
+      <ul className="space-y-3 font-sans text-sm sm:hidden">
+        {outcome.effects.map((effect) => (
+          <li key={effect.id} className="border-b border-rule pb-3">
+            <p className="font-semibold">{effect.name}</p>
+            <p className="tabular-nums">{`${outcome.measure} ${formatInterval(outcome.measure, effect.network, to)}`}</p>
+            {effect.absolute ? <p>{t(effect.absolute.statement.key, effect.absolute.statement.values)}</p> : null}
+            <p className="flex justify-between gap-4">
+              <CertaintyMark rating={effect.certainty} />
+              <a href={compareHref(effect.id, outcome.reference.id)} aria-label={t("brief.compareLabel", { treatment: effect.name, comparator: outcome.reference.name })}>
+                {t("brief.details")}
+              </a>
+            </p>
+          </li>
+        ))}
+      </ul>
+      <div className="hidden overflow-x-auto sm:block">
         <table className="w-full font-sans text-sm" data-testid="effects-table">
           <caption className="mb-2 text-start text-muted">{t("brief.effectsCaption", { reference: outcome.reference.name })}</caption>
           <thead>

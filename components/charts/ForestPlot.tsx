@@ -27,8 +27,9 @@ export function ForestPlot({ rows, measure, title }: { rows: ForestRow[]; measur
   const pad = (highest - lowest) * 0.05 || 0.1;
   const x = scaleLinear({ domain: [lowest - pad, highest + pad], range: [0, width - margin.left - margin.right], nice: true });
   return (
-    <figure className="my-6">
-      <svg viewBox={`0 0 ${width} ${height}`} role="img" aria-label={title} className="w-full max-w-2xl font-sans" data-testid="forest-plot">
+    // On a phone the figure keeps a legible size and scrolls sideways inside its own box.
+    <figure className="my-6 overflow-x-auto">
+      <svg viewBox={`0 0 ${width} ${height}`} role="img" aria-label={title} className="w-full min-w-[34rem] max-w-2xl font-sans" data-testid="forest-plot">
         <title>{title}</title>
         <Group left={margin.left} top={margin.top}>
           <Line from={{ x: x(0), y: 0 }} to={{ x: x(0), y: rows.length * rowHeight }} stroke="#5b554d" strokeDasharray="4 3" />

@@ -4,6 +4,7 @@ import { OutcomeForm } from "./OutcomeForm";
 import { TreatmentNamesForm } from "./TreatmentNamesForm";
 import { ApiError } from "./api";
 import { previewMarkdown, useBrief, useCreateOutcome, useNameTreatments, useSaveTexts, useUploadDataset } from "./queries";
+import { ReleasePanel } from "./ReleasePanel";
 import { TextsForm } from "./TextsForm";
 import type { OutcomeSummary } from "./types";
 import { UploadForm } from "./UploadForm";
@@ -51,6 +52,7 @@ export function BriefScreen({ canAnalyse, canEdit }: { canAnalyse: boolean; canE
           onSave={(names) => nameTreatments.mutate(names)}
         />
       ) : null}
+      <ReleasePanel brief={data} canEdit={canEdit} canSubmit={canAnalyse || canEdit} />
       {canAnalyse ? (
         <section className="mt-10 border-t border-rule pt-6">
           <h2 className="mb-4 text-xl font-semibold">{t("desk.addOutcome")}</h2>

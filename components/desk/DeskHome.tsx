@@ -3,6 +3,7 @@ import { useNavigate } from "react-router";
 import type { SignedInPerson } from "./api";
 import { BriefList } from "./BriefList";
 import { NewBriefForm } from "./NewBriefForm";
+import { PressRoom } from "./PressRoom";
 import { useBriefs, useCreateBrief } from "./queries";
 
 export function DeskHome({ person, onSignOut }: { person: SignedInPerson; onSignOut: () => void }) {
@@ -29,6 +30,7 @@ export function DeskHome({ person, onSignOut }: { person: SignedInPerson; onSign
           {briefs.data ? <BriefList briefs={briefs.data} /> : <p aria-live="polite">{t("desk.loading")}</p>}
         </section>
       ) : null}
+      {person.roles.includes("press") || person.roles.includes("editor") ? <PressRoom /> : null}
       {person.roles.includes("analyst") ? (
         <section className="mt-10 border-t border-rule pt-6">
           <h2 className="mb-4 text-xl font-semibold">{t("desk.newBrief")}</h2>

@@ -127,3 +127,52 @@ export function useSaveTexts(briefId: string) {
     onSettled: () => queryClient.invalidateQueries({ queryKey: ["brief", briefId] }),
   });
 }
+
+export interface ReviewHistory {
+  steps: { decision: "submitted" | "returned" | "approved"; comment: string | null; createdAt: string; actorId: string; actorName: string }[];
+  approval: "none" | "current" | "stale";
+}
+
+export function useReviews(briefId: string) {
+  return useQuery({ queryKey: ["reviews", briefId], queryFn: () => callApi<ReviewHistory>("GET", `/api/briefs/${briefId}/reviews`) });
+}
+
+/** Review, publishing and withdrawal all change the brief's status and its review history. */
+function useReleaseStep<T, R>(briefId: string, step: (body: T) => Promise<R>) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: step,
+    onSuccess: async () => {
+      await Promise.all([
+        queryClient.invalidateQueries({ queryKey: ["brief", briefId] }),
+        queryClient.invalidateQueries({ queryKey: ["reviews", briefId] }),
+        queryClient.invalidateQueries({ queryKey: ["briefs"] }),
+      ]);
+    },
+  });
+}
+
+export function useReviewStep(briefId: string) {
+  return useReleaseStep(briefId, (body: { decision: "submitted" | "returned" | "approved"; comment?: string }) => callApi("POST", `/api/briefs/${briefId}/reviews`, body));
+}
+
+export function usePublish(briefId: string) {
+  return useReleaseStep(briefId, (body: { releaseAt?: string; note?: string }) => callApi<{ version: number; url: string }>("POST", `/api/briefs/${briefId}/versions`, body));
+}
+
+export function useWithdraw(briefId: string) {
+  return useReleaseStep(briefId, (body: { reason: string }) => callApi("POST", `/api/briefs/${briefId}/withdrawal`, body));
+}
+
+export interface PressRoomEntry {
+  slug: string;
+  title: string;
+  number: number;
+  releaseAt: string;
+  note: string | null;
+  embargoed: boolean;
+}
+
+export function usePressRoom() {
+  return useQuery({ queryKey: ["press-room"], queryFn: async () => (await callApi<{ versions: PressRoomEntry[] }>("GET", "/api/press-room")).versions });
+}

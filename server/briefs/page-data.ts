@@ -2,9 +2,12 @@
 // this reader may see, shape it for the page, format its citation, and say how it may be cached.
 import { render } from "vike/abort";
 import type { PageContextServer } from "vike/types";
+import { defaultLocale, locales, type Locale } from "../../components/i18n";
+import { deskRoles } from "../auth/roles";
 import { formattedReference } from "../public/citations";
 import { briefView, comparisonView, pageState } from "./brief-page";
-import { readPublicVersion, type PublicVersion } from "./versions";
+import { draftSnapshot, type VersionSnapshot } from "./snapshot";
+import { readPublicVersion, versionHistory, type PublicVersion } from "./versions";
 
 async function load(pageContext: PageContextServer, number: number | "latest"): Promise<PublicVersion> {
   const { slug } = pageContext.routeParams;
@@ -18,7 +21,7 @@ async function load(pageContext: PageContextServer, number: number | "latest"): 
 function answer(page: PublicVersion, latestUrl: boolean) {
   return {
     httpStatus: page.found.withdrawal ? 410 : undefined,
-    caching: page.found.embargoed ? ("private" as const) : latestUrl ? ("revalidate" as const) : ("version" as const),
+    caching: (page.found.embargoed ? "private" : latestUrl ? "revalidate" : "version") as "private" | "revalidate" | "version",
   };
 }
 
@@ -60,3 +63,44 @@ export async function comparisonPageData(pageContext: PageContextServer) {
 }
 
 export type ComparisonPageData = Awaited<ReturnType<typeof comparisonPageData>>;
+
+/**
+ * /preview/:briefId — the draft as its next version would read, built by the same code that freezes
+ * a version, for the desk only (never cached, not indexed). `locale` picks the words.
+ */
+export async function previewPageData(pageContext: PageContextServer) {
+  const roles = pageContext.person?.roles ?? [];
+  if (!pageContext.person) throw render(401);
+  if (!roles.some((role) => deskRoles.includes(role))) throw render(403);
+  const briefId = String(pageContext.routeParams.id);
+  if (!/^[0-9a-f-]{36}$/i.test(briefId)) throw render(404);
+  const draft = await draftSnapshot(pageContext.db!, briefId);
+  const requested = pageContext.urlParsed.search.locale;
+  const locale: Locale = locales.find((l) => l === requested) ?? defaultLocale;
+  const common = { locale, locales: [...locales], briefId, caching: "private" as const };
+  if (!draft.ok) {
+    if (draft.reason === "not-found") throw render(404);
+    return { ...common, problem: draft.detail, page: null };
+  }
+  const history = await versionHistory(pageContext.db!, draft.snapshot.brief.slug, roles);
+  const number = (history[0]?.number ?? 0) + 1;
+  const snapshot: VersionSnapshot = { ...draft.snapshot, version: number, releaseAt: new Date().toISOString(), note: null };
+  const view = briefView(snapshot, { embargoed: false, withdrawal: null, latestVersion: number, history });
+  const versionPath = `/briefs/${view.slug}/v/${number}`;
+  const permalink = `${pageContext.siteUrl ?? ""}${versionPath}`;
+  const page: BriefPageData = {
+    view,
+    versionPath,
+    citation: {
+      reference: formattedReference({ title: view.title, version: number, releaseAt: snapshot.releaseAt, url: permalink, accessed: new Date() }),
+      accessed: new Date().toISOString(),
+      permalink,
+    },
+    siteUrl: pageContext.siteUrl ?? "",
+    httpStatus: undefined,
+    caching: "private",
+  };
+  return { ...common, problem: null, page };
+}
+
+export type PreviewPageData = Awaited<ReturnType<typeof previewPageData>>;

@@ -45,7 +45,10 @@ export const citationMedia: Record<CitationFormat, string> = {
 export function citationFile(input: CitationInput, format: CitationFormat): string {
   const item = cslItem(input);
   if (format === "json") return `${JSON.stringify([item], null, 2)}\n`;
-  return new Cite(item).format(format === "ris" ? "ris" : "bibtex");
+  if (format === "bib") return new Cite(item).format("bibtex");
+  // citation-js folds RIS values every 70 characters; reference managers read the continuation as a
+  // new value or join it with a space, which breaks permalinks. Each value is joined back whole.
+  return new Cite(item).format("ris").replace(/\n(?![A-Z][A-Z0-9] {2}- |$)/g, "");
 }
 
 /** The reference as a reader copies it (APA style); the page adds the access date in its own words. */

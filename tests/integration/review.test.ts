@@ -1,13 +1,11 @@
 // Review before publishing, and withdrawal (PRODUCT.md: draft → in review → published → withdrawn).
-import { readFileSync } from "node:fs";
-import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { demoPassword } from "../../server/db/seed";
 import { ensurePerson } from "../../server/people";
 import { startTestApp, type TestApp } from "../support/app";
+import { analysedBrief as analysedBriefBy } from "../support/briefs";
 import { ApiClient } from "../support/client";
 
-const hasselbladCsv = readFileSync(path.resolve(__dirname, "../../../shared/reference/hasselblad1998.csv"));
 
 let app: TestApp;
 const clients: Record<string, ApiClient> = {};
@@ -27,16 +25,8 @@ afterAll(async () => {
   await app.close();
 });
 
-async function analysedBrief(title: string) {
-  const analyst = clients.analyst!;
-  const created = await analyst.request("POST", "/api/briefs", { json: { title, topic: "Smoking", condition: "Tobacco dependence", population: "Adults" } });
-  const briefId = String(created.body.id);
-  const outcome = await analyst.request("POST", `/api/briefs/${briefId}/outcomes`, {
-    json: { name: "Quit smoking", kind: "binary", measure: "OR", model: "random", referenceTreatment: "no_contact", direction: "higher", baselineRisk: 0.07 },
-  });
-  await analyst.upload(`/api/outcomes/${String((outcome.body.outcome as { id: string }).id)}/dataset`, { name: "h.csv", bytes: hasselbladCsv }, { format: "arm-binary" });
-  return { briefId, slug: String(created.body.slug) };
-}
+const analysedBrief = (title: string) => analysedBriefBy(clients.analyst!, title);
+
 
 const review = (who: string, briefId: string, json: Record<string, unknown>) => clients[who]!.request("POST", `/api/briefs/${briefId}/reviews`, { json });
 const publish = (briefId: string, json: Record<string, unknown> = {}) => clients.editor!.request("POST", `/api/briefs/${briefId}/versions`, { json });

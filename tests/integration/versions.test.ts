@@ -1,12 +1,10 @@
 // Publishing: frozen versions, the database refusing changes, and the embargo.
-import { readFileSync } from "node:fs";
-import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { demoPassword } from "../../server/db/seed";
 import { startTestApp, type TestApp } from "../support/app";
+import { analysedBrief as analysedBriefBy, approve as approveBy } from "../support/briefs";
 import { ApiClient } from "../support/client";
 
-const hasselbladCsv = readFileSync(path.resolve(__dirname, "../../../shared/reference/hasselblad1998.csv"));
 
 let app: TestApp;
 const clients: Record<string, ApiClient> = {};
@@ -21,23 +19,10 @@ afterAll(async () => {
   await app.close();
 });
 
-async function analysedBrief(title: string) {
-  const analyst = clients.analyst!;
-  const created = await analyst.request("POST", "/api/briefs", { json: { title, topic: "Smoking", condition: "Tobacco dependence", population: "Adults" } });
-  const briefId = String(created.body.id);
-  const outcome = await analyst.request("POST", `/api/briefs/${briefId}/outcomes`, {
-    json: { name: "Quit smoking", kind: "binary", measure: "OR", model: "random", referenceTreatment: "no_contact", direction: "higher", baselineRisk: 0.07 },
-  });
-  const outcomeId = String((outcome.body.outcome as { id: string }).id);
-  await analyst.upload(`/api/outcomes/${outcomeId}/dataset`, { name: "h.csv", bytes: hasselbladCsv }, { format: "arm-binary" });
-  return { briefId, slug: String(created.body.slug), outcomeId };
-}
+const analysedBrief = (title: string) => analysedBriefBy(clients.analyst!, title);
+const approve = (briefId: string) => approveBy(clients.analyst!, clients.editor!, briefId);
 
-/** The review every version goes through: the analyst submits, an editor approves. */
-async function approve(briefId: string) {
-  expect((await clients.analyst!.request("POST", `/api/briefs/${briefId}/reviews`, { json: { decision: "submitted" } })).status).toBe(201);
-  expect((await clients.editor!.request("POST", `/api/briefs/${briefId}/reviews`, { json: { decision: "approved" } })).status).toBe(201);
-}
+
 
 describe("publishing a version", () => {
   it("creates version 1 with its URL, and the snapshot stays byte-identical after the draft changes", async () => {

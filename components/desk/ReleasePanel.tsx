@@ -1,0 +1,131 @@
+// Review and release of a brief in the desk: the review history with its comments, submit / return /
+// approve, the preview, publish now or at an embargo time (with a correction note after version 1),
+// and withdrawal. The server decides what is allowed; this panel offers what the person's roles may do.
+import { useState } from "react";
+import { useTranslation } from "react-i18next";
+import { buttonClass, Field, formValues, inputClass } from "./forms";
+import { usePublish, useReviews, useReviewStep, useWithdraw } from "./queries";
+import type { BriefDetail } from "./types";
+
+export function ReleasePanel({ brief, canEdit, canSubmit }: { brief: BriefDetail; canEdit: boolean; canSubmit: boolean }) {
+  const { t, i18n } = useTranslation();
+  const reviews = useReviews(brief.id);
+  const review = useReviewStep(brief.id);
+  const publish = usePublish(brief.id);
+  const withdraw = useWithdraw(brief.id);
+  const [schedule, setSchedule] = useState(false);
+  const date = new Intl.DateTimeFormat(i18n.language, { dateStyle: "medium", timeStyle: "short" });
+  const withdrawn = brief.status === "withdrawn";
+  const published = brief.status === "published" || brief.status === "corrected" || brief.status === "scheduled";
+  const approval = reviews.data?.approval ?? "none";
+  const error = review.error ?? publish.error ?? withdraw.error;
+
+  return (
+    <section className="mt-10 border-t border-rule pt-6" aria-labelledby="release-title" data-testid="release">
+      <h2 id="release-title" className="text-xl font-semibold">{t("desk.release.title")}</h2>
+      <p className="mt-2 font-sans text-sm">
+        {t(`desk.release.approval.${approval}`)} ·{" "}
+        <a href={`/preview/${brief.id}`} target="_blank" rel="noreferrer">{t("desk.release.preview")}</a>
+      </p>
+      {error ? <p role="alert" className="mt-3 font-sans text-sm text-accent">{t("desk.error", { message: error.message })}</p> : null}
+      {publish.data ? (
+        <p role="status" className="mt-3 font-sans text-sm">
+          {t("desk.release.published", { version: publish.data.version })} <a href={publish.data.url}>{publish.data.url}</a>
+        </p>
+      ) : null}
+
+      {!withdrawn ? (
+        <form
+          className="mt-5 grid gap-3 font-sans"
+          onSubmit={(event) => {
+            event.preventDefault();
+            const submitter = (event.nativeEvent as SubmitEvent).submitter as HTMLButtonElement | null;
+            const { comment } = formValues(event.currentTarget);
+            review.mutate({ decision: submitter?.value as "submitted" | "returned" | "approved", comment: comment || undefined }, { onSuccess: () => event.currentTarget?.reset() });
+          }}
+        >
+          <Field label={t("desk.release.comment")}>
+            <textarea name="comment" rows={3} className={inputClass} />
+          </Field>
+          <div className="flex flex-wrap gap-3">
+            {canSubmit ? (
+              <button type="submit" name="decision" value="submitted" className={buttonClass} disabled={review.isPending}>{t("desk.release.submit")}</button>
+            ) : null}
+            {canEdit && brief.status === "in_review" ? (
+              <>
+                <button type="submit" name="decision" value="approved" className={buttonClass} disabled={review.isPending}>{t("desk.release.approve")}</button>
+                <button type="submit" name="decision" value="returned" className="border border-ink px-5 py-2 font-semibold" disabled={review.isPending}>{t("desk.release.return")}</button>
+              </>
+            ) : null}
+          </div>
+        </form>
+      ) : null}
+
+      {canEdit && !withdrawn ? (
+        <form
+          className="mt-6 grid gap-3 border-t border-rule pt-5 font-sans"
+          onSubmit={(event) => {
+            event.preventDefault();
+            const { releaseAt, note } = formValues(event.currentTarget);
+            publish.mutate({ releaseAt: schedule && releaseAt ? new Date(releaseAt).toISOString() : undefined, note: note || undefined });
+          }}
+        >
+          <label className="flex items-center gap-2 text-sm">
+            <input type="checkbox" checked={schedule} onChange={(e) => setSchedule(e.target.checked)} />
+            {t("desk.release.schedule")}
+          </label>
+          {schedule ? (
+            <Field label={t("desk.release.releaseAt")}>
+              <input type="datetime-local" name="releaseAt" required className={inputClass} />
+            </Field>
+          ) : null}
+          {published ? (
+            <Field label={t("desk.release.note")}>
+              <textarea name="note" rows={2} required className={inputClass} />
+            </Field>
+          ) : null}
+          <div>
+            <button type="submit" className={buttonClass} disabled={publish.isPending || approval !== "current"}>
+              {schedule ? t("desk.release.scheduleButton") : published ? t("desk.release.correct") : t("desk.release.publish")}
+            </button>
+          </div>
+        </form>
+      ) : null}
+
+      {canEdit && published && !withdrawn ? (
+        <details className="mt-6 border-t border-rule pt-5 font-sans">
+          <summary className="cursor-pointer font-semibold">{t("desk.release.withdraw")}</summary>
+          <form
+            className="mt-3 grid gap-3"
+            onSubmit={(event) => {
+              event.preventDefault();
+              withdraw.mutate({ reason: formValues(event.currentTarget).reason ?? "" });
+            }}
+          >
+            <Field label={t("desk.release.withdrawReason")}>
+              <textarea name="reason" rows={2} required className={inputClass} />
+            </Field>
+            <div>
+              <button type="submit" className="border border-ink px-5 py-2 font-semibold" disabled={withdraw.isPending}>{t("desk.release.withdrawButton")}</button>
+            </div>
+          </form>
+        </details>
+      ) : null}
+
+      {reviews.data && reviews.data.steps.length > 0 ? (
+        <>
+          <h3 className="mt-6 font-sans text-sm font-semibold uppercase tracking-wide">{t("desk.release.history")}</h3>
+          <ol className="mt-2 space-y-2 font-sans text-sm" data-testid="review-history">
+            {reviews.data.steps.map((step) => (
+              <li key={`${step.createdAt}-${step.decision}`}>
+                <span className="font-semibold">{t(`desk.release.step.${step.decision}`, { name: step.actorName })}</span>{" "}
+                <span className="text-muted">{date.format(new Date(step.createdAt))}</span>
+                {step.comment ? <p className="mt-1 border-s-2 border-rule ps-3">{step.comment}</p> : null}
+              </li>
+            ))}
+          </ol>
+        </>
+      ) : null}
+    </section>
+  );
+}

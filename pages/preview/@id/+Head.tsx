@@ -1,0 +1,3 @@
+export default function Head() {
+  return <meta name="robots" content="noindex, nofollow" />;
+}

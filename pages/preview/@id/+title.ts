@@ -1,0 +1,1 @@
+export default "Preview of a draft · Fairweigh";

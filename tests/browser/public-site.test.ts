@@ -1,0 +1,98 @@
+// The public site in Debian's Chromium: every page type without JavaScript, no serious or critical
+// accessibility violation (axe-core), keyboard use, and screenshots of a brief at phone and desktop
+// widths (written to test-results/screenshots/ to be looked at).
+import { mkdirSync } from "node:fs";
+import path from "node:path";
+import AxeBuilder from "@axe-core/playwright";
+import { describe, expect, it } from "vitest";
+import en from "../../locales/en/common.json";
+import { slugify } from "../../server/briefs/briefs";
+import { demoBriefs } from "../../server/db/demo-briefs";
+import { projectRoot } from "../../scripts/lib/steps";
+import { withServerAndBrowser } from "../support/browser";
+
+const setup = withServerAndBrowser();
+const small = slugify(demoBriefs()[0]!.title);
+const large = slugify(demoBriefs()[1]!.title);
+
+const pages = {
+  home: "/",
+  search: "/briefs?q=sleep",
+  topic: "/topics/sleep",
+  latest: `/briefs/${small}`,
+  version: `/briefs/${large}/v/1`,
+  comparison: `/briefs/${small}/v/1/compare/combined/usual_care`,
+};
+
+describe("with JavaScript disabled", () => {
+  it.each(Object.entries(pages))("the %s page is complete in the server's HTML", async (kind, url) => {
+    const context = await setup.browser.newContext({ javaScriptEnabled: false });
+    const page = await context.newPage();
+    const response = await page.goto(setup.server.url + url);
+    expect(response?.status()).toBe(200);
+    await expect(page.locator("h1").count()).resolves.toBe(1);
+    const text = (await page.textContent("main")) ?? "";
+    if (kind === "latest" || kind === "version") {
+      expect(text).toContain(en.brief.supports);
+      expect(await page.getByTestId("groups").first().isVisible()).toBe(true);
+      expect(await page.getByTestId("forest-plot").first().isVisible()).toBe(true);
+      expect(await page.getByTestId("network-diagram").first().isVisible()).toBe(true);
+      // The explainer opens without JavaScript: it is a <details>.
+      await page.getByText(en.rankScores.title).first().click();
+      expect(await page.getByText(en.rankScores.caution.chance).first().isVisible()).toBe(true);
+    }
+    if (kind === "comparison") expect(await page.getByTestId("statement").first().textContent()).toMatch(/compared with Usual care\.$/);
+    if (kind === "search" || kind === "topic") expect(text).toContain("Sleeping well after night shifts");
+    await context.close();
+  });
+});
+
+describe("accessibility", () => {
+  it.each([
+    ["home", pages.home],
+    ["brief", pages.latest],
+    ["large brief", pages.version],
+    ["comparison", pages.comparison],
+  ])("axe-core finds no serious or critical violation on the %s page", async (_kind, url) => {
+    const context = await setup.browser.newContext();
+    const page = await context.newPage();
+    await page.goto(setup.server.url + url);
+    const results = await new AxeBuilder({ page }).withTags(["wcag2a", "wcag2aa", "wcag21a", "wcag21aa"]).analyze();
+    const serious = results.violations.filter((v) => v.impact === "serious" || v.impact === "critical");
+    expect(serious.map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(" ")).join(", ")}`)).toEqual([]);
+    await context.close();
+  });
+
+  it("the keyboard alone reaches and opens the rank-score explainer", async () => {
+    const context = await setup.browser.newContext();
+    const page = await context.newPage();
+    await page.goto(setup.server.url + pages.latest);
+    const summary = page.locator("[data-testid=rank-scores] > summary").first();
+    for (let i = 0; i < 200 && !(await summary.evaluate((el) => el === document.activeElement)); i++) await page.keyboard.press("Tab");
+    expect(await summary.evaluate((el) => el === document.activeElement)).toBe(true);
+    await page.keyboard.press("Enter");
+    expect(await page.locator("[data-testid=rank-scores]").first().getAttribute("open")).not.toBeNull();
+    await context.close();
+  });
+});
+
+describe("screenshots of a brief", () => {
+  const folder = path.join(projectRoot, "test-results/screenshots");
+  it.each([
+    ["phone", 390],
+    ["desktop", 1280],
+  ])("at %s width (%i px) the page fits without sideways scrolling", async (name, width) => {
+    mkdirSync(folder, { recursive: true });
+    const context = await setup.browser.newContext({ viewport: { width, height: 900 } });
+    const page = await context.newPage();
+    await page.goto(setup.server.url + pages.latest);
+    // Wide tables scroll inside their own box; the page itself must not.
+    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(width);
+    await page.screenshot({ path: path.join(folder, `brief-${name}.png`), fullPage: true });
+    await page.emulateMedia({ media: "print" });
+    await page.screenshot({ path: path.join(folder, `brief-${name}-print.png`), fullPage: true });
+    expect(await page.locator("header[data-site-header]").isVisible()).toBe(false);
+    expect(await page.getByTestId("citation").isVisible()).toBe(true);
+    await context.close();
+  });
+});

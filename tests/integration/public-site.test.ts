@@ -1,0 +1,193 @@
+// The public site against the production build (as `npm start` serves it) and the test cluster:
+// caching of released versions, the embargo, withdrawal, citations, downloads, feed and sitemap.
+import { gzipSync } from "node:zlib";
+import { Cite } from "@citation-js/core";
+import "@citation-js/plugin-bibtex";
+import "@citation-js/plugin-ris";
+import { xml2js } from "xml-js";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { slugify } from "../../server/briefs/briefs";
+import { demoBriefs } from "../../server/db/demo-briefs";
+import { demoPassword } from "../../server/db/seed";
+import { publishedBrief } from "../support/briefs";
+import { ApiClient } from "../support/client";
+import { startProductionServer, type RunningServer } from "../support/production-server";
+
+let server: RunningServer;
+const clients: Record<string, ApiClient> = {};
+beforeAll(async () => {
+  server = await startProductionServer();
+  for (const role of ["analyst", "editor", "press"]) {
+    clients[role] = new ApiClient(server.url);
+    await clients[role].signIn(`${role}@fairweigh.example`, demoPassword);
+  }
+}, 60_000);
+afterAll(async () => {
+  await server.stop();
+});
+
+const get = (path: string, headers: Record<string, string> = {}) => fetch(`${server.url}${path}`, { headers, redirect: "manual" });
+const small = slugify(demoBriefs()[0]!.title);
+const large = slugify(demoBriefs()[1]!.title);
+
+describe("a released version's page", () => {
+  it("is the same HTML on two requests, with an ETag that a revalidation answers with 304", async () => {
+    const first = await get(`/briefs/${small}/v/1`);
+    const second = await get(`/briefs/${small}/v/1`);
+    expect(first.status).toBe(200);
+    const html = await first.text();
+    expect(await second.text()).toBe(html);
+    const etag = first.headers.get("etag")!;
+    expect(etag).toMatch(/^W\/".+"$/);
+    expect(second.headers.get("etag")).toBe(etag);
+    expect(first.headers.get("cache-control")).toBe("public, max-age=3600");
+    // fetch marks a conditional request "no-cache", which asks for the full answer; a browser revalidating sends max-age=0.
+    const revalidated = await get(`/briefs/${small}/v/1`, { "if-none-match": etag, "cache-control": "max-age=0" });
+    expect(revalidated.status).toBe(304);
+  });
+
+  it("holds everything in the server's HTML: groups, statements' certainty, the caution, the demo banner, the citation", async () => {
+    const html = await (await get(`/briefs/${small}/v/1`)).text();
+    expect(html).toContain("Fictional demonstration data.");
+    expect(html).toContain("What the evidence supports");
+    expect(html).toContain("A large benefit compared with Usual care");
+    expect(html).toContain("Rank scores, and why they are not proof");
+    expect(html).toContain("It is not medical advice");
+    expect(html).toMatch(/Fairweigh\. \(\d{4}\)\. Sleeping well after night shifts \(fictional demonstration\) \(Version 1\)\./);
+    // The rank explainer is collapsed: a <details> without the open attribute.
+    expect(html).toMatch(/<details[^>]*data-testid="rank-scores"(?![^>]*\bopen\b)[^>]*>/);
+  });
+
+  it("carries citation meta tags, Open Graph and Twitter cards, a canonical permalink and JSON-LD", async () => {
+    const html = await (await get(`/briefs/${small}`)).text();
+    expect(html).toContain('<meta name="citation_title" content="Sleeping well after night shifts (fictional demonstration)"');
+    expect(html).toContain(`<link rel="canonical" href="${server.url}/briefs/${small}/v/1"`);
+    expect(html).toMatch(/<meta property="og:title" content="[^"]+"/);
+    expect(html).toContain('<meta name="twitter:card" content="summary"');
+    const jsonLd = JSON.parse(/<script type="application\/ld\+json">(.*?)<\/script>/s.exec(html)![1]!);
+    expect(jsonLd).toMatchObject({ "@type": "Report", version: "1", url: `${server.url}/briefs/${small}/v/1` });
+  });
+
+  it("the latest-version address revalidates every time", async () => {
+    const response = await get(`/briefs/${small}`);
+    expect(response.status).toBe(200);
+    expect(response.headers.get("cache-control")).toBe("public, no-cache");
+    expect(response.headers.get("etag")).toBeTruthy();
+  });
+
+  it("ships under 150 KB of compressed JavaScript", async () => {
+    const html = await (await get(`/briefs/${large}`)).text();
+    const scripts = [...html.matchAll(/<(?:script[^>]+src|link[^>]+rel="modulepreload"[^>]+href)="([^"]+\.js)"/g)].map((m) => m[1]!);
+    expect(scripts.length).toBeGreaterThan(0);
+    let total = 0;
+    for (const src of new Set(scripts)) total += gzipSync(Buffer.from(await (await get(src)).arrayBuffer())).length;
+    expect(total).toBeLessThan(150 * 1024);
+  });
+
+  it("a comparison page has the statement, the evidence side by side and its own citation files", async () => {
+    const response = await get(`/briefs/${small}/v/1/compare/combined/usual_care`);
+    expect(response.status).toBe(200);
+    const html = await response.text();
+    expect(html).toContain("Light sessions with nap schedule vs Usual care");
+    expect(html).toContain("Direct (trials comparing the two)");
+    expect(html).toContain("Cite this comparison");
+    expect((await get(`/briefs/${small}/v/1/compare/combined/nobody`)).status).toBe(404);
+  });
+});
+
+describe("the embargo", () => {
+  it("keeps a scheduled brief from the public at every address, and shows it to the press with a notice", async () => {
+    const releaseAt = new Date(Date.now() + 48 * 3600 * 1000).toISOString();
+    const { slug } = await publishedBrief(clients.analyst!, clients.editor!, "Embargoed page", releaseAt);
+    for (const path of [`/briefs/${slug}`, `/briefs/${slug}/v/1`, `/briefs/${slug}/v/1/compare/nicotine_gum/no_contact`, `/briefs/${slug}/v/1/cite.ris`, `/briefs/${slug}/v/1/downloads/results.csv`]) {
+      expect((await get(path)).status, path).toBe(404);
+      expect((await clients.analyst!.request("GET", path)).status, path).toBe(404);
+    }
+    expect(await (await get("/feed.xml")).text()).not.toContain(slug);
+    expect(await (await get("/briefs?q=embargoed")).text()).not.toContain(slug);
+
+    const press = await fetch(`${server.url}/briefs/${slug}/v/1`, { headers: { cookie: clients.press!.cookieHeader } });
+    expect(press.status).toBe(200);
+    expect(press.headers.get("cache-control")).toBe("private, no-store");
+    expect(await press.text()).toContain("Embargoed until");
+  });
+});
+
+describe("a withdrawn brief", () => {
+  it("answers 410 with its page and the reason, even after its page was cached", async () => {
+    const { briefId, slug } = await publishedBrief(clients.analyst!, clients.editor!, "Withdrawn page");
+    expect((await get(`/briefs/${slug}/v/1`)).status).toBe(200);
+    await clients.editor!.request("POST", `/api/briefs/${briefId}/withdrawal`, { json: { reason: "A trial in the data was retracted." } });
+    for (const path of [`/briefs/${slug}`, `/briefs/${slug}/v/1`]) {
+      const response = await get(path);
+      expect(response.status, path).toBe(410);
+      const html = await response.text();
+      expect(html).toContain("A trial in the data was retracted.");
+      expect(html).toContain("Quit smoking");
+    }
+  });
+});
+
+describe("citations", () => {
+  it("RIS, BibTeX and CSL-JSON parse back (through citation-js) to the same title, version and permalink", async () => {
+    const base = `/briefs/${small}/v/1`;
+    const files = await Promise.all(["ris", "bib", "json"].map(async (format) => (await get(`${base}/cite.${format}`)).text()));
+    const [ris, bib, csl] = files.map((text) => new Cite(text).data[0] as { title: string; URL: string; version?: string; type: string });
+    expect(ris!.title).toBe("Sleeping well after night shifts (fictional demonstration)");
+    expect(ris!.URL).toBe(`${server.url}${base}`);
+    expect(bib!.title).toBe(ris!.title);
+    expect(bib!.URL).toBe(ris!.URL);
+    expect(csl).toMatchObject({ title: ris!.title, URL: ris!.URL, version: "1", type: "report" });
+    expect((await get(`${base}/cite.ris`)).headers.get("content-type")).toContain("application/x-research-info-systems");
+  });
+
+  it("a comparison's citation names the comparison and its own permalink", async () => {
+    const path = `/briefs/${small}/v/1/compare/light/usual_care`;
+    const csl = new Cite(await (await get(`${path}/cite.json`)).text()).data[0] as { title: string; URL: string };
+    expect(csl.title).toBe("Timed bright-light sessions vs Usual care: Sleeping well after night shifts (fictional demonstration)");
+    expect(csl.URL).toBe(`${server.url}${path}`);
+  });
+});
+
+describe("downloads", () => {
+  it("give the inputs and results of a version as CSV and JSON", async () => {
+    const base = `/briefs/${small}/v/1/downloads`;
+    const results = await get(`${base}/results.csv`);
+    expect(results.headers.get("content-type")).toContain("text/csv");
+    const lines = (await results.text()).trim().split("\n");
+    expect(lines[0]).toBe("outcome,treatment,comparator,measure,model,estimate,se,lower,upper,direct_estimate,direct_se,direct_studies,indirect_estimate,indirect_se,incoherence_p,certainty");
+    expect(lines).toHaveLength(1 + 2 * 15); // two outcomes, 15 pairs of 6 treatments each
+    const inputs = (await (await get(`${base}/inputs.json`)).json()) as { outcomes: { studies: unknown[] }[] };
+    expect(inputs.outcomes[0]!.studies).toHaveLength(15);
+    expect((await get(`${base}/nothing.csv`)).status).toBe(404);
+  });
+});
+
+describe("feed, sitemap, robots, search and topics", () => {
+  it("the Atom feed parses as XML and lists the released briefs", async () => {
+    const response = await get("/feed.xml");
+    expect(response.headers.get("content-type")).toContain("application/atom+xml");
+    const feed = xml2js(await response.text(), { compact: true }) as { feed: { entry: { link: { _attributes: { href: string } } }[] } };
+    const links = feed.feed.entry.map((e) => e.link._attributes.href);
+    expect(links).toContain(`${server.url}/briefs/${small}/v/1`);
+    expect(links).toContain(`${server.url}/briefs/${large}/v/1`);
+  });
+
+  it("the sitemap lists every released version and robots.txt points to it", async () => {
+    const sitemap = xml2js(await (await get("/sitemap.xml")).text(), { compact: true }) as { urlset: { url: { loc: { _text: string } }[] } };
+    expect(sitemap.urlset.url.map((u) => u.loc._text)).toContain(`${server.url}/briefs/${small}/v/1`);
+    expect(await (await get("/robots.txt")).text()).toContain(`Sitemap: ${server.url}/sitemap.xml`);
+  });
+
+  it("search matches title, condition and treatment names; a topic lists its briefs", async () => {
+    const byTreatment = await (await get("/briefs?q=compound+k")).text();
+    expect(byTreatment).toContain(`/briefs/${large}`);
+    expect(byTreatment).not.toContain(`/briefs/${small}"`);
+    const byCondition = await (await get("/briefs?q=night-shift")).text();
+    expect(byCondition).toContain(`/briefs/${small}`);
+    const topic = await get("/topics/headache");
+    expect(topic.status).toBe(200);
+    expect(await topic.text()).toContain(`/briefs/${large}`);
+    expect((await get("/topics/nothing-here")).status).toBe(404);
+  });
+});
