@@ -2,9 +2,27 @@
 // is rendered once per locale and day (the citation carries the access date) and served with an
 // ETag. Only a withdrawal changes such a page, and each hit checks that one fact in the database.
 import { createHash } from "node:crypto";
+import { brotliCompressSync, constants, gzipSync } from "node:zlib";
+
+/** The page's bytes, compressed once when it is cached rather than on every answer. */
+export interface Encodings {
+  identity: Buffer;
+  gzip: Buffer;
+  br: Buffer;
+}
+
+export function encode(html: string): Encodings {
+  const identity = Buffer.from(html);
+  return {
+    identity,
+    gzip: gzipSync(identity, { level: 9 }),
+    br: brotliCompressSync(identity, { params: { [constants.BROTLI_PARAM_QUALITY]: 9, [constants.BROTLI_PARAM_SIZE_HINT]: identity.length } }),
+  };
+}
 
 export interface CachedPage {
   html: string;
+  encodings: Encodings;
   etag: string;
   status: number;
   headers: [string, string][];
@@ -24,6 +42,26 @@ export function versionOfPath(path: string): { slug: string; number: number } | 
 export function etagOf(html: string): string {
   // Weak: compression changes the bytes on the wire, not the page.
   return `W/"${createHash("sha256").update(html).digest("base64url").slice(0, 27)}"`;
+}
+
+/**
+ * Whether a version is withdrawn, remembered for two seconds: under load, one query per version and
+ * two seconds instead of one per request. A withdrawal shows on its cached pages within that time.
+ */
+export class StateMemo<T> {
+  private readonly entries = new Map<string, { value: T; until: number }>();
+
+  constructor(private readonly millis = 2000) {}
+
+  async get(key: string, read: () => Promise<T>): Promise<T> {
+    const now = Date.now();
+    const hit = this.entries.get(key);
+    if (hit && hit.until > now) return hit.value;
+    const value = await read();
+    this.entries.set(key, { value, until: now + this.millis });
+    if (this.entries.size > 5000) this.entries.clear();
+    return value;
+  }
 }
 
 /** A bounded map, oldest entry out first. */

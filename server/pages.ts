@@ -5,9 +5,10 @@ import express, { Router, type Request, type Response } from "express";
 import { createDevMiddleware, renderPage } from "vike/server";
 import { defaultLocale } from "../components/i18n";
 import { versionState } from "./briefs/versions";
+import { siteUrl } from "./public/routes";
 import type { Database } from "./db/client";
 import type { createCsrf } from "./http/security";
-import { etagOf, PageCache, versionOfPath, type CachedPage } from "./page-cache";
+import { encode, etagOf, PageCache, StateMemo, versionOfPath, type CachedPage, type Encodings } from "./page-cache";
 
 /** Pages whose HTML carries a CSRF token, because they hold a form that posts without JavaScript. */
 const pagesWithForms = new Set(["/sign-in"]);
@@ -38,6 +39,7 @@ export async function pageRoutes(options: {
   const { root, production, csrf, db, publicUrl } = options;
   const router = Router();
   const cache = new PageCache();
+  const states = new StateMemo<Awaited<ReturnType<typeof versionState>>>();
   if (production) {
     // Built assets carry a content hash in their name, so they can be cached for a year.
     router.use(
@@ -50,7 +52,7 @@ export async function pageRoutes(options: {
     router.use(devMiddleware);
   }
 
-  function send(req: Request, res: Response, page: Omit<CachedPage, "withdrawnAt">, caching: keyof typeof cacheControl) {
+  function send(req: Request, res: Response, page: Omit<CachedPage, "withdrawnAt" | "encodings"> & { encodings?: Encodings }, caching: keyof typeof cacheControl) {
     for (const [name, value] of page.headers) res.setHeader(name, value);
     const policy = res.getHeader("content-security-policy");
     const nonce = res.locals.cspNonce as string;
@@ -58,7 +60,16 @@ export async function pageRoutes(options: {
     res.setHeader("Cache-Control", cacheControl[caching]);
     if (caching !== "private") res.setHeader("ETag", page.etag);
     if (caching !== "private" && page.status === 200 && req.fresh) return res.status(304).end();
-    res.status(page.status).type("html").send(page.html);
+    // The type is among Vike's headers: HTML for pages, JSON for client navigation's pageContext.
+    res.status(page.status);
+    if (!page.encodings) return res.send(page.html);
+    // Already compressed: the compression middleware leaves an answer with a Content-Encoding alone.
+    const encoding = req.acceptsEncodings("br", "gzip", "identity") || "identity";
+    const body = page.encodings[encoding as keyof Encodings] ?? page.encodings.identity;
+    res.setHeader("Vary", "Accept-Encoding");
+    if (encoding !== "identity") res.setHeader("Content-Encoding", encoding);
+    res.setHeader("Content-Length", body.length);
+    res.end(req.method === "HEAD" ? undefined : body);
   }
 
   router.use(async (req, res, next) => {
@@ -69,7 +80,7 @@ export async function pageRoutes(options: {
       if (version) {
         const cached = cache.get(key);
         if (cached) {
-          const state = await versionState(db, version.slug, version.number);
+          const state = await states.get(`${version.slug}/${version.number}`, () => versionState(db, version.slug, version.number));
           if (state && (state.withdrawnAt?.toISOString() ?? null) === cached.withdrawnAt) return send(req, res, cached, "version");
           cache.delete(key);
         }
@@ -87,7 +98,7 @@ export async function pageRoutes(options: {
         person: req.user ?? null,
         db,
         csrfToken,
-        siteUrl: (publicUrl ?? `${req.protocol}://${req.get("host")}`).replace(/\/$/, ""),
+        siteUrl: siteUrl(req, publicUrl),
       });
       const { httpResponse } = pageContext;
       if (!httpResponse) return next();
@@ -97,7 +108,11 @@ export async function pageRoutes(options: {
       const headers = httpResponse.headers.filter(([name]) => name.toLowerCase() !== "content-security-policy") as [string, string][];
       const page = { html, etag: etagOf(html), status: answer.httpStatus ?? httpResponse.statusCode, headers, nonce: res.locals.cspNonce as string };
       const caching = httpResponse.statusCode >= 400 && !answer.httpStatus ? "private" : (answer.caching ?? "private");
-      if (caching === "version" && version) cache.set(key, { ...page, withdrawnAt: answer.withdrawal?.at ?? null });
+      if (caching === "version" && version) {
+        const entry = { ...page, encodings: encode(html), withdrawnAt: answer.withdrawal?.at ?? null };
+        cache.set(key, entry);
+        return send(req, res, entry, caching);
+      }
       send(req, res, page, caching);
     } catch (error) {
       next(error);

@@ -101,7 +101,7 @@ export function OutcomeSection({ outcome, versionHref }: { outcome: OutcomeView;
 
       <h3 className="mt-10 text-xl font-semibold">{t("brief.network")}</h3>
       <p className="mt-2">{t("brief.networkSummary", { studies: outcome.methods.studies, options: outcome.network.nodes.length, pairs: outcome.network.edges.length })}</p>
-      <figure className="mt-4">
+      <figure className="mt-4 overflow-x-auto">
         <NetworkDiagram title={t("brief.networkTitle")} nodes={outcome.network.nodes.map((n) => ({ id: n.id, label: n.name, participants: n.participants }))} edges={outcome.network.edges} />
         <figcaption className="mt-2 font-sans text-xs text-muted">{t("brief.networkCaption")}</figcaption>
       </figure>

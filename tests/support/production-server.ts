@@ -1,46 +1,9 @@
-// The production build served by server/index.ts in a child process, as `npm start` serves it.
-import { spawn, type ChildProcess } from "node:child_process";
-import path from "node:path";
-import { freePort } from "../../scripts/lib/postgres";
-import { projectRoot } from "../../scripts/lib/steps";
+// The production build against the test cluster, as `npm start` serves it.
+import { startProductionServer as start, type RunningServer } from "../../scripts/lib/production-server";
 import { testDatabaseUrl, testSessionSecret } from "./app";
 
-export interface RunningServer {
-  url: string;
-  stop(): Promise<void>;
-}
+export type { RunningServer };
 
-export async function startProductionServer(): Promise<RunningServer> {
-  const port = await freePort();
-  const child: ChildProcess = spawn(path.join(projectRoot, "node_modules/.bin/tsx"), ["server/index.ts"], {
-    cwd: projectRoot,
-    env: {
-      ...process.env,
-      NODE_ENV: "production",
-      DATABASE_URL: testDatabaseUrl(),
-      SESSION_SECRET: testSessionSecret,
-      PORT: String(port),
-      LOG_LEVEL: "warn",
-    },
-    stdio: ["ignore", "pipe", "inherit"],
-  });
-  const url = `http://127.0.0.1:${port}`;
-  await new Promise<void>((resolve, reject) => {
-    const timer = setTimeout(() => reject(new Error("the production server did not start within 30 s")), 30_000);
-    child.stdout!.on("data", (chunk: Buffer) => {
-      if (chunk.toString().includes("Fairweigh is serving")) {
-        clearTimeout(timer);
-        resolve();
-      }
-    });
-    child.once("exit", (code) => reject(new Error(`the production server exited with code ${code}`)));
-  });
-  return {
-    url,
-    stop: () =>
-      new Promise((resolve) => {
-        child.once("exit", () => resolve());
-        child.kill("SIGTERM");
-      }),
-  };
+export function startProductionServer(): Promise<RunningServer> {
+  return start({ databaseUrl: testDatabaseUrl(), sessionSecret: testSessionSecret });
 }
