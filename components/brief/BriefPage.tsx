@@ -4,7 +4,7 @@ import { useTranslation } from "react-i18next";
 import type { BriefPageData } from "../../server/briefs/page-data";
 import { HealthCaution } from "../HealthCaution";
 import { CiteBlock } from "./CiteBlock";
-import { DemoBanner, VersionNotices } from "./Notices";
+import { VersionBanners } from "./Notices";
 import { OutcomeSection } from "./OutcomeSection";
 import { VersionHistory } from "./VersionHistory";
 
@@ -14,15 +14,7 @@ export function BriefPage({ data }: { data: BriefPageData }) {
   const date = new Intl.DateTimeFormat(i18n.language, { dateStyle: "long", timeZone: "UTC" });
   return (
     <article data-testid="brief">
-      {view.demo ? <DemoBanner /> : null}
-      <VersionNotices
-        withdrawal={view.withdrawal}
-        embargoed={view.embargoed}
-        releaseAt={view.releaseAt}
-        version={view.version}
-        latestVersion={view.latestVersion}
-        latestHref={`/briefs/${view.slug}`}
-      />
+      <VersionBanners view={view} />
       <header>
         <p className="font-sans text-xs font-semibold uppercase tracking-wide text-muted">
           <a href={`/topics/${view.topicSlug}`} className="text-muted">{view.topic}</a> · {view.condition}

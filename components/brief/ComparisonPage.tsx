@@ -8,7 +8,7 @@ import { HealthCaution } from "../HealthCaution";
 import { CertaintyMark } from "./CertaintyMark";
 import { CiteBlock } from "./CiteBlock";
 import { formatInterval } from "./format";
-import { DemoBanner, VersionNotices } from "./Notices";
+import { VersionBanners } from "./Notices";
 
 export function ComparisonPage({ data }: { data: ComparisonPageData }) {
   const { t, i18n } = useTranslation();
@@ -17,15 +17,7 @@ export function ComparisonPage({ data }: { data: ComparisonPageData }) {
   const versus = t("brief.versus", { treatment: view.treatment.name, comparator: view.comparator.name });
   return (
     <article data-testid="comparison">
-      {view.demo ? <DemoBanner /> : null}
-      <VersionNotices
-        withdrawal={view.withdrawal}
-        embargoed={view.embargoed}
-        releaseAt={view.releaseAt}
-        version={view.version}
-        latestVersion={view.latestVersion}
-        latestHref={`/briefs/${view.slug}`}
-      />
+      <VersionBanners view={view} />
       <p className="font-sans text-sm">
         <a href={versionPath}>{t("compare.back", { title: view.title })}</a>
       </p>

@@ -1,7 +1,25 @@
 // The notices above a version's content: fictional data, withdrawal, embargo, a newer version.
 import { useTranslation } from "react-i18next";
+import type { BriefHeader, PageState } from "../../server/briefs/brief-page";
 
-export function DemoBanner() {
+/** Everything shown above a version's content, for its brief page and its comparison pages. */
+export function VersionBanners({ view }: { view: BriefHeader & PageState }) {
+  return (
+    <>
+      {view.demo ? <DemoBanner /> : null}
+      <VersionNotices
+        withdrawal={view.withdrawal}
+        embargoed={view.embargoed}
+        releaseAt={view.releaseAt}
+        version={view.version}
+        latestVersion={view.latestVersion}
+        latestHref={`/briefs/${view.slug}`}
+      />
+    </>
+  );
+}
+
+function DemoBanner() {
   const { t } = useTranslation();
   return (
     <p role="note" className="mb-8 border border-accent px-4 py-3 font-sans text-sm text-accent" data-testid="demo-banner">
@@ -10,7 +28,7 @@ export function DemoBanner() {
   );
 }
 
-export function VersionNotices({
+function VersionNotices({
   withdrawal,
   embargoed,
   releaseAt,

@@ -1,6 +1,7 @@
 // TanStack Query hooks: the only place the desk's screens get their data from.
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import type { ComparisonCertainty, ComparisonJudgement } from "../../server/grade/assess";
+import type { PressRoomEntry } from "../../server/briefs/versions";
 import type { AnalysisResult } from "../../server/nma/analyse";
 import { ApiError, callApi, forgetCsrfToken, type SignedInPerson } from "./api";
 import type { BriefDetail, BriefSummary, Format, UploadReport } from "./types";
@@ -162,15 +163,6 @@ export function usePublish(briefId: string) {
 
 export function useWithdraw(briefId: string) {
   return useReleaseStep(briefId, (body: { reason: string }) => callApi("POST", `/api/briefs/${briefId}/withdrawal`, body));
-}
-
-export interface PressRoomEntry {
-  slug: string;
-  title: string;
-  number: number;
-  releaseAt: string;
-  note: string | null;
-  embargoed: boolean;
 }
 
 export function usePressRoom() {

@@ -1,8 +1,8 @@
 // Briefs in the database: created by analysts, changed only with the row version the writer read.
-import { and, asc, eq, like } from "drizzle-orm";
+import { and, asc, desc, eq, inArray, like } from "drizzle-orm";
 import { recordAudit } from "../audit";
 import type { Database } from "../db/client";
-import { briefs, outcomes, treatmentNames } from "../db/schema";
+import { briefs, briefVersions, outcomes, treatmentNames } from "../db/schema";
 import { analysisStatus, latestTreatments } from "../analysis/run";
 
 export type BriefRow = typeof briefs.$inferSelect;
@@ -46,11 +46,28 @@ export async function createBrief(db: Database, fields: BriefFields & { demo?: b
 }
 
 export async function findBrief(db: Database, id: string): Promise<BriefRow | null> {
-  return (await db.query.briefs.findFirst({ where: eq(briefs.id, id) })) ?? null;
+  const row = await db.query.briefs.findFirst({ where: eq(briefs.id, id) });
+  return row ? (await withReleasedStatus(db, [row]))[0]! : null;
 }
 
 export async function listBriefs(db: Database): Promise<BriefRow[]> {
-  return db.select().from(briefs).orderBy(asc(briefs.createdAt));
+  return withReleasedStatus(db, await db.select().from(briefs).orderBy(asc(briefs.createdAt)));
+}
+
+/**
+ * A scheduled brief is published once its release time has passed; nothing runs at that moment,
+ * so the status is read from the latest version's time rather than stored again.
+ */
+async function withReleasedStatus(db: Database, rows: BriefRow[]): Promise<BriefRow[]> {
+  const scheduled = rows.filter((row) => row.status === "scheduled").map((row) => row.id);
+  if (scheduled.length === 0) return rows;
+  const latest = await db
+    .selectDistinctOn([briefVersions.briefId], { briefId: briefVersions.briefId, number: briefVersions.number, releaseAt: briefVersions.releaseAt })
+    .from(briefVersions)
+    .where(inArray(briefVersions.briefId, scheduled))
+    .orderBy(briefVersions.briefId, desc(briefVersions.number));
+  const released = new Map(latest.filter((v) => v.releaseAt.getTime() <= Date.now()).map((v) => [v.briefId, v.number]));
+  return rows.map((row) => (released.has(row.id) ? { ...row, status: released.get(row.id)! > 1 ? "corrected" : "published" } : row));
 }
 
 /**

@@ -111,4 +111,15 @@ describe("the embargo", () => {
     const brief = await clients.analyst!.request("GET", `/api/briefs/${briefId}`);
     expect((brief.body.brief as { status: string }).status).toBe("scheduled");
   });
+
+  it("lifts itself at the release time: the version becomes public and the brief reads as published", async () => {
+    const { briefId, slug } = await analysedBrief("Released on time");
+    await approve(briefId);
+    const releaseAt = new Date(Date.now() + 1000).toISOString();
+    expect((await clients.editor!.request("POST", `/api/briefs/${briefId}/versions`, { json: { releaseAt } })).status).toBe(201);
+    expect((await new ApiClient(app.url).request("GET", `/api/briefs/${slug}/versions/1`)).status).toBe(404);
+    await new Promise((resolve) => setTimeout(resolve, 1200));
+    expect((await new ApiClient(app.url).request("GET", `/api/briefs/${slug}/versions/1`)).status).toBe(200);
+    expect(((await clients.analyst!.request("GET", `/api/briefs/${briefId}`)).body.brief as { status: string }).status).toBe("published");
+  });
 });

@@ -1,8 +1,10 @@
+import { useTranslation } from "react-i18next";
 import { useData } from "vike-react/useData";
 import { PageHead } from "../../../components/brief/PageHead";
 import type { BriefPageData } from "../../../server/briefs/page-data";
 
 export default function Head() {
+  const { t } = useTranslation();
   const { view, versionPath, siteUrl } = useData<BriefPageData>();
   return (
     <PageHead
@@ -13,7 +15,7 @@ export default function Head() {
         version: view.version,
         releaseAt: view.releaseAt,
         condition: view.condition,
-        description: `${view.condition}: ${view.population}`,
+        description: t("brief.pageDescription", { population: view.population.toLowerCase(), condition: view.condition.toLowerCase() }),
         withdrawn: view.withdrawal !== null,
       }}
     />

@@ -1,7 +1,8 @@
 import type { PageContext } from "vike/types";
+import { createI18n } from "../../../components/i18n";
 import type { BriefPageData } from "../../../server/briefs/page-data";
 
 export default (pageContext: PageContext) => {
   const { view } = pageContext.data as BriefPageData;
-  return `A network meta-analysis on ${view.condition.toLowerCase()} in ${view.population.toLowerCase()}: what the evidence supports, with its certainty.`;
+  return createI18n().t("brief.pageDescription", { population: view.population.toLowerCase(), condition: view.condition.toLowerCase() });
 };

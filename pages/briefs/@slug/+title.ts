@@ -1,7 +1,8 @@
 import type { PageContext } from "vike/types";
+import { createI18n } from "../../../components/i18n";
 import type { BriefPageData } from "../../../server/briefs/page-data";
 
 export default (pageContext: PageContext) => {
   const { view } = pageContext.data as BriefPageData;
-  return `${view.title} (version ${view.version}) · Fairweigh`;
+  return createI18n().t("brief.pageTitle", { title: view.title, version: view.version });
 };

@@ -1,1 +1,3 @@
-export default "Preview of a draft · Fairweigh";
+import { createI18n } from "../../../components/i18n";
+
+export default () => createI18n().t("preview.pageTitle");

@@ -1,19 +1,21 @@
+import { useTranslation } from "react-i18next";
 import { useData } from "vike-react/useData";
 import { PageHead } from "../../../../../../../../components/brief/PageHead";
 import type { ComparisonPageData } from "../../../../../../../../server/briefs/page-data";
 
 export default function Head() {
+  const { t } = useTranslation();
   const { view, path, siteUrl } = useData<ComparisonPageData>();
   return (
     <PageHead
       facts={{
-        title: `${view.treatment.name} vs ${view.comparator.name}: ${view.title}`,
+        title: `${t("brief.versus", { treatment: view.treatment.name, comparator: view.comparator.name })}: ${view.title}`,
         siteUrl,
         path,
         version: view.version,
         releaseAt: view.releaseAt,
         condition: view.condition,
-        description: `${view.treatment.name} compared with ${view.comparator.name} in ${view.population.toLowerCase()}`,
+        description: t("compare.pageDescription", { treatment: view.treatment.name, comparator: view.comparator.name, population: view.population.toLowerCase() }),
         withdrawn: view.withdrawal !== null,
       }}
     />

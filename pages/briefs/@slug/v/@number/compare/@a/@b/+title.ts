@@ -1,7 +1,8 @@
 import type { PageContext } from "vike/types";
+import { createI18n } from "../../../../../../../../components/i18n";
 import type { ComparisonPageData } from "../../../../../../../../server/briefs/page-data";
 
 export default (pageContext: PageContext) => {
   const { view } = pageContext.data as ComparisonPageData;
-  return `${view.treatment.name} vs ${view.comparator.name} · ${view.title} (version ${view.version}) · Fairweigh`;
+  return createI18n().t("compare.pageTitle", { treatment: view.treatment.name, comparator: view.comparator.name, title: view.title, version: view.version });
 };

@@ -1,0 +1,8 @@
+import type { PageContext } from "vike/types";
+import { createI18n } from "../../../../../../../../components/i18n";
+import type { ComparisonPageData } from "../../../../../../../../server/briefs/page-data";
+
+export default (pageContext: PageContext) => {
+  const { view } = pageContext.data as ComparisonPageData;
+  return createI18n().t("compare.pageDescription", { treatment: view.treatment.name, comparator: view.comparator.name, population: view.population.toLowerCase() });
+};
