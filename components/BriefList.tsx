@@ -14,7 +14,7 @@ export function BriefList({ briefs, testId = "released-briefs" }: { briefs: Rele
             <a href={`/topics/${brief.topicSlug}`} className="text-muted">{brief.topic}</a>
           </p>
           <h3 className="mt-1 text-2xl leading-snug font-semibold">
-            <a href={`/briefs/${brief.slug}`} className="text-ink">{brief.title}</a>
+            <a href={`/briefs/${brief.slug}`} className="text-ink decoration-rule hover:decoration-accent">{brief.title}</a>
           </h3>
           <p className="mt-1 font-sans text-sm text-muted">
             {t("home.version", { version: brief.version, date: date.format(new Date(brief.releasedAt)) })}

@@ -7,7 +7,11 @@ export function SiteFooter() {
     <footer data-site-footer className="mt-16 border-t border-rule bg-white/60">
       <div className="mx-auto max-w-5xl px-6 py-10">
         <HealthCaution />
-        <p className="mt-8 font-sans text-xs text-muted">{t("site.name")}</p>
+        <nav aria-label={t("site.footerNav")} className="mt-8 flex flex-wrap gap-5 font-sans text-sm">
+          <a href="/briefs">{t("site.footer.briefs")}</a>
+          <a href="/feed.xml">{t("site.footer.feed")}</a>
+        </nav>
+        <p className="mt-4 font-sans text-xs text-muted">{t("site.name")}</p>
       </div>
     </footer>
   );
