@@ -64,6 +64,12 @@ describe("a released version's page", () => {
     expect(html).toContain(`<link rel="canonical" href="${server.url}/briefs/${small}/v/1"`);
     expect(html).toMatch(/<meta property="og:title" content="[^"]+"/);
     expect(html).toContain('<meta name="twitter:card" content="summary"');
+    // Each page's head is its own: one canonical link and one JSON-LD block, never a parent page's too.
+    expect(html.match(/<link rel="canonical"/g)).toHaveLength(1);
+    expect(html.match(/application\/ld\+json/g)).toHaveLength(1);
+    const comparison = await (await get(`/briefs/${small}/v/1/compare/combined/usual_care`)).text();
+    expect(comparison.match(/<link rel="canonical"[^>]*>/g)).toEqual([`<link rel="canonical" href="${server.url}/briefs/${small}/v/1/compare/combined/usual_care"/>`]);
+    expect(comparison.match(/application\/ld\+json/g)).toHaveLength(1);
     const jsonLd = JSON.parse(/<script type="application\/ld\+json">(.*?)<\/script>/s.exec(html)![1]!);
     expect(jsonLd).toMatchObject({ "@type": "Report", version: "1", url: `${server.url}/briefs/${small}/v/1` });
   });
@@ -80,7 +86,11 @@ describe("a released version's page", () => {
     const scripts = [...html.matchAll(/<(?:script[^>]+src|link[^>]+rel="modulepreload"[^>]+href)="([^"]+\.js)"/g)].map((m) => m[1]!);
     expect(scripts.length).toBeGreaterThan(0);
     let total = 0;
-    for (const src of new Set(scripts)) total += gzipSync(Buffer.from(await (await get(src)).arrayBuffer())).length;
+    for (const src of new Set(scripts)) {
+      const response = await get(src);
+      expect(response.status, src).toBe(200);
+      total += gzipSync(Buffer.from(await response.arrayBuffer())).length;
+    }
     expect(total).toBeLessThan(150 * 1024);
   });
 

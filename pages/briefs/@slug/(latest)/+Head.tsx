@@ -1,7 +1,7 @@
 import { useTranslation } from "react-i18next";
 import { useData } from "vike-react/useData";
-import { PageHead } from "../../../components/brief/PageHead";
-import type { BriefPageData } from "../../../server/briefs/page-data";
+import { PageHead } from "../../../../components/brief/PageHead";
+import type { BriefPageData } from "../../../../server/briefs/page-data";
 
 export default function Head() {
   const { t } = useTranslation();

@@ -1,0 +1,7 @@
+import { useData } from "vike-react/useData";
+import { BriefPage } from "../../../../components/brief/BriefPage";
+import type { BriefPageData } from "../../../../server/briefs/page-data";
+
+export default function Page() {
+  return <BriefPage data={useData<BriefPageData>()} />;
+}
