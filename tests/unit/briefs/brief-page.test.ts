@@ -1,0 +1,112 @@
+// The page model of a version (server/briefs/brief-page.ts): shaped from a snapshot only.
+import { describe, expect, it } from "vitest";
+import { briefView, certaintyFootnotes, comparisonView } from "../../../server/briefs/brief-page";
+import type { VersionSnapshot } from "../../../server/briefs/snapshot";
+import type { ComparisonCertainty } from "../../../server/grade/assess";
+import { concludeOutcome } from "../../../server/grade/conclusions";
+import { analyse, z975 } from "../../../server/nma/analyse";
+import { parseDataset } from "../../../server/nma/parse";
+
+// An invented three-arm network (the same as the conclusions test): s1 and s4 compare placebo and alpha.
+const csv = `study,treatment,events,total
+s1,placebo,20,100
+s1,alpha,40,100
+s2,placebo,18,90
+s2,beta,30,90
+s3,alpha,35,80
+s3,beta,30,80
+s4,placebo,25,120
+s4,alpha,50,120
+`;
+const parsed = parseDataset(Buffer.from(csv), "arm-binary");
+const settings = { measure: "OR" as const, model: "fixed" as const, reference: "placebo", better: "higher" as const, draws: 500 };
+const result = analyse(parsed, settings);
+const certainty = result.comparisons.map((c) => ({ treatment: c.treatment, comparator: c.comparator, network: "moderate", judgement: {} }) as ComparisonCertainty);
+const thresholds = { small: null, moderate: null, large: null };
+const treatments = [
+  { label: "alpha", displayName: "Zeta tablets" },
+  { label: "beta", displayName: "Beta drops" },
+  { label: "placebo", displayName: "Placebo" },
+];
+const snapshot: VersionSnapshot = {
+  brief: { slug: "invented", title: "Invented brief", topic: "Testing", condition: "A condition", population: "Adults", demo: true },
+  treatments,
+  texts: { laySummaryHtml: "", keyMessagesHtml: "" },
+  outcomes: [
+    {
+      name: "Response",
+      kind: "binary",
+      settings,
+      baselineRisk: 0.2,
+      unit: null,
+      thresholds,
+      dataset: { fileName: "x.csv", sha256: "0".repeat(64), format: "arm-binary", parsed },
+      result,
+      certainty,
+      ...concludeOutcome(result, certainty, { name: "Response", baselineRisk: 0.2, thresholds, names: Object.fromEntries(treatments.map((t) => [t.label, t.displayName])) }),
+    },
+  ],
+  version: 1,
+  releaseAt: "2026-12-01T00:00:00.000Z",
+  note: null,
+};
+const state = { embargoed: false, withdrawal: null, latestVersion: 1, history: [] };
+
+describe("the brief page model", () => {
+  it("lists each option against the reference alphabetically by the name readers see, never by effect", () => {
+    const view = briefView(snapshot, state);
+    expect(view.outcomes[0]!.effects.map((e) => e.name)).toEqual(["Beta drops", "Zeta tablets"]);
+    expect(view.outcomes[0]!.reference).toEqual({ id: "placebo", name: "Placebo" });
+  });
+});
+
+describe("the comparison page model", () => {
+  it("counts the participants of the studies that compare the two directly (s1 and s4: 200 + 240)", () => {
+    const view = comparisonView(snapshot, "alpha", "placebo", state)!;
+    expect(view.outcomes[0]!.direct).toMatchObject({ studies: 2, participants: 440 });
+  });
+
+  it("gives the direct estimate's 95% CI as estimate ± 1.959964 SE (METHODS.md §3) and reads both ways", () => {
+    const forward = comparisonView(snapshot, "alpha", "placebo", state)!.outcomes[0]!;
+    const backward = comparisonView(snapshot, "placebo", "alpha", state)!.outcomes[0]!;
+    const pair = result.comparisons.find((c) => [c.treatment, c.comparator].sort().join() === "alpha,placebo")!;
+    const sign = pair.treatment === "alpha" ? 1 : -1;
+    expect(forward.direct!.estimate).toBeCloseTo(sign * pair.direct!.estimate, 12);
+    expect(forward.direct!.upper - forward.direct!.estimate).toBeCloseTo(z975 * pair.direct!.se, 12);
+    expect(backward.network.estimate).toBeCloseTo(-forward.network.estimate, 12);
+    expect(backward.network.lower).toBeCloseTo(-forward.network.upper, 12);
+  });
+
+  it("is null for a pair no outcome holds", () => {
+    expect(comparisonView(snapshot, "alpha", "gamma", state)).toBeNull();
+    expect(comparisonView(snapshot, "alpha", "alpha", state)).toBeNull();
+  });
+});
+
+describe("certainty footnotes", () => {
+  it("give the analyst's reason for each domain rated down, and the computed reason where none was written", () => {
+    const none = { levels: 0 as const, reason: "" };
+    const notes = certaintyFootnotes({
+      treatment: "a",
+      comparator: "b",
+      direct: "low",
+      indirect: null,
+      indirectVia: null,
+      network: "low",
+      suggestions: {
+        incoherence: { levels: 0, because: { key: "certainty.incoherence.notTestable", values: {} } },
+        imprecision: { levels: 1, because: { key: "certainty.imprecision.null", values: { count: 1 } } },
+      },
+      judgement: {
+        direct: { riskOfBias: { levels: 1, reason: "Allocation was not concealed." }, inconsistency: none, indirectness: none, publicationBias: none },
+        incoherence: { levels: 0, reason: "" },
+        imprecision: { levels: 1, reason: "" },
+      },
+      pending: [],
+    });
+    expect(notes).toEqual([
+      { domainKey: "desk.domain.riskOfBias", levels: 1, reason: "Allocation was not concealed.", because: null },
+      { domainKey: "desk.domain.imprecision", levels: 1, reason: null, because: { key: "certainty.imprecision.null", values: { count: 1 } } },
+    ]);
+  });
+});
