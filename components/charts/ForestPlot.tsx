@@ -4,7 +4,7 @@ import { Group } from "@visx/group";
 import { scaleLinear } from "@visx/scale";
 import { Line } from "@visx/shape";
 import type { Measure } from "../../server/nma/types";
-import { formatEffect } from "./scale";
+import { axisTicks, formatEffect } from "./scale";
 
 export interface ForestRow {
   label: string;
@@ -47,7 +47,7 @@ export function ForestPlot({ rows, measure, title }: { rows: ForestRow[]; measur
           {/* The axis: a rule and a few ticks, drawn here rather than with an axis package that weighs more than the plot. */}
           <g transform={`translate(0 ${rows.length * rowHeight})`} fontSize={11} fill="#5b554d" textAnchor="middle">
             <line x1={0} x2={plotWidth} stroke="#d9d1c5" />
-            {x.ticks(6).map((tick) => (
+            {axisTicks(measure, x.domain() as [number, number], x.ticks(6)).map((tick) => (
               <g key={tick} transform={`translate(${x(tick)} 0)`}>
                 <line y2={6} stroke="#d9d1c5" />
                 <text y={20}>{formatEffect(measure, tick)}</text>
@@ -62,4 +62,5 @@ export function ForestPlot({ rows, measure, title }: { rows: ForestRow[]; measur
     </figure>
   );
 }
+
 

@@ -5,6 +5,7 @@ import type { ComparisonCertainty } from "../grade/assess";
 import type { Rating } from "../grade/certainty";
 import type { ComparisonReading, Message } from "../grade/conclusions";
 import type { Firmness } from "../grade/groups";
+import { rankExplainer } from "../grade/rank-explainer";
 import { z975 } from "../nma/analyse";
 import { comparisonOf } from "../nma/comparison";
 import type { Measure, ParsedStudy } from "../nma/types";
@@ -127,11 +128,19 @@ const namer = (snapshot: VersionSnapshot) => {
 const interval = (x: Interval): Interval => ({ estimate: x.estimate, lower: x.lower, upper: x.upper });
 
 function readingOf(outcome: OutcomeSnapshot, t: string, u: string): ComparisonReading | null {
-  return outcome.readings.find((r) => r.treatment === t && r.comparator === u) ?? null;
+  return (outcome.readings ?? []).find((r) => r.treatment === t && r.comparator === u) ?? null;
 }
 
-function outcomeView(outcome: OutcomeSnapshot, index: number, named: (id: string) => Named): OutcomeView {
+/**
+ * Versions frozen before conclusions joined the snapshot (local data of early development) have
+ * groups without labels and no readings or rank scores: they still render, with what they hold.
+ */
+type StoredOutcome = OutcomeSnapshot | (Omit<OutcomeSnapshot, "readings" | "framework" | "rankScores"> & Partial<OutcomeSnapshot>);
+
+function outcomeView(stored: StoredOutcome, index: number, named: (id: string) => Named): OutcomeView {
+  const outcome = stored as OutcomeSnapshot;
   const { result } = outcome;
+  const rankScores = outcome.rankScores ?? rankExplainer(result);
   const others = result.treatments.filter((t) => t !== result.reference);
   return {
     index,
@@ -141,9 +150,9 @@ function outcomeView(outcome: OutcomeSnapshot, index: number, named: (id: string
     model: result.model,
     unit: outcome.unit,
     better: result.better,
-    framework: outcome.framework,
+    framework: outcome.framework ?? "minimal",
     reference: named(result.reference),
-    groups: outcome.groups.map((g) => ({ label: g.label, firmness: g.firmness, level: g.level, treatments: g.treatments.map(named) })),
+    groups: outcome.groups.map((g) => ({ label: g.label ?? { key: "groups.level", values: { level: g.level } }, firmness: g.firmness, level: g.level, treatments: g.treatments.map(named) })),
     effects: others
       .map((t) => {
       const reading = readingOf(outcome, t, result.reference);
@@ -163,9 +172,9 @@ function outcomeView(outcome: OutcomeSnapshot, index: number, named: (id: string
     },
     pairs: result.comparisons.map((c) => ({ treatment: c.treatment, comparator: c.comparator, ...interval(c.network) })),
     rankScores: {
-      rows: outcome.rankScores.rows.map((r) => ({ ...named(r.treatment), pScore: r.pScore, sucra: r.sucra })),
-      draws: outcome.rankScores.draws,
-      seed: outcome.rankScores.seed,
+      rows: rankScores.rows.map((r) => ({ ...named(r.treatment), pScore: r.pScore, sucra: r.sucra })),
+      draws: rankScores.draws,
+      seed: rankScores.seed,
     },
     methods: {
       studies: result.studies,
