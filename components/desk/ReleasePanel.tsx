@@ -40,8 +40,9 @@ export function ReleasePanel({ brief, canEdit, canSubmit }: { brief: BriefDetail
           onSubmit={(event) => {
             event.preventDefault();
             const submitter = (event.nativeEvent as SubmitEvent).submitter as HTMLButtonElement | null;
-            const { comment } = formValues(event.currentTarget);
-            review.mutate({ decision: submitter?.value as "submitted" | "returned" | "approved", comment: comment || undefined }, { onSuccess: () => event.currentTarget?.reset() });
+            const form = event.currentTarget;
+            const { comment } = formValues(form);
+            review.mutate({ decision: submitter?.value as "submitted" | "returned" | "approved", comment: comment || undefined }, { onSuccess: () => form.reset() });
           }}
         >
           <Field label={t("desk.release.comment")}>
