@@ -21,6 +21,8 @@ const pagesWithForms = new Set(["/sign-in"]);
 export interface PageAnswer {
   httpStatus?: number;
   caching?: "version" | "revalidate" | "private";
+  /** For a version's pages: when the brief was withdrawn, the one fact a cached copy is checked against. */
+  withdrawnAt?: string | null;
 }
 
 const cacheControl = {
@@ -102,14 +104,14 @@ export async function pageRoutes(options: {
       });
       const { httpResponse } = pageContext;
       if (!httpResponse) return next();
-      const answer = ((pageContext as { data?: unknown }).data ?? {}) as PageAnswer & { withdrawal?: { at: string } | null };
+      const answer = ((pageContext as { data?: unknown }).data ?? {}) as PageAnswer;
       const html = await httpResponse.getBody();
       // helmet has set the full policy with the same nonce; Vike's shorter one would replace it.
       const headers = httpResponse.headers.filter(([name]) => name.toLowerCase() !== "content-security-policy") as [string, string][];
       const page = { html, etag: etagOf(html), status: answer.httpStatus ?? httpResponse.statusCode, headers, nonce: res.locals.cspNonce as string };
       const caching = httpResponse.statusCode >= 400 && !answer.httpStatus ? "private" : (answer.caching ?? "private");
       if (caching === "version" && version) {
-        const entry = { ...page, encodings: encode(html), withdrawnAt: answer.withdrawal?.at ?? null };
+        const entry = { ...page, encodings: encode(html), withdrawnAt: answer.withdrawnAt ?? null };
         cache.set(key, entry);
         return send(req, res, entry, caching);
       }

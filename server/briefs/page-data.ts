@@ -21,6 +21,7 @@ async function load(pageContext: PageContextServer, number: number | "latest"): 
 function answer(page: PublicVersion, latestUrl: boolean) {
   return {
     httpStatus: page.found.withdrawal ? 410 : undefined,
+    withdrawnAt: page.found.withdrawal?.at ?? null,
     caching: (page.found.embargoed ? "private" : latestUrl ? "revalidate" : "version") as "private" | "revalidate" | "version",
   };
 }
@@ -98,6 +99,7 @@ export async function previewPageData(pageContext: PageContextServer) {
     },
     siteUrl: pageContext.siteUrl ?? "",
     httpStatus: undefined,
+    withdrawnAt: null,
     caching: "private",
   };
   return { ...common, problem: null, page };

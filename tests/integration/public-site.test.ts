@@ -135,6 +135,10 @@ describe("a withdrawn brief", () => {
       expect(html).toContain("A trial in the data was retracted.");
       expect(html).toContain("Quit smoking");
     }
+    // The withdrawn page is cached in turn: a fresh render would carry a new nonce, hence a new ETag.
+    const [first, second] = [await get(`/briefs/${slug}/v/1`), await get(`/briefs/${slug}/v/1`)];
+    expect(second.status).toBe(410);
+    expect(second.headers.get("etag")).toBe(first.headers.get("etag"));
   });
 });
 
