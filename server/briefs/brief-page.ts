@@ -98,11 +98,14 @@ export function pageState(page: PublicVersion): PageState {
   return { embargoed: page.found.embargoed, withdrawal: page.found.withdrawal, latestVersion: page.latestVersion, history: page.history };
 }
 
-export interface BriefView extends BriefHeader, PageState {
+/** What a version holds for its brief page; the page adds the reader's PageState. */
+export interface BriefContent extends BriefHeader {
   texts: VersionSnapshot["texts"];
   outcomes: OutcomeView[];
   treatments: Named[];
 }
+
+export type BriefView = BriefContent & PageState;
 
 export function briefHeader(snapshot: VersionSnapshot): BriefHeader {
   const { brief } = snapshot;
@@ -194,11 +197,10 @@ function outcomeView(stored: StoredOutcome, index: number, named: (id: string) =
   };
 }
 
-export function briefView(snapshot: VersionSnapshot, state: PageState): BriefView {
+export function briefContent(snapshot: VersionSnapshot): BriefContent {
   const named = namer(snapshot);
   return {
     ...briefHeader(snapshot),
-    ...state,
     texts: snapshot.texts,
     treatments: snapshot.treatments.map((t) => named(t.label)),
     outcomes: snapshot.outcomes.map((outcome, index) => outcomeView(outcome, index, named)),
@@ -257,16 +259,19 @@ export interface ComparisonOutcomeView {
   footnotes: Footnote[];
 }
 
-export interface ComparisonView extends BriefHeader, PageState {
+/** What a version holds about one comparison; the page adds the reader's PageState. */
+export interface ComparisonContent extends BriefHeader {
   treatment: Named;
   comparator: Named;
   outcomes: ComparisonOutcomeView[];
 }
 
+export type ComparisonView = ComparisonContent & PageState;
+
 const withCi = (x: { estimate: number; se: number }): Interval => ({ estimate: x.estimate, lower: x.estimate - z975 * x.se, upper: x.estimate + z975 * x.se });
 
 /** a vs b in every outcome whose network holds both; null when no outcome does. */
-export function comparisonView(snapshot: VersionSnapshot, a: string, b: string, state: PageState): ComparisonView | null {
+export function comparisonContent(snapshot: VersionSnapshot, a: string, b: string): ComparisonContent | null {
   const named = namer(snapshot);
   const outcomes: ComparisonOutcomeView[] = [];
   snapshot.outcomes.forEach((outcome, index) => {
@@ -291,5 +296,5 @@ export function comparisonView(snapshot: VersionSnapshot, a: string, b: string, 
     });
   });
   if (outcomes.length === 0) return null;
-  return { ...briefHeader(snapshot), ...state, treatment: named(a), comparator: named(b), outcomes };
+  return { ...briefHeader(snapshot), treatment: named(a), comparator: named(b), outcomes };
 }

@@ -5,7 +5,7 @@ import type { PageContextServer } from "vike/types";
 import { defaultLocale, locales, type Locale } from "../../components/i18n";
 import { deskRoles } from "../auth/roles";
 import { formattedReference } from "../public/citations";
-import { briefView, comparisonView, pageState } from "./brief-page";
+import { briefContent, comparisonContent, pageState, type BriefView, type ComparisonView } from "./brief-page";
 import { draftSnapshot, type VersionSnapshot } from "./snapshot";
 import { readPublicVersion, versionHistory, type PublicVersion } from "./versions";
 
@@ -26,8 +26,8 @@ function answer(page: PublicVersion, latestUrl: boolean) {
   };
 }
 
-function citation(pageContext: PageContextServer, page: PublicVersion, path: string, comparison?: string) {
-  const { snapshot } = page.found;
+/** The reference with its permalink and today's access date, for a version or one comparison in it. */
+function citation(pageContext: PageContextServer, snapshot: VersionSnapshot, path: string, comparison?: string) {
   const accessed = new Date();
   const permalink = `${pageContext.siteUrl ?? ""}${path}`;
   return {
@@ -39,9 +39,9 @@ function citation(pageContext: PageContextServer, page: PublicVersion, path: str
 
 export async function briefPageData(pageContext: PageContextServer, number: number | "latest") {
   const page = await load(pageContext, number);
-  const view = briefView(page.found.snapshot, pageState(page));
+  const view: BriefView = { ...briefContent(page.found.snapshot), ...pageState(page) };
   const versionPath = `/briefs/${view.slug}/v/${view.version}`;
-  return { view, versionPath, citation: citation(pageContext, page, versionPath), siteUrl: pageContext.siteUrl ?? "", ...answer(page, number === "latest") };
+  return { view, versionPath, citation: citation(pageContext, page.found.snapshot, versionPath), siteUrl: pageContext.siteUrl ?? "", ...answer(page, number === "latest") };
 }
 
 export type BriefPageData = Awaited<ReturnType<typeof briefPageData>>;
@@ -49,15 +49,16 @@ export type BriefPageData = Awaited<ReturnType<typeof briefPageData>>;
 export async function comparisonPageData(pageContext: PageContextServer) {
   const page = await load(pageContext, Number(pageContext.routeParams.number));
   const { a, b } = pageContext.routeParams;
-  const view = comparisonView(page.found.snapshot, String(a), String(b), pageState(page));
-  if (!view) throw render(404);
+  const content = comparisonContent(page.found.snapshot, String(a), String(b));
+  if (!content) throw render(404);
+  const view: ComparisonView = { ...content, ...pageState(page) };
   const versionPath = `/briefs/${view.slug}/v/${view.version}`;
   const path = `${versionPath}/compare/${encodeURIComponent(view.treatment.id)}/${encodeURIComponent(view.comparator.id)}`;
   return {
     view,
     versionPath,
     path,
-    citation: citation(pageContext, page, path, `${view.treatment.name} vs ${view.comparator.name}`),
+    citation: citation(pageContext, page.found.snapshot, path, `${view.treatment.name} vs ${view.comparator.name}`),
     siteUrl: pageContext.siteUrl ?? "",
     ...answer(page, false),
   };
@@ -86,17 +87,12 @@ export async function previewPageData(pageContext: PageContextServer) {
   const history = await versionHistory(pageContext.db!, draft.snapshot.brief.slug, roles);
   const number = (history[0]?.number ?? 0) + 1;
   const snapshot: VersionSnapshot = { ...draft.snapshot, version: number, releaseAt: new Date().toISOString(), note: null };
-  const view = briefView(snapshot, { embargoed: false, withdrawal: null, latestVersion: number, history });
+  const view: BriefView = { ...briefContent(snapshot), embargoed: false, withdrawal: null, latestVersion: number, history };
   const versionPath = `/briefs/${view.slug}/v/${number}`;
-  const permalink = `${pageContext.siteUrl ?? ""}${versionPath}`;
   const page: BriefPageData = {
     view,
     versionPath,
-    citation: {
-      reference: formattedReference({ title: view.title, version: number, releaseAt: snapshot.releaseAt, url: permalink, accessed: new Date() }),
-      accessed: new Date().toISOString(),
-      permalink,
-    },
+    citation: citation(pageContext, snapshot, versionPath),
     siteUrl: pageContext.siteUrl ?? "",
     httpStatus: undefined,
     withdrawnAt: null,

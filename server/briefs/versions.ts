@@ -167,8 +167,9 @@ export interface ReleasedBrief {
 
 /** The latest released version of every brief, newest first: what the public may see now. */
 export async function listReleasedBriefs(db: Database): Promise<ReleasedBrief[]> {
+  // One row per brief: its newest released version (DISTINCT ON keeps the first of each brief).
   const rows = await db
-    .select({
+    .selectDistinctOn([briefVersions.briefId], {
       slug: briefs.slug,
       // What a reader sees is the frozen brief; the draft may have moved on.
       brief: sql<VersionSnapshot["brief"]>`${briefVersions.snapshot}->'brief'`,
@@ -180,11 +181,10 @@ export async function listReleasedBriefs(db: Database): Promise<ReleasedBrief[]>
     .from(briefVersions)
     .innerJoin(briefs, eq(briefs.id, briefVersions.briefId))
     .where(lte(briefVersions.releaseAt, new Date()))
-    .orderBy(desc(briefVersions.releaseAt), desc(briefVersions.number));
-  const latest = new Map<string, ReleasedBrief>();
-  for (const row of rows) {
-    if (latest.has(row.slug)) continue;
-    latest.set(row.slug, {
+    .orderBy(briefVersions.briefId, desc(briefVersions.releaseAt), desc(briefVersions.number));
+  return rows
+    .sort((a, b) => b.releaseAt.getTime() - a.releaseAt.getTime())
+    .map((row) => ({
       slug: row.slug,
       title: row.brief.title,
       topic: row.brief.topic,
@@ -196,9 +196,7 @@ export async function listReleasedBriefs(db: Database): Promise<ReleasedBrief[]>
       withdrawn: row.withdrawnAt !== null,
       version: row.version,
       releasedAt: row.releaseAt.toISOString(),
-    });
-  }
-  return [...latest.values()];
+    }));
 }
 
 export interface ReleasedVersion {

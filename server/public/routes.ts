@@ -3,8 +3,8 @@
 // all but the press and editors, exactly as their pages do.
 import { Router, type Request } from "express";
 import { Feed } from "feed";
-import { comparisonView, pageState } from "../briefs/brief-page";
-import { listReleasedVersions, readPublicVersion } from "../briefs/versions";
+import { comparisonContent } from "../briefs/brief-page";
+import { listReleasedVersions, readVersion } from "../briefs/versions";
 import type { Database } from "../db/client";
 import { citationFile, citationMedia, type CitationFormat } from "./citations";
 import { downloads } from "./downloads";
@@ -19,10 +19,11 @@ const notFound = "There is no such published version.";
 export function publicFileRoutes(db: Database, publicUrl: string | undefined): Router {
   const router = Router();
 
+  // Files need the version only, not its history: one query.
   const versionOf = async (req: Request) => {
     const number = Number(req.params.number);
     if (!Number.isInteger(number) || number < 1) return null;
-    return readPublicVersion(db, String(req.params.slug), number, req.user?.roles ?? []);
+    return readVersion(db, String(req.params.slug), number, req.user?.roles ?? []);
   };
   const formatOf = (value: unknown): CitationFormat | null => (value === "ris" || value === "bib" || value === "json" ? value : null);
   const cacheFor = (embargoed: boolean) => (embargoed ? "private, no-store" : "public, max-age=3600");
@@ -31,7 +32,7 @@ export function publicFileRoutes(db: Database, publicUrl: string | undefined): R
     const format = formatOf(req.params.format);
     const page = format ? await versionOf(req) : null;
     if (!format || !page) return res.status(404).type("text/plain").send(notFound);
-    const { snapshot, embargoed } = page.found;
+    const { snapshot, embargoed } = page;
     const url = `${siteUrl(req, publicUrl)}/briefs/${snapshot.brief.slug}/v/${snapshot.version}`;
     const body = citationFile({ title: snapshot.brief.title, version: snapshot.version, releaseAt: snapshot.releaseAt, url, accessed: new Date() }, format);
     res.set("Cache-Control", cacheFor(embargoed));
@@ -41,11 +42,11 @@ export function publicFileRoutes(db: Database, publicUrl: string | undefined): R
   router.get("/briefs/:slug/v/:number/compare/:a/:b/cite.:format", async (req, res) => {
     const format = formatOf(req.params.format);
     const page = format ? await versionOf(req) : null;
-    const view = page ? comparisonView(page.found.snapshot, String(req.params.a), String(req.params.b), pageState(page)) : null;
+    const view = page ? comparisonContent(page.snapshot, String(req.params.a), String(req.params.b)) : null;
     if (!format || !page || !view) return res.status(404).type("text/plain").send("There is no such comparison in this version.");
     const url = `${siteUrl(req, publicUrl)}/briefs/${view.slug}/v/${view.version}/compare/${encodeURIComponent(view.treatment.id)}/${encodeURIComponent(view.comparator.id)}`;
     const body = citationFile({ title: view.title, version: view.version, releaseAt: view.releaseAt, url, accessed: new Date(), comparison: `${view.treatment.name} vs ${view.comparator.name}` }, format);
-    res.set("Cache-Control", cacheFor(view.embargoed));
+    res.set("Cache-Control", cacheFor(page.embargoed));
     res.type(citationMedia[format]).attachment(`${view.slug}-v${view.version}-${view.treatment.id}-vs-${view.comparator.id}.${format === "json" ? "csl.json" : format}`).send(body);
   });
 
@@ -53,7 +54,7 @@ export function publicFileRoutes(db: Database, publicUrl: string | undefined): R
     const file = downloads[String(req.params.file) as keyof typeof downloads];
     const page = file ? await versionOf(req) : null;
     if (!file || !page) return res.status(404).type("text/plain").send("There is no such download.");
-    const { snapshot, embargoed } = page.found;
+    const { snapshot, embargoed } = page;
     res.set("Cache-Control", cacheFor(embargoed));
     res.type(file.media).attachment(`${snapshot.brief.slug}-v${snapshot.version}-${String(req.params.file)}`).send(file.build(snapshot));
   });

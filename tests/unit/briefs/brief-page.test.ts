@@ -1,26 +1,13 @@
 // The page model of a version (server/briefs/brief-page.ts): shaped from a snapshot only.
 import { describe, expect, it } from "vitest";
-import { briefView, certaintyFootnotes, comparisonView } from "../../../server/briefs/brief-page";
+import { briefContent, certaintyFootnotes, comparisonContent } from "../../../server/briefs/brief-page";
 import type { VersionSnapshot } from "../../../server/briefs/snapshot";
 import type { ComparisonCertainty } from "../../../server/grade/assess";
 import { concludeOutcome } from "../../../server/grade/conclusions";
-import { analyse, z975 } from "../../../server/nma/analyse";
-import { parseDataset } from "../../../server/nma/parse";
+import { z975 } from "../../../server/nma/analyse";
+import { inventedDataset, inventedResult, inventedSettings } from "../../support/invented-network";
 
-// An invented three-arm network (the same as the conclusions test): s1 and s4 compare placebo and alpha.
-const csv = `study,treatment,events,total
-s1,placebo,20,100
-s1,alpha,40,100
-s2,placebo,18,90
-s2,beta,30,90
-s3,alpha,35,80
-s3,beta,30,80
-s4,placebo,25,120
-s4,alpha,50,120
-`;
-const parsed = parseDataset(Buffer.from(csv), "arm-binary");
-const settings = { measure: "OR" as const, model: "fixed" as const, reference: "placebo", better: "higher" as const, draws: 500 };
-const result = analyse(parsed, settings);
+const [parsed, settings, result] = [inventedDataset, inventedSettings, inventedResult];
 const certainty = result.comparisons.map((c) => ({ treatment: c.treatment, comparator: c.comparator, network: "moderate", judgement: {} }) as ComparisonCertainty);
 const thresholds = { small: null, moderate: null, large: null };
 const treatments = [
@@ -50,11 +37,10 @@ const snapshot: VersionSnapshot = {
   releaseAt: "2026-12-01T00:00:00.000Z",
   note: null,
 };
-const state = { embargoed: false, withdrawal: null, latestVersion: 1, history: [] };
 
 describe("the brief page model", () => {
   it("lists each option against the reference alphabetically by the name readers see, never by effect", () => {
-    const view = briefView(snapshot, state);
+    const view = briefContent(snapshot);
     expect(view.outcomes[0]!.effects.map((e) => e.name)).toEqual(["Beta drops", "Zeta tablets"]);
     expect(view.outcomes[0]!.reference).toEqual({ id: "placebo", name: "Placebo" });
   });
@@ -62,13 +48,13 @@ describe("the brief page model", () => {
 
 describe("the comparison page model", () => {
   it("counts the participants of the studies that compare the two directly (s1 and s4: 200 + 240)", () => {
-    const view = comparisonView(snapshot, "alpha", "placebo", state)!;
+    const view = comparisonContent(snapshot, "alpha", "placebo")!;
     expect(view.outcomes[0]!.direct).toMatchObject({ studies: 2, participants: 440 });
   });
 
   it("gives the direct estimate's 95% CI as estimate ± 1.959964 SE (METHODS.md §3) and reads both ways", () => {
-    const forward = comparisonView(snapshot, "alpha", "placebo", state)!.outcomes[0]!;
-    const backward = comparisonView(snapshot, "placebo", "alpha", state)!.outcomes[0]!;
+    const forward = comparisonContent(snapshot, "alpha", "placebo")!.outcomes[0]!;
+    const backward = comparisonContent(snapshot, "placebo", "alpha")!.outcomes[0]!;
     const pair = result.comparisons.find((c) => [c.treatment, c.comparator].sort().join() === "alpha,placebo")!;
     const sign = pair.treatment === "alpha" ? 1 : -1;
     expect(forward.direct!.estimate).toBeCloseTo(sign * pair.direct!.estimate, 12);
@@ -78,8 +64,8 @@ describe("the comparison page model", () => {
   });
 
   it("is null for a pair no outcome holds", () => {
-    expect(comparisonView(snapshot, "alpha", "gamma", state)).toBeNull();
-    expect(comparisonView(snapshot, "alpha", "alpha", state)).toBeNull();
+    expect(comparisonContent(snapshot, "alpha", "gamma")).toBeNull();
+    expect(comparisonContent(snapshot, "alpha", "alpha")).toBeNull();
   });
 });
 

@@ -5,22 +5,10 @@ import { createI18n } from "../../../components/i18n";
 import type { ComparisonCertainty } from "../../../server/grade/assess";
 import type { Rating } from "../../../server/grade/certainty";
 import { concludeOutcome, magnitudeFor } from "../../../server/grade/conclusions";
-import { analyse } from "../../../server/nma/analyse";
 import { comparisonOf } from "../../../server/nma/comparison";
-import { parseDataset } from "../../../server/nma/parse";
+import { inventedResult } from "../../support/invented-network";
 
-// An invented three-arm network, binary outcome, higher is better.
-const csv = `study,treatment,events,total
-s1,placebo,20,100
-s1,alpha,40,100
-s2,placebo,18,90
-s2,beta,30,90
-s3,alpha,35,80
-s3,beta,30,80
-s4,placebo,25,120
-s4,alpha,50,120
-`;
-const result = analyse(parseDataset(Buffer.from(csv), "arm-binary"), { measure: "OR", model: "fixed", reference: "placebo", better: "higher", draws: 500 });
+const result = inventedResult;
 const rated = (rating: Rating): ComparisonCertainty[] =>
   result.comparisons.map((c) => ({ treatment: c.treatment, comparator: c.comparator, network: rating }) as ComparisonCertainty);
 const names = { placebo: "Placebo", alpha: "Alpha", beta: "Beta" };
