@@ -1,12 +1,12 @@
 // The public site's files beside its pages: citations, data downloads, the Atom feed, the sitemap
 // and robots.txt. Everything comes from released, frozen versions; embargoed ones answer 404 to
 // all but the press and editors, exactly as their pages do.
-import { Router, type Request } from "express";
+import { Router, type Request, type Response } from "express";
 import { Feed } from "feed";
 import { comparisonContent } from "../briefs/brief-page";
 import { listReleasedVersions, readVersion } from "../briefs/versions";
 import type { Database } from "../db/client";
-import { citationFile, citationMedia, type CitationFormat } from "./citations";
+import { citationFile, citationMedia, type CitationFormat, type CitationInput } from "./citations";
 import { downloads } from "./downloads";
 
 /** The address readers use: the configured one, or the one this request came to. */
@@ -28,15 +28,19 @@ export function publicFileRoutes(db: Database, publicUrl: string | undefined): R
   const formatOf = (value: unknown): CitationFormat | null => (value === "ris" || value === "bib" || value === "json" ? value : null);
   const cacheFor = (embargoed: boolean) => (embargoed ? "private, no-store" : "public, max-age=3600");
 
+  /** A citation file for a version or one comparison in it, named after what it cites. */
+  function sendCitation(res: Response, format: CitationFormat, embargoed: boolean, fileBase: string, input: Omit<CitationInput, "accessed">) {
+    res.set("Cache-Control", cacheFor(embargoed));
+    res.type(citationMedia[format]).attachment(`${fileBase}.${format === "json" ? "csl.json" : format}`).send(citationFile({ ...input, accessed: new Date() }, format));
+  }
+
   router.get("/briefs/:slug/v/:number/cite.:format", async (req, res) => {
     const format = formatOf(req.params.format);
     const page = format ? await versionOf(req) : null;
     if (!format || !page) return res.status(404).type("text/plain").send(notFound);
     const { snapshot, embargoed } = page;
     const url = `${siteUrl(req, publicUrl)}/briefs/${snapshot.brief.slug}/v/${snapshot.version}`;
-    const body = citationFile({ title: snapshot.brief.title, version: snapshot.version, releaseAt: snapshot.releaseAt, url, accessed: new Date() }, format);
-    res.set("Cache-Control", cacheFor(embargoed));
-    res.type(citationMedia[format]).attachment(`${snapshot.brief.slug}-v${snapshot.version}.${format === "json" ? "csl.json" : format}`).send(body);
+    sendCitation(res, format, embargoed, `${snapshot.brief.slug}-v${snapshot.version}`, { title: snapshot.brief.title, version: snapshot.version, releaseAt: snapshot.releaseAt, url });
   });
 
   router.get("/briefs/:slug/v/:number/compare/:a/:b/cite.:format", async (req, res) => {
@@ -45,9 +49,13 @@ export function publicFileRoutes(db: Database, publicUrl: string | undefined): R
     const view = page ? comparisonContent(page.snapshot, String(req.params.a), String(req.params.b)) : null;
     if (!format || !page || !view) return res.status(404).type("text/plain").send("There is no such comparison in this version.");
     const url = `${siteUrl(req, publicUrl)}/briefs/${view.slug}/v/${view.version}/compare/${encodeURIComponent(view.treatment.id)}/${encodeURIComponent(view.comparator.id)}`;
-    const body = citationFile({ title: view.title, version: view.version, releaseAt: view.releaseAt, url, accessed: new Date(), comparison: `${view.treatment.name} vs ${view.comparator.name}` }, format);
-    res.set("Cache-Control", cacheFor(page.embargoed));
-    res.type(citationMedia[format]).attachment(`${view.slug}-v${view.version}-${view.treatment.id}-vs-${view.comparator.id}.${format === "json" ? "csl.json" : format}`).send(body);
+    sendCitation(res, format, page.embargoed, `${view.slug}-v${view.version}-${view.treatment.id}-vs-${view.comparator.id}`, {
+      title: view.title,
+      version: view.version,
+      releaseAt: view.releaseAt,
+      url,
+      comparison: `${view.treatment.name} vs ${view.comparator.name}`,
+    });
   });
 
   router.get("/briefs/:slug/v/:number/downloads/:file", async (req, res) => {
