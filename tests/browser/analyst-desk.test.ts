@@ -5,7 +5,7 @@ import en from "../../locales/en/common.json";
 import { demoPassword } from "../../server/db/seed";
 import { withServerAndBrowser } from "../support/browser";
 
-const hasselblad = path.resolve(__dirname, "../../../shared/reference/hasselblad1998.csv");
+const hasselblad = path.resolve(__dirname, "../fixtures/reference/hasselblad1998.csv");
 
 const setup = withServerAndBrowser();
 

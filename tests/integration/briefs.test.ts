@@ -6,9 +6,9 @@ import { demoPassword } from "../../server/db/seed";
 import { startTestApp, type TestApp } from "../support/app";
 import { ApiClient } from "../support/client";
 
-const referenceFolder = path.resolve(__dirname, "../../../shared/reference");
+const referenceFolder = path.resolve(__dirname, "../fixtures/reference");
 const hasselbladCsv = readFileSync(path.join(referenceFolder, "hasselblad1998.csv"));
-// metafor 3.8-1 on the same file (../shared/reference/hasselblad1998.expected.json)
+// metafor 3.8-1 on the same file (tests/fixtures/reference/hasselblad1998.expected.json)
 const expected = JSON.parse(readFileSync(path.join(referenceFolder, "hasselblad1998.expected.json"), "utf8"));
 
 let app: TestApp;

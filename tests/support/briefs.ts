@@ -1,11 +1,11 @@
 // Briefs made through the API as the desk makes them: an analysed draft (the smoking-cessation
-// reference data, ../shared/reference/hasselblad1998.csv), its review, its publication.
+// reference data, tests/fixtures/reference/hasselblad1998.csv), its review, its publication.
 import { readFileSync } from "node:fs";
 import path from "node:path";
 import { expect } from "vitest";
 import type { ApiClient } from "./client";
 
-const hasselbladCsv = readFileSync(path.resolve(__dirname, "../../../shared/reference/hasselblad1998.csv"));
+const hasselbladCsv = readFileSync(path.resolve(__dirname, "../fixtures/reference/hasselblad1998.csv"));
 
 export async function analysedBrief(analyst: ApiClient, title: string) {
   const created = await analyst.request("POST", "/api/briefs", { json: { title, topic: "Smoking", condition: "Tobacco dependence", population: "Adults who smoke" } });

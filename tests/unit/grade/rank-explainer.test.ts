@@ -7,7 +7,7 @@ import { rankExplainer } from "../../../server/grade/rank-explainer";
 import { analyse } from "../../../server/nma/analyse";
 import { parseDataset } from "../../../server/nma/parse";
 
-const csv = readFileSync(path.resolve(__dirname, "../../../../shared/reference/senn2013.csv"));
+const csv = readFileSync(path.resolve(__dirname, "../../fixtures/reference/senn2013.csv"));
 const result = analyse(parseDataset(csv, "arm-continuous"), { measure: "MD", model: "random", reference: "placebo", better: "lower", draws: 1000 });
 
 describe("the rank-score explainer", () => {
@@ -29,7 +29,7 @@ describe("the rank-score explainer", () => {
   });
 
   it("carries the scores and the simulation settings", () => {
-    expect(explainer.rows.find((r) => r.treatment === "rosiglitazone")!.pScore).toBeCloseTo(0.897780441101909, 5); // metafor 3.8-1, ../shared/reference
+    expect(explainer.rows.find((r) => r.treatment === "rosiglitazone")!.pScore).toBeCloseTo(0.897780441101909, 5); // metafor 3.8-1, tests/fixtures/reference
     expect(explainer).toMatchObject({ draws: 1000, seed: 1 });
   });
 });

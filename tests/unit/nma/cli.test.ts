@@ -6,7 +6,7 @@ import path from "node:path";
 import { describe, expect, it } from "vitest";
 
 const root = path.resolve(__dirname, "../../..");
-const hasselblad = path.resolve(root, "../shared/reference/hasselblad1998.csv");
+const hasselblad = path.resolve(root, "tests/fixtures/reference/hasselblad1998.csv");
 
 function nma(args: string[]) {
   const result = spawnSync(path.join(root, "node_modules/.bin/tsx"), [path.join(root, "scripts/nma.ts"), ...args], { encoding: "utf8" });
@@ -22,7 +22,7 @@ describe("npm run nma", () => {
     expect(code).toBe(0);
     const result = JSON.parse(stdout);
     expect(result).toMatchObject({ reference: "no_contact", measure: "OR", model: "random", studies: 24, excludedStudies: [] });
-    expect(result.tau2).toBeCloseTo(0.450230095693024, 5); // metafor 3.8-1, ../shared/reference
+    expect(result.tau2).toBeCloseTo(0.450230095693024, 5); // metafor 3.8-1, tests/fixtures/reference
     expect(result.ranking).toMatchObject({ draws: 500, seed: 3 });
     expect(Object.keys(result.comparisons[0])).toEqual(expect.arrayContaining(["treatment", "comparator", "network", "direct", "indirect", "incoherence"]));
     expect(Object.keys(result.inconsistency)).toEqual(expect.arrayContaining(["Qwithin", "dfWithin", "Qbetween", "dfBetween", "pBetween"]));

@@ -147,7 +147,7 @@ describe("a single study", () => {
 });
 
 describe("SUCRA and P-score", () => {
-  const referenceFolder = path.resolve(__dirname, "../../../../shared/reference");
+  const referenceFolder = path.resolve(__dirname, "../../fixtures/reference");
 
   it("agree within 0.01 at 100 000 draws (equal in expectation; Rücker & Schwarzer 2015), on both reference networks", () => {
     const sets = [

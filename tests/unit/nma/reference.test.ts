@@ -1,4 +1,4 @@
-// The engine against ../shared/reference/: values computed with the R package metafor 3.8-1
+// The engine against tests/fixtures/reference/: values computed with the R package metafor 3.8-1
 // (rma.mv, REML, correlation ½) following METHODS.md exactly — see that folder's README.
 // Tolerances from METHODS.md §12: fixed-effect and network values 1e-6 relative, τ² and REML-based values 1e-5.
 import { readFileSync } from "node:fs";
@@ -9,7 +9,7 @@ import { comparisonOf } from "../../../server/nma/comparison";
 import { parseDataset } from "../../../server/nma/parse";
 import type { Better, Format, Measure } from "../../../server/nma/types";
 
-const referenceFolder = path.resolve(__dirname, "../../../../shared/reference");
+const referenceFolder = path.resolve(__dirname, "../../fixtures/reference");
 
 interface ExpectedEstimate {
   estimate: number;
