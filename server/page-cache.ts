@@ -1,6 +1,6 @@
 // Rendered HTML of released versions, kept in memory: a released version never changes, so its page
 // is rendered once per locale and day (the citation carries the access date) and served with an
-// ETag. Only a withdrawal changes such a page, and each hit checks that one fact in the database.
+// ETag. Only a newer version or a withdrawal changes such a page, and each hit checks those facts.
 import { createHash } from "node:crypto";
 import { brotliCompressSync, constants, gzipSync } from "node:zlib";
 
@@ -28,7 +28,8 @@ export interface CachedPage {
   headers: [string, string][];
   /** The nonce the HTML's inline scripts carry: the response's policy must name the same one. */
   nonce: string;
-  withdrawnAt: string | null;
+  /** What may still change on the frozen page (newer versions, withdrawal): checked on every hit. */
+  state: string;
 }
 
 /** Version pages and their comparisons: /briefs/:slug/v/:n and /briefs/:slug/v/:n/compare/:a/:b. */
@@ -45,8 +46,8 @@ export function etagOf(html: string): string {
 }
 
 /**
- * Whether a version is withdrawn, remembered for two seconds: under load, one query per version and
- * two seconds instead of one per request. A withdrawal shows on its cached pages within that time.
+ * A version's public state, remembered for two seconds: under load, one query per version and
+ * two seconds instead of one per request. A withdrawal or a new version shows on cached pages within that time.
  */
 export class StateMemo<T> {
   private readonly entries = new Map<string, { value: T; until: number }>();

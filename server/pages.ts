@@ -4,7 +4,8 @@ import path from "node:path";
 import express, { Router, type Request, type Response } from "express";
 import { createDevMiddleware, renderPage } from "vike/server";
 import { defaultLocale } from "../components/i18n";
-import { versionState } from "./briefs/versions";
+import { mayReadEmbargoed } from "./auth/roles";
+import { publicVersionState } from "./briefs/versions";
 import { siteUrl } from "./public/routes";
 import type { Database } from "./db/client";
 import type { createCsrf } from "./http/security";
@@ -21,8 +22,8 @@ const pagesWithForms = new Set(["/sign-in"]);
 export interface PageAnswer {
   httpStatus?: number;
   caching?: "version" | "revalidate" | "private";
-  /** For a version's pages: when the brief was withdrawn, the one fact a cached copy is checked against. */
-  withdrawnAt?: string | null;
+  /** For a version's pages: what may still change on a frozen page (newer versions, withdrawal), as one string. */
+  cacheState?: string;
 }
 
 const cacheControl = {
@@ -41,7 +42,7 @@ export async function pageRoutes(options: {
   const { root, production, csrf, db, publicUrl } = options;
   const router = Router();
   const cache = new PageCache();
-  const states = new StateMemo<Awaited<ReturnType<typeof versionState>>>();
+  const states = new StateMemo<string | null>();
   if (production) {
     // Built assets carry a content hash in their name, so they can be cached for a year.
     router.use(
@@ -54,7 +55,7 @@ export async function pageRoutes(options: {
     router.use(devMiddleware);
   }
 
-  function send(req: Request, res: Response, page: Omit<CachedPage, "withdrawnAt" | "encodings"> & { encodings?: Encodings }, caching: keyof typeof cacheControl) {
+  function send(req: Request, res: Response, page: Omit<CachedPage, "state" | "encodings"> & { encodings?: Encodings }, caching: keyof typeof cacheControl) {
     for (const [name, value] of page.headers) res.setHeader(name, value);
     const policy = res.getHeader("content-security-policy");
     const nonce = res.locals.cspNonce as string;
@@ -76,14 +77,16 @@ export async function pageRoutes(options: {
 
   router.use(async (req, res, next) => {
     if (req.method !== "GET" && req.method !== "HEAD") return next();
-    const version = versionOfPath(req.path);
+    // Only a reader who sees what the public sees shares the cache: the press and editors also see
+    // embargoed versions in a page's history, so their pages are rendered for them alone.
+    const version = mayReadEmbargoed(req.user?.roles ?? []) ? null : versionOfPath(req.path);
     const key = PageCache.key(defaultLocale, req.path);
     try {
       if (version) {
         const cached = cache.get(key);
         if (cached) {
-          const state = await states.get(`${version.slug}/${version.number}`, () => versionState(db, version.slug, version.number));
-          if (state && (state.withdrawnAt?.toISOString() ?? null) === cached.withdrawnAt) return send(req, res, cached, "version");
+          const state = await states.get(`${version.slug}/${version.number}`, () => publicVersionState(db, version.slug, version.number));
+          if (state === cached.state) return send(req, res, cached, "version");
           cache.delete(key);
         }
       }
@@ -111,7 +114,7 @@ export async function pageRoutes(options: {
       const page = { html, etag: etagOf(html), status: answer.httpStatus ?? httpResponse.statusCode, headers, nonce: res.locals.cspNonce as string };
       const caching = httpResponse.statusCode >= 400 && !answer.httpStatus ? "private" : (answer.caching ?? "private");
       if (caching === "version" && version) {
-        const entry = { ...page, encodings: encode(html), withdrawnAt: answer.withdrawnAt ?? null };
+        const entry = { ...page, encodings: encode(html), state: answer.cacheState ?? "" };
         cache.set(key, entry);
         return send(req, res, entry, caching);
       }

@@ -4,3 +4,12 @@ export type Role = (typeof roleNames)[number];
 
 /** Staff who work on drafts in the desk; the public and the press read only what is released. */
 export const deskRoles: Role[] = ["analyst", "editor", "translator", "admin"];
+
+/** Who may read a version before its release: the press, and the editors who scheduled it. */
+export const embargoReaders: Role[] = ["press", "editor"];
+
+/**
+ * Whether this reader may see embargoed versions. A public page read by such a reader depends on
+ * who reads it (its history names the embargoed version), so it is never shared-cacheable.
+ */
+export const mayReadEmbargoed = (roles: readonly Role[]) => roles.some((role) => embargoReaders.includes(role));

@@ -3,11 +3,11 @@
 import { render } from "vike/abort";
 import type { PageContextServer } from "vike/types";
 import { defaultLocale, locales, type Locale } from "../../components/i18n";
-import { deskRoles } from "../auth/roles";
+import { deskRoles, mayReadEmbargoed } from "../auth/roles";
 import { formattedReference } from "../public/citations";
 import { briefContent, comparisonContent, pageState, type BriefView, type ComparisonView } from "./brief-page";
 import { draftSnapshot, type VersionSnapshot } from "./snapshot";
-import { readPublicVersion, versionHistory, type PublicVersion } from "./versions";
+import { cacheState, readPublicVersion, versionHistory, type PublicVersion } from "./versions";
 
 async function load(pageContext: PageContextServer, number: number | "latest"): Promise<PublicVersion> {
   const { slug } = pageContext.routeParams;
@@ -17,12 +17,17 @@ async function load(pageContext: PageContextServer, number: number | "latest"): 
   return page;
 }
 
-/** 410 for a withdrawn brief (its page stays); an embargoed version is never cached; the latest URL revalidates. */
-function answer(page: PublicVersion, latestUrl: boolean) {
+/**
+ * 410 for a withdrawn brief (its page stays). A page read by someone who may see embargoed versions
+ * depends on who reads it, so it is private, like an embargoed version itself; a released version's
+ * public page is frozen but for `cacheState`, which the page cache checks; the latest URL revalidates.
+ */
+function answer(pageContext: PageContextServer, page: PublicVersion, latestUrl: boolean) {
+  const personal = page.found.embargoed || mayReadEmbargoed(pageContext.person?.roles ?? []);
   return {
     httpStatus: page.found.withdrawal ? 410 : undefined,
-    withdrawnAt: page.found.withdrawal?.at ?? null,
-    caching: (page.found.embargoed ? "private" : latestUrl ? "revalidate" : "version") as "private" | "revalidate" | "version",
+    cacheState: cacheState({ withdrawnAt: page.found.withdrawal?.at ?? null, latestVersion: page.latestVersion }),
+    caching: (personal ? "private" : latestUrl ? "revalidate" : "version") as "private" | "revalidate" | "version",
   };
 }
 
@@ -41,7 +46,7 @@ export async function briefPageData(pageContext: PageContextServer, number: numb
   const page = await load(pageContext, number);
   const view: BriefView = { ...briefContent(page.found.snapshot), ...pageState(page) };
   const versionPath = `/briefs/${view.slug}/v/${view.version}`;
-  return { view, versionPath, citation: citation(pageContext, page.found.snapshot, versionPath), siteUrl: pageContext.siteUrl ?? "", ...answer(page, number === "latest") };
+  return { view, versionPath, citation: citation(pageContext, page.found.snapshot, versionPath), siteUrl: pageContext.siteUrl ?? "", ...answer(pageContext, page, number === "latest") };
 }
 
 export type BriefPageData = Awaited<ReturnType<typeof briefPageData>>;
@@ -60,7 +65,7 @@ export async function comparisonPageData(pageContext: PageContextServer) {
     path,
     citation: citation(pageContext, page.found.snapshot, path, `${view.treatment.name} vs ${view.comparator.name}`),
     siteUrl: pageContext.siteUrl ?? "",
-    ...answer(page, false),
+    ...answer(pageContext, page, false),
   };
 }
 
@@ -95,7 +100,7 @@ export async function previewPageData(pageContext: PageContextServer) {
     citation: citation(pageContext, snapshot, versionPath),
     siteUrl: pageContext.siteUrl ?? "",
     httpStatus: undefined,
-    withdrawnAt: null,
+    cacheState: "",
     caching: "private",
   };
   return { ...common, problem: null, page };

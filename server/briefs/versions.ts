@@ -2,7 +2,7 @@
 // once and never changed (the database refuses it too). Version 1 publishes; later versions correct.
 import { and, desc, eq, gte, isNull, lte, sql } from "drizzle-orm";
 import { recordAudit } from "../audit";
-import type { Role } from "../auth/roles";
+import { mayReadEmbargoed, type Role } from "../auth/roles";
 import type { Database } from "../db/client";
 import { briefs, briefVersions } from "../db/schema";
 import { slugify } from "./briefs";
@@ -41,9 +41,6 @@ export async function publishVersion(
   });
 }
 
-/** Who may read a version before its release: the press, and the editors who scheduled it. */
-const embargoReaders: Role[] = ["press", "editor"];
-
 export interface FoundVersion {
   /** The stored snapshot as JSON text, exactly as frozen. */
   json: string;
@@ -52,8 +49,6 @@ export interface FoundVersion {
   embargoed: boolean;
   withdrawal: { at: string; reason: string } | null;
 }
-
-const mayReadEmbargoed = (roles: Role[]) => roles.some((role) => embargoReaders.includes(role));
 
 /** A version as frozen; null when it does not exist or is not yet released for this reader. */
 export async function readVersion(db: Database, slug: string, number: number, roles: Role[]): Promise<FoundVersion | null> {
@@ -94,14 +89,28 @@ export async function versionHistory(db: Database, slug: string, roles: Role[]):
     .filter((entry) => !entry.embargoed || mayReadEmbargoed(roles));
 }
 
-/** What decides whether a cached page is still right: the release and withdrawal state, read from one row. */
-export async function versionState(db: Database, slug: string, number: number) {
+/**
+ * What a released version's public page shows beyond its frozen snapshot: whether the brief was
+ * withdrawn and which released version is the newest. A cached copy is right while these hold.
+ * Null when the version does not exist or is not yet released.
+ */
+export async function publicVersionState(db: Database, slug: string, number: number): Promise<string | null> {
   const [row] = await db
-    .select({ releaseAt: briefVersions.releaseAt, withdrawnAt: briefs.withdrawnAt })
-    .from(briefVersions)
-    .innerJoin(briefs, eq(briefs.id, briefVersions.briefId))
-    .where(and(eq(briefs.slug, slug), eq(briefVersions.number, number)));
-  return row ?? null;
+    .select({
+      withdrawnAt: briefs.withdrawnAt,
+      latestReleased: sql<number | null>`max(${briefVersions.number}) filter (where ${briefVersions.releaseAt} <= now())`,
+    })
+    .from(briefs)
+    .innerJoin(briefVersions, eq(briefVersions.briefId, briefs.id))
+    .where(eq(briefs.slug, slug))
+    .groupBy(briefs.id);
+  if (!row || row.latestReleased === null || row.latestReleased < number) return null;
+  return cacheState({ withdrawnAt: row.withdrawnAt?.toISOString() ?? null, latestVersion: row.latestReleased });
+}
+
+/** The fingerprint a cached page is checked against: the same facts, read from the page or the database. */
+export function cacheState(state: { withdrawnAt: string | null; latestVersion: number }): string {
+  return `${state.latestVersion}|${state.withdrawnAt ?? ""}`;
 }
 
 export interface PublicVersion {

@@ -9,7 +9,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { slugify } from "../../server/briefs/briefs";
 import { demoBriefs } from "../../server/db/demo-briefs";
 import { demoPassword } from "../../server/db/seed";
-import { publishedBrief } from "../support/briefs";
+import { approve, publishedBrief } from "../support/briefs";
 import { ApiClient } from "../support/client";
 import { startProductionServer, type RunningServer } from "../support/production-server";
 
@@ -109,7 +109,7 @@ describe("the embargo", () => {
   it("keeps a scheduled brief from the public at every address, and shows it to the press with a notice", async () => {
     const releaseAt = new Date(Date.now() + 48 * 3600 * 1000).toISOString();
     const { slug } = await publishedBrief(clients.analyst!, clients.editor!, "Embargoed page", releaseAt);
-    for (const path of [`/briefs/${slug}`, `/briefs/${slug}/v/1`, `/briefs/${slug}/v/1/compare/nicotine_gum/no_contact`, `/briefs/${slug}/v/1/cite.ris`, `/briefs/${slug}/v/1/downloads/results.csv`]) {
+    for (const path of [`/briefs/${slug}`, `/briefs/${slug}/v/1`, `/briefs/${slug}/v/1/compare/self_help/no_contact`, `/briefs/${slug}/v/1/cite.ris`, `/briefs/${slug}/v/1/downloads/results.csv`]) {
       expect((await get(path)).status, path).toBe(404);
       expect((await clients.analyst!.request("GET", path)).status, path).toBe(404);
     }
@@ -120,6 +120,51 @@ describe("the embargo", () => {
     expect(press.status).toBe(200);
     expect(press.headers.get("cache-control")).toBe("private, no-store");
     expect(await press.text()).toContain("Embargoed until");
+  });
+});
+
+describe("a shared cache holds only what the public may see", () => {
+  const inTwoDays = () => new Date(Date.now() + 48 * 3600 * 1000).toISOString();
+  const note = "An embargoed correction: a trial's arms were swapped.";
+
+  it("a released version read by the press first never shows the public an embargoed correction", async () => {
+    const { briefId, slug } = await publishedBrief(clients.analyst!, clients.editor!, "Correction under embargo");
+    await approve(clients.analyst!, clients.editor!, briefId);
+    const scheduled = await clients.editor!.request("POST", `/api/briefs/${briefId}/versions`, { json: { note, releaseAt: inTwoDays() } });
+    expect(scheduled.status).toBe(201);
+    for (const path of [`/briefs/${slug}/v/1`, `/briefs/${slug}/v/1/compare/self_help/no_contact`, `/briefs/${slug}`]) {
+      // The press reads first: its page names version 2, so it is private and never cached.
+      const press = await fetch(`${server.url}${path}`, { headers: { cookie: clients.press!.cookieHeader } });
+      expect(press.status, path).toBe(200);
+      expect(press.headers.get("cache-control"), path).toBe("private, no-store");
+      expect(await press.text(), path).toContain(note);
+      const editor = await fetch(`${server.url}${path}`, { headers: { cookie: clients.editor!.cookieHeader } });
+      expect(editor.headers.get("cache-control"), path).toBe("private, no-store");
+      // Then the public: no trace of the embargoed version, in the HTML or in the embedded page data.
+      const anonymous = await get(path);
+      expect(anonymous.status, path).toBe(200);
+      expect(anonymous.headers.get("cache-control"), path).toMatch(/^public/);
+      const html = await anonymous.text();
+      expect(html, path).not.toContain(note);
+      expect(html, path).not.toContain("Version 2");
+      expect(html, path).not.toContain('"number":2');
+    }
+  });
+
+  it("a cached version page learns of a newer version at once", async () => {
+    const { briefId, slug } = await publishedBrief(clients.analyst!, clients.editor!, "Correction after caching");
+    const before = await get(`/briefs/${slug}/v/1`);
+    const beforeHtml = await before.text();
+    expect(beforeHtml).not.toContain("A newer version");
+    await approve(clients.analyst!, clients.editor!, briefId);
+    expect((await clients.editor!.request("POST", `/api/briefs/${briefId}/versions`, { json: { note: "Two studies were entered twice." } })).status).toBe(201);
+    // The two-second memory of a version's state is the only delay a reader may see.
+    await new Promise((resolve) => setTimeout(resolve, 2100));
+    const after = await get(`/briefs/${slug}/v/1`);
+    const afterHtml = await after.text();
+    expect(after.headers.get("etag")).not.toBe(before.headers.get("etag"));
+    expect(afterHtml).toContain("Two studies were entered twice.");
+    expect(afterHtml).toContain("A newer version");
   });
 });
 
