@@ -1,7 +1,8 @@
 // A list of released briefs: topic, title linked to the latest version, version and date, and
 // whether it is fictional demonstration data or withdrawn.
 import { useTranslation } from "react-i18next";
-import type { ReleasedBrief } from "../server/briefs/versions";
+import type { ReleasedBrief } from "#core/search";
+import { briefUrl, topicUrl } from "#core/urls";
 
 export function BriefList({ briefs, testId = "released-briefs" }: { briefs: ReleasedBrief[]; testId?: string }) {
   const { t, i18n } = useTranslation();
@@ -11,10 +12,10 @@ export function BriefList({ briefs, testId = "released-briefs" }: { briefs: Rele
       {briefs.map((brief) => (
         <li key={brief.slug} className="py-5">
           <p className="font-sans text-xs font-semibold uppercase tracking-wide text-muted">
-            <a href={`/topics/${brief.topicSlug}`} className="text-muted">{brief.topic}</a>
+            <a href={topicUrl(brief.topicSlug)} className="text-muted">{brief.topic}</a>
           </p>
           <h3 className="mt-1 text-2xl leading-snug font-semibold">
-            <a href={`/briefs/${brief.slug}`} className="text-ink decoration-rule hover:decoration-accent">{brief.title}</a>
+            <a href={briefUrl(brief.slug)} className="text-ink decoration-rule hover:decoration-accent">{brief.title}</a>
           </h3>
           <p className="mt-1 font-sans text-sm text-muted">
             {t("home.version", { version: brief.version, date: date.format(new Date(brief.releasedAt)) })}

@@ -1,5 +1,6 @@
 import { useTranslation } from "react-i18next";
 import { HealthCaution } from "./HealthCaution";
+import { feedUrl, searchUrl } from "#core/urls";
 
 export function SiteFooter() {
   const { t } = useTranslation();
@@ -8,8 +9,8 @@ export function SiteFooter() {
       <div className="mx-auto max-w-5xl px-6 py-10">
         <HealthCaution />
         <nav aria-label={t("site.footerNav")} className="mt-8 flex flex-wrap gap-5 font-sans text-sm">
-          <a href="/briefs">{t("site.footer.briefs")}</a>
-          <a href="/feed.xml">{t("site.footer.feed")}</a>
+          <a href={searchUrl()}>{t("site.footer.briefs")}</a>
+          <a href={feedUrl()}>{t("site.footer.feed")}</a>
         </nav>
         <p className="mt-4 font-sans text-xs text-muted">{t("site.name")}</p>
       </div>

@@ -1,11 +1,10 @@
 // i18next for the interface. Every user-facing string lives in locales/<locale>/common.json.
 import i18next, { type i18n } from "i18next";
 import { initReactI18next } from "react-i18next";
+import { defaultLocale, type Locale } from "#core/locales";
 import en from "../locales/en/common.json";
 
-export const locales = ["en"] as const;
-export type Locale = (typeof locales)[number];
-export const defaultLocale: Locale = "en";
+export { defaultLocale, locales, type Locale } from "#core/locales";
 
 const resources = { en: { common: en } };
 

@@ -6,9 +6,9 @@ import "@fontsource/inter/latin-600.css";
 import "./styles.css";
 import { useMemo, type ReactNode } from "react";
 import { I18nextProvider } from "react-i18next";
-import { SiteFooter } from "../components/SiteFooter";
-import { SiteHeader } from "../components/SiteHeader";
-import { createI18n, defaultLocale, textDirection } from "../components/i18n";
+import { SiteFooter } from "#components/SiteFooter";
+import { SiteHeader } from "#components/SiteHeader";
+import { createI18n, defaultLocale, textDirection } from "#components/i18n";
 
 export default function Layout({ children }: { children: ReactNode }) {
   const i18n = useMemo(() => createI18n(defaultLocale), []);

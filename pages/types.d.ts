@@ -1,5 +1,5 @@
-import type { Database } from "../server/db/client";
-import type { Person } from "../server/people";
+import type { Database } from "#db/client";
+import type { Person } from "#db/people";
 
 declare global {
   namespace Vike {

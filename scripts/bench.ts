@@ -5,8 +5,8 @@ import { spawnSync } from "node:child_process";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
 import normal from "@stdlib/random-base-normal";
-import { analyse } from "../server/nma/analyse";
-import type { ContinuousArm, ParsedDataset } from "../server/nma/types";
+import { analyse } from "#core/nma/analyse";
+import type { ContinuousArm, ParsedDataset } from "#core/nma/types";
 
 const sizes = [
   { treatments: 27, studies: 300, target: "< 100 ms", runs: 7 },

@@ -5,10 +5,10 @@
 import { readFileSync } from "node:fs";
 import { parseArgs } from "node:util";
 import { z } from "zod";
-import { analyse } from "../server/nma/analyse";
-import { measuresByFormat } from "../server/nma/options";
-import { parseDataset } from "../server/nma/parse";
-import { DatasetError, formats, measures } from "../server/nma/types";
+import { analyse } from "#core/nma/analyse";
+import { measuresByFormat } from "#core/nma/options";
+import { parseDataset } from "#core/nma/parse";
+import { DatasetError, formats, measures } from "#core/nma/types";
 
 function fail(code: 1 | 2, reason: string): never {
   process.stderr.write(`${reason.replace(/\s+/g, " ").trim()}\n`);

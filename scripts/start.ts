@@ -3,7 +3,7 @@
 // `npm run dev` does the same with Vite's development server instead of a build.
 import { spawn } from "node:child_process";
 import path from "node:path";
-import { demoAccounts, demoPassword } from "../server/db/seed";
+import { demoAccounts, demoPassword } from "#workflows/seed";
 import { ensureCluster, type Cluster } from "./lib/postgres";
 import { build, localSecret, log, migrateAndSeed, projectRoot } from "./lib/steps";
 

@@ -1,10 +1,10 @@
 // Starts the server against DATABASE_URL: applies pending migrations, then listens.
 // It never seeds: demo content is only for the local cluster that scripts/start.ts manages.
 import type { Server } from "node:http";
-import { createApp } from "./app";
+import { createApp } from "#web/app";
 import { readConfig, type ServerConfig } from "./config";
-import { connectDatabase } from "./db/client";
-import { migrateDatabase } from "./db/migrate";
+import { connectDatabase } from "#db/client";
+import { migrateDatabase } from "#db/migrate";
 
 export async function startServer(config: ServerConfig): Promise<{ url: string; close(): Promise<void> }> {
   const connection = connectDatabase(config.databaseUrl);

@@ -1,23 +1,25 @@
 // A version of a brief, as the public reads it: notices, the editor's texts, the health caution,
 // each outcome, how to cite it, the data, and the version history. Rendered from the snapshot only.
 import { useTranslation } from "react-i18next";
-import type { BriefPageData } from "../../server/briefs/page-data";
+import type { BriefPageData } from "#web/pages/page-data";
 import { HealthCaution } from "../HealthCaution";
 import { CiteBlock } from "./CiteBlock";
 import { VersionBanners } from "./Notices";
 import { OutcomeSection } from "./OutcomeSection";
 import { VersionHistory } from "./VersionHistory";
+import { downloadUrl, topicUrl } from "#core/urls";
 
 export function BriefPage({ data }: { data: BriefPageData }) {
   const { t, i18n } = useTranslation();
-  const { view, versionPath, citation } = data;
+  const { view, citation } = data;
+  const version = { slug: view.slug, version: view.version };
   const date = new Intl.DateTimeFormat(i18n.language, { dateStyle: "long", timeZone: "UTC" });
   return (
     <article data-testid="brief">
       <VersionBanners view={view} />
       <header>
         <p className="font-sans text-xs font-semibold uppercase tracking-wide text-muted">
-          <a href={`/topics/${view.topicSlug}`} className="text-muted">{view.topic}</a> · {view.condition}
+          <a href={topicUrl(view.topicSlug)} className="text-muted">{view.topic}</a> · {view.condition}
         </p>
         <h1 className="mt-2 text-4xl leading-tight font-semibold tracking-tight">{view.title}</h1>
         <p className="mt-3 text-lg text-muted">{t("brief.population", { population: view.population })}</p>
@@ -66,10 +68,10 @@ export function BriefPage({ data }: { data: BriefPageData }) {
       ) : null}
 
       {view.outcomes.map((outcome) => (
-        <OutcomeSection key={outcome.index} outcome={outcome} versionHref={versionPath} />
+        <OutcomeSection key={outcome.index} outcome={outcome} version={version} />
       ))}
 
-      <CiteBlock heading={t("cite.brief")} reference={citation.reference} accessed={citation.accessed} permalink={citation.permalink} filesHref={versionPath} />
+      <CiteBlock heading={t("cite.brief")} reference={citation.reference} accessed={citation.accessed} permalink={citation.permalink} citing={version} />
 
       <section aria-labelledby="data-title" className="mt-16 border-t border-rule pt-6 print:hidden">
         <h2 id="data-title" className="text-xl font-semibold">{t("brief.data")}</h2>
@@ -77,7 +79,7 @@ export function BriefPage({ data }: { data: BriefPageData }) {
         <ul className="mt-3 space-y-1 font-sans text-sm" data-testid="downloads">
           {(["inputs.csv", "inputs.json", "results.csv", "results.json"] as const).map((file) => (
             <li key={file}>
-              <a href={`${versionPath}/downloads/${file}`}>{t(`brief.download.${file.replace(".", "_")}`)}</a>
+              <a href={downloadUrl(version, file)}>{t(`brief.download.${file.replace(".", "_")}`)}</a>
             </li>
           ))}
         </ul>

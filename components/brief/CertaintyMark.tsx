@@ -2,7 +2,7 @@
 // the rating is high. The mark repeats the words for the eye and is hidden from screen readers;
 // colour never carries the meaning alone.
 import { useTranslation } from "react-i18next";
-import type { Rating } from "../../server/grade/certainty";
+import type { Rating } from "#core/grade/certainty";
 
 const steps: Record<Rating, number> = { very_low: 1, low: 2, moderate: 3, high: 4 };
 

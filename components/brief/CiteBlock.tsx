@@ -1,8 +1,9 @@
 // "Cite this": the formatted reference with its access date, the permalink, and the files for
 // reference managers. The reference itself is formatted on the server by the citation library.
 import { useTranslation } from "react-i18next";
+import { citationUrl, type ComparisonAddress, type VersionAddress } from "#core/urls";
 
-export function CiteBlock({ heading, reference, accessed, permalink, filesHref }: { heading: string; reference: string; accessed: string; permalink: string; filesHref: string }) {
+export function CiteBlock({ heading, reference, accessed, permalink, citing }: { heading: string; reference: string; accessed: string; permalink: string; citing: VersionAddress | ComparisonAddress }) {
   const { t, i18n } = useTranslation();
   const date = new Intl.DateTimeFormat(i18n.language, { dateStyle: "long", timeZone: "UTC" }).format(new Date(accessed));
   return (
@@ -15,7 +16,7 @@ export function CiteBlock({ heading, reference, accessed, permalink, filesHref }
         {t("cite.permalink")} <a href={permalink} className="break-all">{permalink}</a>
       </p>
       <p className="mt-2 font-sans text-sm print:hidden">
-        {t("cite.download")} <a href={`${filesHref}/cite.ris`}>RIS</a> · <a href={`${filesHref}/cite.bib`}>BibTeX</a> · <a href={`${filesHref}/cite.json`}>CSL-JSON</a>
+        {t("cite.download")} <a href={citationUrl(citing, "ris")}>RIS</a> · <a href={citationUrl(citing, "bib")}>BibTeX</a> · <a href={citationUrl(citing, "json")}>CSL-JSON</a>
       </p>
     </section>
   );

@@ -2,29 +2,31 @@
 // the relative and absolute effect with 95% CI, the certainty in words with its footnoted reasons,
 // and the direct, indirect and network evidence side by side.
 import { useTranslation } from "react-i18next";
-import type { ComparisonOutcomeView } from "../../server/briefs/brief-page";
-import type { ComparisonPageData } from "../../server/briefs/page-data";
+import type { ComparisonOutcomeView } from "#core/brief-page";
+import type { ComparisonPageData } from "#web/pages/page-data";
 import { HealthCaution } from "../HealthCaution";
 import { CertaintyMark } from "./CertaintyMark";
 import { CiteBlock } from "./CiteBlock";
-import { formatInterval } from "./format";
+import { formatInterval } from "#core/effects";
 import { VersionBanners } from "./Notices";
+import { comparisonUrl, versionUrl } from "#core/urls";
 
 export function ComparisonPage({ data }: { data: ComparisonPageData }) {
   const { t, i18n } = useTranslation();
-  const { view, versionPath, path, citation } = data;
+  const { view, citation } = data;
+  const at = { slug: view.slug, version: view.version, treatment: view.treatment.id, comparator: view.comparator.id };
   const date = new Intl.DateTimeFormat(i18n.language, { dateStyle: "long", timeZone: "UTC" });
   const versus = t("brief.versus", { treatment: view.treatment.name, comparator: view.comparator.name });
   return (
     <article data-testid="comparison">
       <VersionBanners view={view} />
       <p className="font-sans text-sm">
-        <a href={versionPath}>{t("compare.back", { title: view.title })}</a>
+        <a href={versionUrl(at)}>{t("compare.back", { title: view.title })}</a>
       </p>
       <h1 className="mt-3 text-4xl leading-tight font-semibold tracking-tight">{versus}</h1>
       <p className="mt-3 font-sans text-sm text-muted">
         {t("compare.inVersion", { version: view.version, date: date.format(new Date(view.releaseAt)) })} ·{" "}
-        <a href={`${versionPath}/compare/${encodeURIComponent(view.comparator.id)}/${encodeURIComponent(view.treatment.id)}`}>{t("compare.reverse")}</a>
+        <a href={comparisonUrl({ ...at, treatment: at.comparator, comparator: at.treatment })}>{t("compare.reverse")}</a>
       </p>
       {view.outcomes.map((outcome) => (
         <OutcomeComparison key={outcome.index} outcome={outcome} />
@@ -32,7 +34,7 @@ export function ComparisonPage({ data }: { data: ComparisonPageData }) {
       <div className="mt-12">
         <HealthCaution />
       </div>
-      <CiteBlock heading={t("cite.comparison")} reference={citation.reference} accessed={citation.accessed} permalink={citation.permalink} filesHref={path} />
+      <CiteBlock heading={t("cite.comparison")} reference={citation.reference} accessed={citation.accessed} permalink={citation.permalink} citing={at} />
     </article>
   );
 }

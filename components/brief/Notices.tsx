@@ -1,6 +1,7 @@
 // The notices above a version's content: fictional data, withdrawal, embargo, a newer version.
 import { useTranslation } from "react-i18next";
-import type { BriefHeader, PageState } from "../../server/briefs/brief-page";
+import type { BriefHeader, PageState } from "#core/brief-page";
+import { briefUrl } from "#core/urls";
 
 /** Everything shown above a version's content, for its brief page and its comparison pages. */
 export function VersionBanners({ view }: { view: BriefHeader & PageState }) {
@@ -13,7 +14,7 @@ export function VersionBanners({ view }: { view: BriefHeader & PageState }) {
         releaseAt={view.releaseAt}
         version={view.version}
         latestVersion={view.latestVersion}
-        latestHref={`/briefs/${view.slug}`}
+        latestHref={briefUrl(view.slug)}
       />
     </>
   );

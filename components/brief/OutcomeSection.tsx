@@ -2,26 +2,26 @@
 // the reference as a forest plot with its table, the network of trials, the league table on demand,
 // the rank-score explainer, and the methods of this outcome.
 import { useTranslation } from "react-i18next";
-import type { OutcomeView } from "../../server/briefs/brief-page";
+import type { OutcomeView } from "#core/brief-page";
 import { ForestPlot } from "../charts/ForestPlot";
 import { LeagueTable } from "../charts/LeagueTable";
 import { NetworkDiagram } from "../charts/NetworkDiagram";
 import { CertaintyMark } from "./CertaintyMark";
-import { formatInterval } from "./format";
+import { formatInterval } from "#core/effects";
 import { GroupList } from "./GroupList";
 import { RankScores } from "./RankScores";
+import { flipInterval, pairFinder } from "#core/pairs";
+import { comparisonUrl, type VersionAddress } from "#core/urls";
 
-export function OutcomeSection({ outcome, versionHref }: { outcome: OutcomeView; versionHref: string }) {
+export function OutcomeSection({ outcome, version }: { outcome: OutcomeView; version: VersionAddress }) {
   const { t } = useTranslation();
   const id = `outcome-${outcome.index + 1}`;
   const to = t("brief.to");
-  const compareHref = (a: string, b: string) => `${versionHref}/compare/${encodeURIComponent(a)}/${encodeURIComponent(b)}`;
-  const pairs = new Map(outcome.pairs.map((p) => [`${p.treatment}\u0000${p.comparator}`, p]));
+  const compareHref = (treatment: string, comparator: string) => comparisonUrl({ ...version, treatment, comparator });
+  const findPair = pairFinder(outcome.pairs);
   const leagueCell = (row: string, column: string) => {
-    const listed = pairs.get(`${row}\u0000${column}`);
-    if (listed) return listed;
-    const reverse = pairs.get(`${column}\u0000${row}`);
-    return reverse ? { estimate: -reverse.estimate, lower: -reverse.upper, upper: -reverse.lower } : null;
+    const found = findPair(row, column);
+    return found ? (found.flipped ? flipInterval(found.item) : found.item) : null;
   };
   const binary = outcome.effects.some((e) => e.absolute !== null);
   return (

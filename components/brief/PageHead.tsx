@@ -1,6 +1,7 @@
 // The head of a version's pages: canonical permalink, citation meta tags for reference managers,
 // Open Graph and Twitter cards, and schema.org JSON-LD. Title and description come from +title and
 // +description (vike-react also writes them as og:title and og:description).
+import { feedUrl } from "#core/urls";
 export interface HeadFacts {
   title: string;
   siteUrl: string;
@@ -36,7 +37,7 @@ export function PageHead({ facts }: { facts: HeadFacts }) {
   return (
     <>
       <link rel="canonical" href={url} />
-      <link rel="alternate" type="application/atom+xml" title="Fairweigh" href="/feed.xml" />
+      <link rel="alternate" type="application/atom+xml" title="Fairweigh" href={feedUrl()} />
       <meta name="citation_title" content={facts.title} />
       <meta name="citation_author" content="Fairweigh" />
       <meta name="citation_publisher" content="Fairweigh" />

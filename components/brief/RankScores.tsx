@@ -1,8 +1,8 @@
 // Rank scores, collapsed by default and only beside the three reasons they are not proof
 // (PRODUCT.md). A <details> element, so it opens without JavaScript. Listed alphabetically.
 import { useTranslation } from "react-i18next";
-import type { OutcomeView } from "../../server/briefs/brief-page";
-import { rankCautionKeys } from "../../server/grade/rank-explainer";
+import type { OutcomeView } from "#core/brief-page";
+import { rankCautionKeys } from "#core/grade/rank-explainer";
 
 export function RankScores({ scores }: { scores: OutcomeView["rankScores"] }) {
   const { t } = useTranslation();

@@ -1,6 +1,7 @@
 // Every version of a brief with its release date and correction note; the one shown is marked.
 import { useTranslation } from "react-i18next";
-import type { VersionEntry } from "../../server/briefs/versions";
+import type { VersionEntry } from "#core/brief-page";
+import { versionUrl } from "#core/urls";
 
 export function VersionHistory({ slug, history, current }: { slug: string; history: VersionEntry[]; current: number }) {
   const { t, i18n } = useTranslation();
@@ -14,7 +15,7 @@ export function VersionHistory({ slug, history, current }: { slug: string; histo
             {entry.number === current ? (
               <strong aria-current="page">{t("brief.versionLine", { version: entry.number, date: date.format(new Date(entry.releaseAt)) })}</strong>
             ) : (
-              <a href={`/briefs/${slug}/v/${entry.number}`}>{t("brief.versionLine", { version: entry.number, date: date.format(new Date(entry.releaseAt)) })}</a>
+              <a href={versionUrl({ slug, version: entry.number })}>{t("brief.versionLine", { version: entry.number, date: date.format(new Date(entry.releaseAt)) })}</a>
             )}
             {entry.embargoed ? <span className="ms-2 font-sans text-xs text-accent">{t("brief.embargoedShort")}</span> : null}
             {entry.note ? <p className="mt-1 text-muted">{t("brief.correctionNote", { note: entry.note })}</p> : null}

@@ -3,8 +3,10 @@
 import { Group } from "@visx/group";
 import { scaleLinear } from "@visx/scale";
 import { Line } from "@visx/shape";
-import type { Measure } from "../../server/nma/types";
-import { axisTicks, formatEffect } from "./scale";
+import { useTranslation } from "react-i18next";
+import { formatEffect, formatInterval } from "#core/effects";
+import type { Measure } from "#core/nma/types";
+import { axisTicks } from "./scale";
 
 export interface ForestRow {
   label: string;
@@ -17,6 +19,7 @@ const rowHeight = 28;
 const plotWidth = 460;
 
 export function ForestPlot({ rows, measure, title }: { rows: ForestRow[]; measure: Measure; title: string }) {
+  const { t } = useTranslation();
   // Room on the left for the longest label at 13 px (about 7 px a character).
   const margin = { top: 8, right: 24, bottom: 40, left: 24 + 7 * Math.max(8, ...rows.map((r) => r.label.length)) };
   const width = margin.left + plotWidth + margin.right;
@@ -57,7 +60,7 @@ export function ForestPlot({ rows, measure, title }: { rows: ForestRow[]; measur
         </Group>
       </svg>
       <figcaption className="sr-only">
-        {rows.map((r) => `${r.label}: ${formatEffect(measure, r.estimate)} (${formatEffect(measure, r.lower)} to ${formatEffect(measure, r.upper)})`).join("; ")}
+        {rows.map((r) => `${r.label}: ${formatInterval(measure, r, t("brief.to"))}`).join("; ")}
       </figcaption>
     </figure>
   );

@@ -1,6 +1,7 @@
 // The league table: every treatment against every other, row vs column, with its 95% CI.
-import type { Measure } from "../../server/nma/types";
-import { formatEffect } from "./scale";
+import { useTranslation } from "react-i18next";
+import { formatInterval } from "#core/effects";
+import type { Measure } from "#core/nma/types";
 
 export interface LeagueCell {
   estimate: number;
@@ -19,6 +20,7 @@ export function LeagueTable({
   measure: Measure;
   caption: string;
 }) {
+  const { t } = useTranslation();
   return (
     <div className="overflow-x-auto">
       <table className="border-collapse font-sans text-xs" data-testid="league-table">
@@ -43,9 +45,7 @@ export function LeagueTable({
                 const value = row.id === column.id ? null : cell(row.id, column.id);
                 return (
                   <td key={column.id} className="border border-rule px-2 py-1 text-center whitespace-nowrap">
-                    {value
-                      ? `${formatEffect(measure, value.estimate)} (${formatEffect(measure, value.lower)} to ${formatEffect(measure, value.upper)})`
-                      : "—"}
+                    {value ? formatInterval(measure, value, t("brief.to")) : "—"}
                   </td>
                 );
               })}

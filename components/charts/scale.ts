@@ -1,18 +1,6 @@
-// How estimates on the analysis scale are shown: ratios (OR, RR) exponentiated, differences as they are.
-import type { Measure } from "../../server/nma/types";
-
-export const isRatio = (measure: Measure) => measure === "OR" || measure === "RR";
-
-export function displayValue(measure: Measure, value: number): number {
-  return isRatio(measure) ? Math.exp(value) : value;
-}
-
-export function formatEffect(measure: Measure, value: number): string {
-  const shown = displayValue(measure, value);
-  const text = isRatio(measure) ? shown.toFixed(2) : shown.toFixed(Math.abs(shown) < 10 ? 2 : 1);
-  // A value that rounds to zero reads as zero, not "-0.00".
-  return /^-0(\.0+)?$/.test(text) ? text.slice(1) : text;
-}
+// The axis of a chart of effects: ratios (OR, RR) tick at round ratios on a log axis.
+import { isRatio } from "#core/effects";
+import type { Measure } from "#core/nma/types";
 
 /** Round ratios read better than e^k on a log axis: 0.5, 1, 2, 4 rather than 1.65 or 2.72. */
 const roundRatios = [0.01, 0.02, 0.05, 0.1, 0.2, 0.25, 0.5, 0.75, 1, 1.5, 2, 3, 4, 5, 10, 20, 50, 100];

@@ -1,6 +1,6 @@
 import { useTranslation } from "react-i18next";
 import { Link } from "react-router";
-import type { BriefSummary } from "./types";
+import type { BriefSummary } from "#web/api/contract";
 
 export function BriefList({ briefs }: { briefs: BriefSummary[] }) {
   const { t } = useTranslation();

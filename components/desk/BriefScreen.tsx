@@ -6,7 +6,7 @@ import { ApiError } from "./api";
 import { previewMarkdown, useBrief, useCreateOutcome, useNameTreatments, useSaveTexts, useUploadDataset } from "./queries";
 import { ReleasePanel } from "./ReleasePanel";
 import { TextsForm } from "./TextsForm";
-import type { OutcomeSummary } from "./types";
+import type { OutcomeSummary } from "#web/api/contract";
 import { UploadForm } from "./UploadForm";
 
 export function BriefScreen({ canAnalyse, canEdit }: { canAnalyse: boolean; canEdit: boolean }) {

@@ -2,8 +2,8 @@
 import { useState } from "react";
 import { useTranslation } from "react-i18next";
 import { Link, useParams } from "react-router";
-import type { ComparisonCertainty, ComparisonJudgement } from "../../server/grade/assess";
-import { ratings, type Downgrade, type Rating } from "../../server/grade/certainty";
+import type { ComparisonCertainty, ComparisonJudgement } from "#core/grade/assess";
+import { ratings, type Downgrade, type Rating } from "#core/grade/certainty";
 import { buttonClass, inputClass } from "./forms";
 import { useCertainty, useSaveJudgement } from "./queries";
 

@@ -1,10 +1,11 @@
 import { useState } from "react";
 import { useTranslation } from "react-i18next";
+import type { CreateOutcomeBody } from "#web/api/contract";
 import { Field, SubmitRow, formValues, inputClass } from "./forms";
 
 const optionalNumber = (value: string | undefined) => (value && value.trim() !== "" ? Number(value) : null);
 
-export function OutcomeForm({ onSubmit, busy, error }: { onSubmit: (fields: Record<string, unknown>) => void; busy: boolean; error: string | null }) {
+export function OutcomeForm({ onSubmit, busy, error }: { onSubmit: (fields: CreateOutcomeBody) => void; busy: boolean; error: string | null }) {
   const { t } = useTranslation();
   const [kind, setKind] = useState<"binary" | "continuous">("binary");
   return (
@@ -15,12 +16,13 @@ export function OutcomeForm({ onSubmit, busy, error }: { onSubmit: (fields: Reco
         event.preventDefault();
         const v = formValues(event.currentTarget);
         onSubmit({
-          name: v.name,
+          // The selects offer only the contract's values; the server checks them again.
+          name: v.name ?? "",
           kind,
-          measure: kind === "continuous" ? "MD" : v.measure,
-          model: v.model,
-          referenceTreatment: v.referenceTreatment,
-          direction: v.direction,
+          measure: (kind === "continuous" ? "MD" : v.measure) as CreateOutcomeBody["measure"],
+          model: v.model as CreateOutcomeBody["model"],
+          referenceTreatment: v.referenceTreatment ?? "",
+          direction: v.direction as CreateOutcomeBody["direction"],
           baselineRisk: kind === "binary" ? optionalNumber(v.baselineRisk) : null,
           unit: kind === "continuous" ? v.unit || null : null,
           thresholdSmall: optionalNumber(v.thresholdSmall),

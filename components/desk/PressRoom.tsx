@@ -2,6 +2,7 @@
 // releases, each with its page and its release time.
 import { useTranslation } from "react-i18next";
 import { usePressRoom } from "./queries";
+import { versionUrl } from "#core/urls";
 
 export function PressRoom() {
   const { t, i18n } = useTranslation();
@@ -16,7 +17,7 @@ export function PressRoom() {
       <ul className="mt-3 divide-y divide-rule">
         {versions.data?.map((entry) => (
           <li key={`${entry.slug}-${entry.number}`} className="py-3">
-            <a href={`/briefs/${entry.slug}/v/${entry.number}`} className="text-lg font-semibold">{entry.title}</a>
+            <a href={versionUrl({ slug: entry.slug, version: entry.number })} className="text-lg font-semibold">{entry.title}</a>
             <p className="font-sans text-sm">
               {entry.embargoed ? (
                 <strong className="text-accent">{t("desk.pressRoom.embargoed", { date: date.format(new Date(entry.releaseAt)) })}</strong>

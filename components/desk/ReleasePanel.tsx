@@ -5,7 +5,8 @@ import { useState } from "react";
 import { useTranslation } from "react-i18next";
 import { buttonClass, Field, formValues, inputClass } from "./forms";
 import { usePublish, useReviews, useReviewStep, useWithdraw } from "./queries";
-import type { BriefDetail } from "./types";
+import type { BriefDetail } from "#web/api/contract";
+import { previewUrl } from "#core/urls";
 
 export function ReleasePanel({ brief, canEdit, canSubmit }: { brief: BriefDetail; canEdit: boolean; canSubmit: boolean }) {
   const { t, i18n } = useTranslation();
@@ -25,7 +26,7 @@ export function ReleasePanel({ brief, canEdit, canSubmit }: { brief: BriefDetail
       <h2 id="release-title" className="text-xl font-semibold">{t("desk.release.title")}</h2>
       <p className="mt-2 font-sans text-sm">
         {t(`desk.release.approval.${approval}`)} ·{" "}
-        <a href={`/preview/${brief.id}`} target="_blank" rel="noreferrer">{t("desk.release.preview")}</a>
+        <a href={previewUrl(brief.id)} target="_blank" rel="noreferrer">{t("desk.release.preview")}</a>
       </p>
       {error ? <p role="alert" className="mt-3 font-sans text-sm text-accent">{t("desk.error", { message: error.message })}</p> : null}
       {publish.data ? (

@@ -2,7 +2,7 @@
 // warnings about heterogeneity and incoherence.
 import { useTranslation } from "react-i18next";
 import { Link, useParams } from "react-router";
-import { comparisonOf } from "../../server/nma/comparison";
+import { comparisonOf } from "#core/nma/comparison";
 import { ForestPlot } from "../charts/ForestPlot";
 import { LeagueTable } from "../charts/LeagueTable";
 import { NetworkDiagram } from "../charts/NetworkDiagram";

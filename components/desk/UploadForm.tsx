@@ -1,6 +1,7 @@
 import { useTranslation } from "react-i18next";
 import { buttonClass, Field, inputClass } from "./forms";
-import type { Format, UploadReport } from "./types";
+import type { Format } from "#core/nma/types";
+import type { UploadReport } from "#web/api/contract";
 
 export function UploadForm({
   kind,

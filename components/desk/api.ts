@@ -1,13 +1,6 @@
 // The desk's one way to call the JSON API: same-origin cookies, JSON, and the CSRF token on
 // every request that changes state (see docs/api.md).
-import type { Role } from "../../server/auth/roles";
-
-export interface SignedInPerson {
-  id: string;
-  email: string;
-  displayName: string;
-  roles: Role[];
-}
+export type { SignedInPerson } from "#web/api/contract";
 
 export class ApiError extends Error {
   constructor(

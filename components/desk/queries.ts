@@ -1,18 +1,38 @@
 // TanStack Query hooks: the only place the desk's screens get their data from.
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
-import type { ComparisonCertainty, ComparisonJudgement } from "../../server/grade/assess";
-import type { PressRoomEntry } from "../../server/briefs/versions";
-import type { AnalysisResult } from "../../server/nma/analyse";
-import { ApiError, callApi, forgetCsrfToken, type SignedInPerson } from "./api";
-import type { BriefDetail, BriefSummary, Format, UploadReport } from "./types";
+import type { Format } from "#core/nma/types";
+import type {
+  ApiAnswers,
+  CreateBriefBody,
+  CreateOutcomeBody,
+  JudgementBody,
+  PublishBody,
+  Result,
+  ReviewBody,
+  ReviewHistory,
+  UploadReport,
+  WithdrawalBody,
+} from "#web/api/contract";
+import { ApiError, callApi, forgetCsrfToken } from "./api";
+
+/** Every query's key, in one place: a mutation invalidates exactly what it changed. */
+export const queryKeys = {
+  session: ["session"],
+  briefs: ["briefs"],
+  brief: (briefId: string) => ["brief", briefId],
+  result: (outcomeId: string) => ["result", outcomeId],
+  certainty: (outcomeId: string) => ["certainty", outcomeId],
+  reviews: (briefId: string) => ["reviews", briefId],
+  pressRoom: ["press-room"],
+} as const;
 
 /** The signed-in person, or null when nobody is (a 401 is an answer here, not an error). */
 export function useSignedInPerson() {
   return useQuery({
-    queryKey: ["session"],
+    queryKey: queryKeys.session,
     queryFn: async () => {
       try {
-        return (await callApi<{ person: SignedInPerson }>("GET", "/api/session")).person;
+        return (await callApi<ApiAnswers["session"]>("GET", "/api/session")).person;
       } catch (error) {
         if (error instanceof ApiError && error.status === 401) return null;
         throw error;
@@ -27,33 +47,32 @@ export function useSignOut() {
     mutationFn: () => callApi<void>("DELETE", "/api/session"),
     onSuccess: () => {
       forgetCsrfToken();
-      queryClient.setQueryData(["session"], null);
+      queryClient.setQueryData(queryKeys.session, null);
     },
   });
 }
 
 export function useBriefs() {
-  return useQuery({ queryKey: ["briefs"], queryFn: async () => (await callApi<{ briefs: BriefSummary[] }>("GET", "/api/briefs")).briefs });
+  return useQuery({ queryKey: queryKeys.briefs, queryFn: async () => (await callApi<ApiAnswers["briefs"]>("GET", "/api/briefs")).briefs });
 }
 
 export function useBrief(id: string) {
-  return useQuery({ queryKey: ["brief", id], queryFn: async () => (await callApi<{ brief: BriefDetail }>("GET", `/api/briefs/${id}`)).brief });
+  return useQuery({ queryKey: queryKeys.brief(id), queryFn: async () => (await callApi<ApiAnswers["brief"]>("GET", `/api/briefs/${id}`)).brief });
 }
 
 export function useCreateBrief() {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (fields: { title: string; topic: string; condition: string; population: string }) =>
-      callApi<{ id: string; slug: string }>("POST", "/api/briefs", fields),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: ["briefs"] }),
+    mutationFn: (fields: CreateBriefBody) => callApi<ApiAnswers["createdBrief"]>("POST", "/api/briefs", fields),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: queryKeys.briefs }),
   });
 }
 
 export function useCreateOutcome(briefId: string) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (fields: Record<string, unknown>) => callApi("POST", `/api/briefs/${briefId}/outcomes`, fields),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: ["brief", briefId] }),
+    mutationFn: (fields: CreateOutcomeBody) => callApi<ApiAnswers["outcome"]>("POST", `/api/briefs/${briefId}/outcomes`, fields),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: queryKeys.brief(briefId) }),
   });
 }
 
@@ -74,38 +93,38 @@ export function useUploadDataset(briefId: string, outcomeId: string) {
     },
     onSuccess: (report) => {
       if (report.valid) {
-        void queryClient.invalidateQueries({ queryKey: ["brief", briefId] });
-        void queryClient.invalidateQueries({ queryKey: ["result", outcomeId] });
+        void queryClient.invalidateQueries({ queryKey: queryKeys.brief(briefId) });
+        void queryClient.invalidateQueries({ queryKey: queryKeys.result(outcomeId) });
       }
     },
   });
 }
 
 export function useResult(outcomeId: string) {
-  return useQuery({ queryKey: ["result", outcomeId], queryFn: () => callApi<AnalysisResult>("GET", `/api/outcomes/${outcomeId}/result`) });
+  return useQuery({ queryKey: queryKeys.result(outcomeId), queryFn: () => callApi<Result>("GET", `/api/outcomes/${outcomeId}/result`) });
 }
 
 export function useCertainty(outcomeId: string) {
   return useQuery({
-    queryKey: ["certainty", outcomeId],
-    queryFn: async () => (await callApi<{ comparisons: ComparisonCertainty[] }>("GET", `/api/outcomes/${outcomeId}/certainty`)).comparisons,
+    queryKey: queryKeys.certainty(outcomeId),
+    queryFn: async () => (await callApi<ApiAnswers["certainty"]>("GET", `/api/outcomes/${outcomeId}/certainty`)).comparisons,
   });
 }
 
 export function useSaveJudgement(outcomeId: string) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: ({ treatment, comparator, judgement }: { treatment: string; comparator: string; judgement: ComparisonJudgement }) =>
-      callApi("PUT", `/api/outcomes/${outcomeId}/certainty/${encodeURIComponent(treatment)}/${encodeURIComponent(comparator)}`, judgement),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: ["certainty", outcomeId] }),
+    mutationFn: ({ treatment, comparator, judgement }: { treatment: string; comparator: string; judgement: JudgementBody }) =>
+      callApi<ApiAnswers["judged"]>("PUT", `/api/outcomes/${outcomeId}/certainty/${encodeURIComponent(treatment)}/${encodeURIComponent(comparator)}`, judgement),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: queryKeys.certainty(outcomeId) }),
   });
 }
 
 export function useNameTreatments(briefId: string) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (names: Record<string, string>) => callApi("PUT", `/api/briefs/${briefId}/treatments`, { names }),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: ["brief", briefId] }),
+    mutationFn: (names: Record<string, string>) => callApi<ApiAnswers["treatments"]>("PUT", `/api/briefs/${briefId}/treatments`, { names }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: queryKeys.brief(briefId) }),
   });
 }
 
@@ -116,7 +135,7 @@ export function useTreatmentName(briefId: string): (label: string) => string {
 }
 
 export function previewMarkdown(markdown: string): Promise<string> {
-  return callApi<{ html: string }>("POST", "/api/preview", { markdown }).then((r) => r.html);
+  return callApi<ApiAnswers["preview"]>("POST", "/api/preview", { markdown }).then((r) => r.html);
 }
 
 /** Saves the editor's texts; a 409 means someone else saved first: the brief is reloaded to show their change. */
@@ -124,18 +143,13 @@ export function useSaveTexts(briefId: string) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: ({ rowVersion, ...texts }: { rowVersion: number; laySummary: string; keyMessages: string }) =>
-      callApi("PATCH", `/api/briefs/${briefId}`, { rowVersion, ...texts }),
-    onSettled: () => queryClient.invalidateQueries({ queryKey: ["brief", briefId] }),
+      callApi<ApiAnswers["patchedBrief"]>("PATCH", `/api/briefs/${briefId}`, { rowVersion, ...texts }),
+    onSettled: () => queryClient.invalidateQueries({ queryKey: queryKeys.brief(briefId) }),
   });
 }
 
-export interface ReviewHistory {
-  steps: { decision: "submitted" | "returned" | "approved"; comment: string | null; createdAt: string; actorId: string; actorName: string }[];
-  approval: "none" | "current" | "stale";
-}
-
 export function useReviews(briefId: string) {
-  return useQuery({ queryKey: ["reviews", briefId], queryFn: () => callApi<ReviewHistory>("GET", `/api/briefs/${briefId}/reviews`) });
+  return useQuery({ queryKey: queryKeys.reviews(briefId), queryFn: () => callApi<ReviewHistory>("GET", `/api/briefs/${briefId}/reviews`) });
 }
 
 /** Review, publishing and withdrawal all change the brief's status and its review history. */
@@ -145,26 +159,26 @@ function useReleaseStep<T, R>(briefId: string, step: (body: T) => Promise<R>) {
     mutationFn: step,
     onSuccess: async () => {
       await Promise.all([
-        queryClient.invalidateQueries({ queryKey: ["brief", briefId] }),
-        queryClient.invalidateQueries({ queryKey: ["reviews", briefId] }),
-        queryClient.invalidateQueries({ queryKey: ["briefs"] }),
+        queryClient.invalidateQueries({ queryKey: queryKeys.brief(briefId) }),
+        queryClient.invalidateQueries({ queryKey: queryKeys.reviews(briefId) }),
+        queryClient.invalidateQueries({ queryKey: queryKeys.briefs }),
       ]);
     },
   });
 }
 
 export function useReviewStep(briefId: string) {
-  return useReleaseStep(briefId, (body: { decision: "submitted" | "returned" | "approved"; comment?: string }) => callApi("POST", `/api/briefs/${briefId}/reviews`, body));
+  return useReleaseStep(briefId, (body: ReviewBody) => callApi<ApiAnswers["reviewStep"]>("POST", `/api/briefs/${briefId}/reviews`, body));
 }
 
 export function usePublish(briefId: string) {
-  return useReleaseStep(briefId, (body: { releaseAt?: string; note?: string }) => callApi<{ version: number; url: string }>("POST", `/api/briefs/${briefId}/versions`, body));
+  return useReleaseStep(briefId, (body: PublishBody) => callApi<ApiAnswers["published"]>("POST", `/api/briefs/${briefId}/versions`, body));
 }
 
 export function useWithdraw(briefId: string) {
-  return useReleaseStep(briefId, (body: { reason: string }) => callApi("POST", `/api/briefs/${briefId}/withdrawal`, body));
+  return useReleaseStep(briefId, (body: WithdrawalBody) => callApi<ApiAnswers["withdrawn"]>("POST", `/api/briefs/${briefId}/withdrawal`, body));
 }
 
 export function usePressRoom() {
-  return useQuery({ queryKey: ["press-room"], queryFn: async () => (await callApi<{ versions: PressRoomEntry[] }>("GET", "/api/press-room")).versions });
+  return useQuery({ queryKey: queryKeys.pressRoom, queryFn: async () => (await callApi<ApiAnswers["pressRoom"]>("GET", "/api/press-room")).versions });
 }

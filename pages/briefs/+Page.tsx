@@ -1,7 +1,8 @@
 import { useTranslation } from "react-i18next";
 import { useData } from "vike-react/useData";
-import { BriefList } from "../../components/BriefList";
+import { BriefList } from "#components/BriefList";
 import type { Data } from "./+data";
+import { searchUrl } from "#core/urls";
 
 export default function Page() {
   const { t } = useTranslation();
@@ -10,7 +11,7 @@ export default function Page() {
   return (
     <>
       <h1 className="text-4xl leading-tight font-semibold tracking-tight">{t("search.title")}</h1>
-      <form action="/briefs" method="get" role="search" className="mt-8 grid gap-4 font-sans sm:grid-cols-[1fr_auto_auto] sm:items-end">
+      <form action={searchUrl()} method="get" role="search" className="mt-8 grid gap-4 font-sans sm:grid-cols-[1fr_auto_auto] sm:items-end">
         <div>
           <label htmlFor="q" className="block text-sm font-semibold">{t("search.label")}</label>
           <input id="q" name="q" type="search" defaultValue={q} placeholder={t("search.placeholder")} className="mt-1 w-full border border-ink bg-white px-3 py-2" />

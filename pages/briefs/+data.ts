@@ -1,7 +1,7 @@
 // /briefs?q=…&topic=… — every released brief, searched by title, condition and treatment.
 import type { PageContextServer } from "vike/types";
-import { searchBriefs, topicsOf } from "../../server/briefs/search";
-import { listReleasedBriefs } from "../../server/briefs/versions";
+import { searchBriefs, topicsOf } from "#core/search";
+import { listReleasedBriefs } from "#db/versions";
 
 export async function data(pageContext: PageContextServer) {
   const all = await listReleasedBriefs(pageContext.db!);

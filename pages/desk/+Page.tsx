@@ -1,4 +1,4 @@
-import { DeskApp } from "../../components/desk/DeskApp";
+import { DeskApp } from "#components/desk/DeskApp";
 
 export default function Page() {
   return <DeskApp />;

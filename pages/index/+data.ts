@@ -1,7 +1,7 @@
 // Runs on the server only: the latest released version of each brief, and the topics.
 import type { PageContextServer } from "vike/types";
-import { topicsOf } from "../../server/briefs/search";
-import { listReleasedBriefs } from "../../server/briefs/versions";
+import { topicsOf } from "#core/search";
+import { listReleasedBriefs } from "#db/versions";
 
 export async function data(pageContext: PageContextServer) {
   const briefs = await listReleasedBriefs(pageContext.db!);

@@ -4,9 +4,9 @@ import { randomBytes } from "node:crypto";
 import { existsSync, readFileSync, writeFileSync } from "node:fs";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
-import { connectDatabase } from "../../server/db/client";
-import { migrateDatabase } from "../../server/db/migrate";
-import { seedDemo } from "../../server/db/seed";
+import { connectDatabase } from "#db/client";
+import { migrateDatabase } from "#db/migrate";
+import { seedDemo } from "#workflows/seed";
 
 export const projectRoot = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "../..");
 

@@ -19,8 +19,8 @@ import {
   uuid,
   varchar,
 } from "drizzle-orm/pg-core";
-import { roleNames } from "../auth/roles";
-import { briefStatuses, reviewDecisions } from "../briefs/status";
+import { roleNames } from "#core/roles";
+import { briefStatuses, reviewDecisions } from "#core/status";
 
 export const role = pgEnum("role", roleNames);
 

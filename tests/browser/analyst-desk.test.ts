@@ -2,7 +2,7 @@
 import path from "node:path";
 import { expect, it } from "vitest";
 import en from "../../locales/en/common.json";
-import { demoPassword } from "../../server/db/seed";
+import { demoPassword } from "#workflows/seed";
 import { withServerAndBrowser } from "../support/browser";
 
 const hasselblad = path.resolve(__dirname, "../fixtures/reference/hasselblad1998.csv");

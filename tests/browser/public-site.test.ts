@@ -6,8 +6,8 @@ import path from "node:path";
 import AxeBuilder from "@axe-core/playwright";
 import { describe, expect, it } from "vitest";
 import en from "../../locales/en/common.json";
-import { slugify } from "../../server/briefs/briefs";
-import { demoBriefs } from "../../server/db/demo-briefs";
+import { slugify } from "#core/slug";
+import { demoBriefs } from "#workflows/demo-briefs";
 import { projectRoot } from "../../scripts/lib/steps";
 import { withServerAndBrowser } from "../support/browser";
 

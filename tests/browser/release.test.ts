@@ -3,7 +3,7 @@
 import type { Browser } from "playwright-core";
 import { expect, it } from "vitest";
 import en from "../../locales/en/common.json";
-import { demoPassword } from "../../server/db/seed";
+import { demoPassword } from "#workflows/seed";
 import { withServerAndBrowser } from "../support/browser";
 import { analysedBrief } from "../support/briefs";
 import { ApiClient } from "../support/client";

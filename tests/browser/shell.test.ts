@@ -1,6 +1,6 @@
 // The shell in a real browser: server-rendered pages without JavaScript, and the sign-in form into the desk.
 import { describe, expect, it } from "vitest";
-import { demoPassword } from "../../server/db/seed";
+import { demoPassword } from "#workflows/seed";
 import en from "../../locales/en/common.json";
 import { withServerAndBrowser } from "../support/browser";
 

@@ -2,7 +2,7 @@
 import { readFileSync } from "node:fs";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { demoPassword } from "../../server/db/seed";
+import { demoPassword } from "#workflows/seed";
 import { startTestApp, type TestApp } from "../support/app";
 import { ApiClient } from "../support/client";
 

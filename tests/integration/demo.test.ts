@@ -1,8 +1,10 @@
 // The demo seed (run by npm test's set-up, as by npm start) publishes two fictional briefs through
 // the same path as real ones: upload, analysis, certainty, publication.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { demoBriefs } from "../../server/db/demo-briefs";
-import { slugify } from "../../server/briefs/briefs";
+import { demoBriefs } from "#workflows/demo-briefs";
+import { slugify } from "#core/slug";
+import { snapshotSchemaVersion } from "#core/snapshot/schema";
+import { readSnapshot } from "#core/snapshot/upgrade";
 import { startTestApp, type TestApp } from "../support/app";
 
 let app: TestApp;
@@ -14,6 +16,7 @@ afterAll(async () => {
 });
 
 interface Snapshot {
+  schemaVersion: number;
   brief: { demo: boolean };
   outcomes: { result: { treatments: string[] }; dataset: { parsed: { studies: { arms: unknown[] }[] } }; groups: { level: number }[] }[];
 }
@@ -39,5 +42,15 @@ describe("the fictional demo briefs", () => {
     const snapshot = await snapshotOf(large!.title);
     expect(snapshot.outcomes[0]!.result.treatments.length).toBeGreaterThanOrEqual(20);
     expect(new Set(snapshot.outcomes[0]!.groups.map((g) => g.level)).size).toBeGreaterThan(1);
+  });
+});
+
+describe("every stored snapshot", () => {
+  it("parses against the declared contract, and the API answers the current shape", async () => {
+    const { rows } = await app.connection.pool.query<{ snapshot: unknown }>("select snapshot from brief_versions");
+    expect(rows.length).toBeGreaterThanOrEqual(2);
+    for (const row of rows) expect(readSnapshot(row.snapshot).schemaVersion).toBe(snapshotSchemaVersion);
+    const snapshot = await snapshotOf(demoBriefs()[0]!.title);
+    expect(snapshot.schemaVersion).toBe(snapshotSchemaVersion);
   });
 });

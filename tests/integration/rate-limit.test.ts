@@ -1,7 +1,7 @@
 // The sign-in rate limit: more than five failed sign-ins within a minute are refused (server/http/security.ts).
 // A server of its own, so that the failures counted here do not meet other tests.
 import { afterAll, beforeAll, expect, it } from "vitest";
-import { demoPassword } from "../../server/db/seed";
+import { demoPassword } from "#workflows/seed";
 import { startTestApp, type TestApp } from "../support/app";
 import { ApiClient } from "../support/client";
 

@@ -1,7 +1,7 @@
 // Review before publishing, and withdrawal (PRODUCT.md: draft → in review → published → withdrawn).
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { demoPassword } from "../../server/db/seed";
-import { ensurePerson } from "../../server/people";
+import { demoPassword } from "#workflows/seed";
+import { ensurePerson } from "#db/people";
 import { startTestApp, type TestApp } from "../support/app";
 import { analysedBrief as analysedBriefBy } from "../support/briefs";
 import { ApiClient } from "../support/client";

@@ -1,6 +1,6 @@
 // Sign-in, sessions and role checks against the real database (PostgreSQL started by npm test).
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { demoPassword } from "../../server/db/seed";
+import { demoPassword } from "#workflows/seed";
 import { startTestApp, type TestApp } from "../support/app";
 import { ApiClient } from "../support/client";
 

@@ -1,6 +1,6 @@
 // Publishing: frozen versions, the database refusing changes, and the embargo.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { demoPassword } from "../../server/db/seed";
+import { demoPassword } from "#workflows/seed";
 import { startTestApp, type TestApp } from "../support/app";
 import { analysedBrief as analysedBriefBy, approve as approveBy } from "../support/briefs";
 import { ApiClient } from "../support/client";

@@ -1,8 +1,8 @@
 // An in-process server on a free port, against the test cluster that scripts/test.ts started.
 import type { AddressInfo } from "node:net";
 import type { Server } from "node:http";
-import { createApp } from "../../server/app";
-import { connectDatabase, type DatabaseConnection } from "../../server/db/client";
+import { createApp } from "#web/app";
+import { connectDatabase, type DatabaseConnection } from "#db/client";
 
 export function testDatabaseUrl(): string {
   const url = process.env.TEST_DATABASE_URL;

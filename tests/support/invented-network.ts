@@ -1,7 +1,7 @@
 // An invented three-arm network for unit tests (binary outcome, higher is better): s1 and s4
 // compare placebo and alpha, s2 placebo and beta, s3 alpha and beta.
-import { analyse } from "../../server/nma/analyse";
-import { parseDataset } from "../../server/nma/parse";
+import { analyse } from "#core/nma/analyse";
+import { parseDataset } from "#core/nma/parse";
 
 export const inventedCsv = `study,treatment,events,total
 s1,placebo,20,100

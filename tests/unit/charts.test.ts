@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
-import { axisTicks, formatEffect } from "../../components/charts/scale";
+import { formatEffect } from "#core/effects";
+import { axisTicks } from "#components/charts/scale";
 
 describe("formatEffect", () => {
   it("shows ratios exponentiated and differences as they are", () => {

@@ -1,9 +1,9 @@
 import { useMemo } from "react";
 import { I18nextProvider, useTranslation } from "react-i18next";
 import { useData } from "vike-react/useData";
-import { BriefPage } from "../../../components/brief/BriefPage";
-import { createI18n } from "../../../components/i18n";
-import type { PreviewPageData } from "../../../server/briefs/page-data";
+import { BriefPage } from "#components/brief/BriefPage";
+import { createI18n } from "#components/i18n";
+import type { PreviewPageData } from "#web/pages/page-data";
 
 export default function Page() {
   const data = useData<PreviewPageData>();

@@ -1,5 +1,5 @@
 import type { PageContextServer } from "vike/types";
-import { previewPageData } from "../../../server/briefs/page-data";
+import { previewPageData } from "#web/pages/page-data";
 
 export async function data(pageContext: PageContextServer) {
   return previewPageData(pageContext);

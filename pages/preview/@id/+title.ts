@@ -1,3 +1,3 @@
-import { createI18n } from "../../../components/i18n";
+import { createI18n } from "#components/i18n";
 
 export default () => createI18n().t("preview.pageTitle");

@@ -1,7 +1,8 @@
 import { useTranslation } from "react-i18next";
 import { useData } from "vike-react/useData";
-import { BriefList } from "../../../components/BriefList";
+import { BriefList } from "#components/BriefList";
 import type { Data } from "./+data";
+import { searchUrl } from "#core/urls";
 
 export default function Page() {
   const { t } = useTranslation();
@@ -9,7 +10,7 @@ export default function Page() {
   return (
     <>
       <p className="font-sans text-sm">
-        <a href="/briefs">{t("search.title")}</a>
+        <a href={searchUrl()}>{t("search.title")}</a>
       </p>
       <h1 className="mt-2 text-4xl leading-tight font-semibold tracking-tight">{t("topic.title", { name: topic.name })}</h1>
       <BriefList briefs={briefs} />

@@ -1,8 +1,8 @@
 // /topics/:slug — the released briefs of one topic.
 import { render } from "vike/abort";
 import type { PageContextServer } from "vike/types";
-import { searchBriefs, topicsOf } from "../../../server/briefs/search";
-import { listReleasedBriefs } from "../../../server/briefs/versions";
+import { searchBriefs, topicsOf } from "#core/search";
+import { listReleasedBriefs } from "#db/versions";
 
 export async function data(pageContext: PageContextServer) {
   const all = await listReleasedBriefs(pageContext.db!);

@@ -1,10 +1,13 @@
-// The page model of a version (server/briefs/brief-page.ts): shaped from a snapshot only.
+// The page model of a version (server/core/brief-page.ts): projected from a snapshot only, whose facts
+// were computed when it was published (server/core/snapshot/facts.ts).
 import { describe, expect, it } from "vitest";
-import { briefContent, certaintyFootnotes, comparisonContent } from "../../../server/briefs/brief-page";
-import type { VersionSnapshot } from "../../../server/briefs/snapshot";
-import type { ComparisonCertainty } from "../../../server/grade/assess";
-import { concludeOutcome } from "../../../server/grade/conclusions";
-import { z975 } from "../../../server/nma/analyse";
+import { briefContent, comparisonContent } from "#core/brief-page";
+import type { ComparisonCertainty } from "#core/grade/assess";
+import { concludeOutcome } from "#core/grade/conclusions";
+import { certaintyFootnotes } from "#core/grade/footnotes";
+import { outcomeFacts } from "#core/snapshot/facts";
+import { versionSnapshotSchema } from "#core/snapshot/schema";
+import { z975 } from "#core/nma/analyse";
 import { inventedDataset, inventedResult, inventedSettings } from "../../support/invented-network";
 
 const [parsed, settings, result] = [inventedDataset, inventedSettings, inventedResult];
@@ -15,7 +18,9 @@ const treatments = [
   { label: "beta", displayName: "Beta drops" },
   { label: "placebo", displayName: "Placebo" },
 ];
-const snapshot: VersionSnapshot = {
+// Through the declared contract, as publishing stores it.
+const snapshot = versionSnapshotSchema.parse({
+  schemaVersion: 2,
   brief: { slug: "invented", title: "Invented brief", topic: "Testing", condition: "A condition", population: "Adults", demo: true },
   treatments,
   texts: { laySummaryHtml: "", keyMessagesHtml: "" },
@@ -31,12 +36,13 @@ const snapshot: VersionSnapshot = {
       result,
       certainty,
       ...concludeOutcome(result, certainty, { name: "Response", baselineRisk: 0.2, thresholds, names: Object.fromEntries(treatments.map((t) => [t.label, t.displayName])) }),
+      ...outcomeFacts(result, certainty, parsed.studies),
     },
   ],
   version: 1,
   releaseAt: "2026-12-01T00:00:00.000Z",
   note: null,
-};
+});
 
 describe("the brief page model", () => {
   it("lists each option against the reference alphabetically by the name readers see, never by effect", () => {

@@ -1,6 +1,6 @@
 // Markdown is rendered and sanitised on the server: nothing executable gets through.
 import { describe, expect, it } from "vitest";
-import { renderMarkdown } from "../../../server/content/markdown";
+import { renderMarkdown } from "#core/markdown";
 
 describe("renderMarkdown", () => {
   it("renders ordinary Markdown", () => {

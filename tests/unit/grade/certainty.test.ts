@@ -8,7 +8,7 @@ import {
   indirectCertainty,
   networkCertainty,
   rateDown,
-} from "../../../server/grade/certainty";
+} from "#core/grade/certainty";
 
 const none = { levels: 0 as const, reason: "" };
 
@@ -91,10 +91,10 @@ describe("suggestions", () => {
 });
 
 describe("assessing every comparison of an outcome (METHODS.md §8)", async () => {
-  const { assessCertainty } = await import("../../../server/grade/assess");
-  const { analyse } = await import("../../../server/nma/analyse");
-  const { parseDataset } = await import("../../../server/nma/parse");
-  const { pairKey } = await import("../../../server/grade/certainty");
+  const { assessCertainty } = await import("#core/grade/assess");
+  const { analyse } = await import("#core/nma/analyse");
+  const { parseDataset } = await import("#core/nma/parse");
+  const { pairKey } = await import("#core/pairs");
   // The hand-worked triangle of tests/unit/nma/worked-example.test.ts: every pair has direct evidence.
   const csv = "study,treatment1,treatment2,estimate,se\nS1,B,A,1.0,0.5\nS2,C,A,2.0,0.5\nS3,C,B,0.5,1.0\n";
   const result = analyse(parseDataset(csv, "contrast"), { measure: "MD", model: "fixed", reference: "A", better: "higher" });

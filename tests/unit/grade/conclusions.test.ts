@@ -1,11 +1,11 @@
 // What a version says about an outcome: groups with labels, a statement and an absolute effect for
 // every comparison in both directions (METHODS.md §7, §9, §10).
 import { describe, expect, it } from "vitest";
-import { createI18n } from "../../../components/i18n";
-import type { ComparisonCertainty } from "../../../server/grade/assess";
-import type { Rating } from "../../../server/grade/certainty";
-import { concludeOutcome, magnitudeFor } from "../../../server/grade/conclusions";
-import { comparisonOf } from "../../../server/nma/comparison";
+import { createI18n } from "#components/i18n";
+import type { ComparisonCertainty } from "#core/grade/assess";
+import type { Rating } from "#core/grade/certainty";
+import { concludeOutcome, magnitudeFor } from "#core/grade/conclusions";
+import { comparisonOf } from "#core/nma/comparison";
 import { inventedResult } from "../../support/invented-network";
 
 const result = inventedResult;

@@ -1,7 +1,7 @@
 // Grouping by the minimally contextualised framework (Brignardello-Petersen et al., BMJ 2020;371:m3900; METHODS.md §9).
 import { describe, expect, it } from "vitest";
-import type { Rating } from "../../../server/grade/certainty";
-import { groupByMagnitude, groupTreatments, type PairEvidence } from "../../../server/grade/groups";
+import type { Rating } from "#core/grade/certainty";
+import { groupByMagnitude, groupTreatments, type PairEvidence } from "#core/grade/groups";
 
 /** Evidence from a table of "t vs u" entries; the reverse order is the negation; unlisted pairs are null effects. */
 function table(entries: Record<string, [number, number, Rating | null]>) {

@@ -2,10 +2,10 @@
 import { readFileSync } from "node:fs";
 import path from "node:path";
 import { describe, expect, it } from "vitest";
-import { createI18n } from "../../../components/i18n";
-import { rankExplainer } from "../../../server/grade/rank-explainer";
-import { analyse } from "../../../server/nma/analyse";
-import { parseDataset } from "../../../server/nma/parse";
+import { createI18n } from "#components/i18n";
+import { rankExplainer } from "#core/grade/rank-explainer";
+import { analyse } from "#core/nma/analyse";
+import { parseDataset } from "#core/nma/parse";
 
 const csv = readFileSync(path.resolve(__dirname, "../../fixtures/reference/senn2013.csv"));
 const result = analyse(parseDataset(csv, "arm-continuous"), { measure: "MD", model: "random", reference: "placebo", better: "lower", draws: 1000 });

@@ -2,9 +2,9 @@
 // against the wording of Santesso et al., GRADE guidelines 26, J Clin Epidemiol 2020;119:126–135
 // (the phrases below are recalled from that paper's table of suggested statements).
 import { describe, expect, it } from "vitest";
-import { createI18n, locales } from "../../../components/i18n";
-import type { Rating } from "../../../server/grade/certainty";
-import { absoluteStatement, magnitudeOf, statementFor, type Magnitude } from "../../../server/grade/statements";
+import { createI18n, locales } from "#components/i18n";
+import type { Rating } from "#core/grade/certainty";
+import { absoluteStatement, magnitudeOf, statementFor, type Magnitude } from "#core/grade/statements";
 
 const wording: Record<Exclude<Rating, "very_low">, Record<Magnitude, { reduce: string; increase: string }>> = {
   high: {

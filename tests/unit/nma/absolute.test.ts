@@ -1,6 +1,6 @@
 // Absolute effects per 1000 (METHODS.md §7; GRADE Handbook section 5).
 import { describe, expect, it } from "vitest";
-import { absoluteEffect, treatmentRisk } from "../../../server/nma/absolute";
+import { absoluteEffect, treatmentRisk } from "#core/nma/absolute";
 
 describe("treatment risk from the baseline risk", () => {
   it("OR: p₁ = OR·p₀ / (1 − p₀ + OR·p₀); with OR 2 and p₀ 0.1, 0.2/1.1", () => {

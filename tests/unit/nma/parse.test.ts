@@ -1,9 +1,9 @@
 // Validation of the input formats (METHODS.md §1): each broken rule names the line, column and rule.
 import { describe, expect, it } from "vitest";
-import { armEffects } from "../../../server/nma/contrasts";
-import { analyse } from "../../../server/nma/analyse";
-import { issueCap, parseDataset } from "../../../server/nma/parse";
-import { DatasetError, type DatasetIssue, type Format } from "../../../server/nma/types";
+import { armEffects } from "#core/nma/contrasts";
+import { analyse } from "#core/nma/analyse";
+import { issueCap, parseDataset } from "#core/nma/parse";
+import { DatasetError, type DatasetIssue, type Format } from "#core/nma/types";
 
 function issuesOf(run: () => unknown): DatasetIssue[] {
   try {

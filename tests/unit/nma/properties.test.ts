@@ -3,10 +3,10 @@ import fc from "fast-check";
 import { readFileSync } from "node:fs";
 import path from "node:path";
 import { describe, expect, it } from "vitest";
-import { analyse, type AnalysisResult } from "../../../server/nma/analyse";
-import { comparisonOf } from "../../../server/nma/comparison";
-import { parseDataset } from "../../../server/nma/parse";
-import type { AnalysisOptions } from "../../../server/nma/types";
+import { analyse, type AnalysisResult } from "#core/nma/analyse";
+import { comparisonOf } from "#core/nma/comparison";
+import { parseDataset } from "#core/nma/parse";
+import type { AnalysisOptions } from "#core/nma/types";
 
 interface Arm {
   treatment: string;

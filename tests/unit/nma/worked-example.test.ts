@@ -14,9 +14,9 @@
 // B vs A by back-calculation (§5): 1/v_I = 24/5 − 4 = 0.8 → v_I = 1.25;
 //   d_I = 1.25·(26/24 · 24/5 − 1·4) = 1.25·1.2 = 1.5 (= 2.0 − 0.5 through C); z = (1 − 1.5)/√1.5; direct share (5/24)/0.25 = 5/6.
 import { describe, expect, it } from "vitest";
-import { analyse } from "../../../server/nma/analyse";
-import { comparisonOf } from "../../../server/nma/comparison";
-import { parseDataset } from "../../../server/nma/parse";
+import { analyse } from "#core/nma/analyse";
+import { comparisonOf } from "#core/nma/comparison";
+import { parseDataset } from "#core/nma/parse";
 
 const csv = "study,treatment1,treatment2,estimate,se\nS1,B,A,1.0,0.5\nS2,C,A,2.0,0.5\nS3,C,B,0.5,1.0\n";
 const result = analyse(parseDataset(csv, "contrast"), { measure: "MD", model: "fixed", reference: "A", better: "higher" });

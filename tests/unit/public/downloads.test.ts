@@ -1,7 +1,7 @@
 // CSV downloads neutralise cells a spreadsheet would run as a formula (OWASP, "CSV Injection":
 // prefix a single quote to cells starting with =, +, -, @, tab or carriage return).
 import { describe, expect, it } from "vitest";
-import { neutralise } from "../../../server/public/downloads";
+import { neutralise } from "#web/public/downloads";
 
 describe("neutralising CSV cells", () => {
   it.each(["=SUM(A1:A2)", "+1+1", "-2+3", "@cmd", "\tx", "\rx"])("prefixes %j with a quote", (cell) => {

@@ -1,17 +1,17 @@
 import { useTranslation } from "react-i18next";
 import { useData } from "vike-react/useData";
-import { PageHead } from "../../../../components/brief/PageHead";
-import type { BriefPageData } from "../../../../server/briefs/page-data";
+import { PageHead } from "#components/brief/PageHead";
+import type { BriefPageData } from "#web/pages/page-data";
 
 export default function Head() {
   const { t } = useTranslation();
-  const { view, versionPath, siteUrl } = useData<BriefPageData>();
+  const { view, path, siteUrl } = useData<BriefPageData>();
   return (
     <PageHead
       facts={{
         title: view.title,
         siteUrl,
-        path: versionPath,
+        path,
         version: view.version,
         releaseAt: view.releaseAt,
         condition: view.condition,

@@ -1,6 +1,6 @@
 import type { PageContext } from "vike/types";
-import { createI18n } from "../../../../components/i18n";
-import type { BriefPageData } from "../../../../server/briefs/page-data";
+import { createI18n } from "#components/i18n";
+import type { BriefPageData } from "#web/pages/page-data";
 
 export default (pageContext: PageContext) => {
   const { view } = pageContext.data as BriefPageData;

@@ -1,1 +1,1 @@
-export { default } from "../../../(latest)/+Head";
+export { default } from "#pages/briefs/@slug/(latest)/+Head";

@@ -1,1 +1,1 @@
-export { default } from "../../../(latest)/+Page";
+export { default } from "#pages/briefs/@slug/(latest)/+Page";

@@ -1,7 +1,8 @@
 // /briefs/:slug/v/:n — one version, for ever: what reporters cite.
 import type { PageContextServer } from "vike/types";
-import { briefPageData } from "../../../../../../server/briefs/page-data";
+import { versionNumberOf } from "#core/urls";
+import { briefPageData } from "#web/pages/page-data";
 
 export async function data(pageContext: PageContextServer) {
-  return briefPageData(pageContext, Number(pageContext.routeParams.number));
+  return briefPageData(pageContext, versionNumberOf(String(pageContext.routeParams.number)) ?? 0);
 }

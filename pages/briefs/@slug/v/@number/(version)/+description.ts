@@ -1,1 +1,1 @@
-export { default } from "../../../(latest)/+description";
+export { default } from "#pages/briefs/@slug/(latest)/+description";

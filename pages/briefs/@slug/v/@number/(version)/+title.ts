@@ -1,1 +1,1 @@
-export { default } from "../../../(latest)/+title";
+export { default } from "#pages/briefs/@slug/(latest)/+title";

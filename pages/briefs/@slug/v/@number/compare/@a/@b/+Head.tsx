@@ -1,7 +1,7 @@
 import { useTranslation } from "react-i18next";
 import { useData } from "vike-react/useData";
-import { PageHead } from "../../../../../../../../components/brief/PageHead";
-import type { ComparisonPageData } from "../../../../../../../../server/briefs/page-data";
+import { PageHead } from "#components/brief/PageHead";
+import type { ComparisonPageData } from "#web/pages/page-data";
 
 export default function Head() {
   const { t } = useTranslation();

@@ -1,0 +1,98 @@
+// Certainty for every comparison of an outcome: the analyst's judgements and the engine's result
+// in, ratings, suggestions and what still needs a judgement out (METHODS.md §8). Pure.
+import type { AnalysisResult } from "../nma/analyse";
+import { pairKey } from "../pairs";
+import {
+  directCertainty,
+  dominantLoop,
+  imprecisionSuggestion,
+  incoherenceSuggestion,
+  indirectCertainty,
+  networkCertainty,
+  type DirectJudgement,
+  type Downgrade,
+  type Rating,
+  type Suggestion,
+  type SuggestionDecision,
+} from "./certainty";
+
+/** What the analyst records for one comparison; every part is optional until it is given. */
+export interface ComparisonJudgement {
+  direct?: DirectJudgement;
+  intransitivity?: Downgrade;
+  /** Where there is no first-order loop, the analyst sets the indirect certainty. */
+  indirectRating?: { rating: Rating; reason: string };
+  dominant?: "direct" | "indirect" | null;
+  incoherence?: SuggestionDecision;
+  imprecision?: SuggestionDecision;
+}
+
+export type Pending = "direct" | "indirect" | "incoherence" | "imprecision";
+
+export interface ComparisonCertainty {
+  treatment: string;
+  comparator: string;
+  direct: Rating | null;
+  indirect: Rating | null;
+  indirectVia: string | null;
+  network: Rating | null;
+  suggestions: { incoherence: Suggestion; imprecision: Suggestion };
+  judgement: ComparisonJudgement;
+  /** The parts that still need the analyst: the desk lists these comparisons first. */
+  pending: Pending[];
+}
+
+export interface Thresholds {
+  small: number | null;
+  moderate: number | null;
+  large: number | null;
+}
+
+export function assessCertainty(result: AnalysisResult, judgements: Map<string, ComparisonJudgement>, thresholds: Thresholds): ComparisonCertainty[] {
+  const byPair = new Map(result.comparisons.map((c) => [pairKey(c.treatment, c.comparator), c]));
+  const directVariance = (a: string, b: string) => {
+    const direct = byPair.get(pairKey(a, b))?.direct;
+    return direct ? direct.se ** 2 : null;
+  };
+  const directRating = (a: string, b: string): Rating | null => {
+    const judgement = judgements.get(pairKey(a, b))?.direct;
+    return byPair.get(pairKey(a, b))?.direct && judgement ? directCertainty(judgement) : null;
+  };
+
+  return result.comparisons.map((comparison) => {
+    const { treatment: a, comparator: b } = comparison;
+    const judgement = judgements.get(pairKey(a, b)) ?? {};
+    const pending: Pending[] = [];
+
+    const direct = comparison.direct ? directRating(a, b) : null;
+    if (comparison.direct && !direct) pending.push("direct");
+
+    let indirect: Rating | null = null;
+    let indirectVia: string | null = null;
+    if (comparison.indirect) {
+      const loop = dominantLoop(a, b, result.treatments, directVariance);
+      if (loop) {
+        indirectVia = loop.via;
+        const first = directRating(...loop.first);
+        const second = directRating(...loop.second);
+        indirect = first && second ? indirectCertainty(first, second, judgement.intransitivity ?? { levels: 0, reason: "" }) : null;
+      } else {
+        indirect = judgement.indirectRating?.rating ?? null;
+      }
+      if (!indirect) pending.push("indirect");
+    }
+
+    const suggestions = {
+      incoherence: incoherenceSuggestion(comparison.incoherence),
+      imprecision: imprecisionSuggestion(comparison.network, thresholds),
+    };
+    if (!judgement.incoherence) pending.push("incoherence");
+    if (!judgement.imprecision) pending.push("imprecision");
+
+    const network =
+      judgement.incoherence && judgement.imprecision
+        ? networkCertainty({ direct, indirect, dominant: judgement.dominant, incoherence: judgement.incoherence, imprecision: judgement.imprecision })
+        : null;
+    return { treatment: a, comparator: b, direct, indirect, indirectVia, network, suggestions, judgement, pending };
+  });
+}

@@ -1,0 +1,137 @@
+// What a version says about one outcome, built once when it is published and frozen with it: the
+// groups with their plain-language labels (METHODS.md §9), a statement and, for binary outcomes, the
+// absolute effect of every comparison in both directions (§10, §7), and the rank-score explainer.
+// Pure: the engine's result, the ratings and the outcome's settings in; message keys and facts out.
+import { absoluteEffect, treatmentRisk, type AbsoluteEffect } from "../nma/absolute";
+import type { AnalysisResult } from "../nma/analyse";
+import { comparisonOf } from "../nma/comparison";
+import type { ComparisonCertainty, Thresholds } from "./assess";
+import { pairKey } from "../pairs";
+import type { Rating } from "./certainty";
+import { groupByMagnitude, groupTreatments, type TreatmentGroup } from "./groups";
+import { rankExplainer, type RankExplainer } from "./rank-explainer";
+import { absoluteStatement, magnitudeOf, statementFor, type Magnitude } from "./statements";
+
+/** A message key of locales/<locale>/common.json with the facts it needs: the words are chosen per locale. */
+export interface Message {
+  key: string;
+  values: Record<string, string | number>;
+}
+
+export type Framework = "minimal" | "partial";
+
+export interface LabelledGroup extends TreatmentGroup {
+  label: Message;
+}
+
+/** "treatment vs comparator": one direction of one comparison. */
+export interface ComparisonReading {
+  treatment: string;
+  comparator: string;
+  certainty: Rating | null;
+  magnitude: Magnitude;
+  /** Null while the comparison is not rated (a brief is not published then). */
+  statement: Message | null;
+  /** Binary outcomes with a baseline risk: per 1000, the comparator's risk taken from the reference's. */
+  absolute: (AbsoluteEffect & { statement: Message }) | null;
+}
+
+export interface OutcomeConclusions {
+  framework: Framework;
+  groups: LabelledGroup[];
+  readings: ComparisonReading[];
+  rankScores: RankExplainer;
+}
+
+export interface OutcomeFacts {
+  name: string;
+  baselineRisk: number | null;
+  thresholds: Thresholds;
+  /** The names readers see, by the label in the data. */
+  names: Record<string, string>;
+}
+
+const hasThresholds = (thresholds: Thresholds) => thresholds.small !== null || thresholds.moderate !== null || thresholds.large !== null;
+
+/**
+ * The size of an effect for its statement. With thresholds, the point estimate against them (§10).
+ * Without any, our own rule (docs/decisions/0008): "trivial" when the 95% CI includes the null, else
+ * "moderate", whose wording ("reduces", "probably reduces", "may reduce") carries no size qualifier.
+ */
+export function magnitudeFor(network: { estimate: number; lower: number; upper: number }, thresholds: Thresholds): Magnitude {
+  if (!hasThresholds(thresholds)) return network.lower <= 0 && network.upper >= 0 ? "trivial" : "moderate";
+  const given = (value: number | null) => value ?? Number.POSITIVE_INFINITY;
+  return magnitudeOf(network.estimate, { small: given(thresholds.small), moderate: given(thresholds.moderate), large: given(thresholds.large) });
+}
+
+/** "Good sleep" reads "good sleep" inside a sentence; "HbA1c" and "IL-6" keep their capitals. */
+function inSentence(name: string): string {
+  return /^[A-Z][a-z]/.test(name) ? name[0]!.toLowerCase() + name.slice(1) : name;
+}
+
+const sizes = ["small", "moderate", "large"] as const;
+
+function groupLabel(group: TreatmentGroup, framework: Framework, extremes: { best: number; worst: number }, reference: { label: string; name: string }): Message {
+  const values = { reference: reference.name };
+  if (group.firmness === "very-uncertain") return { key: "groups.veryUncertain", values };
+  const firmness = group.firmness;
+  if (group.treatments.length === 1 && group.treatments[0] === reference.label) return { key: "groups.referenceOnly", values };
+  if (framework === "partial") {
+    if (group.level === 0) return { key: `groups.partial.trivial.${firmness}`, values };
+    const side = group.level > 0 ? "benefit" : "harm";
+    return { key: `groups.partial.${side}.${sizes[Math.abs(group.level) - 1]}.${firmness}`, values };
+  }
+  if (group.level === 0) return { key: `groups.minimal.none.${firmness}`, values };
+  if (group.level > 0) return { key: `groups.minimal.${group.level === extremes.best ? "best" : "better"}.${firmness}`, values };
+  return { key: `groups.minimal.${group.level === extremes.worst && group.level < -1 ? "worst" : "worse"}.${firmness}`, values };
+}
+
+export function concludeOutcome(result: AnalysisResult, certainty: ComparisonCertainty[], outcome: OutcomeFacts): OutcomeConclusions {
+  const rated = new Map(certainty.map((c) => [pairKey(c.treatment, c.comparator), c.network]));
+  const evidence = (t: string, u: string) => ({ ...comparisonOf(result, t, u)!.network, certainty: rated.get(pairKey(t, u)) ?? null });
+  const framework: Framework = hasThresholds(outcome.thresholds) ? "partial" : "minimal";
+  const groups =
+    framework === "partial"
+      ? groupByMagnitude(result.treatments, result.reference, result.better, outcome.thresholds, evidence)
+      : groupTreatments(result.treatments, result.reference, result.better, evidence);
+  const levels = groups.filter((g) => g.firmness !== "very-uncertain").map((g) => g.level);
+  const extremes = { best: Math.max(0, ...levels), worst: Math.min(0, ...levels) };
+  const name = (label: string) => outcome.names[label] ?? label;
+
+  const riskUnder = (label: string) =>
+    outcome.baselineRisk === null || result.measure === "MD"
+      ? null
+      : label === result.reference
+        ? outcome.baselineRisk
+        : treatmentRisk(result.measure, comparisonOf(result, label, result.reference)!.network.estimate, outcome.baselineRisk);
+
+  const readings = result.treatments.flatMap((t) =>
+    result.treatments
+      .filter((u) => u !== t)
+      .map((u): ComparisonReading => {
+        const network = comparisonOf(result, t, u)!.network;
+        const rating = rated.get(pairKey(t, u)) ?? null;
+        const magnitude = magnitudeFor(network, outcome.thresholds);
+        const statement = rating
+          ? statementFor({ treatment: name(t), comparator: name(u), outcome: inSentence(outcome.name), estimate: network.estimate, certainty: rating, magnitude })
+          : null;
+        const comparatorRisk = riskUnder(u);
+        const absolute = comparatorRisk === null ? null : absoluteEffect(result.measure, network, comparatorRisk);
+        return {
+          treatment: t,
+          comparator: u,
+          certainty: rating,
+          magnitude,
+          statement,
+          absolute: absolute ? { ...absolute, statement: absoluteStatement(absolute.differencePer1000) } : null,
+        };
+      }),
+  );
+
+  return {
+    framework,
+    groups: groups.map((group) => ({ ...group, label: groupLabel(group, framework, extremes, { label: result.reference, name: name(result.reference) }) })),
+    readings,
+    rankScores: rankExplainer(result),
+  };
+}

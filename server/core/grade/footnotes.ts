@@ -1,0 +1,28 @@
+// The footnotes of a comparison's certainty (METHODS.md §8: a reason for rating down, or for
+// departing from a suggestion, is published as a footnote). Pure: one assessment in, footnotes out.
+import type { Footnote } from "../snapshot/schema";
+import type { ComparisonCertainty } from "./assess";
+
+/** The reasons a comparison's certainty went down, domain by domain, as its footnotes. */
+export function certaintyFootnotes(certainty: ComparisonCertainty): Footnote[] {
+  const { judgement, suggestions } = certainty;
+  const notes: Footnote[] = [];
+  if (judgement.direct) {
+    for (const [domain, downgrade] of Object.entries(judgement.direct)) {
+      if (downgrade.levels > 0) notes.push({ domainKey: `desk.domain.${domain}`, levels: downgrade.levels, reason: downgrade.reason, because: null });
+    }
+  }
+  if (judgement.intransitivity && judgement.intransitivity.levels > 0) {
+    notes.push({ domainKey: "certainty.footnote.intransitivity", levels: judgement.intransitivity.levels, reason: judgement.intransitivity.reason, because: null });
+  }
+  if (judgement.indirectRating) {
+    notes.push({ domainKey: "certainty.footnote.indirectSet", levels: 0, reason: judgement.indirectRating.reason, because: null });
+  }
+  for (const domain of ["incoherence", "imprecision"] as const) {
+    const decision = judgement[domain];
+    if (decision && decision.levels > 0) {
+      notes.push({ domainKey: `desk.domain.${domain}`, levels: decision.levels, reason: decision.reason || null, because: decision.reason ? null : suggestions[domain].because });
+    }
+  }
+  return notes;
+}

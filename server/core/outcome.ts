@@ -1,0 +1,35 @@
+// An outcome's settings (PRODUCT.md, the desk: name, binary or continuous, measure, model, reference,
+// direction, baseline risk, thresholds) and the rules a valid outcome keeps. Pure.
+import { z } from "zod";
+
+export const outcomeFields = z.object({
+    name: z.string().trim().min(1).max(200),
+    kind: z.enum(["binary", "continuous"]),
+    measure: z.enum(["OR", "RR", "RD", "MD"]),
+    model: z.enum(["fixed", "random"]),
+    referenceTreatment: z.string().trim().min(1).max(200),
+    direction: z.enum(["higher", "lower"]),
+    baselineRisk: z.number().gt(0).lt(1).nullish(),
+    unit: z.string().trim().max(50).nullish(),
+    thresholdSmall: z.number().positive().nullish(),
+    thresholdModerate: z.number().positive().nullish(),
+    thresholdLarge: z.number().positive().nullish(),
+});
+
+export const outcomeInput = outcomeFields
+  .refine((o) => (o.kind === "binary" ? o.measure !== "MD" : o.measure === "MD"), {
+    message: "binary outcomes take OR, RR or RD; continuous outcomes take MD",
+    path: ["measure"],
+  })
+  .refine(
+    (o) => {
+      const given = [o.thresholdSmall, o.thresholdModerate, o.thresholdLarge].filter((t): t is number => t != null);
+      return given.every((t, i) => i === 0 || t > given[i - 1]!);
+    },
+    { message: "thresholds must grow from small to moderate to large", path: ["thresholdModerate"] },
+  );
+
+export type OutcomeInput = z.infer<typeof outcomeInput>;
+
+/** A PATCH names the row version it read and any fields to change; the merged outcome is checked whole. */
+export const outcomePatch = outcomeFields.partial().extend({ rowVersion: z.number().int().positive() }).strict();

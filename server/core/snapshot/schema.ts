@@ -1,0 +1,132 @@
+// The frozen version of a brief, declared: what publishing writes into brief_versions.snapshot and
+// every public page, file and API answer reads back (docs/decisions/0012-snapshot-contract.md).
+// The types come from this schema, never from the engine's live types, so an engine change cannot
+// silently change the type of versions frozen long ago. A change of shape raises
+// `snapshotSchemaVersion` and adds a numbered upgrade in ./upgrade.ts.
+import { z } from "zod";
+
+export const snapshotSchemaVersion = 2;
+
+const finite = z.number();
+const text = z.string();
+const interval = z.object({ estimate: finite, lower: finite, upper: finite });
+const estimateWithCi = interval.extend({ se: finite });
+const rating = z.enum(["very_low", "low", "moderate", "high"]);
+
+/** A message key of locales/<locale>/*.json with its facts: the words are chosen per locale when a page renders. */
+export const messageSchema = z.object({ key: text, values: z.record(text, z.union([text, finite])) });
+
+/** One reason a comparison was rated down, for its footnote: the analyst's words, or the computed reason. */
+const footnote = z.object({ domainKey: text, levels: finite, reason: text.nullable(), because: messageSchema.nullable() });
+
+/** Every fact a page shows about one pair, computed when the version is published (never when it is read). */
+const pairFacts = z.object({
+  treatment: text,
+  comparator: text,
+  network: estimateWithCi,
+  direct: estimateWithCi.extend({ studies: z.number().int(), participants: z.number().int().nullable() }).nullable(),
+  indirect: estimateWithCi.nullable(),
+  incoherenceP: finite.nullable(),
+  certainty: rating.nullable(),
+  footnotes: z.array(footnote),
+});
+
+/** "treatment vs comparator", one direction of one comparison, read in words. */
+const reading = z.object({
+  treatment: text,
+  comparator: text,
+  certainty: rating.nullable(),
+  magnitude: z.enum(["large", "moderate", "small", "trivial"]),
+  statement: messageSchema.nullable(),
+  absolute: z
+    .object({ baselinePer1000: finite, treatmentPer1000: interval, differencePer1000: interval, statement: messageSchema })
+    .nullable(),
+});
+
+/** A study as the upload's parser read it (METHODS.md §1), with the line of the file of each row. */
+const parsedStudy = z.discriminatedUnion("format", [
+  z.looseObject({ format: z.literal("arm-binary"), study: text, arms: z.array(z.looseObject({ treatment: text, events: finite, total: finite, row: finite })) }),
+  z.looseObject({ format: z.literal("arm-continuous"), study: text, arms: z.array(z.looseObject({ treatment: text, mean: finite, sd: finite, n: finite, row: finite })) }),
+  z.looseObject({ format: z.literal("contrast"), study: text, contrasts: z.array(z.looseObject({ treatment1: text, treatment2: text, estimate: finite, se: finite, row: finite })) }),
+]);
+
+const outcomeSnapshot = z.object({
+  name: text,
+  kind: z.enum(["binary", "continuous"]),
+  settings: z.object({
+    measure: z.enum(["OR", "RR", "RD", "MD"]),
+    model: z.enum(["fixed", "random"]),
+    reference: text,
+    better: z.enum(["higher", "lower"]),
+    draws: z.number().int().optional(),
+    seed: z.number().int().optional(),
+  }),
+  baselineRisk: finite.nullable(),
+  unit: text.nullable(),
+  thresholds: z.object({ small: finite.nullable(), moderate: finite.nullable(), large: finite.nullable() }),
+  /** The uploaded file as parsed: the inputs download. */
+  dataset: z.object({
+    fileName: text,
+    sha256: text,
+    format: z.enum(["arm-binary", "arm-continuous", "contrast"]),
+    parsed: z.looseObject({ format: text, studies: z.array(parsedStudy) }),
+  }),
+  /** The engine's whole output as it was then: archived for the results download, never read by a page. */
+  result: z.looseObject({ engineVersion: text }),
+  /** The certainty assessment as it was then (judgements, suggestions): archived for the results download. */
+  certainty: z.array(z.looseObject({ treatment: text, comparator: text })),
+  framework: z.enum(["minimal", "partial"]),
+  groups: z.array(z.object({ label: messageSchema, firmness: z.enum(["firm", "may", "very-uncertain"]), level: z.number().int(), treatments: z.array(text) })),
+  readings: z.array(reading),
+  rankScores: z.object({
+    titleKey: text,
+    introKey: text,
+    cautionKeys: z.array(text),
+    rows: z.array(z.object({ treatment: text, pScore: finite, sucra: finite })),
+    draws: z.number().int(),
+    seed: z.number().int(),
+  }),
+  /** Every pair once, in the engine's order. */
+  pairs: z.array(pairFacts),
+  network: z.object({
+    nodes: z.array(z.object({ treatment: text, participants: z.number().int().nullable() })),
+    edges: z.array(z.object({ treatment: text, comparator: text, studies: z.number().int() })),
+  }),
+  methods: z.object({
+    treatments: z.array(text),
+    reference: text,
+    studies: z.number().int(),
+    excludedStudies: z.array(text),
+    tau2: finite,
+    I2: finite,
+    Q: finite,
+    df: finite,
+    Qbetween: finite,
+    dfBetween: finite,
+    pBetween: finite.nullable(),
+    engineVersion: text,
+  }),
+});
+
+export const draftSnapshotSchema = z.object({
+  schemaVersion: z.literal(snapshotSchemaVersion),
+  brief: z.object({ slug: text, title: text, topic: text, condition: text, population: text, demo: z.boolean() }),
+  treatments: z.array(z.object({ label: text, displayName: text })),
+  texts: z.object({ laySummaryHtml: text, keyMessagesHtml: text }),
+  outcomes: z.array(outcomeSnapshot),
+});
+
+/** A published version: the draft's snapshot with its number, release time and correction note. */
+export const versionSnapshotSchema = draftSnapshotSchema.extend({
+  version: z.number().int().positive(),
+  releaseAt: text,
+  note: text.nullable(),
+});
+
+export type Message = z.infer<typeof messageSchema>;
+export type Footnote = z.infer<typeof footnote>;
+export type PairFacts = z.infer<typeof pairFacts>;
+export type Reading = z.infer<typeof reading>;
+export type OutcomeSnapshot = z.infer<typeof outcomeSnapshot>;
+export type DraftSnapshot = z.infer<typeof draftSnapshotSchema>;
+export type VersionSnapshot = z.infer<typeof versionSnapshotSchema>;

@@ -1,0 +1,61 @@
+// Versions are frozen, but the shape the code reads moves on: each stored snapshot is brought to the
+// current shape when it is read, by numbered upgrades, then checked against the declared schema
+// (docs/decisions/0012-snapshot-contract.md). An upgrade never changes a stored row; it only adds
+// what a newer shape holds, computed from what the old one froze.
+import type { ComparisonCertainty } from "../grade/assess";
+import { rankExplainer } from "../grade/rank-explainer";
+import type { AnalysisResult } from "../nma/analyse";
+import type { ParsedStudy } from "../nma/types";
+import { outcomeFacts } from "./facts";
+import { snapshotSchemaVersion, versionSnapshotSchema, type Message, type VersionSnapshot } from "./schema";
+
+type Stored = Record<string, unknown> & { schemaVersion?: number; outcomes: Record<string, unknown>[] };
+
+/**
+ * Shape 1 (no `schemaVersion`): the engine's result and the certainty assessment were frozen whole, and
+ * the page computed intervals, participants and footnotes from them when it was read. The earliest
+ * versions of development also lack the conclusions (framework, labelled groups, readings, rank scores).
+ */
+interface OutcomeV1 {
+  result: AnalysisResult;
+  certainty: ComparisonCertainty[];
+  dataset: { parsed: { studies: ParsedStudy[] } };
+  framework?: "minimal" | "partial";
+  groups: { label?: Message; level: number }[];
+  readings?: unknown[];
+  rankScores?: unknown;
+}
+
+/** 1 → 2: the facts pages show are computed once, here, as publishing now stores them. */
+function upgrade1to2(snapshot: Stored): Stored {
+  const outcomes = (snapshot.outcomes as unknown as OutcomeV1[]).map((outcome) => ({
+    ...outcome,
+    framework: outcome.framework ?? "minimal",
+    groups: outcome.groups.map((group) => ({ ...group, label: group.label ?? { key: "groups.level", values: { level: group.level } } })),
+    readings: outcome.readings ?? [],
+    rankScores: outcome.rankScores ?? rankExplainer(outcome.result),
+    ...outcomeFacts(outcome.result, outcome.certainty, outcome.dataset.parsed.studies),
+  }));
+  return { ...snapshot, schemaVersion: 2, outcomes };
+}
+
+/** upgrades[n] brings shape n + 1 to shape n + 2. */
+export const upgrades: ((snapshot: Stored) => Stored)[] = [upgrade1to2];
+
+export class SnapshotError extends Error {
+  constructor(message: string) {
+    super(message);
+    this.name = "SnapshotError";
+  }
+}
+
+/** A stored snapshot of any shape, brought to the current one and checked: what every reader reads. */
+export function readSnapshot(stored: unknown): VersionSnapshot {
+  let snapshot = stored as Stored;
+  const from = snapshot.schemaVersion ?? 1;
+  if (!Number.isInteger(from) || from < 1 || from > snapshotSchemaVersion) throw new SnapshotError(`a snapshot of shape ${String(from)} cannot be read (known: 1 to ${snapshotSchemaVersion})`);
+  for (let shape = from; shape < snapshotSchemaVersion; shape++) snapshot = upgrades[shape - 1]!(snapshot);
+  const parsed = versionSnapshotSchema.safeParse(snapshot);
+  if (!parsed.success) throw new SnapshotError(`a stored snapshot does not match shape ${snapshotSchemaVersion}: ${parsed.error.issues.slice(0, 3).map((i) => `${i.path.join(".")}: ${i.message}`).join("; ")}`);
+  return parsed.data;
+}

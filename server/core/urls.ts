@@ -1,0 +1,86 @@
+// Every public address, built and parsed in one place (docs/decisions/0014-one-url-map.md): pages,
+// the page cache, citations, the feed, the sitemap and the desk's links all come from here. Path
+// segments that come from data (slugs, treatment labels) are percent-encoded, so a label holding "/"
+// or "?" still names one comparison; parsing decodes them and says whether the address was canonical.
+
+export type CitationFormat = "ris" | "bib" | "json";
+export const citationFormats: readonly CitationFormat[] = ["ris", "bib", "json"];
+
+export interface VersionAddress {
+  slug: string;
+  version: number;
+}
+
+export interface ComparisonAddress extends VersionAddress {
+  treatment: string;
+  comparator: string;
+}
+
+const segment = encodeURIComponent;
+
+export const homeUrl = () => "/";
+export const feedUrl = () => "/feed.xml";
+export const sitemapUrl = () => "/sitemap.xml";
+export const topicUrl = (topicSlug: string) => `/topics/${segment(topicSlug)}`;
+export const briefUrl = (slug: string) => `/briefs/${segment(slug)}`;
+export const versionUrl = (at: VersionAddress) => `${briefUrl(at.slug)}/v/${at.version}`;
+export const comparisonUrl = (at: ComparisonAddress) => `${versionUrl(at)}/compare/${segment(at.treatment)}/${segment(at.comparator)}`;
+export const previewUrl = (briefId: string) => `/preview/${segment(briefId)}`;
+
+/** The search page, with its query when there is one. */
+export function searchUrl(query: { q?: string; topic?: string } = {}): string {
+  const params = new URLSearchParams(Object.entries(query).filter((entry): entry is [string, string] => Boolean(entry[1])));
+  const search = params.toString();
+  return search ? `/briefs?${search}` : "/briefs";
+}
+
+/** The citation file of a version, or of one comparison in it. */
+export const citationUrl = (at: VersionAddress | ComparisonAddress, format: CitationFormat) =>
+  `${"treatment" in at ? comparisonUrl(at) : versionUrl(at)}/cite.${format}`;
+
+export const downloadUrl = (at: VersionAddress, file: string) => `${versionUrl(at)}/downloads/${segment(file)}`;
+
+/** What a public address of a released version names; `canonical` is false when it was spelled another way. */
+export type VersionPath =
+  | { kind: "version"; at: VersionAddress; canonical: boolean }
+  | { kind: "comparison"; at: ComparisonAddress; canonical: boolean };
+
+// Nine digits at most: every such number fits PostgreSQL's integer, and no brief has more versions.
+const versionNumber = /^[1-9]\d{0,8}$/;
+
+/** The version number in an address, or null when the segment is not one (a version beyond the integer range names nothing). */
+export const versionNumberOf = (raw: string): number | null => (versionNumber.test(raw) ? Number(raw) : null);
+
+function decoded(raw: string): string | null {
+  try {
+    const value = decodeURIComponent(raw);
+    // A NUL byte or an empty segment names nothing (PostgreSQL refuses NUL in text).
+    return value === "" || value.includes("\u0000") ? null : value;
+  } catch {
+    return null;
+  }
+}
+
+/** /briefs/:slug/v/:n and /briefs/:slug/v/:n/compare/:a/:b (a trailing slash is not canonical). */
+export function parseVersionPath(path: string): VersionPath | null {
+  const parts = path.split("/");
+  const trailing = parts.at(-1) === "";
+  if (trailing) parts.pop();
+  if (parts[0] !== "" || parts[1] !== "briefs" || parts[3] !== "v" || !versionNumber.test(parts[4] ?? "")) return null;
+  const slug = decoded(parts[2] ?? "");
+  if (slug === null) return null;
+  const version = Number(parts[4]);
+  if (parts.length === 5) {
+    const at = { slug, version };
+    return { kind: "version", at, canonical: !trailing && versionUrl(at) === path };
+  }
+  if (parts.length !== 8 || parts[5] !== "compare") return null;
+  const treatment = decoded(parts[6]!);
+  const comparator = decoded(parts[7]!);
+  if (treatment === null || comparator === null) return null;
+  const at = { slug, version, treatment, comparator };
+  return { kind: "comparison", at, canonical: !trailing && comparisonUrl(at) === path };
+}
+
+/** The address a version path is canonically spelled as. */
+export const canonicalVersionPath = (parsed: VersionPath) => (parsed.kind === "version" ? versionUrl(parsed.at) : comparisonUrl(parsed.at));

@@ -1,0 +1,196 @@
+// Versions of briefs: a version is a frozen snapshot of a brief — data, results, certainty, groups —
+// written once and never changed (the database refuses it too). Reading them for their readers.
+import { and, desc, eq, gte, isNull, lte, sql } from "drizzle-orm";
+import { mayReadEmbargoed, type Role } from "#core/roles";
+import type { Database, Executor } from "./client";
+import { briefs, briefVersions } from "./schema";
+import { slugify } from "#core/slug";
+import type { VersionEntry } from "#core/brief-page";
+import type { ReleasedBrief } from "#core/search";
+import type { VersionSnapshot } from "#core/snapshot/schema";
+import { readSnapshot } from "#core/snapshot/upgrade";
+
+/** The number of the brief's newest version, 0 when it has none. */
+export async function lastVersionNumber(db: Executor, briefId: string): Promise<number> {
+  const [last] = await db.select({ number: briefVersions.number }).from(briefVersions).where(eq(briefVersions.briefId, briefId)).orderBy(desc(briefVersions.number)).limit(1);
+  return last?.number ?? 0;
+}
+
+export async function hasVersion(db: Executor, briefId: string): Promise<boolean> {
+  return (await lastVersionNumber(db, briefId)) > 0;
+}
+
+/** Freezes a version: the database refuses any later change to the row (a trigger). */
+export async function insertVersion(db: Executor, values: { briefId: string; number: number; releaseAt: Date; note: string | null; snapshot: VersionSnapshot; createdBy: string }) {
+  await db.insert(briefVersions).values(values);
+}
+
+export interface FoundVersion {
+  /** The stored snapshot brought to the current shape (server/core/snapshot/upgrade.ts). */
+  snapshot: VersionSnapshot;
+  /** Not yet released: only an embargo reader gets here, and nothing about it may be cached. */
+  embargoed: boolean;
+  withdrawal: { at: string; reason: string } | null;
+}
+
+/** A version as frozen; null when it does not exist or is not yet released for this reader. */
+export async function readVersion(db: Database, slug: string, number: number, roles: Role[]): Promise<FoundVersion | null> {
+  const [row] = await db
+    .select({ releaseAt: briefVersions.releaseAt, snapshot: briefVersions.snapshot, withdrawnAt: briefs.withdrawnAt, withdrawalReason: briefs.withdrawalReason })
+    .from(briefVersions)
+    .innerJoin(briefs, eq(briefs.id, briefVersions.briefId))
+    .where(and(eq(briefs.slug, slug), eq(briefVersions.number, number)));
+  if (!row) return null;
+  const embargoed = row.releaseAt.getTime() > Date.now();
+  if (embargoed && !mayReadEmbargoed(roles)) return null;
+  return {
+    snapshot: readSnapshot(row.snapshot),
+    embargoed,
+    withdrawal: row.withdrawnAt ? { at: row.withdrawnAt.toISOString(), reason: row.withdrawalReason ?? "" } : null,
+  };
+}
+
+/** The versions of a brief this reader may see, newest first: the version history of its pages. */
+export async function versionHistory(db: Database, slug: string, roles: Role[]): Promise<VersionEntry[]> {
+  const rows = await db
+    .select({ number: briefVersions.number, releaseAt: briefVersions.releaseAt, note: briefVersions.note })
+    .from(briefVersions)
+    .innerJoin(briefs, eq(briefs.id, briefVersions.briefId))
+    .where(eq(briefs.slug, slug))
+    .orderBy(desc(briefVersions.number));
+  const now = Date.now();
+  return rows
+    .map((row) => ({ number: row.number, releaseAt: row.releaseAt.toISOString(), note: row.note, embargoed: row.releaseAt.getTime() > now }))
+    .filter((entry) => !entry.embargoed || mayReadEmbargoed(roles));
+}
+
+/**
+ * What a released version's public page shows beyond its frozen snapshot: whether the brief was
+ * withdrawn and which released version is the newest. A cached copy is right while these hold.
+ * Null when the version does not exist or is not yet released.
+ */
+export async function publicVersionState(db: Database, slug: string, number: number): Promise<string | null> {
+  const [row] = await db
+    .select({
+      withdrawnAt: briefs.withdrawnAt,
+      latestReleased: sql<number | null>`max(${briefVersions.number}) filter (where ${briefVersions.releaseAt} <= now())`,
+    })
+    .from(briefs)
+    .innerJoin(briefVersions, eq(briefVersions.briefId, briefs.id))
+    .where(eq(briefs.slug, slug))
+    .groupBy(briefs.id);
+  if (!row || row.latestReleased === null || row.latestReleased < number) return null;
+  return cacheState({ withdrawnAt: row.withdrawnAt?.toISOString() ?? null, latestVersion: row.latestReleased });
+}
+
+/** The fingerprint a cached page is checked against: the same facts, read from the page or the database. */
+export function cacheState(state: { withdrawnAt: string | null; latestVersion: number }): string {
+  return `${state.latestVersion}|${state.withdrawnAt ?? ""}`;
+}
+
+export interface PublicVersion {
+  found: FoundVersion;
+  history: VersionEntry[];
+  latestVersion: number;
+}
+
+/** A version of a brief for its pages, with its history; `"latest"` is the newest this reader may see. */
+export async function readPublicVersion(db: Database, slug: string, number: number | "latest", roles: Role[]): Promise<PublicVersion | null> {
+  const history = await versionHistory(db, slug, roles);
+  // The newest released version is "the latest"; an embargo reader reaches a scheduled one by its number.
+  const latestVersion = history.find((entry) => !entry.embargoed)?.number ?? history[0]?.number;
+  if (latestVersion === undefined) return null;
+  const found = await readVersion(db, slug, number === "latest" ? latestVersion : number, roles);
+  return found ? { found, history, latestVersion } : null;
+}
+
+export interface PressRoomEntry {
+  slug: string;
+  title: string;
+  number: number;
+  releaseAt: string;
+  note: string | null;
+  embargoed: boolean;
+}
+
+/** Embargoed versions, soonest first, then the releases of the last 30 days, newest first. */
+export async function listPressRoom(db: Database): Promise<PressRoomEntry[]> {
+  const since = new Date(Date.now() - 30 * 24 * 3600 * 1000);
+  const rows = await db
+    .select({
+      slug: briefs.slug,
+      title: sql<string>`${briefVersions.snapshot}->'brief'->>'title'`,
+      number: briefVersions.number,
+      releaseAt: briefVersions.releaseAt,
+      note: briefVersions.note,
+    })
+    .from(briefVersions)
+    .innerJoin(briefs, eq(briefs.id, briefVersions.briefId))
+    .where(and(gte(briefVersions.releaseAt, since), isNull(briefs.withdrawnAt)));
+  const now = Date.now();
+  const entries = rows.map((row) => ({ ...row, releaseAt: row.releaseAt.toISOString(), embargoed: row.releaseAt.getTime() > now }));
+  const embargoed = entries.filter((e) => e.embargoed).sort((a, b) => a.releaseAt.localeCompare(b.releaseAt));
+  const released = entries.filter((e) => !e.embargoed).sort((a, b) => b.releaseAt.localeCompare(a.releaseAt));
+  return [...embargoed, ...released];
+}
+
+/** The latest released version of every brief, newest first: what the public may see now. */
+export async function listReleasedBriefs(db: Database): Promise<ReleasedBrief[]> {
+  // One row per brief: its newest released version (DISTINCT ON keeps the first of each brief).
+  const rows = await db
+    .selectDistinctOn([briefVersions.briefId], {
+      slug: briefs.slug,
+      // What a reader sees is the frozen brief; the draft may have moved on.
+      brief: sql<VersionSnapshot["brief"]>`${briefVersions.snapshot}->'brief'`,
+      treatments: sql<VersionSnapshot["treatments"]>`${briefVersions.snapshot}->'treatments'`,
+      withdrawnAt: briefs.withdrawnAt,
+      version: briefVersions.number,
+      releaseAt: briefVersions.releaseAt,
+    })
+    .from(briefVersions)
+    .innerJoin(briefs, eq(briefs.id, briefVersions.briefId))
+    .where(lte(briefVersions.releaseAt, new Date()))
+    .orderBy(briefVersions.briefId, desc(briefVersions.releaseAt), desc(briefVersions.number));
+  return rows
+    .sort((a, b) => b.releaseAt.getTime() - a.releaseAt.getTime())
+    .map((row) => ({
+      slug: row.slug,
+      title: row.brief.title,
+      topic: row.brief.topic,
+      topicSlug: slugify(row.brief.topic),
+      condition: row.brief.condition,
+      population: row.brief.population,
+      treatments: row.treatments.map((t) => t.displayName),
+      demo: row.brief.demo,
+      withdrawn: row.withdrawnAt !== null,
+      version: row.version,
+      releasedAt: row.releaseAt.toISOString(),
+    }));
+}
+
+export interface ReleasedVersion {
+  slug: string;
+  title: string;
+  number: number;
+  releaseAt: string;
+  note: string | null;
+  withdrawnAt: string | null;
+}
+
+/** Every released version, newest first: the feed's entries and the sitemap's addresses. */
+export async function listReleasedVersions(db: Database): Promise<ReleasedVersion[]> {
+  const rows = await db
+    .select({
+      slug: briefs.slug,
+      title: sql<string>`${briefVersions.snapshot}->'brief'->>'title'`,
+      number: briefVersions.number,
+      releaseAt: briefVersions.releaseAt,
+      note: briefVersions.note,
+      withdrawnAt: briefs.withdrawnAt,
+    })
+    .from(briefVersions)
+    .innerJoin(briefs, eq(briefs.id, briefVersions.briefId))
+    .where(lte(briefVersions.releaseAt, new Date()))
+    .orderBy(desc(briefVersions.releaseAt), desc(briefVersions.number));
+  return rows.map((row) => ({ ...row, releaseAt: row.releaseAt.toISOString(), withdrawnAt: row.withdrawnAt?.toISOString() ?? null }));
+}

@@ -1,0 +1,95 @@
+// The contract of the JSON API (docs/api.md; docs/decisions/0013-one-api-contract.md): the zod schema
+// of every request body and the type of every answer, imported by the Express routes and by the
+// desk's data hooks alike. Answer types are derived from what the stores and workflows return, as
+// JSON carries it (dates become strings), so the desk cannot drift from the server. Browser-safe:
+// it imports zod and the pure core at run time, and only types from the layers below.
+import { z } from "zod";
+import type { ComparisonCertainty } from "#core/grade/assess";
+import { judgementInput } from "#core/grade/judgement";
+import type { AnalysisResult } from "#core/nma/analyse";
+import type { DatasetIssue } from "#core/nma/types";
+import { outcomeInput, outcomePatch } from "#core/outcome";
+import { reviewDecisions } from "#core/status";
+import type { briefWithOutcomes, listBriefs } from "#db/briefs";
+import type { OutcomeRow } from "#db/outcomes";
+import type { Person } from "#db/people";
+import type { PressRoomEntry } from "#db/versions";
+import type { reviewHistory } from "#workflows/review";
+
+/** A value as JSON carries it: dates become ISO strings. */
+export type Json<T> = T extends Date ? string : T extends (infer U)[] ? Json<U>[] : T extends object ? { [K in keyof T]: Json<T[K]> } : T;
+
+// Requests -------------------------------------------------------------------------------------
+
+export const credentialsBody = z.object({
+  email: z.string().trim().min(1, "Enter your e-mail address.").max(320),
+  password: z.string().min(1, "Enter your password.").max(1024),
+});
+
+const briefFields = {
+  title: z.string().trim().min(1).max(300),
+  topic: z.string().trim().min(1).max(200),
+  condition: z.string().trim().min(1).max(200),
+  population: z.string().trim().min(1).max(500),
+};
+export const createBriefBody = z.object(briefFields).strict();
+export const patchBriefBody = z
+  .object({
+    rowVersion: z.number().int().positive(),
+    title: briefFields.title.optional(),
+    topic: briefFields.topic.optional(),
+    condition: briefFields.condition.optional(),
+    population: briefFields.population.optional(),
+    laySummary: z.string().max(20_000).optional(),
+    keyMessages: z.string().max(20_000).optional(),
+  })
+  .strict();
+export const treatmentNamesBody = z.object({ names: z.record(z.string().min(1).max(200), z.string().trim().min(1).max(200)) }).strict();
+export const previewBody = z.object({ markdown: z.string().max(20_000) }).strict();
+export { judgementInput as judgementBody, outcomeInput as createOutcomeBody, outcomePatch as patchOutcomeBody };
+export const reviewBody = z.object({ decision: z.enum(reviewDecisions), comment: z.string().trim().max(5000).optional() }).strict();
+export const publishBody = z.object({ releaseAt: z.iso.datetime({ offset: true }).optional(), note: z.string().trim().max(5000).optional() }).strict();
+export const withdrawalBody = z.object({ reason: z.string().trim().min(1, "give the public reason for the withdrawal").max(5000) }).strict();
+
+export type CreateBriefBody = z.infer<typeof createBriefBody>;
+export type PatchBriefBody = z.infer<typeof patchBriefBody>;
+export type CreateOutcomeBody = z.input<typeof outcomeInput>;
+export type JudgementBody = z.infer<typeof judgementInput>;
+export type ReviewBody = z.infer<typeof reviewBody>;
+export type PublishBody = z.infer<typeof publishBody>;
+export type WithdrawalBody = z.infer<typeof withdrawalBody>;
+
+// Answers --------------------------------------------------------------------------------------
+
+export type SignedInPerson = Person;
+export type BriefSummary = Json<Awaited<ReturnType<typeof listBriefs>>[number]>;
+export type BriefDetail = Json<NonNullable<Awaited<ReturnType<typeof briefWithOutcomes>>>>;
+export type OutcomeSummary = BriefDetail["outcomes"][number];
+export type Outcome = Json<OutcomeRow>;
+export type ReviewHistory = Json<Awaited<ReturnType<typeof reviewHistory>>>;
+export type Certainty = ComparisonCertainty;
+export type Result = AnalysisResult;
+export type PressRoomVersion = PressRoomEntry;
+
+/** PUT /api/outcomes/:id/dataset: 200 with the file's summary, or 422 with its issues (nothing stored). */
+export type UploadReport =
+  | { valid: true; datasetId: string; sha256: string; studies: number; treatments: string[]; excludedStudies: string[]; resultId: string }
+  | { valid: false; error: { key: string; message: string }; issues: DatasetIssue[] };
+
+export interface ApiAnswers {
+  session: { person: SignedInPerson };
+  briefs: { briefs: BriefSummary[] };
+  brief: { brief: BriefDetail };
+  createdBrief: { id: string; slug: string };
+  patchedBrief: { brief: BriefSummary };
+  treatments: { treatments: BriefDetail["treatments"] };
+  preview: { html: string };
+  outcome: { outcome: Outcome };
+  certainty: { comparisons: Certainty[] };
+  judged: { comparison: Certainty };
+  reviewStep: { decision: ReviewBody["decision"]; status: string };
+  published: { version: number; url: string };
+  withdrawn: { status: "withdrawn" };
+  pressRoom: { versions: PressRoomVersion[] };
+  people: { people: Person[] };
+}

@@ -1,0 +1,68 @@
+// The JSON API under /api. Every route validates its input with zod and checks roles on the server.
+import express, { Router, type NextFunction, type Request, type Response } from "express";
+import type { AppPassport } from "../auth/passport";
+import type pg from "pg";
+import type { Database } from "#db/client";
+import { sendError } from "../http/errors";
+import type { createCsrf } from "../http/security";
+import { briefRoutes } from "./briefs";
+import { healthRoutes } from "./health";
+import { outcomeRoutes } from "./outcomes";
+import { versionRoutes } from "./versions";
+import { peopleRoutes } from "./people";
+import { sessionRoutes } from "./session";
+
+export interface ApiDependencies {
+  db: Database;
+  pool: pg.Pool;
+  passport: AppPassport;
+  csrf: ReturnType<typeof createCsrf>;
+  /** The session cookie's name, which signing out clears. */
+  sessionCookie: string;
+}
+
+export function apiRoutes({ db, pool, passport, csrf, sessionCookie }: ApiDependencies): Router {
+  const api = Router();
+  // Answers depend on who asks (drafts, the press room, embargoed versions): no shared cache keeps them.
+  api.use((_req, res, next) => {
+    res.set("Cache-Control", "private, no-store");
+    next();
+  });
+  api.use(express.json({ limit: "1mb" }));
+  api.use(express.urlencoded({ extended: false, limit: "64kb" }));
+
+  api.use("/health", healthRoutes(pool));
+
+  api.get("/csrf", (req, res) => {
+    // Marks the session so that it is stored: the token is bound to the session's id.
+    req.session.csrfIssued = true;
+    res.json({ token: csrf.generateCsrfToken(req, res, { overwrite: false }) });
+  });
+
+  // Every route below that changes state needs the token (GET and HEAD do not).
+  api.use((req: Request, res: Response, next: NextFunction) => {
+    csrf.doubleCsrfProtection(req, res, (error?: unknown) => {
+      if (!error) return next();
+      if (req.is("application/x-www-form-urlencoded")) return res.redirect(303, "/sign-in?error=expired");
+      sendError(res, 403, {
+        key: "errors.csrf",
+        message: "The CSRF token is missing or does not match: get one from GET /api/csrf and send it in the x-csrf-token header.",
+      });
+    });
+  });
+
+  api.use("/session", sessionRoutes(db, passport, sessionCookie));
+  api.use("/people", peopleRoutes(db));
+  api.use(briefRoutes(db));
+  api.use(versionRoutes(db));
+  api.use(outcomeRoutes(db));
+
+  api.use((_req, res) => sendError(res, 404, { key: "errors.notFound", message: "There is no such API route." }));
+  return api;
+}
+
+declare module "express-session" {
+  interface SessionData {
+    csrfIssued?: boolean;
+  }
+}

@@ -1,0 +1,132 @@
+// An outcome's settings, data upload, result and certainty judgements.
+import { Router } from "express";
+import multer from "multer";
+import { z } from "zod";
+import { DatasetError, formats } from "#core/nma/types";
+import { deskRoles } from "#core/roles";
+import { latestResult } from "#db/analyses";
+import type { Database } from "#db/client";
+import { findOutcome } from "#db/outcomes";
+import { formatFitsOutcome, storeDataset } from "#workflows/analysis";
+import { judgeComparison, outcomeCertainty } from "#workflows/certainty";
+import { changeOutcomeSettings } from "#workflows/outcome-settings";
+import { requireRole } from "../auth/require-role";
+import { fieldIssues, rejectMalformedId, sendError, validateBody } from "../http/errors";
+import { judgementBody, patchOutcomeBody, type JudgementBody } from "./contract";
+
+const maximumUploadBytes = 5 * 1024 * 1024;
+
+const upload = multer({
+  storage: multer.memoryStorage(),
+  limits: { fileSize: maximumUploadBytes, files: 1, fields: 5 },
+});
+
+export function outcomeRoutes(db: Database): Router {
+  const router = Router();
+  router.param("id", rejectMalformedId);
+
+  router.patch("/outcomes/:id", requireRole("analyst"), validateBody(patchOutcomeBody), async (req, res) => {
+    const { rowVersion, ...changes } = req.body as z.infer<typeof patchOutcomeBody>;
+    try {
+      const update = await changeOutcomeSettings(db, String(req.params.id), rowVersion, changes, req.user!.id);
+      if (update.ok) return res.json({ outcome: update.outcome });
+      if (update.reason === "not-found") return sendError(res, 404, { key: "errors.notFound", message: "There is no such outcome." });
+      if (update.reason === "invalid") {
+        return sendError(res, 400, { key: "errors.invalidRequest", message: "The changed outcome is not valid.", details: fieldIssues(update.error) });
+      }
+      sendError(res, 409, {
+        key: "errors.conflict",
+        message: `Someone else changed this outcome (now version ${update.current.rowVersion}, you edited version ${rowVersion}).`,
+        details: { current: update.current },
+      });
+    } catch (error) {
+      if (!(error instanceof DatasetError)) throw error;
+      res.status(422).json({
+        error: { key: "errors.outcome.notAnalysable", message: "The current data cannot be analysed with these settings; nothing was changed." },
+        issues: error.issues,
+      });
+    }
+  });
+
+  router.put("/outcomes/:id/dataset", requireRole("analyst"), (req, res, next) => {
+    upload.single("file")(req, res, (error: unknown) => {
+      if (!error) return next();
+      const tooLarge = error instanceof multer.MulterError && error.code === "LIMIT_FILE_SIZE";
+      sendError(res, tooLarge ? 413 : 400, {
+        key: tooLarge ? "errors.upload.tooLarge" : "errors.upload.invalid",
+        message: tooLarge ? `The file is larger than ${maximumUploadBytes / 1024 / 1024} MiB.` : `The upload could not be read: ${(error as Error).message}`,
+      });
+    });
+  }, async (req, res) => {
+    const outcome = await findOutcome(db, String(req.params.id));
+    if (!outcome) return sendError(res, 404, { key: "errors.notFound", message: "There is no such outcome." });
+    const format = z.enum(formats).safeParse(req.body?.format);
+    if (!format.success) {
+      return sendError(res, 400, { key: "errors.upload.format", message: `Send the field format: one of ${formats.join(", ")}.`, details: [{ field: "format" }] });
+    }
+    if (!req.file) return sendError(res, 400, { key: "errors.upload.missing", message: "Send the CSV file in the multipart field file.", details: [{ field: "file" }] });
+    if (!/\.csv$/i.test(req.file.originalname) && !/^text\/(csv|plain)$/.test(req.file.mimetype)) {
+      return sendError(res, 415, { key: "errors.upload.notCsv", message: "Upload a CSV file (.csv)." });
+    }
+    if (!formatFitsOutcome(format.data, outcome)) {
+      return sendError(res, 400, { key: "errors.upload.formatKind", message: `The ${format.data} format does not fit a ${outcome.kind} outcome.` });
+    }
+    try {
+      const stored = await storeDataset(db, outcome, { name: req.file.originalname, bytes: req.file.buffer }, format.data, req.user!.id);
+      res.json({
+        valid: true,
+        datasetId: stored.dataset.id,
+        sha256: stored.dataset.sha256,
+        studies: stored.result.studies,
+        treatments: stored.result.treatments,
+        excludedStudies: stored.result.excludedStudies,
+        resultId: stored.resultId,
+      });
+    } catch (error) {
+      if (!(error instanceof DatasetError)) throw error;
+      res.status(422).json({
+        valid: false,
+        error: { key: "errors.upload.invalidData", message: "The file was not stored: correct the problems listed and upload it again." },
+        issues: error.issues,
+      });
+    }
+  });
+
+  router.get("/outcomes/:id/result", requireRole(...deskRoles), async (req, res) => {
+    const stored = await latestResult(db, String(req.params.id));
+    if (!stored) return sendError(res, 404, noResult);
+    res.json(stored.result);
+  });
+
+  const noResult = { key: "errors.noResult", message: "This outcome has no analysis yet: upload its data first." };
+
+  router.get("/outcomes/:id/certainty", requireRole(...deskRoles), async (req, res) => {
+    const outcome = await findOutcome(db, String(req.params.id));
+    const comparisons = outcome ? await outcomeCertainty(db, outcome) : null;
+    if (!comparisons) return sendError(res, 404, noResult);
+    res.json({ comparisons });
+  });
+
+  router.put("/outcomes/:id/certainty/:treatment/:comparator", requireRole("analyst"), validateBody(judgementBody), async (req, res) => {
+    const outcome = await findOutcome(db, String(req.params.id));
+    if (!outcome) return sendError(res, 404, noResult);
+    const pair = { treatment: String(req.params.treatment), comparator: String(req.params.comparator) };
+    const judged = await judgeComparison(db, outcome, pair, req.body as JudgementBody, req.user!.id);
+    if (judged.ok) return res.json({ comparison: judged.comparison });
+    if (judged.reason === "no-result") return sendError(res, 404, noResult);
+    if (judged.reason === "no-comparison") {
+      return sendError(res, 404, {
+        key: "errors.noComparison",
+        message: `The result has no comparison ${pair.treatment} vs ${pair.comparator}; pairs are named in the order the result lists them.`,
+      });
+    }
+    // A suggestion may be overridden, but only with a reason: the reason is published as a footnote.
+    sendError(res, 400, {
+      key: "errors.certainty.overrideReason",
+      message: `Give the reason for departing from the suggestion: ${judged.domains.join(", ")}.`,
+      details: judged.domains.map((name) => ({ field: `${name}.reason`, message: "a reason is required to depart from the suggestion" })),
+    });
+  });
+
+  return router;
+}

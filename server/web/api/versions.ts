@@ -1,0 +1,82 @@
+// Review, publishing, withdrawal and reading frozen versions (docs/decisions/0007-frozen-versions.md,
+// 0009-review-and-withdrawal.md).
+import { Router } from "express";
+import type { z } from "zod";
+import { deskRoles } from "#core/roles";
+import { requireRole } from "../auth/require-role";
+import { reviewBrief, reviewHistory, withdrawBrief } from "#workflows/review";
+import { listPressRoom, readVersion } from "#db/versions";
+import { publishVersion } from "#workflows/publish";
+import type { Database } from "#db/client";
+import { rejectMalformedId, sendError, validateBody } from "../http/errors";
+import { publishBody, reviewBody, withdrawalBody } from "./contract";
+
+/** The HTTP status and message key for each reason a step is refused. */
+const refusals = {
+  "not-found": [404, "errors.notFound"],
+  "not-ready": [409, "errors.publish.notReady"],
+  "not-approved": [409, "errors.publish.notApproved"],
+  withdrawn: [409, "errors.withdrawn"],
+  "note-required": [400, "errors.publish.noteRequired"],
+  "wrong-status": [409, "errors.review.wrongStatus"],
+  "own-submission": [403, "errors.review.ownSubmission"],
+  "comment-required": [400, "errors.review.commentRequired"],
+  "not-published": [409, "errors.withdrawal.notPublished"],
+} as const;
+
+type Refusal = keyof typeof refusals;
+
+function refuse(res: Parameters<typeof sendError>[0], reason: Refusal, detail: string, field?: string) {
+  const [status, key] = refusals[reason];
+  const sentence = detail.charAt(0).toUpperCase() + detail.slice(1);
+  sendError(res, status, { key, message: `${sentence}.`, details: field && status === 400 ? [{ field, message: detail }] : undefined });
+}
+
+export function versionRoutes(db: Database): Router {
+  const router = Router();
+  router.param("id", rejectMalformedId);
+
+  router.post("/briefs/:id/reviews", requireRole("analyst", "editor"), validateBody(reviewBody), async (req, res) => {
+    const step = req.body as z.infer<typeof reviewBody>;
+    if (step.decision !== "submitted" && !req.user!.roles.includes("editor")) {
+      return sendError(res, 403, { key: "errors.roleRequired", message: "Returning or approving a brief needs the role editor.", details: { required: ["editor"] } });
+    }
+    const outcome = await reviewBrief(db, String(req.params.id), step, req.user!.id);
+    if (!outcome.ok) return refuse(res, outcome.reason, outcome.detail, "comment");
+    res.status(201).json({ decision: outcome.decision, status: outcome.status });
+  });
+
+  router.get("/briefs/:id/reviews", requireRole(...deskRoles), async (req, res) => {
+    res.json(await reviewHistory(db, String(req.params.id)));
+  });
+
+  router.post("/briefs/:id/versions", requireRole("editor"), validateBody(publishBody), async (req, res) => {
+    const body = req.body as z.infer<typeof publishBody>;
+    const outcome = await publishVersion(db, String(req.params.id), { releaseAt: body.releaseAt ? new Date(body.releaseAt) : undefined, note: body.note }, req.user!.id);
+    if (outcome.ok) return res.status(201).json({ version: outcome.version, url: outcome.url });
+    const detail = outcome.reason === "not-found" ? outcome.detail : `the brief cannot be published yet: ${outcome.detail}`;
+    refuse(res, outcome.reason, detail, "note");
+  });
+
+  router.post("/briefs/:id/withdrawal", requireRole("editor"), validateBody(withdrawalBody), async (req, res) => {
+    const outcome = await withdrawBrief(db, String(req.params.id), (req.body as z.infer<typeof withdrawalBody>).reason, req.user!.id);
+    if (!outcome.ok) return refuse(res, outcome.reason, outcome.detail);
+    res.json({ status: "withdrawn" });
+  });
+
+  // The press room: embargoed versions and the latest releases, for reporters and editors.
+  router.get("/press-room", requireRole("press", "editor"), async (_req, res) => {
+    res.json({ versions: await listPressRoom(db) });
+  });
+
+  // Public once released; before that only for the press and editors. An embargoed version answers
+  // 404 like one that does not exist, so its existence does not leak.
+  router.get("/briefs/:slug/versions/:number", async (req, res) => {
+    const number = Number(req.params.number);
+    const found = Number.isInteger(number) && number > 0 ? await readVersion(db, String(req.params.slug), number, req.user?.roles ?? []) : null;
+    if (found === null) return sendError(res, 404, { key: "errors.notFound", message: "There is no such published version." });
+    res.json(found.snapshot);
+  });
+
+  return router;
+}

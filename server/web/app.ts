@@ -1,0 +1,87 @@
+// The Express application: security headers, logs, sessions in Postgres, the API and the pages.
+import path from "node:path";
+import { fileURLToPath } from "node:url";
+import compression from "compression";
+import connectPgSimple from "connect-pg-simple";
+import cookieParser from "cookie-parser";
+import express, { type NextFunction, type Request, type Response } from "express";
+import session from "express-session";
+import pino from "pino";
+import { pinoHttp } from "pino-http";
+import type pg from "pg";
+import { apiRoutes } from "./api";
+import { createPassport } from "./auth/passport";
+import type { Database } from "#db/client";
+import { errorAnswer, sendError } from "./http/errors";
+import { createCsrf, cspNonce, securityHeaders, sessionCookieName } from "./http/security";
+import { pageRoutes } from "./pages/render";
+import { publicFileRoutes } from "./public/routes";
+
+export const projectRoot = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "../..");
+
+export interface AppOptions {
+  db: Database;
+  pool: pg.Pool;
+  sessionSecret: string;
+  production: boolean;
+  secureTransport: boolean;
+  logLevel: pino.LevelWithSilent;
+  /** The address readers use, for permalinks; by default the one each request came to. */
+  publicUrl?: string;
+  /** Leave out the pages (integration tests of the API need no build). */
+  pages?: boolean;
+}
+
+export async function createApp(options: AppOptions): Promise<express.Express> {
+  const { db, pool, sessionSecret, production, secureTransport, logLevel } = options;
+  const app = express();
+  app.disable("x-powered-by");
+  // Behind a proxy in production the client's address comes from X-Forwarded-For; locally there is none.
+  app.set("trust proxy", secureTransport ? 1 : false);
+
+  const logger = pino({ level: logLevel });
+  app.use(
+    pinoHttp({
+      logger,
+      // One short line per request: no headers, so no cookies in the logs.
+      serializers: {
+        req: (req: { method: string; url: string }) => ({ method: req.method, url: req.url }),
+        res: (res: { statusCode: number }) => ({ status: res.statusCode }),
+      },
+      customProps: (req) => ({ person: (req as Request).user?.id }),
+    }),
+  );
+  app.use(cspNonce);
+  app.use(securityHeaders(production, secureTransport));
+  app.use(compression());
+  app.use(cookieParser());
+
+  const PgStore = connectPgSimple(session);
+  app.use(
+    session({
+      name: sessionCookieName(secureTransport),
+      secret: sessionSecret,
+      store: new PgStore({ pool, tableName: "session", createTableIfMissing: false, pruneSessionInterval: 60 * 15 }),
+      resave: false,
+      saveUninitialized: false,
+      rolling: true,
+      cookie: { httpOnly: true, sameSite: "lax", secure: secureTransport, maxAge: 1000 * 60 * 60 * 12 },
+    }),
+  );
+  const passport = createPassport(db);
+  app.use(passport.session());
+
+  const csrf = createCsrf(sessionSecret, secureTransport);
+  app.use("/api", apiRoutes({ db, pool, passport, csrf, sessionCookie: sessionCookieName(secureTransport) }));
+  app.use(publicFileRoutes(db, options.publicUrl));
+  if (options.pages !== false) app.use(await pageRoutes({ root: projectRoot, production, csrf, db, publicUrl: options.publicUrl }));
+
+  app.use((error: unknown, req: Request, res: Response, _next: NextFunction) => {
+    const answer = errorAnswer(error);
+    if (answer.status >= 500) req.log.error({ err: error }, "request failed");
+    else req.log.info({ status: answer.status, reason: answer.error.key }, "request refused");
+    if (res.headersSent) return res.end();
+    sendError(res, answer.status, answer.error);
+  });
+  return app;
+}

@@ -1,0 +1,85 @@
+// Headers, CSRF protection and rate limits. docs/api.md tells clients how to use the CSRF token.
+import { randomBytes } from "node:crypto";
+import type { NextFunction, Request, RequestHandler, Response } from "express";
+import { doubleCsrf } from "csrf-csrf";
+import rateLimit, { ipKeyGenerator } from "express-rate-limit";
+import helmet from "helmet";
+import { sendError } from "./errors";
+
+/** A fresh nonce per response, for the few inline scripts the page renderer writes. */
+export function cspNonce(_req: Request, res: Response, next: NextFunction): void {
+  res.locals.cspNonce = randomBytes(16).toString("base64url");
+  next();
+}
+
+export function securityHeaders(production: boolean, secureTransport: boolean): RequestHandler {
+  return helmet({
+    contentSecurityPolicy: {
+      directives: {
+        defaultSrc: ["'self'"],
+        // The development server injects its own inline module scripts.
+        scriptSrc: production
+          ? ["'self'", (_req, res) => `'nonce-${(res as Response).locals.cspNonce}'`]
+          : ["'self'", "'unsafe-inline'"],
+        styleSrc: ["'self'", "'unsafe-inline'"],
+        imgSrc: ["'self'", "data:"],
+        fontSrc: ["'self'", "data:"],
+        connectSrc: production ? ["'self'"] : ["'self'", "ws:"],
+        formAction: ["'self'"],
+        frameAncestors: ["'none'"],
+        objectSrc: ["'none'"],
+        upgradeInsecureRequests: secureTransport ? [] : null,
+      },
+    },
+    // Only over HTTPS; locally the site is plain HTTP on loopback.
+    strictTransportSecurity: secureTransport,
+  });
+}
+
+/** The session cookie; over HTTPS with the __Host- prefix, which browsers bind to this host and path. */
+export const sessionCookieName = (secureTransport: boolean) => (secureTransport ? "__Host-fairweigh.session" : "fairweigh.session");
+
+export const csrfFormField = "_csrf";
+
+export function createCsrf(secret: string, secureTransport: boolean) {
+  return doubleCsrf({
+    getSecret: () => secret,
+    // The token is bound to the session; a new session (after signing in or out) needs a new token.
+    getSessionIdentifier: (req) => req.session.id,
+    cookieName: secureTransport ? "__Host-fairweigh.csrf" : "fairweigh.csrf",
+    cookieOptions: { sameSite: "lax", secure: secureTransport, httpOnly: true, path: "/" },
+    getCsrfTokenFromRequest: (req) =>
+      req.get("x-csrf-token") ?? (typeof req.body?.[csrfFormField] === "string" ? req.body[csrfFormField] : undefined),
+    errorConfig: { statusCode: 403, code: "EBADCSRFTOKEN", message: "invalid csrf token" },
+  });
+}
+
+/**
+ * More than five failed sign-ins within a minute, for one e-mail or from one address, are refused
+ * (common practice; OWASP's authentication guidance asks for a limit without fixing the numbers).
+ * Successful sign-ins do not count.
+ */
+export function signInRateLimits(onLimited: (req: Request, res: Response) => void): RequestHandler[] {
+  const common = {
+    windowMs: 60_000,
+    limit: 5,
+    skipSuccessfulRequests: true,
+    standardHeaders: "draft-8" as const,
+    legacyHeaders: false,
+    handler: (req: Request, res: Response) => onLimited(req, res),
+  };
+  return [
+    rateLimit({ ...common, keyGenerator: (req) => `address:${ipKeyGenerator(req.ip ?? "unknown")}` }),
+    rateLimit({
+      ...common,
+      keyGenerator: (req) => `email:${String(req.body?.email ?? "").trim().toLowerCase()}`,
+    }),
+  ];
+}
+
+export function tooManyAttempts(res: Response): void {
+  sendError(res, 429, {
+    key: "errors.signIn.tooMany",
+    message: "Too many failed sign-ins. Wait a minute, then try again.",
+  });
+}

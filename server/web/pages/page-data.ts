@@ -1,0 +1,113 @@
+// The page data of a version's public pages (+data.ts of pages/briefs/…): read the frozen version
+// this reader may see, shape it for the page, format its citation, and say how it may be cached.
+import { render } from "vike/abort";
+import type { PageContextServer } from "vike/types";
+import { briefContent, comparisonContent, type BriefView, type ComparisonView, type PageState } from "#core/brief-page";
+import { localeOf, locales } from "#core/locales";
+import { deskRoles, mayReadEmbargoed } from "#core/roles";
+import type { VersionSnapshot } from "#core/snapshot/schema";
+import { cacheState, readPublicVersion, versionHistory, type PublicVersion } from "#db/versions";
+import { draftSnapshot } from "#workflows/snapshot";
+import { comparisonUrl, versionNumberOf, versionUrl } from "#core/urls";
+import { formattedReference } from "../public/citations";
+
+function pageState(page: PublicVersion): PageState {
+  return { embargoed: page.found.embargoed, withdrawal: page.found.withdrawal, latestVersion: page.latestVersion, history: page.history };
+}
+
+async function load(pageContext: PageContextServer, number: number | "latest"): Promise<PublicVersion> {
+  const { slug } = pageContext.routeParams;
+  if (number !== "latest" && (!Number.isInteger(number) || number < 1)) throw render(404);
+  const page = await readPublicVersion(pageContext.db!, String(slug), number, pageContext.person?.roles ?? []);
+  if (!page) throw render(404);
+  return page;
+}
+
+/**
+ * 410 for a withdrawn brief (its page stays). A page read by someone who may see embargoed versions
+ * depends on who reads it, so it is private, like an embargoed version itself; a released version's
+ * public page is frozen but for `cacheState`, which the page cache checks; the latest URL revalidates.
+ */
+function answer(pageContext: PageContextServer, page: PublicVersion, latestUrl: boolean) {
+  const personal = page.found.embargoed || mayReadEmbargoed(pageContext.person?.roles ?? []);
+  return {
+    httpStatus: page.found.withdrawal ? 410 : undefined,
+    cacheState: cacheState({ withdrawnAt: page.found.withdrawal?.at ?? null, latestVersion: page.latestVersion }),
+    caching: (personal ? "private" : latestUrl ? "revalidate" : "version") as "private" | "revalidate" | "version",
+  };
+}
+
+/** The reference with its permalink and today's access date, for a version or one comparison in it. */
+function citation(pageContext: PageContextServer, snapshot: VersionSnapshot, path: string, comparison?: string) {
+  const accessed = new Date();
+  const permalink = `${pageContext.siteUrl ?? ""}${path}`;
+  return {
+    reference: formattedReference({ title: snapshot.brief.title, version: snapshot.version, releaseAt: snapshot.releaseAt, url: permalink, accessed, comparison }),
+    accessed: accessed.toISOString(),
+    permalink,
+  };
+}
+
+export async function briefPageData(pageContext: PageContextServer, number: number | "latest") {
+  const page = await load(pageContext, number);
+  const view: BriefView = { ...briefContent(page.found.snapshot), ...pageState(page) };
+  const path = versionUrl({ slug: view.slug, version: view.version });
+  return { view, path, citation: citation(pageContext, page.found.snapshot, path), siteUrl: pageContext.siteUrl ?? "", ...answer(pageContext, page, number === "latest") };
+}
+
+export type BriefPageData = Awaited<ReturnType<typeof briefPageData>>;
+
+export async function comparisonPageData(pageContext: PageContextServer) {
+  const page = await load(pageContext, versionNumberOf(String(pageContext.routeParams.number)) ?? 0);
+  const { a, b } = pageContext.routeParams;
+  const content = comparisonContent(page.found.snapshot, String(a), String(b));
+  if (!content) throw render(404);
+  const view: ComparisonView = { ...content, ...pageState(page) };
+  const path = comparisonUrl({ slug: view.slug, version: view.version, treatment: view.treatment.id, comparator: view.comparator.id });
+  return {
+    view,
+    path,
+    citation: citation(pageContext, page.found.snapshot, path, `${view.treatment.name} vs ${view.comparator.name}`),
+    siteUrl: pageContext.siteUrl ?? "",
+    ...answer(pageContext, page, false),
+  };
+}
+
+export type ComparisonPageData = Awaited<ReturnType<typeof comparisonPageData>>;
+
+/**
+ * /preview/:briefId — the draft as its next version would read, built by the same code that freezes
+ * a version, for the desk only (never cached, not indexed). `locale` picks the words.
+ */
+export async function previewPageData(pageContext: PageContextServer) {
+  const roles = pageContext.person?.roles ?? [];
+  if (!pageContext.person) throw render(401);
+  if (!roles.some((role) => deskRoles.includes(role))) throw render(403);
+  const briefId = String(pageContext.routeParams.id);
+  if (!/^[0-9a-f-]{36}$/i.test(briefId)) throw render(404);
+  const draft = await draftSnapshot(pageContext.db!, briefId);
+  const requested = pageContext.urlParsed.search.locale;
+  const locale = localeOf(requested);
+  const common = { locale, locales: [...locales], briefId, caching: "private" as const };
+  if (!draft.ok) {
+    if (draft.reason === "not-found") throw render(404);
+    return { ...common, problem: draft.detail, page: null };
+  }
+  const history = await versionHistory(pageContext.db!, draft.snapshot.brief.slug, roles);
+  const number = (history[0]?.number ?? 0) + 1;
+  const snapshot: VersionSnapshot = { ...draft.snapshot, version: number, releaseAt: new Date().toISOString(), note: null };
+  const view: BriefView = { ...briefContent(snapshot), embargoed: false, withdrawal: null, latestVersion: number, history };
+  const path = versionUrl({ slug: view.slug, version: number });
+  const page: BriefPageData = {
+    view,
+    path,
+    citation: citation(pageContext, snapshot, path),
+    siteUrl: pageContext.siteUrl ?? "",
+    httpStatus: undefined,
+    cacheState: "",
+    caching: "private",
+  };
+  return { ...common, problem: null, page };
+}
+
+export type PreviewPageData = Awaited<ReturnType<typeof previewPageData>>;

@@ -1,0 +1,132 @@
+// Server-side rendering of the pages/ folder by Vike, the built assets, and the HTTP caching of
+// public pages: released versions from memory with an ETag, other public pages revalidated.
+import path from "node:path";
+import express, { Router, type Request, type Response } from "express";
+import { createDevMiddleware, renderPage } from "vike/server";
+import { defaultLocale } from "#core/locales";
+import { mayReadEmbargoed } from "#core/roles";
+import { publicVersionState } from "#db/versions";
+import { siteUrl } from "../public/routes";
+import type { Database } from "#db/client";
+import type { createCsrf } from "../http/security";
+import { canonicalVersionPath, parseVersionPath } from "#core/urls";
+import { encode, etagOf, PageCache, StateMemo, type CachedPage, type Encodings } from "./page-cache";
+
+/** Pages whose HTML carries a CSRF token, because they hold a form that posts without JavaScript. */
+const pagesWithForms = new Set(["/sign-in"]);
+
+/**
+ * What a page's +data may say about its HTTP answer: a status other than 200 (410 for a withdrawn
+ * brief) and how it may be cached — "version" for a released version (frozen), "revalidate" for a
+ * public page that changes (the latest version, lists), "private" for what only some may see.
+ */
+export interface PageAnswer {
+  httpStatus?: number;
+  caching?: "version" | "revalidate" | "private";
+  /** For a version's pages: what may still change on a frozen page (newer versions, withdrawal), as one string. */
+  cacheState?: string;
+}
+
+const cacheControl = {
+  version: "public, max-age=3600",
+  revalidate: "public, no-cache",
+  private: "private, no-store",
+} as const;
+
+export async function pageRoutes(options: {
+  root: string;
+  production: boolean;
+  csrf: ReturnType<typeof createCsrf>;
+  db: Database;
+  publicUrl?: string;
+}): Promise<Router> {
+  const { root, production, csrf, db, publicUrl } = options;
+  const router = Router();
+  const cache = new PageCache();
+  const states = new StateMemo<string | null>();
+  if (production) {
+    // Built assets carry a content hash in their name, so they can be cached for a year.
+    router.use(
+      "/assets",
+      express.static(path.join(root, "dist/client/assets"), { immutable: true, maxAge: "365d", index: false }),
+    );
+    router.use(express.static(path.join(root, "dist/client"), { index: false }));
+  } else {
+    const { devMiddleware } = await createDevMiddleware({ root });
+    router.use(devMiddleware);
+  }
+
+  function send(req: Request, res: Response, page: Omit<CachedPage, "state" | "encodings"> & { encodings?: Encodings }, caching: keyof typeof cacheControl) {
+    for (const [name, value] of page.headers) res.setHeader(name, value);
+    const policy = res.getHeader("content-security-policy");
+    const nonce = res.locals.cspNonce as string;
+    if (typeof policy === "string" && page.nonce !== nonce) res.setHeader("content-security-policy", policy.replace(`'nonce-${nonce}'`, `'nonce-${page.nonce}'`));
+    res.setHeader("Cache-Control", cacheControl[caching]);
+    if (caching !== "private") res.setHeader("ETag", page.etag);
+    if (caching !== "private" && page.status === 200 && req.fresh) return res.status(304).end();
+    // The type is among Vike's headers: HTML for pages, JSON for client navigation's pageContext.
+    res.status(page.status);
+    if (!page.encodings) return res.send(page.html);
+    // Already compressed: the compression middleware leaves an answer with a Content-Encoding alone.
+    const encoding = req.acceptsEncodings("br", "gzip", "identity") || "identity";
+    const body = page.encodings[encoding as keyof Encodings] ?? page.encodings.identity;
+    res.setHeader("Vary", "Accept-Encoding");
+    if (encoding !== "identity") res.setHeader("Content-Encoding", encoding);
+    res.setHeader("Content-Length", body.length);
+    res.end(req.method === "HEAD" ? undefined : body);
+  }
+
+  router.use(async (req, res, next) => {
+    if (req.method !== "GET" && req.method !== "HEAD") return next();
+    // Only a reader who sees what the public sees shares the cache: the press and editors also see
+    // embargoed versions in a page's history, so their pages are rendered for them alone.
+    const parsed = parseVersionPath(req.path);
+    // A version's page has one address: another spelling of it (percent-encoding, a trailing slash)
+    // is sent there, so that each page is rendered and cached once.
+    if (parsed && !parsed.canonical) return res.redirect(301, canonicalVersionPath(parsed) + (req.originalUrl.slice(req.path.length) || ""));
+    const version = parsed && !mayReadEmbargoed(req.user?.roles ?? []) ? parsed.at : null;
+    const key = PageCache.key(defaultLocale, req.path);
+    try {
+      if (version) {
+        const cached = cache.get(key);
+        if (cached) {
+          const state = await states.get(`${version.slug}/${version.version}`, () => publicVersionState(db, version.slug, version.version));
+          if (state === cached.state) return send(req, res, cached, "version");
+          cache.delete(key);
+        }
+      }
+
+      let csrfToken: string | undefined;
+      if (pagesWithForms.has(req.path)) {
+        req.session.csrfIssued = true;
+        csrfToken = csrf.generateCsrfToken(req, res, { overwrite: false });
+      }
+      const pageContext = await renderPage({
+        urlOriginal: req.originalUrl,
+        headersOriginal: req.headers,
+        cspNonce: res.locals.cspNonce as string,
+        person: req.user ?? null,
+        db,
+        csrfToken,
+        siteUrl: siteUrl(req, publicUrl),
+      });
+      const { httpResponse } = pageContext;
+      if (!httpResponse) return next();
+      const answer = ((pageContext as { data?: unknown }).data ?? {}) as PageAnswer;
+      const html = await httpResponse.getBody();
+      // helmet has set the full policy with the same nonce; Vike's shorter one would replace it.
+      const headers = httpResponse.headers.filter(([name]) => name.toLowerCase() !== "content-security-policy") as [string, string][];
+      const page = { html, etag: etagOf(html), status: answer.httpStatus ?? httpResponse.statusCode, headers, nonce: res.locals.cspNonce as string };
+      const caching = httpResponse.statusCode >= 400 && !answer.httpStatus ? "private" : (answer.caching ?? "private");
+      if (caching === "version" && version) {
+        const entry = { ...page, encodings: encode(html), state: answer.cacheState ?? "" };
+        cache.set(key, entry);
+        return send(req, res, entry, caching);
+      }
+      send(req, res, page, caching);
+    } catch (error) {
+      next(error);
+    }
+  });
+  return router;
+}

@@ -1,0 +1,61 @@
+// Citations of a brief version or of one comparison in it: one CSL-JSON item, turned into RIS,
+// BibTeX and a formatted reference by citation-js (a maintained citation library), so that every
+// format says the same thing.
+import { Cite } from "@citation-js/core";
+import "@citation-js/plugin-bibtex";
+import "@citation-js/plugin-csl";
+import "@citation-js/plugin-ris";
+import type { CitationFormat } from "#core/urls";
+
+export interface CitationInput {
+  title: string;
+  version: number;
+  releaseAt: string;
+  /** The permalink: the version's URL (or the comparison's), absolute. */
+  url: string;
+  accessed: Date;
+  /** For one comparison: "A vs B". */
+  comparison?: string;
+}
+
+const dateParts = (date: Date) => ({ "date-parts": [[date.getUTCFullYear(), date.getUTCMonth() + 1, date.getUTCDate()]] });
+
+/** One line: a line break inside a field would start a new record in RIS (and a new field in BibTeX). */
+const oneLine = (text: string) => text.replace(/[\r\n\u2028\u2029]+/g, " ").trim();
+
+export function cslItem(input: CitationInput) {
+  const title = oneLine(input.comparison ? `${input.comparison}: ${input.title}` : input.title);
+  return {
+    id: `fairweigh-${new URL(input.url).pathname.replace(/[^a-z0-9]+/gi, "-").replace(/^-|-$/g, "")}`,
+    type: "report",
+    title,
+    author: [{ literal: "Fairweigh" }],
+    publisher: "Fairweigh",
+    version: String(input.version),
+    issued: dateParts(new Date(input.releaseAt)),
+    accessed: dateParts(input.accessed),
+    URL: input.url,
+  };
+}
+
+export type { CitationFormat } from "#core/urls";
+
+export const citationMedia: Record<CitationFormat, string> = {
+  ris: "application/x-research-info-systems",
+  bib: "application/x-bibtex",
+  json: "application/vnd.citationstyles.csl+json",
+};
+
+export function citationFile(input: CitationInput, format: CitationFormat): string {
+  const item = cslItem(input);
+  if (format === "json") return `${JSON.stringify([item], null, 2)}\n`;
+  if (format === "bib") return new Cite(item).format("bibtex");
+  // citation-js folds RIS values every 70 characters; reference managers read the continuation as a
+  // new value or join it with a space, which breaks permalinks. Each value is joined back whole.
+  return new Cite(item).format("ris").replace(/\n(?![A-Z][A-Z0-9] {2}- |$)/g, "");
+}
+
+/** The reference as a reader copies it (APA style); the page adds the access date in its own words. */
+export function formattedReference(input: CitationInput): string {
+  return new Cite(cslItem(input)).format("bibliography", { format: "text", template: "apa", lang: "en-US" }).trim();
+}

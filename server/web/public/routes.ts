@@ -1,0 +1,125 @@
+// The public site's files beside its pages: citations, data downloads, the Atom feed, the sitemap
+// and robots.txt. Everything comes from released, frozen versions; embargoed ones answer 404 to
+// all but the press and editors, exactly as their pages do.
+import { Router, type Request, type Response } from "express";
+import { Feed } from "feed";
+import { comparisonContent } from "#core/brief-page";
+import { briefUrl, comparisonUrl, feedUrl, homeUrl, searchUrl, sitemapUrl, versionNumberOf, versionUrl } from "#core/urls";
+import { listReleasedVersions, readVersion } from "#db/versions";
+import type { Database } from "#db/client";
+import { citationFile, citationMedia, type CitationFormat, type CitationInput } from "./citations";
+import { downloads } from "./downloads";
+
+/** The address readers use: the configured one, or the one this request came to. */
+export function siteUrl(req: Request, configured: string | undefined): string {
+  return (configured ?? `${req.protocol}://${req.get("host")}`).replace(/\/$/, "");
+}
+
+const notFound = "There is no such published version.";
+
+export function publicFileRoutes(db: Database, publicUrl: string | undefined): Router {
+  const router = Router();
+
+  // Files need the version only, not its history: one query.
+  const versionOf = async (req: Request) => {
+    const number = versionNumberOf(String(req.params.number));
+    if (number === null) return null;
+    return readVersion(db, String(req.params.slug), number, req.user?.roles ?? []);
+  };
+  const formatOf = (value: unknown): CitationFormat | null => (value === "ris" || value === "bib" || value === "json" ? value : null);
+  const cacheFor = (embargoed: boolean) => (embargoed ? "private, no-store" : "public, max-age=3600");
+
+  /** A citation file for a version or one comparison in it, named after what it cites. */
+  function sendCitation(res: Response, format: CitationFormat, embargoed: boolean, fileBase: string, input: Omit<CitationInput, "accessed">) {
+    res.set("Cache-Control", cacheFor(embargoed));
+    res.type(citationMedia[format]).attachment(`${fileBase}.${format === "json" ? "csl.json" : format}`).send(citationFile({ ...input, accessed: new Date() }, format));
+  }
+
+  router.get("/briefs/:slug/v/:number/cite.:format", async (req, res) => {
+    const format = formatOf(req.params.format);
+    const page = format ? await versionOf(req) : null;
+    if (!format || !page) return res.status(404).type("text/plain").send(notFound);
+    const { snapshot, embargoed } = page;
+    const url = `${siteUrl(req, publicUrl)}${versionUrl({ slug: snapshot.brief.slug, version: snapshot.version })}`;
+    sendCitation(res, format, embargoed, `${snapshot.brief.slug}-v${snapshot.version}`, { title: snapshot.brief.title, version: snapshot.version, releaseAt: snapshot.releaseAt, url });
+  });
+
+  router.get("/briefs/:slug/v/:number/compare/:a/:b/cite.:format", async (req, res) => {
+    const format = formatOf(req.params.format);
+    const page = format ? await versionOf(req) : null;
+    const view = page ? comparisonContent(page.snapshot, String(req.params.a), String(req.params.b)) : null;
+    if (!format || !page || !view) return res.status(404).type("text/plain").send("There is no such comparison in this version.");
+    const url = `${siteUrl(req, publicUrl)}${comparisonUrl({ slug: view.slug, version: view.version, treatment: view.treatment.id, comparator: view.comparator.id })}`;
+    sendCitation(res, format, page.embargoed, `${view.slug}-v${view.version}-${view.treatment.id}-vs-${view.comparator.id}`, {
+      title: view.title,
+      version: view.version,
+      releaseAt: view.releaseAt,
+      url,
+      comparison: `${view.treatment.name} vs ${view.comparator.name}`,
+    });
+  });
+
+  router.get("/briefs/:slug/v/:number/downloads/:file", async (req, res) => {
+    // Only the files listed: a name such as __proto__ is no file of ours.
+    const name = String(req.params.file);
+    const file = Object.hasOwn(downloads, name) ? downloads[name as keyof typeof downloads] : null;
+    const page = file ? await versionOf(req) : null;
+    if (!file || !page) return res.status(404).type("text/plain").send("There is no such download.");
+    const { snapshot, embargoed } = page;
+    res.set("Cache-Control", cacheFor(embargoed));
+    res.type(file.media).attachment(`${snapshot.brief.slug}-v${snapshot.version}-${String(req.params.file)}`).send(file.build(snapshot));
+  });
+
+  router.get("/feed.xml", async (req, res) => {
+    const base = siteUrl(req, publicUrl);
+    const versions = await listReleasedVersions(db);
+    const feed = new Feed({
+      id: `${base}${homeUrl()}`,
+      link: `${base}${homeUrl()}`,
+      title: "Fairweigh: new and corrected briefs",
+      description: "Network meta-analyses published so that readers can see what the evidence supports.",
+      copyright: "Fairweigh",
+      updated: versions[0] ? new Date(versions[0].releaseAt) : new Date(0),
+      feedLinks: { atom: `${base}${feedUrl()}` },
+    });
+    for (const version of versions.slice(0, 50)) {
+      const url = `${base}${versionUrl({ slug: version.slug, version: version.number })}`;
+      feed.addItem({
+        id: url,
+        link: url,
+        title: version.number === 1 ? version.title : `Corrected (version ${version.number}): ${version.title}`,
+        description: version.number === 1 ? `New brief: ${version.title}` : `Correction note: ${version.note ?? ""}`,
+        date: new Date(version.releaseAt),
+      });
+    }
+    res.set("Cache-Control", "public, max-age=300").type("application/atom+xml; charset=utf-8").send(feed.atom1());
+  });
+
+  router.get("/sitemap.xml", async (req, res) => {
+    const base = siteUrl(req, publicUrl);
+    const versions = await listReleasedVersions(db);
+    const latest = new Map<string, string>();
+    for (const v of versions) if (!latest.has(v.slug)) latest.set(v.slug, v.releaseAt);
+    const entry = (path: string, lastmod?: string) => `  <url><loc>${escapeXml(base + path)}</loc>${lastmod ? `<lastmod>${lastmod.slice(0, 10)}</lastmod>` : ""}</url>`;
+    const urls = [
+      entry(homeUrl()),
+      entry(searchUrl()),
+      ...[...latest].map(([slug, at]) => entry(briefUrl(slug), at)),
+      ...versions.map((v) => entry(versionUrl({ slug: v.slug, version: v.number }), v.releaseAt)),
+    ];
+    res
+      .set("Cache-Control", "public, max-age=300")
+      .type("application/xml; charset=utf-8")
+      .send(`<?xml version="1.0" encoding="UTF-8"?>\n<urlset xmlns="http://www.sitemaps.org/schemas/sitemap/0.9">\n${urls.join("\n")}\n</urlset>\n`);
+  });
+
+  router.get("/robots.txt", (req, res) => {
+    res.type("text/plain").send(`User-agent: *\nDisallow: /desk\nDisallow: /api/\nDisallow: /sign-in\nDisallow: /preview/\nSitemap: ${siteUrl(req, publicUrl)}${sitemapUrl()}\n`);
+  });
+
+  return router;
+}
+
+function escapeXml(text: string): string {
+  return text.replace(/[<>&'"]/g, (c) => `&#${c.charCodeAt(0)};`);
+}

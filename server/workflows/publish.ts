@@ -1,0 +1,35 @@
+// Publishing: the approved draft is frozen as the brief's next version. Version 1 publishes; later
+// versions correct and need a public note. A release time in the future schedules it (the embargo).
+import type { VersionSnapshot } from "#core/snapshot/schema";
+import { versionUrl } from "#core/urls";
+import { lockBrief, setBriefState } from "#db/briefs";
+import type { Database } from "#db/client";
+import { approvalOf } from "#db/reviews";
+import { insertVersion, lastVersionNumber } from "#db/versions";
+import { contentChecksum, draftSnapshot } from "./snapshot";
+
+export type PublishOutcome =
+  | { ok: true; version: number; url: string }
+  | { ok: false; reason: "not-found" | "not-ready" | "not-approved" | "withdrawn" | "note-required"; detail: string };
+
+export async function publishVersion(db: Database, briefId: string, options: { releaseAt?: Date; note?: string }, actorId: string): Promise<PublishOutcome> {
+  const draft = await draftSnapshot(db, briefId);
+  if (!draft.ok) return draft;
+  return db.transaction(async (tx) => {
+    const brief = (await lockBrief(tx, briefId))!;
+    if (brief.withdrawnAt) return { ok: false, reason: "withdrawn", detail: "the brief has been withdrawn" };
+    const approval = await approvalOf(tx, briefId);
+    if (approval !== contentChecksum(draft.snapshot)) {
+      return { ok: false, reason: "not-approved", detail: approval ? "the draft has changed since it was approved; it needs a new review" : "the draft has not been approved in review" };
+    }
+    const number = (await lastVersionNumber(tx, briefId)) + 1;
+    const note = options.note?.trim() || null;
+    if (number > 1 && !note) return { ok: false, reason: "note-required", detail: "a correction needs a public note saying what changed" };
+    const releaseAt = options.releaseAt ?? new Date();
+    const snapshot: VersionSnapshot = { ...draft.snapshot, version: number, releaseAt: releaseAt.toISOString(), note };
+    await insertVersion(tx, { briefId, number, releaseAt, note, snapshot, createdBy: actorId });
+    const status = releaseAt.getTime() > Date.now() ? "scheduled" : number > 1 ? "corrected" : "published";
+    await setBriefState(tx, brief, { status }, { actorId, action: "publish", after: { status, version: number, releaseAt } });
+    return { ok: true, version: number, url: versionUrl({ slug: brief.slug, version: number }) };
+  });
+}

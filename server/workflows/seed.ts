@@ -1,0 +1,91 @@
+// Demo content for a local cluster. Only scripts/start.ts and the test set-up call this, and
+// only against the cluster they manage: a server given an outside DATABASE_URL never seeds.
+import { assessCertainty } from "#core/grade/assess";
+import type { AnalysisResult } from "#core/nma/analyse";
+import type { Role } from "#core/roles";
+import { createBrief, findBriefByTitle, nameTreatments, updateBrief } from "#db/briefs";
+import type { Database } from "#db/client";
+import { saveJudgement } from "#db/judgements";
+import { createOutcome } from "#db/outcomes";
+import { ensurePerson, type Person } from "#db/people";
+import { storeDataset } from "./analysis";
+import { demoBriefs } from "./demo-briefs";
+import { publishVersion } from "./publish";
+import { reviewBrief } from "./review";
+
+export const demoPassword = "fairweigh-demo";
+
+export const demoAccounts: { email: string; displayName: string; roles: Role[] }[] = [
+  { email: "admin@fairweigh.example", displayName: "Demo administrator", roles: ["admin"] },
+  { email: "analyst@fairweigh.example", displayName: "Demo analyst", roles: ["analyst"] },
+  { email: "editor@fairweigh.example", displayName: "Demo editor", roles: ["editor"] },
+  { email: "translator@fairweigh.example", displayName: "Demo translator", roles: ["translator"] },
+  { email: "press@fairweigh.example", displayName: "Demo reporter", roles: ["press"] },
+];
+
+/** Idempotent: accounts and briefs that exist already are left as they are. */
+export async function seedDemo(db: Database): Promise<void> {
+  const people: Person[] = [];
+  for (const account of demoAccounts) people.push(await ensurePerson(db, { ...account, password: demoPassword }, null));
+  const analyst = people.find((p) => p.roles.includes("analyst"))!;
+  const editor = people.find((p) => p.roles.includes("editor"))!;
+  for (const demo of demoBriefs()) {
+    if (await findBriefByTitle(db, demo.title)) continue;
+    await publishDemoBrief(db, demo, analyst.id, editor.id);
+  }
+}
+
+/**
+ * Goes the way a real brief goes: an analyst creates it, uploads the data and records certainty
+ * (no domain rated down, every computed suggestion confirmed: a demonstration, not an appraisal);
+ * an editor writes its texts; the analyst submits it for review; the editor approves and publishes it.
+ */
+async function publishDemoBrief(db: Database, demo: ReturnType<typeof demoBriefs>[number], analystId: string, editorId: string) {
+  const brief = await createBrief(db, { title: demo.title, topic: demo.topic, condition: demo.condition, population: demo.population, demo: true }, analystId);
+  for (const spec of demo.outcomes) {
+    const outcome = await createOutcome(
+      db,
+      brief.id,
+      {
+        name: spec.name,
+        kind: spec.kind,
+        measure: spec.measure,
+        model: "random",
+        referenceTreatment: spec.reference,
+        direction: spec.direction,
+        baselineRisk: spec.baselineRisk,
+        unit: spec.unit,
+        thresholdSmall: spec.thresholds.small,
+        thresholdModerate: spec.thresholds.moderate,
+        thresholdLarge: spec.thresholds.large,
+      },
+      analystId,
+    );
+    const format = spec.kind === "binary" ? "arm-binary" : "arm-continuous";
+    const { result } = await storeDataset(db, outcome, { name: "fictional-demo.csv", bytes: Buffer.from(spec.csv) }, format, analystId);
+    const none = { levels: 0 as const, reason: "" };
+    for (const comparison of assessCertainty(result as AnalysisResult, new Map(), spec.thresholds)) {
+      await saveJudgement(
+        db,
+        { outcomeId: outcome.id, treatment: comparison.treatment, comparator: comparison.comparator },
+        {
+          ...(comparison.pending.includes("direct") ? { direct: { riskOfBias: none, inconsistency: none, indirectness: none, publicationBias: none } } : {}),
+          ...(comparison.pending.includes("indirect") && !comparison.indirectVia ? { indirectRating: { rating: "low" as const, reason: "Fictional demonstration: no first-order loop." } } : {}),
+          incoherence: { levels: comparison.suggestions.incoherence.levels, reason: "" },
+          imprecision: { levels: comparison.suggestions.imprecision.levels, reason: "" },
+        },
+        analystId,
+      );
+    }
+  }
+  await nameTreatments(db, brief.id, demo.treatmentNames, analystId);
+  const texts = await updateBrief(db, brief.id, brief.rowVersion, { laySummary: demo.laySummary, keyMessages: demo.keyMessages }, editorId);
+  if (!texts.ok) throw new Error(`the demo brief "${demo.title}" could not take its texts`);
+  const steps = [
+    await reviewBrief(db, brief.id, { decision: "submitted" }, analystId),
+    await reviewBrief(db, brief.id, { decision: "approved", comment: "Fictional demonstration: approved by the demo editor." }, editorId),
+    await publishVersion(db, brief.id, {}, editorId),
+  ];
+  const refused = steps.find((step) => !step.ok);
+  if (refused && !refused.ok) throw new Error(`the demo brief "${demo.title}" could not be published: ${refused.detail}`);
+}

@@ -1,0 +1,60 @@
+// The snapshot of a brief as its next version would freeze it, built from the current draft: the
+// engine's result, the certainty assessment, the conclusions and every fact a page shows, checked
+// against the declared contract (server/core/snapshot/schema.ts) before anyone approves or freezes it.
+import { createHash } from "node:crypto";
+import { concludeOutcome } from "#core/grade/conclusions";
+import { renderMarkdown } from "#core/markdown";
+import type { AnalysisResult } from "#core/nma/analyse";
+import type { ParsedDataset } from "#core/nma/types";
+import { outcomeFacts } from "#core/snapshot/facts";
+import { draftSnapshotSchema, snapshotSchemaVersion, type DraftSnapshot } from "#core/snapshot/schema";
+import { analysisSettings, latestDataset, latestResult } from "#db/analyses";
+import { briefWithOutcomes } from "#db/briefs";
+import type { Database } from "#db/client";
+import { outcomeCertainty, thresholdsOf } from "./certainty";
+
+export type DraftResult = { ok: true; snapshot: DraftSnapshot } | { ok: false; reason: "not-found" | "not-ready"; detail: string };
+
+/** Every outcome must have a current analysis; the snapshot is what a version would freeze now. */
+export async function draftSnapshot(db: Database, briefId: string): Promise<DraftResult> {
+  const brief = await briefWithOutcomes(db, briefId);
+  if (!brief) return { ok: false, reason: "not-found", detail: "there is no such brief" };
+  const notReady = brief.outcomes.filter((o) => o.analysis.state !== "current").map((o) => o.name);
+  if (brief.outcomes.length === 0) return { ok: false, reason: "not-ready", detail: "the brief has no outcome" };
+  if (notReady.length > 0) return { ok: false, reason: "not-ready", detail: `outcomes without a current analysis: ${notReady.join(", ")}` };
+  const names = Object.fromEntries(brief.treatments.map((t) => [t.label, t.displayName]));
+  const outcomes = [];
+  for (const outcome of brief.outcomes) {
+    const result = (await latestResult(db, outcome.id))!.result as AnalysisResult;
+    const dataset = (await latestDataset(db, outcome.id))!;
+    const parsed = dataset.parsed as ParsedDataset;
+    const thresholds = thresholdsOf(outcome);
+    const certainty = (await outcomeCertainty(db, outcome, result))!;
+    outcomes.push({
+      name: outcome.name,
+      kind: outcome.kind,
+      settings: analysisSettings(outcome),
+      baselineRisk: outcome.baselineRisk,
+      unit: outcome.unit,
+      thresholds,
+      dataset: { fileName: dataset.fileName, sha256: dataset.sha256, format: dataset.format, parsed },
+      result,
+      certainty,
+      ...concludeOutcome(result, certainty, { name: outcome.name, baselineRisk: outcome.baselineRisk, thresholds, names }),
+      ...outcomeFacts(result, certainty, parsed.studies),
+    });
+  }
+  const snapshot = draftSnapshotSchema.parse({
+    schemaVersion: snapshotSchemaVersion,
+    brief: { slug: brief.slug, title: brief.title, topic: brief.topic, condition: brief.condition, population: brief.population, demo: brief.demo },
+    treatments: brief.treatments,
+    texts: { laySummaryHtml: renderMarkdown(brief.laySummary), keyMessagesHtml: renderMarkdown(brief.keyMessages) },
+    outcomes,
+  });
+  return { ok: true, snapshot };
+}
+
+/** The checksum of a draft's content as it would be frozen: what an approval vouches for. */
+export function contentChecksum(snapshot: DraftSnapshot): string {
+  return createHash("sha256").update(JSON.stringify(snapshot)).digest("hex");
+}

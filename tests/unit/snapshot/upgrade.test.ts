@@ -1,0 +1,73 @@
+// Stored snapshots of every earlier shape are read through the numbered upgrades of
+// server/core/snapshot/upgrade.ts (docs/decisions/0012-snapshot-contract.md). The fixtures in
+// tests/fixtures/snapshots/ are frozen JSON of shape 1, written as the code before shape 2 stored a
+// version of the invented network of tests/support/invented-network.ts.
+import { readFileSync } from "node:fs";
+import path from "node:path";
+import { describe, expect, it } from "vitest";
+import { briefContent, comparisonContent } from "#core/brief-page";
+import { z975 } from "#core/nma/analyse";
+import { readSnapshot, SnapshotError } from "#core/snapshot/upgrade";
+import { snapshotSchemaVersion } from "#core/snapshot/schema";
+
+const fixture = (name: string) => JSON.parse(readFileSync(path.resolve(__dirname, "../../fixtures/snapshots", name), "utf8")) as Record<string, unknown>;
+
+describe("a snapshot of shape 1 (frozen before schemaVersion)", () => {
+  const stored = fixture("shape-1.json");
+  const snapshot = readSnapshot(stored);
+
+  it("is brought to the current shape and passes the declared schema", () => {
+    expect(snapshotSchemaVersion).toBe(2);
+    expect(snapshot.schemaVersion).toBe(2);
+    expect(snapshot.outcomes[0]!.pairs).toHaveLength(3); // three treatments: three pairs
+  });
+
+  it("gets the facts publishing now stores, computed from what it froze", () => {
+    const comparison = comparisonContent(snapshot, "alpha", "placebo")!.outcomes[0]!;
+    // s1 and s4 compare alpha with placebo: (100 + 100) + (120 + 120) participants, worked by hand.
+    expect(comparison.direct).toMatchObject({ studies: 2, participants: 440 });
+    // The frozen result's direct estimate with its 95% CI, estimate ± 1.959964·SE (METHODS.md §3).
+    const result = (stored.outcomes as { result: { comparisons: { treatment: string; comparator: string; direct: { estimate: number; se: number } }[] } }[])[0]!.result;
+    const pair = result.comparisons.find((c) => [c.treatment, c.comparator].sort().join() === "alpha,placebo")!;
+    const sign = pair.treatment === "alpha" ? 1 : -1;
+    expect(comparison.direct!.estimate).toBeCloseTo(sign * pair.direct.estimate, 12);
+    expect(comparison.direct!.upper - comparison.direct!.estimate).toBeCloseTo(z975 * pair.direct.se, 12);
+    // The analyst's reason for rating down, as its footnote.
+    expect(comparison.footnotes).toContainEqual({ domainKey: "desk.domain.riskOfBias", levels: 1, reason: "Allocation was not concealed in s1.", because: null });
+  });
+
+  it("keeps the conclusions it froze", () => {
+    const outcome = (stored.outcomes as { groups: unknown[]; readings: unknown[] }[])[0]!;
+    expect(snapshot.outcomes[0]!.groups).toEqual(outcome.groups);
+    expect(snapshot.outcomes[0]!.readings).toEqual(outcome.readings);
+  });
+
+  it("reads the same after a round trip: an upgraded snapshot is a current one", () => {
+    expect(readSnapshot(JSON.parse(JSON.stringify(snapshot)))).toEqual(snapshot);
+  });
+});
+
+describe("a snapshot of shape 1 from before conclusions were frozen", () => {
+  const snapshot = readSnapshot(fixture("shape-1-before-conclusions.json"));
+
+  it("renders with what it holds: unlabelled groups get the plain level label, no statements, rank scores from the frozen result", () => {
+    const outcome = snapshot.outcomes[0]!;
+    expect(outcome.framework).toBe("minimal");
+    expect(outcome.groups.every((g) => g.label.key === "groups.level")).toBe(true);
+    expect(outcome.readings).toEqual([]);
+    expect(outcome.rankScores.rows.map((r) => r.treatment)).toEqual(["alpha", "beta", "placebo"]); // alphabetical, never by score
+    const view = briefContent(snapshot).outcomes[0]!;
+    expect(view.effects.map((e) => e.statement)).toEqual([null, null]);
+  });
+});
+
+describe("a snapshot that cannot be read", () => {
+  it("of an unknown shape is refused with the shape named", () => {
+    expect(() => readSnapshot({ ...fixture("shape-1.json"), schemaVersion: 99 })).toThrow(new SnapshotError("a snapshot of shape 99 cannot be read (known: 1 to 2)"));
+  });
+
+  it("that breaks the schema is refused with the path of what is wrong", () => {
+    const broken = readSnapshot(fixture("shape-1.json"));
+    expect(() => readSnapshot({ ...broken, version: "one" })).toThrow(/version: /);
+  });
+});
