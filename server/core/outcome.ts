@@ -32,4 +32,4 @@ export const outcomeInput = outcomeFields
 export type OutcomeInput = z.infer<typeof outcomeInput>;
 
 /** A PATCH names the row version it read and any fields to change; the merged outcome is checked whole. */
-export const outcomePatch = outcomeFields.partial().extend({ rowVersion: z.number().int().positive() }).strict();
+export const outcomePatch = outcomeFields.partial().extend({ rowVersion: z.number().int().positive().max(2_147_483_647) }).strict();

@@ -61,6 +61,15 @@ function decoded(raw: string): string | null {
   }
 }
 
+/** Whether a path decodes, without a NUL byte: anything else names nothing. */
+export function addressable(path: string): boolean {
+  try {
+    return !decodeURIComponent(path).includes("\u0000");
+  } catch {
+    return false;
+  }
+}
+
 /** /briefs/:slug/v/:n and /briefs/:slug/v/:n/compare/:a/:b (a trailing slash is not canonical). */
 export function parseVersionPath(path: string): VersionPath | null {
   const parts = path.split("/");

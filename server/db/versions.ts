@@ -175,6 +175,7 @@ export interface ReleasedVersion {
   releaseAt: string;
   note: string | null;
   withdrawnAt: string | null;
+  withdrawalReason: string | null;
 }
 
 /** Every released version, newest first: the feed's entries and the sitemap's addresses. */
@@ -187,6 +188,7 @@ export async function listReleasedVersions(db: Database): Promise<ReleasedVersio
       releaseAt: briefVersions.releaseAt,
       note: briefVersions.note,
       withdrawnAt: briefs.withdrawnAt,
+      withdrawalReason: briefs.withdrawalReason,
     })
     .from(briefVersions)
     .innerJoin(briefs, eq(briefs.id, briefVersions.briefId))

@@ -11,6 +11,7 @@ import { pinoHttp } from "pino-http";
 import type pg from "pg";
 import { apiRoutes } from "./api";
 import { createPassport } from "./auth/passport";
+import { addressable } from "#core/urls";
 import type { Database } from "#db/client";
 import { errorAnswer, sendError } from "./http/errors";
 import { createCsrf, cspNonce, securityHeaders, sessionCookieName } from "./http/security";
@@ -70,6 +71,13 @@ export async function createApp(options: AppOptions): Promise<express.Express> {
   );
   const passport = createPassport(db);
   app.use(passport.session());
+
+  // An address that does not decode, or decodes to a NUL byte, names nothing here (and PostgreSQL
+  // would refuse it as text): 404 before any route looks it up.
+  app.use((req, res, next) => {
+    if (addressable(req.path)) return next();
+    sendError(res, 404, { key: "errors.notFound", message: "There is nothing at this address." });
+  });
 
   const csrf = createCsrf(sessionSecret, secureTransport);
   app.use("/api", apiRoutes({ db, pool, passport, csrf, sessionCookie: sessionCookieName(secureTransport) }));

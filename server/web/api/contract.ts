@@ -26,6 +26,9 @@ export const credentialsBody = z.object({
   password: z.string().min(1, "Enter your password.").max(1024),
 });
 
+/** A row version as the database stores it (PostgreSQL's integer). */
+export const rowVersion = z.number().int().positive().max(2_147_483_647);
+
 const briefFields = {
   title: z.string().trim().min(1).max(300),
   topic: z.string().trim().min(1).max(200),
@@ -35,7 +38,7 @@ const briefFields = {
 export const createBriefBody = z.object(briefFields).strict();
 export const patchBriefBody = z
   .object({
-    rowVersion: z.number().int().positive(),
+    rowVersion,
     title: briefFields.title.optional(),
     topic: briefFields.topic.optional(),
     condition: briefFields.condition.optional(),

@@ -3,6 +3,7 @@
 import { Router } from "express";
 import type { z } from "zod";
 import { deskRoles } from "#core/roles";
+import { versionNumberOf } from "#core/urls";
 import { requireRole } from "../auth/require-role";
 import { reviewBrief, reviewHistory, withdrawBrief } from "#workflows/review";
 import { listPressRoom, readVersion } from "#db/versions";
@@ -72,8 +73,8 @@ export function versionRoutes(db: Database): Router {
   // Public once released; before that only for the press and editors. An embargoed version answers
   // 404 like one that does not exist, so its existence does not leak.
   router.get("/briefs/:slug/versions/:number", async (req, res) => {
-    const number = Number(req.params.number);
-    const found = Number.isInteger(number) && number > 0 ? await readVersion(db, String(req.params.slug), number, req.user?.roles ?? []) : null;
+    const number = versionNumberOf(String(req.params.number));
+    const found = number === null ? null : await readVersion(db, String(req.params.slug), number, req.user?.roles ?? []);
     if (found === null) return sendError(res, 404, { key: "errors.notFound", message: "There is no such published version." });
     res.json(found.snapshot);
   });

@@ -26,7 +26,7 @@ export interface CachedPage {
   etag: string;
   status: number;
   headers: [string, string][];
-  /** The nonce the HTML's inline scripts carry: the response's policy must name the same one. */
+  /** The nonce of the response that rendered it: only that response's policy names it. */
   nonce: string;
   /** What may still change on the frozen page (newer versions, withdrawal): checked on every hit. */
   state: string;

@@ -60,7 +60,10 @@ export async function pageRoutes(options: {
     for (const [name, value] of page.headers) res.setHeader(name, value);
     const policy = res.getHeader("content-security-policy");
     const nonce = res.locals.cspNonce as string;
-    if (typeof policy === "string" && page.nonce !== nonce) res.setHeader("content-security-policy", policy.replace(`'nonce-${nonce}'`, `'nonce-${page.nonce}'`));
+    // A page served from the cache was rendered for another response: a nonce that every reader of
+    // it sees is no secret, so its policy names none. Its scripts are files of this site ('self');
+    // its inline scripts are JSON data, which never runs (tests/integration/public-site.test.ts).
+    if (typeof policy === "string" && page.nonce !== nonce) res.setHeader("content-security-policy", policy.replace(` 'nonce-${nonce}'`, ""));
     res.setHeader("Cache-Control", cacheControl[caching]);
     if (caching !== "private") res.setHeader("ETag", page.etag);
     if (caching !== "private" && page.status === 200 && req.fresh) return res.status(304).end();

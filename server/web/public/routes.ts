@@ -2,13 +2,13 @@
 // and robots.txt. Everything comes from released, frozen versions; embargoed ones answer 404 to
 // all but the press and editors, exactly as their pages do.
 import { Router, type Request, type Response } from "express";
-import { Feed } from "feed";
 import { comparisonContent } from "#core/brief-page";
 import { briefUrl, comparisonUrl, feedUrl, homeUrl, searchUrl, sitemapUrl, versionNumberOf, versionUrl } from "#core/urls";
 import { listReleasedVersions, readVersion } from "#db/versions";
 import type { Database } from "#db/client";
 import { citationFile, citationMedia, type CitationFormat, type CitationInput } from "./citations";
 import { downloads } from "./downloads";
+import { atomFeed, escapeXml, feedEntries } from "./feed";
 
 /** The address readers use: the configured one, or the one this request came to. */
 export function siteUrl(req: Request, configured: string | undefined): string {
@@ -72,27 +72,8 @@ export function publicFileRoutes(db: Database, publicUrl: string | undefined): R
 
   router.get("/feed.xml", async (req, res) => {
     const base = siteUrl(req, publicUrl);
-    const versions = await listReleasedVersions(db);
-    const feed = new Feed({
-      id: `${base}${homeUrl()}`,
-      link: `${base}${homeUrl()}`,
-      title: "Fairweigh: new and corrected briefs",
-      description: "Network meta-analyses published so that readers can see what the evidence supports.",
-      copyright: "Fairweigh",
-      updated: versions[0] ? new Date(versions[0].releaseAt) : new Date(0),
-      feedLinks: { atom: `${base}${feedUrl()}` },
-    });
-    for (const version of versions.slice(0, 50)) {
-      const url = `${base}${versionUrl({ slug: version.slug, version: version.number })}`;
-      feed.addItem({
-        id: url,
-        link: url,
-        title: version.number === 1 ? version.title : `Corrected (version ${version.number}): ${version.title}`,
-        description: version.number === 1 ? `New brief: ${version.title}` : `Correction note: ${version.note ?? ""}`,
-        date: new Date(version.releaseAt),
-      });
-    }
-    res.set("Cache-Control", "public, max-age=300").type("application/atom+xml; charset=utf-8").send(feed.atom1());
+    const entries = feedEntries(await listReleasedVersions(db), base);
+    res.set("Cache-Control", "public, max-age=300").type("application/atom+xml; charset=utf-8").send(atomFeed({ base, selfUrl: `${base}${feedUrl()}`, entries }));
   });
 
   router.get("/sitemap.xml", async (req, res) => {
@@ -118,8 +99,4 @@ export function publicFileRoutes(db: Database, publicUrl: string | undefined): R
   });
 
   return router;
-}
-
-function escapeXml(text: string): string {
-  return text.replace(/[<>&'"]/g, (c) => `&#${c.charCodeAt(0)};`);
 }

@@ -1,0 +1,169 @@
+// What a hostile outsider found, each kept as a test against the production build: every malformed
+// request gets its 4xx with a message that names what is wrong, never a 500, and nothing partial is
+// stored. (The embargo and cache findings are in public-site.test.ts.)
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { demoPassword } from "#workflows/seed";
+import { demoBriefs } from "#workflows/demo-briefs";
+import { slugify } from "#core/slug";
+import { analysedBrief, approve, publishedBrief } from "../support/briefs";
+import { ApiClient } from "../support/client";
+import { startProductionServer, type RunningServer } from "../support/production-server";
+
+let server: RunningServer;
+const clients: Record<string, ApiClient> = {};
+beforeAll(async () => {
+  server = await startProductionServer();
+  for (const role of ["analyst", "editor", "press"]) {
+    clients[role] = new ApiClient(server.url);
+    await clients[role].signIn(`${role}@fairweigh.example`, demoPassword);
+  }
+}, 60_000);
+afterAll(async () => {
+  await server.stop();
+});
+
+const get = (path: string, headers: Record<string, string> = {}) => fetch(`${server.url}${path}`, { headers, redirect: "manual" });
+const small = slugify(demoBriefs()[0]!.title);
+const raw = (method: string, path: string, body: string, headers: Record<string, string> = {}) =>
+  fetch(`${server.url}${path}`, { method, headers: { "content-type": "application/json", ...headers }, body, redirect: "manual" });
+
+describe("request bodies", () => {
+  it("malformed JSON, or JSON that is not an object, is a 400 naming the body, even before any session", async () => {
+    for (const body of ["{bad", "null", "123", '"text"', "[1,"]) {
+      const response = await raw("POST", "/api/session", body);
+      expect(response.status, body).toBe(400);
+      expect(((await response.json()) as { error: { key: string } }).error.key, body).toBe("errors.invalidJson");
+    }
+  });
+
+  it("a body over the limit is a 413", async () => {
+    const response = await raw("POST", "/api/session", JSON.stringify({ email: "a".repeat(1_100_000), password: "x" }));
+    expect(response.status).toBe(413);
+  });
+
+  it("a NUL byte in a text field is a 400 naming the field, and nothing is stored", async () => {
+    const response = await clients.analyst!.request("POST", "/api/briefs", { json: { title: "Nul\u0000title", topic: "t", condition: "c", population: "p" } });
+    expect(response.status).toBe(400);
+    expect(response.body.error).toMatchObject({ key: "errors.invalidText", details: [{ field: "title" }] });
+    const list = await clients.analyst!.request("GET", "/api/briefs");
+    expect(JSON.stringify(list.body)).not.toContain("Nul");
+  });
+
+  it("a NUL byte in a CSV cell is a 422 naming its line, and the earlier data stays", async () => {
+    const { outcomeId } = await analysedBrief(clients.analyst!, "Hostile upload");
+    const csv = "study,treatment,events,total\nS1,a,1,10\nS1,b\u0000,2,10\n";
+    const upload = await clients.analyst!.upload(`/api/outcomes/${outcomeId}/dataset`, { name: "nul.csv", bytes: csv }, { format: "arm-binary" });
+    expect(upload.status).toBe(422);
+    expect(upload.body.issues).toEqual([expect.objectContaining({ rule: "nul-byte", row: 3 })]);
+    const result = await clients.analyst!.request("GET", `/api/outcomes/${outcomeId}/result`);
+    expect((result.body as { treatments: string[] }).treatments).toContain("no_contact");
+  });
+
+  it("a row version beyond PostgreSQL's integer is a 400, not a database error", async () => {
+    const { briefId } = await analysedBrief(clients.analyst!, "Hostile row version");
+    const response = await clients.analyst!.request("PATCH", `/api/briefs/${briefId}`, { json: { rowVersion: 2147483648, title: "x" } });
+    expect(response.status).toBe(400);
+    expect(response.body.error?.message).toContain("rowVersion");
+  });
+
+  it("six briefs created at once with the same title all succeed, each with its own address", async () => {
+    const answers = await Promise.all(Array.from({ length: 6 }, () => clients.analyst!.request("POST", "/api/briefs", { json: { title: "Same title at once", topic: "t", condition: "c", population: "p" } })));
+    for (const answer of answers) expect([201, 409]).toContain(answer.status);
+    const slugs = answers.filter((a) => a.status === 201).map((a) => a.body.slug);
+    expect(new Set(slugs).size).toBe(slugs.length);
+  });
+
+  it("names for labels that are not in the brief's data are refused, naming them", async () => {
+    const { briefId } = await analysedBrief(clients.analyst!, "Hostile names");
+    const response = await clients.analyst!.request("PUT", `/api/briefs/${briefId}/treatments`, { json: { names: { no_contact: "No contact", ghost: "Ghost" } } });
+    expect(response.status).toBe(400);
+    expect(response.body.error?.message).toContain("ghost");
+  });
+});
+
+describe("addresses", () => {
+  it("a NUL byte, malformed percent-encoding or a version beyond the integer range is a 404", async () => {
+    for (const path of ["/briefs/%00", "/briefs/%E0%A4%A", `/briefs/${small}/v/2147483648`, `/briefs/${small}/v/99999999999999999999`, `/briefs/${small}/v/1/compare/%E0%A4%A/x`, `/briefs/${small}/v/2147483648/cite.ris`, "/api/briefs/x/versions/2147483648"]) {
+      const response = await get(path);
+      expect(response.status, path).toBe(404);
+    }
+  });
+
+  it("names of Object.prototype are no download", async () => {
+    for (const name of ["__proto__", "constructor", "toString", "hasOwnProperty"]) {
+      expect((await get(`/briefs/${small}/v/1/downloads/${name}`)).status, name).toBe(404);
+    }
+  });
+
+  it("another spelling of a version's address is sent to the canonical one, so it is rendered and cached once", async () => {
+    const spelled = small.replace("-", "%2D");
+    for (const path of [`/briefs/${spelled}/v/1`, `/briefs/${small}/v/1/`, `/briefs/${spelled}/v/1/compare/light/usual_care`]) {
+      const response = await get(path);
+      expect(response.status, path).toBe(301);
+      expect(response.headers.get("location"), path).toBe(path.replace("%2D", "-").replace(/\/$/, ""));
+    }
+  });
+});
+
+describe("what the public files say", () => {
+  it("the feed sends titles as text, and a title's markup stays words", async () => {
+    await publishedBrief(clients.analyst!, clients.editor!, "Markup <b>bold</b> & more");
+    const feed = await (await get("/feed.xml")).text();
+    expect(feed).not.toContain('type="html"');
+    expect(feed).toContain('<title type="text">Markup &#60;b&#62;bold&#60;/b&#62; &#38; more</title>');
+  });
+
+  it("a title with line breaks stays one record in RIS", async () => {
+    const { slug } = await publishedBrief(clients.analyst!, clients.editor!, "Two\r\nTY  - GEN\r\nlines");
+    const ris = await (await get(`/briefs/${slug}/v/1/cite.ris`)).text();
+    expect(ris.match(/^TY {2}- /gm)).toHaveLength(1);
+    expect(ris.match(/^ER {2}- /gm)).toHaveLength(1);
+  });
+});
+
+describe("sessions, caching of API answers, and review", () => {
+  it("signing out ends the session on the server and clears its cookie", async () => {
+    const person = new ApiClient(server.url);
+    await person.signIn("analyst@fairweigh.example", demoPassword);
+    const cookie = person.cookieHeader;
+    const out = await person.request("DELETE", "/api/session");
+    expect(out.status).toBe(204);
+    expect(out.headers.getSetCookie().some((line) => /^fairweigh\.session=;/.test(line) && /Expires=Thu, 01 Jan 1970/.test(line))).toBe(true);
+    const replayed = await fetch(`${server.url}/api/session`, { headers: { cookie } });
+    expect(replayed.status).toBe(401);
+  });
+
+  it("API answers that depend on who asks are never stored by a shared cache", async () => {
+    for (const [client, path] of [[clients.press!, "/api/press-room"], [clients.analyst!, "/api/briefs"], [clients.press!, `/api/briefs/${small}/versions/1`]] as const) {
+      const response = await client.request("GET", path);
+      expect(response.headers.get("cache-control"), path).toBe("private, no-store");
+    }
+  });
+
+  it("an editor cannot approve again a draft changed after its approval: it is submitted again first", async () => {
+    const { briefId } = await analysedBrief(clients.analyst!, "Hostile re-approval");
+    await approve(clients.analyst!, clients.editor!, briefId);
+    const brief = await clients.analyst!.request("GET", `/api/briefs/${briefId}`);
+    const rowVersion = (brief.body.brief as { rowVersion: number }).rowVersion;
+    expect((await clients.analyst!.request("PATCH", `/api/briefs/${briefId}`, { json: { rowVersion, population: "Adults who smoke daily" } })).status).toBe(200);
+    const again = await clients.editor!.request("POST", `/api/briefs/${briefId}/reviews`, { json: { decision: "approved" } });
+    expect(again.status).toBe(409);
+    expect(again.body.error?.message).toContain("submitted again");
+  });
+});
+
+describe("cached pages and the content security policy", () => {
+  it("a page served from the cache names no nonce, and its inline scripts are data that never runs", async () => {
+    const path = `/briefs/${small}/v/1/compare/light/usual_care`;
+    await get(path);
+    const cached = await get(path);
+    const policy = cached.headers.get("content-security-policy")!;
+    expect(policy).toContain("script-src 'self'");
+    expect(policy).not.toContain("nonce-");
+    expect(policy).not.toContain("unsafe-inline' 'self'");
+    const html = await cached.text();
+    const inline = [...html.matchAll(/<script(?![^>]*\bsrc=)([^>]*)>/g)].map((m) => m[1]!);
+    expect(inline.length).toBeGreaterThan(0);
+    for (const attributes of inline) expect(attributes).toMatch(/type="application\/(ld\+)?json"/);
+  });
+});
