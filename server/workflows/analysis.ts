@@ -1,13 +1,12 @@
 // Uploading data and running the engine for an outcome: the file is parsed and analysed by the pure
 // engine, and only a file the engine can analyse is stored, with its result, in one transaction.
 import { createHash } from "node:crypto";
-import { analyse } from "#core/nma/analyse";
-import { parseDataset } from "#core/nma/parse";
 import type { Format, ParsedDataset } from "#core/nma/types";
 import { analysisSettings, insertDataset, latestDataset, recordResult } from "#db/analyses";
 import { recordAudit } from "#db/audit";
 import type { Database, Executor } from "#db/client";
 import type { OutcomeRow } from "#db/outcomes";
+import { analyseParsed, parseAndAnalyse } from "./engine-thread";
 
 /** Formats that fit an outcome's kind: contrasts carry any measure. */
 export function formatFitsOutcome(format: Format, outcome: OutcomeRow): boolean {
@@ -20,9 +19,9 @@ export function formatFitsOutcome(format: Format, outcome: OutcomeRow): boolean 
  * SHA-256 and parsed rows, and its result is stored; earlier uploads stay in the history.
  */
 export async function storeDataset(db: Database, outcome: OutcomeRow, file: { name: string; bytes: Buffer }, format: Format, actorId: string) {
-  const parsed = parseDataset(file.bytes, format);
   const settings = analysisSettings(outcome);
-  const result = analyse(parsed, settings);
+  // In the engine's thread: a large or broken file must not hold up every other request.
+  const { parsed, result } = await parseAndAnalyse(file.bytes, format, settings);
   const sha256 = createHash("sha256").update(file.bytes).digest("hex");
   return db.transaction(async (tx) => {
     const dataset = await insertDataset(tx, { outcomeId: outcome.id, format, fileName: file.name, original: file.bytes, sha256, parsed, uploadedBy: actorId });
@@ -44,5 +43,5 @@ export async function rerunLatest(db: Executor, outcome: OutcomeRow): Promise<vo
   const dataset = await latestDataset(db, outcome.id);
   if (!dataset) return;
   const settings = analysisSettings(outcome);
-  await recordResult(db, outcome.id, dataset, settings, analyse(dataset.parsed as ParsedDataset, settings));
+  await recordResult(db, outcome.id, dataset, settings, await analyseParsed(dataset.parsed as ParsedDataset, settings));
 }

@@ -1,6 +1,8 @@
 // What a hostile outsider found, each kept as a test against the production build: every malformed
 // request gets its 4xx with a message that names what is wrong, never a 500, and nothing partial is
 // stored. (The embargo and cache findings are in public-site.test.ts.)
+import { readFileSync } from "node:fs";
+import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { demoPassword } from "#workflows/seed";
 import { demoBriefs } from "#workflows/demo-briefs";
@@ -165,5 +167,46 @@ describe("cached pages and the content security policy", () => {
     const inline = [...html.matchAll(/<script(?![^>]*\bsrc=)([^>]*)>/g)].map((m) => m[1]!);
     expect(inline.length).toBeGreaterThan(0);
     for (const attributes of inline) expect(attributes).toMatch(/type="application\/(ld\+)?json"/);
+  });
+});
+
+describe("the engine runs off the event loop", () => {
+  it("the server answers other requests while a large broken upload is being checked", async () => {
+    const { outcomeId } = await analysedBrief(clients.analyst!, "Hostile large upload");
+    // About 4.5 MB of rows that each break a rule: parsing all of it takes seconds.
+    const csv = `study,treatment,events,total\n${"S1,a,not-a-number,10\n".repeat(220_000)}`;
+    const order: string[] = [];
+    const upload = clients.analyst!.upload(`/api/outcomes/${outcomeId}/dataset`, { name: "large.csv", bytes: csv }, { format: "arm-binary" }).then((answer) => {
+      order.push("upload");
+      return answer;
+    });
+    await new Promise((resolve) => setTimeout(resolve, 300));
+    const health = await get("/api/health");
+    order.push("health");
+    expect(health.status).toBe(200);
+    const answer = await upload;
+    expect(answer.status).toBe(422);
+    expect(order).toEqual(["health", "upload"]);
+  });
+});
+
+describe("a treatment label with a slash", () => {
+  it("names one comparison: its links are encoded and its page answers", async () => {
+    const csv = readFileSync(path.resolve(__dirname, "../fixtures/reference/hasselblad1998.csv"), "utf8").replaceAll("self_help", "self/help");
+    const created = await clients.analyst!.request("POST", "/api/briefs", { json: { title: "Slash label", topic: "Smoking", condition: "Tobacco dependence", population: "Adults" } });
+    const briefId = String(created.body.id);
+    const outcome = await clients.analyst!.request("POST", `/api/briefs/${briefId}/outcomes`, {
+      json: { name: "Quit smoking", kind: "binary", measure: "OR", model: "fixed", referenceTreatment: "no_contact", direction: "higher", baselineRisk: 0.07 },
+    });
+    const outcomeId = String((outcome.body.outcome as { id: string }).id);
+    expect((await clients.analyst!.upload(`/api/outcomes/${outcomeId}/dataset`, { name: "slash.csv", bytes: csv }, { format: "arm-binary" })).status).toBe(200);
+    await approve(clients.analyst!, clients.editor!, briefId);
+    expect((await clients.editor!.request("POST", `/api/briefs/${briefId}/versions`, { json: {} })).status).toBe(201);
+    const page = await (await get(`/briefs/${String(created.body.slug)}/v/1`)).text();
+    const link = `/briefs/${String(created.body.slug)}/v/1/compare/self%2Fhelp/no_contact`;
+    expect(page).toContain(`href="${link}"`);
+    const comparison = await get(link);
+    expect(comparison.status).toBe(200);
+    expect(await comparison.text()).toContain("self/help vs no_contact");
   });
 });

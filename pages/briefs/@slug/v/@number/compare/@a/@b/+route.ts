@@ -1,0 +1,11 @@
+// /briefs/:slug/v/:n/compare/:a/:b, parsed by the URL map rather than by folder names: a treatment
+// label may hold "/" (sent as %2F), which a route string would read as two segments.
+import type { PageContext } from "vike/types";
+import { parseVersionPath } from "#core/urls";
+
+export default function route(pageContext: PageContext) {
+  const parsed = parseVersionPath(pageContext.urlOriginal.split(/[?#]/)[0]!);
+  if (parsed?.kind !== "comparison") return false;
+  const { slug, version, treatment, comparator } = parsed.at;
+  return { routeParams: { slug, number: String(version), a: treatment, b: comparator } };
+}
