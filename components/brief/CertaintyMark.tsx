@@ -8,7 +8,7 @@ const steps: Record<Rating, number> = { very_low: 1, low: 2, moderate: 3, high: 
 
 export function CertaintyMark({ rating }: { rating: Rating | null }) {
   const { t } = useTranslation();
-  if (rating === null) return <span className="text-muted">{t("desk.notRated")}</span>;
+  if (rating === null) return <span className="text-muted">{t("certainty.notAssessed")}</span>;
   const filled = steps[rating];
   return (
     <span className="inline-flex items-baseline gap-2 whitespace-nowrap" data-certainty={rating}>

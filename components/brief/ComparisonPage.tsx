@@ -96,13 +96,13 @@ function OutcomeComparison({ outcome }: { outcome: ComparisonOutcomeView }) {
           <tbody>
             <tr className="border-b border-rule">
               <th scope="row" className="py-2 pe-4 text-start font-normal">{t("compare.direct")}</th>
-              <td className="py-2 pe-4 tabular-nums">{outcome.direct ? formatInterval(outcome.measure, outcome.direct, to) : t("compare.none")}</td>
+              <td className="py-2 pe-4 tabular-nums">{outcome.direct ? formatInterval(outcome.measure, outcome.direct, to) : t("compare.noDirect")}</td>
               <td className="py-2 pe-4 text-end tabular-nums">{outcome.direct?.studies ?? 0}</td>
               <td className="py-2 text-end tabular-nums">{outcome.direct?.participants ?? "—"}</td>
             </tr>
             <tr className="border-b border-rule">
               <th scope="row" className="py-2 pe-4 text-start font-normal">{t("compare.indirect")}</th>
-              <td className="py-2 pe-4 tabular-nums">{outcome.indirect ? formatInterval(outcome.measure, outcome.indirect, to) : t("compare.none")}</td>
+              <td className="py-2 pe-4 tabular-nums">{outcome.indirect ? formatInterval(outcome.measure, outcome.indirect, to) : t("compare.noIndirect")}</td>
               <td className="py-2 pe-4 text-end">—</td>
               <td className="py-2 text-end">—</td>
             </tr>

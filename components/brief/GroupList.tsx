@@ -8,11 +8,23 @@ export function GroupList({ outcome }: { outcome: OutcomeView }) {
   return (
     <>
       <p className="mt-2 text-muted">{t(`brief.framework.${outcome.framework}`, { reference: outcome.reference.name })}</p>
+      {outcome.thresholds ? (
+        <p className="mt-2 text-muted" data-testid="thresholds">
+          {t(`brief.thresholds.${outcome.thresholds.unit}`, {
+            reference: outcome.reference.name,
+            baseline: outcome.thresholds.baselinePer1000,
+            unit: outcome.unit ?? "",
+            small: outcome.thresholds.small ?? t("brief.thresholds.notSet"),
+            moderate: outcome.thresholds.moderate ?? t("brief.thresholds.notSet"),
+            large: outcome.thresholds.large ?? t("brief.thresholds.notSet"),
+          })}
+        </p>
+      ) : null}
       <ol className="mt-4 space-y-4" data-testid="groups">
         {outcome.groups.map((group) => (
           <li
             key={`${group.level}-${group.firmness}`}
-            className={`border-s-4 bg-white p-4 ${group.firmness === "firm" ? "border-accent" : group.firmness === "may" ? "border-accent/50 border-dashed" : "border-rule"}`}
+            className={`border-s-4 bg-white p-4 ${group.firmness === "firm" ? "border-accent" : group.firmness === "may" ? "border-accent/50 border-dashed" : group.firmness === "not-assessed" ? "border-rule border-dotted" : "border-rule"}`}
           >
             <h4 className="text-lg font-semibold">{t(group.label.key, group.label.values)}</h4>
             {group.label.key === "groups.referenceOnly" ? null : (

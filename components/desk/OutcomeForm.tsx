@@ -73,9 +73,10 @@ export function OutcomeForm({ onSubmit, busy, error }: { onSubmit: (fields: Crea
           <input name="baselineRisk" type="number" step="any" min="0" max="1" className={inputClass} />
         </Field>
       ) : null}
+      <p className="text-sm text-muted sm:col-span-2" id="threshold-scale">{t(`desk.thresholdScale.${kind}`)}</p>
       {(["thresholdSmall", "thresholdModerate", "thresholdLarge"] as const).map((name) => (
-        <Field key={name} label={t(`desk.field.${name}`)}>
-          <input name={name} type="number" step="any" min="0" className={inputClass} />
+        <Field key={name} label={`${t(`desk.field.${name}`)} (${t(`desk.thresholdUnit.${kind}`)})`}>
+          <input name={name} type="number" step="any" min="0" max={kind === "binary" ? 1000 : undefined} aria-describedby="threshold-scale" className={inputClass} />
         </Field>
       ))}
       <SubmitRow label={t("desk.addOutcome")} busy={busy} error={error} />

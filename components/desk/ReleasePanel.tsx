@@ -4,20 +4,23 @@
 import { useState } from "react";
 import { useTranslation } from "react-i18next";
 import { buttonClass, Field, formValues, inputClass } from "./forms";
-import { usePublish, useReviews, useReviewStep, useWithdraw } from "./queries";
+import { usePublish, useReadiness, useReviews, useReviewStep, useWithdraw } from "./queries";
 import type { BriefDetail } from "#web/api/contract";
 import { previewUrl } from "#core/urls";
 
 export function ReleasePanel({ brief, canEdit, canSubmit }: { brief: BriefDetail; canEdit: boolean; canSubmit: boolean }) {
   const { t, i18n } = useTranslation();
   const reviews = useReviews(brief.id);
+  const readiness = useReadiness(brief.id);
   const review = useReviewStep(brief.id);
   const publish = usePublish(brief.id);
   const withdraw = useWithdraw(brief.id);
   const [schedule, setSchedule] = useState(false);
   const date = new Intl.DateTimeFormat(i18n.language, { dateStyle: "medium", timeStyle: "short" });
   const withdrawn = brief.status === "withdrawn";
-  const published = brief.status === "published" || brief.status === "corrected" || brief.status === "scheduled";
+  // A brief with a version is released, whatever step its next version is at: a correction needs its note.
+  const published = brief.latestVersion > 0;
+  const warnings = readiness.data?.warnings ?? [];
   const approval = reviews.data?.approval ?? "none";
   const error = review.error ?? publish.error ?? withdraw.error;
 
@@ -35,6 +38,31 @@ export function ReleasePanel({ brief, canEdit, canSubmit }: { brief: BriefDetail
         </p>
       ) : null}
 
+      {readiness.data ? (
+        <div className="mt-4 font-sans text-sm" data-testid="readiness">
+          <h3 className="font-semibold">{t("readiness.title")}</h3>
+          {readiness.data.blocking.length === 0 ? (
+            <p className="mt-1">{t("readiness.ready")}</p>
+          ) : (
+            <ul className="mt-1 list-disc ps-6 text-accent">
+              {readiness.data.blocking.map((item, i) => (
+                <li key={i}>{t(item.key, item.values)}</li>
+              ))}
+            </ul>
+          )}
+          {warnings.length > 0 ? (
+            <>
+              <h3 className="mt-3 font-semibold">{t("readiness.warningsTitle")}</h3>
+              <ul className="mt-1 list-disc ps-6">
+                {warnings.map((item, i) => (
+                  <li key={i}>{t(item.key, item.values)}</li>
+                ))}
+              </ul>
+            </>
+          ) : null}
+        </div>
+      ) : null}
+
       {!withdrawn ? (
         <form
           className="mt-5 grid gap-3 font-sans"
@@ -43,12 +71,19 @@ export function ReleasePanel({ brief, canEdit, canSubmit }: { brief: BriefDetail
             const submitter = (event.nativeEvent as SubmitEvent).submitter as HTMLButtonElement | null;
             const form = event.currentTarget;
             const { comment } = formValues(form);
-            review.mutate({ decision: submitter?.value as "submitted" | "returned" | "approved", comment: comment || undefined }, { onSuccess: () => form.reset() });
+            const acknowledgeWarnings = (form.elements.namedItem("acknowledgeWarnings") as HTMLInputElement | null)?.checked ?? false;
+            review.mutate({ decision: submitter?.value as "submitted" | "returned" | "approved", comment: comment || undefined, acknowledgeWarnings }, { onSuccess: () => form.reset() });
           }}
         >
           <Field label={t("desk.release.comment")}>
             <textarea name="comment" rows={3} className={inputClass} />
           </Field>
+          {canEdit && brief.status === "in_review" && warnings.length > 0 ? (
+            <label className="flex items-center gap-2 text-sm">
+              <input type="checkbox" name="acknowledgeWarnings" />
+              {t("readiness.acknowledge")}
+            </label>
+          ) : null}
           <div className="flex flex-wrap gap-3">
             {canSubmit ? (
               <button type="submit" name="decision" value="submitted" className={buttonClass} disabled={review.isPending}>{t("desk.release.submit")}</button>
@@ -95,6 +130,7 @@ export function ReleasePanel({ brief, canEdit, canSubmit }: { brief: BriefDetail
       ) : null}
 
       {canEdit && published && !withdrawn ? (
+        // Withdrawal is open in every released state, a correction under review included.
         <details className="mt-6 border-t border-rule pt-5 font-sans">
           <summary className="cursor-pointer font-semibold">{t("desk.release.withdraw")}</summary>
           <form

@@ -23,6 +23,7 @@ export const queryKeys = {
   result: (outcomeId: string) => ["result", outcomeId],
   certainty: (outcomeId: string) => ["certainty", outcomeId],
   reviews: (briefId: string) => ["reviews", briefId],
+  readiness: (briefId: string) => ["readiness", briefId],
   pressRoom: ["press-room"],
 } as const;
 
@@ -148,6 +149,10 @@ export function useSaveTexts(briefId: string) {
   });
 }
 
+export function useReadiness(briefId: string) {
+  return useQuery({ queryKey: queryKeys.readiness(briefId), queryFn: () => callApi<ApiAnswers["readiness"]>("GET", `/api/briefs/${briefId}/readiness`) });
+}
+
 export function useReviews(briefId: string) {
   return useQuery({ queryKey: queryKeys.reviews(briefId), queryFn: () => callApi<ReviewHistory>("GET", `/api/briefs/${briefId}/reviews`) });
 }
@@ -161,6 +166,7 @@ function useReleaseStep<T, R>(briefId: string, step: (body: T) => Promise<R>) {
       await Promise.all([
         queryClient.invalidateQueries({ queryKey: queryKeys.brief(briefId) }),
         queryClient.invalidateQueries({ queryKey: queryKeys.reviews(briefId) }),
+        queryClient.invalidateQueries({ queryKey: queryKeys.readiness(briefId) }),
         queryClient.invalidateQueries({ queryKey: queryKeys.briefs }),
       ]);
     },

@@ -33,6 +33,8 @@ export interface OutcomeView {
   unit: string | null;
   better: "higher" | "lower";
   framework: "minimal" | "partial";
+  /** The thresholds the partially contextualised groups use, on their scale; null for the minimal framework. */
+  thresholds: { small: number | null; moderate: number | null; large: number | null; unit: "per1000" | "units"; baselinePer1000: number | null } | null;
   reference: Named;
   groups: { label: Message; firmness: Firmness; level: number; treatments: Named[] }[];
   /** Every treatment against the reference, alphabetically by name: the forest plot and its table. */
@@ -128,6 +130,10 @@ function outcomeView(outcome: OutcomeSnapshot, index: number, named: (id: string
     unit: outcome.unit,
     better: settings.better,
     framework: outcome.framework,
+    thresholds:
+      outcome.framework === "partial"
+        ? { ...outcome.thresholds, unit: outcome.kind === "binary" ? "per1000" : "units", baselinePer1000: outcome.baselineRisk === null ? null : Math.round(1000 * outcome.baselineRisk) }
+        : null,
     reference: named(reference),
     groups: outcome.groups.map((g) => ({ label: g.label, firmness: g.firmness, level: g.level, treatments: g.treatments.map(named) })),
     effects: methods.treatments

@@ -27,7 +27,16 @@ export const outcomeInput = outcomeFields
       return given.every((t, i) => i === 0 || t > given[i - 1]!);
     },
     { message: "thresholds must grow from small to moderate to large", path: ["thresholdModerate"] },
-  );
+  )
+  // Thresholds of a binary outcome are differences per 1000 people at its baseline risk (METHODS.md §9).
+  .refine((o) => o.kind !== "binary" || o.baselineRisk != null || [o.thresholdSmall, o.thresholdModerate, o.thresholdLarge].every((t) => t == null), {
+    message: "thresholds of a binary outcome are per 1000 people at its baseline risk: give the baseline risk",
+    path: ["baselineRisk"],
+  })
+  .refine((o) => o.kind !== "binary" || [o.thresholdSmall, o.thresholdModerate, o.thresholdLarge].every((t) => t == null || t <= 1000), {
+    message: "a threshold of a binary outcome is a difference per 1000 people: at most 1000",
+    path: ["thresholdLarge"],
+  });
 
 export type OutcomeInput = z.infer<typeof outcomeInput>;
 

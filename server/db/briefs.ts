@@ -70,8 +70,9 @@ export async function briefWithOutcomes(db: Database, id: string) {
   const labels = new Set<string>();
   for (const outcome of rows) for (const label of await latestTreatments(db, outcome.id)) labels.add(label);
   const named = new Map((await db.select().from(treatmentNames).where(eq(treatmentNames.briefId, id))).map((r) => [r.label, r.displayName]));
-  const treatments = [...labels].sort().map((label) => ({ label, displayName: named.get(label) ?? label }));
-  return { ...brief, outcomes: withStatus, treatments };
+  const treatments = [...labels].sort().map((label) => ({ label, displayName: named.get(label) ?? label, named: named.has(label) }));
+  const [latest] = await db.select({ number: briefVersions.number }).from(briefVersions).where(eq(briefVersions.briefId, id)).orderBy(desc(briefVersions.number)).limit(1);
+  return { ...brief, outcomes: withStatus, treatments, latestVersion: latest?.number ?? 0 };
 }
 
 /** Sets the names readers see for treatment labels of the data; an empty name falls back to the label. */

@@ -3,9 +3,9 @@ import { fileURLToPath } from "node:url";
 import { migrate } from "drizzle-orm/node-postgres/migrator";
 import type { Database } from "./client";
 
-const migrationsFolder = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "../../drizzle");
+export const migrationsFolder = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "../../drizzle");
 
-/** Applies the committed SQL migrations in drizzle/ that the database has not seen yet. */
-export async function migrateDatabase(db: Database): Promise<void> {
-  await migrate(db, { migrationsFolder });
+/** Applies the committed SQL migrations in drizzle/ (or another folder, for a test of one migration) that the database has not seen yet. */
+export async function migrateDatabase(db: Database, folder = migrationsFolder): Promise<void> {
+  await migrate(db, { migrationsFolder: folder });
 }

@@ -15,7 +15,7 @@ export const thresholdsOf = (outcome: OutcomeRow) => ({ small: outcome.threshold
 export async function outcomeCertainty(db: Database, outcome: OutcomeRow, result?: AnalysisResult): Promise<ComparisonCertainty[] | null> {
   const analysed = result ?? ((await latestResult(db, outcome.id))?.result as AnalysisResult | undefined);
   if (!analysed) return null;
-  return assessCertainty(analysed, await loadJudgements(db, outcome.id), thresholdsOf(outcome));
+  return assessCertainty(analysed, await loadJudgements(db, outcome.id), thresholdsOf(outcome), outcome.baselineRisk);
 }
 
 export type JudgementOutcome =

@@ -11,6 +11,7 @@ export interface DemoOutcome {
   reference: string;
   baselineRisk: number | null;
   unit: string | null;
+  /** On the decision scale (METHODS.md §9): more people per 1000 for binary outcomes, the outcome's units for continuous ones. */
   thresholds: { small: number; moderate: number; large: number };
   csv: string;
 }
@@ -88,7 +89,7 @@ The groups below say which options the evidence supports and how sure we can be.
       reference: "usual_care",
       baselineRisk: 0.3,
       unit: null,
-      thresholds: { small: 0.15, moderate: 0.4, large: 0.8 },
+      thresholds: { small: 30, moderate: 90, large: 190 },
       csv: generate("binary", shiftDesigns, { usual_care: -0.85, light: -0.3, nap_plan: -0.55, drug_k: -0.2, drug_m: -0.75, combined: 0.15 }, 11),
     },
     {
@@ -138,7 +139,7 @@ Twenty-one fictional compounds for an everyday tension headache are compared wit
         reference: "inactive",
         baselineRisk: 0.17,
         unit: null,
-        thresholds: { small: 0.1, moderate: 0.3, large: 0.6 },
+        thresholds: { small: 15, moderate: 45, large: 100 },
         csv: generate("binary", designs, truth, 22),
       },
     ],

@@ -6,13 +6,17 @@ import { lockBrief, setBriefState } from "#db/briefs";
 import type { Database } from "#db/client";
 import { approvalOf } from "#db/reviews";
 import { insertVersion, lastVersionNumber } from "#db/versions";
+import type { ReadinessItem } from "#core/readiness";
+import { briefReadiness } from "./readiness";
 import { contentChecksum, draftSnapshot } from "./snapshot";
 
 export type PublishOutcome =
   | { ok: true; version: number; url: string }
-  | { ok: false; reason: "not-found" | "not-ready" | "not-approved" | "withdrawn" | "note-required"; detail: string };
+  | { ok: false; reason: "not-found" | "not-ready" | "not-approved" | "withdrawn" | "note-required"; detail: string; items?: ReadinessItem[] };
 
 export async function publishVersion(db: Database, briefId: string, options: { releaseAt?: Date; note?: string }, actorId: string): Promise<PublishOutcome> {
+  const readiness = await briefReadiness(db, briefId);
+  if (readiness && readiness.blocking.length > 0) return { ok: false, reason: "not-ready", detail: "the draft is not ready to publish", items: readiness.blocking };
   const draft = await draftSnapshot(db, briefId);
   if (!draft.ok) return draft;
   return db.transaction(async (tx) => {

@@ -6,13 +6,20 @@ import { approvalOf, insertReviewStep, latestReview, latestSubmitter, reviewStep
 import { hasVersion } from "#db/versions";
 import { refuseReviewStep, statusAfterReview, type ReviewRefusal } from "#core/review";
 import type { ReviewDecision } from "#core/status";
+import type { ReadinessItem } from "#core/readiness";
+import { briefReadiness } from "./readiness";
 import { contentChecksum, draftSnapshot } from "./snapshot";
 
 export type ReviewOutcome =
   | { ok: true; decision: ReviewDecision; status: string }
-  | ({ ok: false } & (ReviewRefusal | { reason: "not-found" | "not-ready"; detail: string }));
+  | ({ ok: false } & (ReviewRefusal | { reason: "not-found" | "not-ready" | "warnings"; detail: string; items?: ReadinessItem[] }));
 
-export async function reviewBrief(db: Database, briefId: string, step: { decision: ReviewDecision; comment?: string }, actorId: string): Promise<ReviewOutcome> {
+/**
+ * An approval vouches for a draft that is ready (server/core/readiness.ts): every blocking item is
+ * refused with the list, and the approving editor acknowledges the warnings.
+ */
+export async function reviewBrief(db: Database, briefId: string, step: { decision: ReviewDecision; comment?: string; acknowledgeWarnings?: boolean }, actorId: string): Promise<ReviewOutcome> {
+  const readiness = step.decision === "approved" ? await briefReadiness(db, briefId) : null;
   const draft = await draftSnapshot(db, briefId);
   if (!draft.ok) return draft;
   const comment = step.comment?.trim() || null;
@@ -23,6 +30,10 @@ export async function reviewBrief(db: Database, briefId: string, step: { decisio
     const situation = { status: brief.status, withdrawn: brief.withdrawnAt !== null, latest, submitterId: await latestSubmitter(tx, briefId), checksum };
     const refusal = refuseReviewStep(situation, { decision: step.decision, comment }, actorId);
     if (refusal) return { ok: false, ...refusal };
+    if (readiness && readiness.blocking.length > 0) return { ok: false, reason: "not-ready", detail: "the draft is not ready to approve", items: readiness.blocking };
+    if (readiness && readiness.warnings.length > 0 && !step.acknowledgeWarnings) {
+      return { ok: false, reason: "warnings", detail: "acknowledge the warnings before approving", items: readiness.warnings };
+    }
     const status = statusAfterReview(step.decision);
     await insertReviewStep(tx, { briefId, decision: step.decision, comment, contentSha256: checksum, actorId });
     await setBriefState(tx, brief, { status }, { actorId, action: `review-${step.decision}`, after: { status, comment } });

@@ -64,7 +64,7 @@ async function publishDemoBrief(db: Database, demo: ReturnType<typeof demoBriefs
     const format = spec.kind === "binary" ? "arm-binary" : "arm-continuous";
     const { result } = await storeDataset(db, outcome, { name: "fictional-demo.csv", bytes: Buffer.from(spec.csv) }, format, analystId);
     const none = { levels: 0 as const, reason: "" };
-    for (const comparison of assessCertainty(result as AnalysisResult, new Map(), spec.thresholds)) {
+    for (const comparison of assessCertainty(result as AnalysisResult, new Map(), spec.thresholds, spec.baselineRisk)) {
       await saveJudgement(
         db,
         { outcomeId: outcome.id, treatment: comparison.treatment, comparator: comparison.comparator },
@@ -83,7 +83,7 @@ async function publishDemoBrief(db: Database, demo: ReturnType<typeof demoBriefs
   if (!texts.ok) throw new Error(`the demo brief "${demo.title}" could not take its texts`);
   const steps = [
     await reviewBrief(db, brief.id, { decision: "submitted" }, analystId),
-    await reviewBrief(db, brief.id, { decision: "approved", comment: "Fictional demonstration: approved by the demo editor." }, editorId),
+    await reviewBrief(db, brief.id, { decision: "approved", comment: "Fictional demonstration: approved by the demo editor.", acknowledgeWarnings: true }, editorId),
     await publishVersion(db, brief.id, {}, editorId),
   ];
   const refused = steps.find((step) => !step.ok);

@@ -42,6 +42,9 @@ it("goes from a draft through review to a public page, and a reporter sees it in
   await editor.page.goto(`${setup.server.url}/desk/briefs/${briefId}`);
   const release = editor.page.getByTestId("release");
   await release.getByLabel(en.desk.release.comment).fill("Clear and correct.");
+  // The reference data is heterogeneous: the checklist warns, and the editor acknowledges it.
+  await release.getByTestId("readiness").getByText("substantial heterogeneity", { exact: false }).waitFor();
+  await release.getByLabel(en.readiness.acknowledge).check();
   await release.getByRole("button", { name: en.desk.release.approve }).click();
   await release.getByText(en.desk.release.approval.current).waitFor();
   await release.getByRole("button", { name: en.desk.release.publish }).click();

@@ -240,10 +240,10 @@ describe("treatment names", () => {
     const response = await analyst.request("PUT", `/api/briefs/${briefId}/treatments`, { json: { names: { no_contact: "No contact", self_help: "Self-help materials" } } });
     expect(response.status).toBe(200);
     expect(response.body.treatments).toEqual([
-      { label: "grp_counseling", displayName: "grp_counseling" },
-      { label: "ind_counseling", displayName: "ind_counseling" },
-      { label: "no_contact", displayName: "No contact" },
-      { label: "self_help", displayName: "Self-help materials" },
+      { label: "grp_counseling", displayName: "grp_counseling", named: false },
+      { label: "ind_counseling", displayName: "ind_counseling", named: false },
+      { label: "no_contact", displayName: "No contact", named: true },
+      { label: "self_help", displayName: "Self-help materials", named: true },
     ]);
   });
 });

@@ -7,7 +7,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { demoPassword } from "#workflows/seed";
 import { demoBriefs } from "#workflows/demo-briefs";
 import { slugify } from "#core/slug";
-import { analysedBrief, approve, publishedBrief } from "../support/briefs";
+import { analysedBrief, approve, publishedBrief, rateEveryComparison } from "../support/briefs";
 import { ApiClient } from "../support/client";
 import { startProductionServer, type RunningServer } from "../support/production-server";
 
@@ -200,6 +200,11 @@ describe("a treatment label with a slash", () => {
     });
     const outcomeId = String((outcome.body.outcome as { id: string }).id);
     expect((await clients.analyst!.upload(`/api/outcomes/${outcomeId}/dataset`, { name: "slash.csv", bytes: csv }, { format: "arm-binary" })).status).toBe(200);
+    const names = { no_contact: "no_contact", "self/help": "self/help", ind_counseling: "ind_counseling", grp_counseling: "grp_counseling" };
+    expect((await clients.analyst!.request("PUT", `/api/briefs/${briefId}/treatments`, { json: { names } })).status).toBe(200);
+    await rateEveryComparison(clients.analyst!, outcomeId);
+    const { rowVersion } = (await clients.editor!.request("GET", `/api/briefs/${briefId}`)).body.brief as { rowVersion: number };
+    await clients.editor!.request("PATCH", `/api/briefs/${briefId}`, { json: { rowVersion, laySummary: "Test.", keyMessages: "Test." } });
     await approve(clients.analyst!, clients.editor!, briefId);
     expect((await clients.editor!.request("POST", `/api/briefs/${briefId}/versions`, { json: {} })).status).toBe(201);
     const page = await (await get(`/briefs/${String(created.body.slug)}/v/1`)).text();

@@ -52,7 +52,7 @@ describe("review", () => {
     expect(await statusOf(briefId)).toBe("draft");
 
     expect((await review("analyst", briefId, { decision: "submitted" })).status).toBe(201);
-    expect((await review("editor", briefId, { decision: "approved" })).status).toBe(201);
+    expect((await review("editor", briefId, { decision: "approved", acknowledgeWarnings: true })).status).toBe(201);
     expect((await publish(briefId)).status).toBe(201);
     expect(await statusOf(briefId)).toBe("published");
 
@@ -65,17 +65,17 @@ describe("review", () => {
   it("lets nobody approve what they submitted themselves, and only editors approve", async () => {
     const { briefId } = await analysedBrief("Four eyes");
     expect((await review("editor", briefId, { decision: "submitted" })).status).toBe(201);
-    const own = await review("editor", briefId, { decision: "approved" });
+    const own = await review("editor", briefId, { decision: "approved", acknowledgeWarnings: true });
     expect(own.status).toBe(403);
     expect(own.body.error?.key).toBe("errors.review.ownSubmission");
-    expect((await review("analyst", briefId, { decision: "approved" })).status).toBe(403);
-    expect((await review("secondEditor", briefId, { decision: "approved" })).status).toBe(201);
+    expect((await review("analyst", briefId, { decision: "approved", acknowledgeWarnings: true })).status).toBe(403);
+    expect((await review("secondEditor", briefId, { decision: "approved", acknowledgeWarnings: true })).status).toBe(201);
   });
 
   it("publishes only what was approved: a change after the approval needs a new review", async () => {
     const { briefId } = await analysedBrief("Changed after approval");
     await review("analyst", briefId, { decision: "submitted" });
-    await review("editor", briefId, { decision: "approved" });
+    await review("editor", briefId, { decision: "approved", acknowledgeWarnings: true });
     expect((await clients.editor!.request("GET", `/api/briefs/${briefId}/reviews`)).body.approval).toBe("current");
 
     const brief = (await clients.editor!.request("GET", `/api/briefs/${briefId}`)).body.brief as { rowVersion: number };
@@ -86,7 +86,7 @@ describe("review", () => {
     expect(refused.body.error?.message).toMatch(/changed since it was approved/);
 
     expect((await review("secondEditor", briefId, { decision: "submitted" })).status).toBe(201);
-    expect((await review("editor", briefId, { decision: "approved" })).status).toBe(201);
+    expect((await review("editor", briefId, { decision: "approved", acknowledgeWarnings: true })).status).toBe(201);
     expect((await publish(briefId)).status).toBe(201);
   });
 });
@@ -96,7 +96,7 @@ describe("withdrawal", () => {
     const { briefId, slug } = await analysedBrief("To withdraw");
     expect((await clients.editor!.request("POST", `/api/briefs/${briefId}/withdrawal`, { json: { reason: "x" } })).status).toBe(409);
     await review("analyst", briefId, { decision: "submitted" });
-    await review("editor", briefId, { decision: "approved" });
+    await review("editor", briefId, { decision: "approved", acknowledgeWarnings: true });
     await publish(briefId);
 
     const noReason = await clients.editor!.request("POST", `/api/briefs/${briefId}/withdrawal`, { json: { reason: " " } });

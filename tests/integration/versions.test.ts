@@ -38,8 +38,8 @@ describe("publishing a version", () => {
     expect(snapshot).toMatchObject({ version: 1, brief: { title: "Frozen version" } });
     expect(snapshot.outcomes[0].result.studies).toBe(24);
 
-    // Created, submitted, approved, published: the brief's row is at version 4.
-    expect((await clients.analyst!.request("PATCH", `/api/briefs/${briefId}`, { json: { rowVersion: 4, title: "Changed draft title" } })).status).toBe(200);
+    // Created, its texts written, submitted, approved, published: the brief's row is at version 5.
+    expect((await clients.analyst!.request("PATCH", `/api/briefs/${briefId}`, { json: { rowVersion: 5, title: "Changed draft title" } })).status).toBe(200);
     expect((await clients.analyst!.request("PATCH", `/api/outcomes/${outcomeId}`, { json: { rowVersion: 1, model: "fixed" } })).status).toBe(200);
     const again = await fetch(`${app.url}/api/briefs/${slug}/versions/1`).then((r) => r.text());
     expect(again).toBe(first);
@@ -83,8 +83,9 @@ describe("the editor's texts", () => {
     const { briefId, slug } = await analysedBrief("Lay summary");
     const denied = await clients.analyst!.request("PATCH", `/api/briefs/${briefId}`, { json: { rowVersion: 1, laySummary: "x" } });
     expect(denied.status).toBe(403);
+    // The ready draft already has the editor's texts (row version 2); the editor writes them anew.
     const written = await clients.editor!.request("PATCH", `/api/briefs/${briefId}`, {
-      json: { rowVersion: 1, laySummary: "Counselling **probably** helps. <script>alert(1)</script>", keyMessages: "- [more](javascript:alert(1))" },
+      json: { rowVersion: 2, laySummary: "Counselling **probably** helps. <script>alert(1)</script>", keyMessages: "- [more](javascript:alert(1))" },
     });
     expect(written.status).toBe(200);
     await approve(briefId);

@@ -1,6 +1,7 @@
 // Certainty for every comparison of an outcome: the analyst's judgements and the engine's result
 // in, ratings, suggestions and what still needs a judgement out (METHODS.md §8). Pure.
 import type { AnalysisResult } from "../nma/analyse";
+import { decisionScale, type Thresholds } from "./decision-scale";
 import { pairKey } from "../pairs";
 import {
   directCertainty,
@@ -42,13 +43,21 @@ export interface ComparisonCertainty {
   pending: Pending[];
 }
 
-export interface Thresholds {
-  small: number | null;
-  moderate: number | null;
-  large: number | null;
+export type { Thresholds };
+
+/**
+ * A recorded decision on a suggestion still stands when it follows the suggestion as it is now, or
+ * departs from it with a reason. One that followed an earlier suggestion, which has since changed
+ * (the outcome's settings changed), is pending again: nobody judged the new one.
+ */
+function standing(decision: SuggestionDecision | undefined, suggestion: Suggestion): SuggestionDecision | undefined {
+  return decision && (decision.levels === suggestion.levels || decision.reason.trim() !== "") ? decision : undefined;
 }
 
-export function assessCertainty(result: AnalysisResult, judgements: Map<string, ComparisonJudgement>, thresholds: Thresholds): ComparisonCertainty[] {
+/** Thresholds are read on the outcome's decision scale (METHODS.md §9): per 1000 at `baselineRisk` for binary outcomes. */
+export function assessCertainty(result: AnalysisResult, judgements: Map<string, ComparisonJudgement>, thresholds: Thresholds, baselineRisk: number | null = null): ComparisonCertainty[] {
+  const scale = decisionScale(result, thresholds, baselineRisk);
+  const none = { small: null, moderate: null, large: null };
   const byPair = new Map(result.comparisons.map((c) => [pairKey(c.treatment, c.comparator), c]));
   const directVariance = (a: string, b: string) => {
     const direct = byPair.get(pairKey(a, b))?.direct;
@@ -84,15 +93,14 @@ export function assessCertainty(result: AnalysisResult, judgements: Map<string, 
 
     const suggestions = {
       incoherence: incoherenceSuggestion(comparison.incoherence),
-      imprecision: imprecisionSuggestion(comparison.network, thresholds),
+      imprecision: imprecisionSuggestion(scale.effect(a, b), scale.thresholds ?? none),
     };
-    if (!judgement.incoherence) pending.push("incoherence");
-    if (!judgement.imprecision) pending.push("imprecision");
+    const incoherence = standing(judgement.incoherence, suggestions.incoherence);
+    const imprecision = standing(judgement.imprecision, suggestions.imprecision);
+    if (!incoherence) pending.push("incoherence");
+    if (!imprecision) pending.push("imprecision");
 
-    const network =
-      judgement.incoherence && judgement.imprecision
-        ? networkCertainty({ direct, indirect, dominant: judgement.dominant, incoherence: judgement.incoherence, imprecision: judgement.imprecision })
-        : null;
+    const network = incoherence && imprecision ? networkCertainty({ direct, indirect, dominant: judgement.dominant, incoherence, imprecision }) : null;
     return { treatment: a, comparator: b, direct, indirect, indirectVia, network, suggestions, judgement, pending };
   });
 }

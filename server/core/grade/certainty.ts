@@ -84,7 +84,8 @@ export function incoherenceSuggestion(incoherence: { z: number; p: number } | nu
 /**
  * Step 3: suggest rating down for imprecision by the number of decision thresholds the 95% CI
  * crosses: one level for one, two for two or more. The thresholds are the null when the outcome has
- * none, otherwise ± its small, moderate and large thresholds (analysis scale).
+ * none, otherwise ± its small, moderate and large thresholds, on the outcome's decision scale
+ * (per 1000 for binary outcomes, units for continuous ones: ./decision-scale.ts).
  */
 export function imprecisionSuggestion(
   interval: { lower: number; upper: number },

@@ -2,10 +2,11 @@
 // groups with their plain-language labels (METHODS.md §9), a statement and, for binary outcomes, the
 // absolute effect of every comparison in both directions (§10, §7), and the rank-score explainer.
 // Pure: the engine's result, the ratings and the outcome's settings in; message keys and facts out.
-import { absoluteEffect, treatmentRisk, type AbsoluteEffect } from "../nma/absolute";
+import { absoluteEffect, type AbsoluteEffect } from "../nma/absolute";
 import type { AnalysisResult } from "../nma/analyse";
 import { comparisonOf } from "../nma/comparison";
-import type { ComparisonCertainty, Thresholds } from "./assess";
+import type { ComparisonCertainty } from "./assess";
+import { decisionScale, hasThresholds, type Thresholds } from "./decision-scale";
 import { pairKey } from "../pairs";
 import type { Rating } from "./certainty";
 import { groupByMagnitude, groupTreatments, type TreatmentGroup } from "./groups";
@@ -51,15 +52,14 @@ export interface OutcomeFacts {
   names: Record<string, string>;
 }
 
-const hasThresholds = (thresholds: Thresholds) => thresholds.small !== null || thresholds.moderate !== null || thresholds.large !== null;
-
 /**
- * The size of an effect for its statement. With thresholds, the point estimate against them (§10).
- * Without any, our own rule (docs/decisions/0008): "trivial" when the 95% CI includes the null, else
- * "moderate", whose wording ("reduces", "probably reduces", "may reduce") carries no size qualifier.
+ * The size of an effect for its statement. With thresholds, the point estimate against them, both on
+ * the decision scale (§9, §10). Without any, our own rule (docs/decisions/0008): "trivial" when the
+ * 95% CI includes the null, else "moderate", whose wording ("reduces", "probably reduces", "may
+ * reduce") carries no size qualifier.
  */
-export function magnitudeFor(network: { estimate: number; lower: number; upper: number }, thresholds: Thresholds): Magnitude {
-  if (!hasThresholds(thresholds)) return network.lower <= 0 && network.upper >= 0 ? "trivial" : "moderate";
+export function magnitudeFor(network: { estimate: number; lower: number; upper: number }, thresholds: Thresholds | null): Magnitude {
+  if (!thresholds || !hasThresholds(thresholds)) return network.lower <= 0 && network.upper >= 0 ? "trivial" : "moderate";
   const given = (value: number | null) => value ?? Number.POSITIVE_INFINITY;
   return magnitudeOf(network.estimate, { small: given(thresholds.small), moderate: given(thresholds.moderate), large: given(thresholds.large) });
 }
@@ -74,6 +74,7 @@ const sizes = ["small", "moderate", "large"] as const;
 function groupLabel(group: TreatmentGroup, framework: Framework, extremes: { best: number; worst: number }, reference: { label: string; name: string }): Message {
   const values = { reference: reference.name };
   if (group.firmness === "very-uncertain") return { key: "groups.veryUncertain", values };
+  if (group.firmness === "not-assessed") return { key: "groups.notAssessed", values };
   const firmness = group.firmness;
   if (group.treatments.length === 1 && group.treatments[0] === reference.label) return { key: "groups.referenceOnly", values };
   if (framework === "partial") {
@@ -88,22 +89,16 @@ function groupLabel(group: TreatmentGroup, framework: Framework, extremes: { bes
 
 export function concludeOutcome(result: AnalysisResult, certainty: ComparisonCertainty[], outcome: OutcomeFacts): OutcomeConclusions {
   const rated = new Map(certainty.map((c) => [pairKey(c.treatment, c.comparator), c.network]));
-  const evidence = (t: string, u: string) => ({ ...comparisonOf(result, t, u)!.network, certainty: rated.get(pairKey(t, u)) ?? null });
-  const framework: Framework = hasThresholds(outcome.thresholds) ? "partial" : "minimal";
-  const groups =
-    framework === "partial"
-      ? groupByMagnitude(result.treatments, result.reference, result.better, outcome.thresholds, evidence)
-      : groupTreatments(result.treatments, result.reference, result.better, evidence);
-  const levels = groups.filter((g) => g.firmness !== "very-uncertain").map((g) => g.level);
+  const scale = decisionScale(result, outcome.thresholds, outcome.baselineRisk);
+  // On the thresholds' scale: whether an interval holds the null reads the same on every scale.
+  const evidence = (t: string, u: string) => ({ ...scale.effect(t, u), certainty: rated.get(pairKey(t, u)) ?? null });
+  const framework: Framework = scale.thresholds ? "partial" : "minimal";
+  const groups = scale.thresholds
+    ? groupByMagnitude(result.treatments, result.reference, result.better, scale.thresholds, evidence)
+    : groupTreatments(result.treatments, result.reference, result.better, evidence);
+  const levels = groups.filter((g) => g.firmness === "firm" || g.firmness === "may").map((g) => g.level);
   const extremes = { best: Math.max(0, ...levels), worst: Math.min(0, ...levels) };
   const name = (label: string) => outcome.names[label] ?? label;
-
-  const riskUnder = (label: string) =>
-    outcome.baselineRisk === null || result.measure === "MD"
-      ? null
-      : label === result.reference
-        ? outcome.baselineRisk
-        : treatmentRisk(result.measure, comparisonOf(result, label, result.reference)!.network.estimate, outcome.baselineRisk);
 
   const readings = result.treatments.flatMap((t) =>
     result.treatments
@@ -111,11 +106,11 @@ export function concludeOutcome(result: AnalysisResult, certainty: ComparisonCer
       .map((u): ComparisonReading => {
         const network = comparisonOf(result, t, u)!.network;
         const rating = rated.get(pairKey(t, u)) ?? null;
-        const magnitude = magnitudeFor(network, outcome.thresholds);
+        const magnitude = magnitudeFor(scale.effect(t, u), scale.thresholds);
         const statement = rating
           ? statementFor({ treatment: name(t), comparator: name(u), outcome: inSentence(outcome.name), estimate: network.estimate, certainty: rating, magnitude })
           : null;
-        const comparatorRisk = riskUnder(u);
+        const comparatorRisk = scale.riskUnder(u);
         const absolute = comparatorRisk === null ? null : absoluteEffect(result.measure, network, comparatorRisk);
         return {
           treatment: t,

@@ -14,8 +14,11 @@ export interface PairEvidence {
   certainty: Rating | null;
 }
 
-/** How firmly a group's membership can be stated, from the certainty of each treatment against the reference. */
-export type Firmness = "firm" | "may" | "very-uncertain";
+/**
+ * How firmly a group's membership can be stated, from the certainty of each treatment against the
+ * reference. "not-assessed": nobody judged that certainty yet (METHODS.md §9: never shown as a rating).
+ */
+export type Firmness = "firm" | "may" | "very-uncertain" | "not-assessed";
 
 export interface TreatmentGroup {
   /** 0: no different from the reference; ≥ 1: better; ≤ −1: worse. */
@@ -33,12 +36,14 @@ export function convincinglyBetter(evidence: PairEvidence, better: Better): bool
   return better === "higher" ? evidence.lower > 0 : evidence.upper < 0;
 }
 
-/** Unrated comparisons are listed apart with the very uncertain: a brief is published only once every comparison is rated. */
+/** Very low certainty is listed apart, and so, in its own list, is a comparison nobody has rated. */
 function firmness(certainty: Rating | null): Firmness {
   if (certainty === "high" || certainty === "moderate") return "firm";
   if (certainty === "low") return "may";
-  return "very-uncertain";
+  return certainty === "very_low" ? "very-uncertain" : "not-assessed";
 }
+
+const apart = (kind: Firmness) => kind === "very-uncertain" || kind === "not-assessed";
 
 /**
  * Level 0 holds the reference and every treatment not convincingly better or worse than it. A
@@ -98,7 +103,7 @@ export function groupByMagnitude(
   return splitByFirmness(treatments, reference, evidence, levelOf);
 }
 
-/** Each level split by firmness, best level first, firm before "may"; the very uncertain last, apart. */
+/** Each level split by firmness, best level first, firm before "may"; the very uncertain apart, then the not yet assessed. */
 function splitByFirmness(
   treatments: string[],
   reference: string,
@@ -110,12 +115,12 @@ function splitByFirmness(
     const level = levelOf(t);
     const certainty = t === reference ? "high" : evidence(t, reference).certainty;
     const kind = t === reference ? "firm" : firmness(certainty);
-    const key = `${kind === "very-uncertain" ? "apart" : level}|${kind}`;
-    const group = groups.get(key) ?? { level: kind === "very-uncertain" ? 0 : level, firmness: kind, treatments: [] };
+    const key = `${apart(kind) ? "apart" : level}|${kind}`;
+    const group = groups.get(key) ?? { level: apart(kind) ? 0 : level, firmness: kind, treatments: [] };
     group.treatments.push(t);
     groups.set(key, group);
   }
-  const sortKey = (g: TreatmentGroup) => [g.firmness === "very-uncertain" ? 1 : 0, -g.level, g.firmness === "may" ? 1 : 0];
+  const sortKey = (g: TreatmentGroup) => [g.firmness === "not-assessed" ? 2 : g.firmness === "very-uncertain" ? 1 : 0, -g.level, g.firmness === "may" ? 1 : 0];
   return [...groups.values()]
     .map((g) => ({ ...g, treatments: g.treatments.sort() }))
     .sort((a, b) => {

@@ -10,6 +10,9 @@ import { pairKey } from "../pairs";
 import type { Estimate, ParsedStudy } from "../nma/types";
 import type { OutcomeSnapshot } from "./schema";
 
+/** METHODS.md §9: an unrated comparison says so in a footnote, and counts as not convincingly different. */
+const notAssessed = { domainKey: "certainty.footnote.notAssessed", levels: 0, reason: null, because: null };
+
 const withCi = (x: Estimate) => ({ estimate: x.estimate, se: x.se, lower: x.estimate - z975 * x.se, upper: x.estimate + z975 * x.se });
 
 export function outcomeFacts(result: AnalysisResult, certainty: readonly ComparisonCertainty[], studies: readonly ParsedStudy[]): Pick<OutcomeSnapshot, "pairs" | "network" | "methods"> {
@@ -25,7 +28,7 @@ export function outcomeFacts(result: AnalysisResult, certainty: readonly Compari
         indirect: c.indirect ? withCi(c.indirect) : null,
         incoherenceP: c.incoherence?.p ?? null,
         certainty: assessment?.network ?? null,
-        footnotes: assessment ? certaintyFootnotes(assessment) : [],
+        footnotes: assessment?.network ? certaintyFootnotes(assessment) : [notAssessed],
       };
     }),
     network: {

@@ -5,7 +5,7 @@
 // `snapshotSchemaVersion` and adds a numbered upgrade in ./upgrade.ts.
 import { z } from "zod";
 
-export const snapshotSchemaVersion = 2;
+export const snapshotSchemaVersion = 3;
 
 const finite = z.number();
 const text = z.string();
@@ -63,6 +63,7 @@ const outcomeSnapshot = z.object({
   }),
   baselineRisk: finite.nullable(),
   unit: text.nullable(),
+  /** On the decision scale (METHODS.md §9): per 1000 people for binary outcomes, the outcome's units for continuous ones. */
   thresholds: z.object({ small: finite.nullable(), moderate: finite.nullable(), large: finite.nullable() }),
   /** The uploaded file as parsed: the inputs download. */
   dataset: z.object({
@@ -76,7 +77,7 @@ const outcomeSnapshot = z.object({
   /** The certainty assessment as it was then (judgements, suggestions): archived for the results download. */
   certainty: z.array(z.looseObject({ treatment: text, comparator: text })),
   framework: z.enum(["minimal", "partial"]),
-  groups: z.array(z.object({ label: messageSchema, firmness: z.enum(["firm", "may", "very-uncertain"]), level: z.number().int(), treatments: z.array(text) })),
+  groups: z.array(z.object({ label: messageSchema, firmness: z.enum(["firm", "may", "very-uncertain", "not-assessed"]), level: z.number().int(), treatments: z.array(text) })),
   readings: z.array(reading),
   rankScores: z.object({
     titleKey: text,

@@ -5,7 +5,8 @@
 import type { ComparisonCertainty } from "../grade/assess";
 import { rankExplainer } from "../grade/rank-explainer";
 import type { AnalysisResult } from "../nma/analyse";
-import type { ParsedStudy } from "../nma/types";
+import { treatmentRisk } from "../nma/absolute";
+import type { Measure, ParsedStudy } from "../nma/types";
 import { outcomeFacts } from "./facts";
 import { snapshotSchemaVersion, versionSnapshotSchema, type Message, type VersionSnapshot } from "./schema";
 
@@ -39,8 +40,26 @@ function upgrade1to2(snapshot: Stored): Stored {
   return { ...snapshot, schemaVersion: 2, outcomes };
 }
 
+/**
+ * 2 → 3: thresholds of binary outcomes move from the analysis scale to the difference per 1000 people
+ * at the baseline risk, exactly as migration 0008 converts stored outcomes (a magnitude t becomes
+ * 1000·(p₁ − p₀) for an effect of +t, rounded to 0.1); without a baseline risk they have no meaning
+ * per 1000 and are dropped. The frozen groups, computed with the old thresholds, stay as they were.
+ */
+function upgrade2to3(snapshot: Stored): Stored {
+  type Outcome = { kind: string; settings: { measure: Measure }; baselineRisk: number | null; thresholds: Record<string, number | null> };
+  const perThousand = (outcome: Outcome, t: number | null) =>
+    t === null || outcome.baselineRisk === null ? null : Math.round(10_000 * (treatmentRisk(outcome.settings.measure, t, outcome.baselineRisk) - outcome.baselineRisk)) / 10;
+  const outcomes = (snapshot.outcomes as unknown as Outcome[]).map((outcome) =>
+    outcome.kind !== "binary"
+      ? outcome
+      : { ...outcome, thresholds: Object.fromEntries(Object.entries(outcome.thresholds).map(([size, t]) => [size, perThousand(outcome, t)])) },
+  );
+  return { ...snapshot, schemaVersion: 3, outcomes } as unknown as Stored;
+}
+
 /** upgrades[n] brings shape n + 1 to shape n + 2. */
-export const upgrades: ((snapshot: Stored) => Stored)[] = [upgrade1to2];
+export const upgrades: ((snapshot: Stored) => Stored)[] = [upgrade1to2, upgrade2to3];
 
 export class SnapshotError extends Error {
   constructor(message: string) {

@@ -9,6 +9,7 @@ import { judgementInput } from "#core/grade/judgement";
 import type { AnalysisResult } from "#core/nma/analyse";
 import type { DatasetIssue } from "#core/nma/types";
 import { outcomeInput, outcomePatch } from "#core/outcome";
+import type { Readiness } from "#core/readiness";
 import { reviewDecisions } from "#core/status";
 import type { briefWithOutcomes, listBriefs } from "#db/briefs";
 import type { OutcomeRow } from "#db/outcomes";
@@ -50,7 +51,14 @@ export const patchBriefBody = z
 export const treatmentNamesBody = z.object({ names: z.record(z.string().min(1).max(200), z.string().trim().min(1).max(200)) }).strict();
 export const previewBody = z.object({ markdown: z.string().max(20_000) }).strict();
 export { judgementInput as judgementBody, outcomeInput as createOutcomeBody, outcomePatch as patchOutcomeBody };
-export const reviewBody = z.object({ decision: z.enum(reviewDecisions), comment: z.string().trim().max(5000).optional() }).strict();
+export const reviewBody = z
+  .object({
+    decision: z.enum(reviewDecisions),
+    comment: z.string().trim().max(5000).optional(),
+    /** The approving editor has read the warnings of the readiness checklist. */
+    acknowledgeWarnings: z.boolean().optional(),
+  })
+  .strict();
 export const publishBody = z.object({ releaseAt: z.iso.datetime({ offset: true }).optional(), note: z.string().trim().max(5000).optional() }).strict();
 export const withdrawalBody = z.object({ reason: z.string().trim().min(1, "give the public reason for the withdrawal").max(5000) }).strict();
 
@@ -95,4 +103,5 @@ export interface ApiAnswers {
   withdrawn: { status: "withdrawn" };
   pressRoom: { versions: PressRoomVersion[] };
   people: { people: Person[] };
+  readiness: Readiness;
 }

@@ -7,7 +7,9 @@ import { versionNumberOf } from "#core/urls";
 import { requireRole } from "../auth/require-role";
 import { reviewBrief, reviewHistory, withdrawBrief } from "#workflows/review";
 import { listPressRoom, readVersion } from "#db/versions";
+import type { ReadinessItem } from "#core/readiness";
 import { publishVersion } from "#workflows/publish";
+import { briefReadiness } from "#workflows/readiness";
 import type { Database } from "#db/client";
 import { rejectMalformedId, sendError, validateBody } from "../http/errors";
 import { publishBody, reviewBody, withdrawalBody } from "./contract";
@@ -16,6 +18,7 @@ import { publishBody, reviewBody, withdrawalBody } from "./contract";
 const refusals = {
   "not-found": [404, "errors.notFound"],
   "not-ready": [409, "errors.publish.notReady"],
+  warnings: [409, "errors.review.warnings"],
   "not-approved": [409, "errors.publish.notApproved"],
   withdrawn: [409, "errors.withdrawn"],
   "note-required": [400, "errors.publish.noteRequired"],
@@ -27,10 +30,12 @@ const refusals = {
 
 type Refusal = keyof typeof refusals;
 
-function refuse(res: Parameters<typeof sendError>[0], reason: Refusal, detail: string, field?: string) {
+/** The readiness items travel as details, so the desk can list each one in words. */
+function refuse(res: Parameters<typeof sendError>[0], reason: Refusal, detail: string, field?: string, items?: ReadinessItem[]) {
   const [status, key] = refusals[reason];
   const sentence = detail.charAt(0).toUpperCase() + detail.slice(1);
-  sendError(res, status, { key, message: `${sentence}.`, details: field && status === 400 ? [{ field, message: detail }] : undefined });
+  const listed = items?.length ? `: ${items.map((item) => `${item.key} ${JSON.stringify(item.values)}`).join("; ")}` : "";
+  sendError(res, status, { key, message: `${sentence}${listed}.`, details: items ?? (field && status === 400 ? [{ field, message: detail }] : undefined) });
 }
 
 export function versionRoutes(db: Database): Router {
@@ -43,8 +48,14 @@ export function versionRoutes(db: Database): Router {
       return sendError(res, 403, { key: "errors.roleRequired", message: "Returning or approving a brief needs the role editor.", details: { required: ["editor"] } });
     }
     const outcome = await reviewBrief(db, String(req.params.id), step, req.user!.id);
-    if (!outcome.ok) return refuse(res, outcome.reason, outcome.detail, "comment");
+    if (!outcome.ok) return refuse(res, outcome.reason, outcome.detail, "comment", "items" in outcome ? outcome.items : undefined);
     res.status(201).json({ decision: outcome.decision, status: outcome.status });
+  });
+
+  router.get("/briefs/:id/readiness", requireRole(...deskRoles), async (req, res) => {
+    const readiness = await briefReadiness(db, String(req.params.id));
+    if (!readiness) return sendError(res, 404, { key: "errors.notFound", message: "There is no such brief." });
+    res.json(readiness);
   });
 
   router.get("/briefs/:id/reviews", requireRole(...deskRoles), async (req, res) => {
@@ -56,7 +67,7 @@ export function versionRoutes(db: Database): Router {
     const outcome = await publishVersion(db, String(req.params.id), { releaseAt: body.releaseAt ? new Date(body.releaseAt) : undefined, note: body.note }, req.user!.id);
     if (outcome.ok) return res.status(201).json({ version: outcome.version, url: outcome.url });
     const detail = outcome.reason === "not-found" ? outcome.detail : `the brief cannot be published yet: ${outcome.detail}`;
-    refuse(res, outcome.reason, detail, "note");
+    refuse(res, outcome.reason, detail, "note", outcome.items);
   });
 
   router.post("/briefs/:id/withdrawal", requireRole("editor"), validateBody(withdrawalBody), async (req, res) => {

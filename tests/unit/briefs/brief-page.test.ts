@@ -6,7 +6,7 @@ import type { ComparisonCertainty } from "#core/grade/assess";
 import { concludeOutcome } from "#core/grade/conclusions";
 import { certaintyFootnotes } from "#core/grade/footnotes";
 import { outcomeFacts } from "#core/snapshot/facts";
-import { versionSnapshotSchema } from "#core/snapshot/schema";
+import { snapshotSchemaVersion, versionSnapshotSchema } from "#core/snapshot/schema";
 import { z975 } from "#core/nma/analyse";
 import { inventedDataset, inventedResult, inventedSettings } from "../../support/invented-network";
 
@@ -20,7 +20,7 @@ const treatments = [
 ];
 // Through the declared contract, as publishing stores it.
 const snapshot = versionSnapshotSchema.parse({
-  schemaVersion: 2,
+  schemaVersion: snapshotSchemaVersion,
   brief: { slug: "invented", title: "Invented brief", topic: "Testing", condition: "A condition", population: "Adults", demo: true },
   treatments,
   texts: { laySummaryHtml: "", keyMessagesHtml: "" },

@@ -65,11 +65,11 @@ describe("edge cases", () => {
     expect(groupTreatments(["A", "B", "R"], "R", "higher", evidence)[0]).toEqual({ level: 1, firmness: "firm", treatments: ["A", "B"] });
   });
 
-  it("does not count a comparison that is not yet rated as convincing", () => {
+  it("does not count a comparison that is not yet rated as convincing, and lists it as not assessed, never as very low (METHODS.md §9)", () => {
     const evidence = table({ "A vs R": [0.2, 0.8, null] });
     expect(groupTreatments(["A", "R"], "R", "higher", evidence)).toEqual([
       { level: 0, firmness: "firm", treatments: ["R"] },
-      { level: 0, firmness: "very-uncertain", treatments: ["A"] },
+      { level: 0, firmness: "not-assessed", treatments: ["A"] },
     ]);
   });
 

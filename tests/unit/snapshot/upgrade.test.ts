@@ -7,7 +7,7 @@ import path from "node:path";
 import { describe, expect, it } from "vitest";
 import { briefContent, comparisonContent } from "#core/brief-page";
 import { z975 } from "#core/nma/analyse";
-import { readSnapshot, SnapshotError } from "#core/snapshot/upgrade";
+import { readSnapshot, SnapshotError, upgrades } from "#core/snapshot/upgrade";
 import { snapshotSchemaVersion } from "#core/snapshot/schema";
 
 const fixture = (name: string) => JSON.parse(readFileSync(path.resolve(__dirname, "../../fixtures/snapshots", name), "utf8")) as Record<string, unknown>;
@@ -17,8 +17,8 @@ describe("a snapshot of shape 1 (frozen before schemaVersion)", () => {
   const snapshot = readSnapshot(stored);
 
   it("is brought to the current shape and passes the declared schema", () => {
-    expect(snapshotSchemaVersion).toBe(2);
-    expect(snapshot.schemaVersion).toBe(2);
+    expect(snapshotSchemaVersion).toBe(3);
+    expect(snapshot.schemaVersion).toBe(3);
     expect(snapshot.outcomes[0]!.pairs).toHaveLength(3); // three treatments: three pairs
   });
 
@@ -63,11 +63,23 @@ describe("a snapshot of shape 1 from before conclusions were frozen", () => {
 
 describe("a snapshot that cannot be read", () => {
   it("of an unknown shape is refused with the shape named", () => {
-    expect(() => readSnapshot({ ...fixture("shape-1.json"), schemaVersion: 99 })).toThrow(new SnapshotError("a snapshot of shape 99 cannot be read (known: 1 to 2)"));
+    expect(() => readSnapshot({ ...fixture("shape-1.json"), schemaVersion: 99 })).toThrow(new SnapshotError("a snapshot of shape 99 cannot be read (known: 1 to 3)"));
   });
 
   it("that breaks the schema is refused with the path of what is wrong", () => {
     const broken = readSnapshot(fixture("shape-1.json"));
     expect(() => readSnapshot({ ...broken, version: "one" })).toThrow(/version: /);
+  });
+});
+
+describe("shape 2 → 3: thresholds of binary outcomes per 1000 people (METHODS.md §9)", () => {
+  const outcome = (kind: string, measure: string, baselineRisk: number | null, small: number | null) => ({ kind, settings: { measure }, baselineRisk, thresholds: { small, moderate: null, large: null } });
+  const upgraded = upgrades[1]!({
+    schemaVersion: 2,
+    outcomes: [outcome("binary", "OR", 0.3, Math.log(2)), outcome("binary", "RR", 0.2, Math.log(1.5)), outcome("binary", "RD", 0.1, 0.05), outcome("binary", "OR", null, 0.4), outcome("continuous", "MD", null, 3)],
+  });
+  it("converts as migration 0008 does: OR 2 at 0.3 is 161.5 more per 1000, RR 1.5 at 0.2 is 100, RD 0.05 is 50 (worked by hand)", () => {
+    expect(upgraded.schemaVersion).toBe(3);
+    expect((upgraded.outcomes as { thresholds: { small: number | null } }[]).map((o) => o.thresholds.small)).toEqual([161.5, 100, 50, null, 3]);
   });
 });

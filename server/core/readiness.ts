@@ -1,0 +1,55 @@
+// Whether a draft may be approved and published (PRODUCT.md: nothing goes out with unrated
+// comparisons against the reference or empty texts). Pure: the draft's facts in, the checklist out.
+// Blocking items refuse approval and publishing; warnings must be acknowledged by the approving editor.
+import type { ComparisonCertainty } from "./grade/assess";
+import type { AnalysisResult } from "./nma/analyse";
+
+export interface ReadinessItem {
+  /** A message key (locales/…) naming the item; `values` are its facts. */
+  key: string;
+  values: Record<string, string | number>;
+}
+
+export interface Readiness {
+  blocking: ReadinessItem[];
+  warnings: ReadinessItem[];
+}
+
+export interface DraftFacts {
+  laySummary: string;
+  keyMessages: string;
+  outcomes: { name: string; current: boolean; result: AnalysisResult | null; certainty: ComparisonCertainty[] | null }[];
+  /** Every treatment label of the data, and whether the analysts gave it the name readers see. */
+  treatments: { label: string; named: boolean }[];
+}
+
+/** I² from 50% is substantial heterogeneity (common practice; the Cochrane Handbook's rough guide, section 10.10.2). */
+const substantialI2 = 0.5;
+/** p < 0.05 for design inconsistency and for incoherence of a pair (METHODS.md §4, §8: the same level the suggestions use). */
+const alpha = 0.05;
+
+export function readinessOf(draft: DraftFacts): Readiness {
+  const blocking: ReadinessItem[] = [];
+  const warnings: ReadinessItem[] = [];
+  if (draft.keyMessages.trim() === "") blocking.push({ key: "readiness.noShortTake", values: {} });
+  if (draft.laySummary.trim() === "") blocking.push({ key: "readiness.noSummary", values: {} });
+  const unnamed = draft.treatments.filter((t) => !t.named).map((t) => t.label);
+  if (unnamed.length > 0) blocking.push({ key: "readiness.unnamed", values: { count: unnamed.length, labels: unnamed.join(", ") } });
+  for (const outcome of draft.outcomes) {
+    if (!outcome.current || !outcome.result || !outcome.certainty) {
+      blocking.push({ key: "readiness.noAnalysis", values: { outcome: outcome.name } });
+      continue;
+    }
+    const { result } = outcome;
+    // Comparisons against the reference drive the groups and the statements: each needs its rating.
+    const unrated = outcome.certainty.filter((c) => (c.treatment === result.reference || c.comparator === result.reference) && c.network === null);
+    if (unrated.length > 0) blocking.push({ key: "readiness.unrated", values: { outcome: outcome.name, count: unrated.length } });
+    if (result.heterogeneity.I2 >= substantialI2) warnings.push({ key: "readiness.heterogeneity", values: { outcome: outcome.name, I2: Math.round(100 * result.heterogeneity.I2) } });
+    if (result.inconsistency.pBetween !== null && result.inconsistency.pBetween < alpha) {
+      warnings.push({ key: "readiness.inconsistency", values: { outcome: outcome.name, p: Number(result.inconsistency.pBetween.toPrecision(2)) } });
+    }
+    const incoherent = result.comparisons.filter((c) => c.incoherence !== null && c.incoherence.p < alpha);
+    if (incoherent.length > 0) warnings.push({ key: "readiness.incoherence", values: { outcome: outcome.name, count: incoherent.length } });
+  }
+  return { blocking, warnings };
+}

@@ -1,0 +1,72 @@
+// Migrations that change stored data, each tested on a database holding rows of the shape before it.
+import { cpSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
+import { tmpdir } from "node:os";
+import path from "node:path";
+import pg from "pg";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { connectDatabase, type DatabaseConnection } from "#db/client";
+import { migrateDatabase, migrationsFolder } from "#db/migrate";
+import { testDatabaseUrl } from "../support/app";
+
+const database = `migration_test_${process.pid}`;
+let admin: pg.Client;
+let connection: DatabaseConnection;
+let folderBefore: string;
+
+/** The committed migrations up to and including `tag`, as drizzle's migrator reads them. */
+function migrationsUpTo(tag: string): string {
+  const folder = mkdtempSync(path.join(tmpdir(), "fairweigh-migrations-"));
+  cpSync(migrationsFolder, folder, { recursive: true });
+  const journalPath = path.join(folder, "meta/_journal.json");
+  const journal = JSON.parse(readFileSync(journalPath, "utf8")) as { entries: { tag: string }[] };
+  journal.entries = journal.entries.slice(0, journal.entries.findIndex((e) => e.tag === tag) + 1);
+  writeFileSync(journalPath, JSON.stringify(journal));
+  return folder;
+}
+
+beforeAll(async () => {
+  admin = new pg.Client({ connectionString: testDatabaseUrl() });
+  await admin.connect();
+  await admin.query(`create database ${database}`);
+  const url = new URL(testDatabaseUrl());
+  url.pathname = `/${database}`;
+  connection = connectDatabase(url.toString());
+  folderBefore = migrationsUpTo("0007_review-and-withdrawal");
+});
+afterAll(async () => {
+  await connection.close();
+  await admin.query(`drop database ${database}`);
+  await admin.end();
+  rmSync(folderBefore, { recursive: true, force: true });
+});
+
+describe("0008: thresholds of binary outcomes become differences per 1000 (docs/decisions/0017-thresholds-per-1000.md)", () => {
+  it("converts log odds ratio, log risk ratio and risk difference thresholds at the baseline risk, clears those without one, leaves continuous ones", async () => {
+    await migrateDatabase(connection.db, folderBefore);
+    const { pool } = connection;
+    const [{ id: person }] = (await pool.query<{ id: string }>("insert into people (email, display_name, password_hash) values ('m@x.example', 'M', 'x') returning id")).rows as [{ id: string }];
+    const [{ id: brief }] = (await pool.query<{ id: string }>("insert into briefs (slug, title, topic, condition, population, created_by) values ('m', 'M', 't', 'c', 'p', $1) returning id", [person])).rows as [{ id: string }];
+    const outcome = (name: string, kind: string, measure: string, baseline: number | null, small: number) =>
+      pool.query(
+        "insert into outcomes (brief_id, position, name, kind, measure, model, reference_treatment, direction, baseline_risk, threshold_small) values ($1, (select count(*) + 1 from outcomes), $2, $3, $4, 'random', 'r', 'higher', $5, $6)",
+        [brief, name, kind, measure, baseline, small],
+      );
+    await outcome("odds", "binary", "OR", 0.3, Math.log(2));
+    await outcome("risks", "binary", "RR", 0.2, Math.log(1.5));
+    await outcome("difference", "binary", "RD", 0.1, 0.05);
+    await outcome("no baseline", "binary", "OR", null, 0.4);
+    await outcome("points", "continuous", "MD", null, 3);
+
+    await migrateDatabase(connection.db);
+    const rows = (await pool.query<{ name: string; threshold_small: number | null }>("select name, threshold_small from outcomes")).rows;
+    const small = Object.fromEntries(rows.map((r) => [r.name, r.threshold_small]));
+    // OR 2 at p₀ = 0.3: p₁ = 0.6/1.3 = 0.461538…, so 161.5 more per 1000 (worked by hand, METHODS.md §7).
+    expect(small.odds).toBe(161.5);
+    // RR 1.5 at p₀ = 0.2: p₁ = 0.3, so 100 more per 1000.
+    expect(small.risks).toBe(100);
+    // RD 0.05: 50 per 1000.
+    expect(small.difference).toBe(50);
+    expect(small["no baseline"]).toBeNull();
+    expect(small.points).toBe(3);
+  });
+});

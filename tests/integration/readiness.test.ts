@@ -1,0 +1,95 @@
+// Publish only what is right: the readiness checklist refuses approval and publishing of a draft with
+// unrated comparisons against the reference, unnamed treatments or empty texts (409, each item
+// listed), and asks the editor to acknowledge warnings; a changed suggestion sends a judgement back
+// to pending; the public page states the thresholds on their scale and never shows an unrated
+// comparison as rated.
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import type { Certainty } from "#web/api/contract";
+import { demoPassword } from "#workflows/seed";
+import { analysedBrief, approve, draftBrief, rateEveryComparison } from "../support/briefs";
+import { ApiClient } from "../support/client";
+import { startProductionServer, type RunningServer } from "../support/production-server";
+
+let server: RunningServer;
+const clients: Record<string, ApiClient> = {};
+beforeAll(async () => {
+  server = await startProductionServer();
+  for (const role of ["analyst", "editor"]) {
+    clients[role] = new ApiClient(server.url);
+    await clients[role].signIn(`${role}@fairweigh.example`, demoPassword);
+  }
+}, 60_000);
+afterAll(async () => {
+  await server.stop();
+});
+
+const submit = (briefId: string) => clients.analyst!.request("POST", `/api/briefs/${briefId}/reviews`, { json: { decision: "submitted" } });
+const approveAs = (briefId: string, acknowledgeWarnings?: boolean) => clients.editor!.request("POST", `/api/briefs/${briefId}/reviews`, { json: { decision: "approved", acknowledgeWarnings } });
+
+describe("the readiness checklist", () => {
+  it("refuses to approve a draft with unrated comparisons, unnamed treatments and empty texts, listing each", async () => {
+    const { briefId } = await draftBrief(clients.analyst!, "Not ready");
+    expect((await submit(briefId)).status).toBe(201);
+    const refused = await approveAs(briefId, true);
+    expect(refused.status).toBe(409);
+    expect(refused.body.error?.key).toBe("errors.publish.notReady");
+    const items = refused.body.error?.details as { key: string; values: Record<string, unknown> }[];
+    expect(items.map((i) => i.key).sort()).toEqual(["readiness.noShortTake", "readiness.noSummary", "readiness.unnamed", "readiness.unrated"]);
+    // Three options against no_contact in the reference data, four labels without a reader name.
+    expect(items.find((i) => i.key === "readiness.unrated")!.values).toEqual({ outcome: "Quit smoking", count: 3 });
+    expect(items.find((i) => i.key === "readiness.unnamed")!.values.count).toBe(4);
+    const readiness = await clients.analyst!.request("GET", `/api/briefs/${briefId}/readiness`);
+    expect(readiness.body.blocking).toEqual(items);
+  });
+
+  it("asks the approving editor to acknowledge the warnings: the reference data's I² is 89% (metafor 3.8-1)", async () => {
+    const { briefId } = await analysedBrief(clients.analyst!, "Ready with warnings");
+    expect((await submit(briefId)).status).toBe(201);
+    const unacknowledged = await approveAs(briefId);
+    expect(unacknowledged.status).toBe(409);
+    expect(unacknowledged.body.error?.key).toBe("errors.review.warnings");
+    expect(unacknowledged.body.error?.details).toContainEqual({ key: "readiness.heterogeneity", values: { outcome: "Quit smoking", I2: 89 } });
+    expect((await approveAs(briefId, true)).status).toBe(201);
+  });
+});
+
+describe("judgements and changed suggestions", () => {
+  it("a judgement that followed a suggestion goes back to pending when the suggestion changes", async () => {
+    const { briefId, outcomeId } = await analysedBrief(clients.analyst!, "Changed suggestions");
+    const before = (await clients.analyst!.request("GET", `/api/outcomes/${outcomeId}/certainty`)).body.comparisons as unknown as Certainty[];
+    expect(before.every((c) => c.pending.length === 0)).toBe(true);
+    // Thresholds of 5, 10 and 20 more per 1000: most intervals now cross some of them.
+    const detail = await clients.analyst!.request("GET", `/api/briefs/${briefId}`);
+    const { rowVersion } = (detail.body.brief as { outcomes: { id: string; rowVersion: number }[] }).outcomes.find((o) => o.id === outcomeId)!;
+    const patched = await clients.analyst!.request("PATCH", `/api/outcomes/${outcomeId}`, { json: { rowVersion, thresholdSmall: 5, thresholdModerate: 10, thresholdLarge: 20 } });
+    expect(patched.status).toBe(200);
+    const after = (await clients.analyst!.request("GET", `/api/outcomes/${outcomeId}/certainty`)).body.comparisons as unknown as Certainty[];
+    const changed = after.filter((c) => c.suggestions.imprecision.levels !== before.find((b) => b.treatment === c.treatment && b.comparator === c.comparator)!.suggestions.imprecision.levels);
+    expect(changed.length).toBeGreaterThan(0);
+    for (const c of changed) {
+      expect(c.pending).toContain("imprecision");
+      expect(c.network).toBeNull();
+    }
+  });
+});
+
+describe("what the public page says", () => {
+  it("states the thresholds on their scale, and shows a comparison nobody rated as not assessed, with its footnote", async () => {
+    const againstReference = (c: Certainty) => c.treatment === "no_contact" || c.comparator === "no_contact";
+    const { briefId, slug, outcomeId } = await analysedBrief(clients.analyst!, "Thresholds and an unrated pair", againstReference);
+    const detail = await clients.analyst!.request("GET", `/api/briefs/${briefId}`);
+    const { rowVersion } = (detail.body.brief as { outcomes: { id: string; rowVersion: number }[] }).outcomes.find((o) => o.id === outcomeId)!;
+    expect((await clients.analyst!.request("PATCH", `/api/outcomes/${outcomeId}`, { json: { rowVersion, thresholdSmall: 20, thresholdModerate: 50, thresholdLarge: 100 } })).status).toBe(200);
+    // The new thresholds change the imprecision suggestions: the analyst confirms them again.
+    await rateEveryComparison(clients.analyst!, outcomeId, (c) => againstReference(c) && c.pending.length > 0);
+    await approve(clients.analyst!, clients.editor!, briefId);
+    expect((await clients.editor!.request("POST", `/api/briefs/${briefId}/versions`, { json: {} })).status).toBe(201);
+
+    const page = await (await fetch(`${server.url}/briefs/${slug}/v/1`)).text();
+    expect(page).toContain("The thresholds, set by the analysts as differences in people per 1000 (against 70 in 1000 with No contact): small 20, moderate 50, large 100.");
+    const comparison = await (await fetch(`${server.url}/briefs/${slug}/v/1/compare/self_help/ind_counseling`)).text();
+    expect(comparison).toContain("Certainty not assessed");
+    expect(comparison).toContain("the analysts have not judged this comparison");
+    expect(comparison).not.toContain('data-certainty="very_low"');
+  });
+});
