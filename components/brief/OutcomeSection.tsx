@@ -99,6 +99,15 @@ export function OutcomeSection({ outcome, version }: { outcome: OutcomeView; ver
         <p className="mt-2 font-sans text-xs text-muted">{t("brief.baseline", { count: Math.round(outcome.methods.baselineRisk * 1000), reference: outcome.reference.name })}</p>
       ) : null}
 
+      {outcome.methods.I2 >= 0.5 || (outcome.methods.pBetween !== null && outcome.methods.pBetween < 0.05) || outcome.incoherentPairs > 0 ? (
+        // Heterogeneity and incoherence in words where readers look, not only as numbers in the methods.
+        <div className="mt-6 border-s-4 border-rule ps-4" data-testid="evidence-cautions">
+          {outcome.methods.I2 >= 0.5 ? <p>{t("brief.plainWarnings.heterogeneity", { I2: Math.round(outcome.methods.I2 * 100) })}</p> : null}
+          {outcome.methods.pBetween !== null && outcome.methods.pBetween < 0.05 ? <p className="mt-2">{t("brief.plainWarnings.inconsistency", { p: outcome.methods.pBetween.toPrecision(2) })}</p> : null}
+          {outcome.incoherentPairs > 0 ? <p className="mt-2">{t("brief.plainWarnings.incoherence", { count: outcome.incoherentPairs })}</p> : null}
+        </div>
+      ) : null}
+
       <h3 className="mt-10 text-xl font-semibold">{t("brief.network")}</h3>
       <p className="mt-2">{t("brief.networkSummary", { studies: outcome.methods.studies, options: outcome.network.nodes.length, pairs: outcome.network.edges.length })}</p>
       <figure className="mt-4 overflow-x-auto">
@@ -133,6 +142,7 @@ export function OutcomeSection({ outcome, version }: { outcome: OutcomeView; ver
           <LeagueTable
             treatments={outcome.network.nodes.map((n) => ({ id: n.id, label: n.name }))}
             cell={leagueCell}
+            href={compareHref}
             measure={outcome.measure}
             caption={t("brief.leagueCaption", { measure: t(`brief.measure.${outcome.measure}`) })}
           />

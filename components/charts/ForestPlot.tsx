@@ -31,6 +31,8 @@ export function ForestPlot({ rows, measure, title }: { rows: ForestRow[]; measur
   return (
     // On a phone the figure keeps a legible size and scrolls sideways inside its own box.
     <figure className="my-6 overflow-x-auto">
+      {/* On a phone the plot is wider than the screen: say so, rather than leave points out of sight. */}
+      <p className="mb-2 font-sans text-xs text-muted sm:hidden" aria-hidden="true">{t("brief.scrollCue")}</p>
       <svg viewBox={`0 0 ${width} ${height}`} role="img" aria-label={title} className="w-full min-w-[34rem] max-w-2xl font-sans" data-testid="forest-plot">
         <title>{title}</title>
         <Group left={margin.left} top={margin.top}>

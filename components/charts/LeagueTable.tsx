@@ -12,24 +12,28 @@ export interface LeagueCell {
 export function LeagueTable({
   treatments,
   cell,
+  href,
   measure,
   caption,
 }: {
   treatments: { id: string; label: string }[];
   cell: (row: string, column: string) => LeagueCell | null;
+  /** Where a cell links to: the page of "row vs column". */
+  href?: (row: string, column: string) => string;
   measure: Measure;
   caption: string;
 }) {
   const { t } = useTranslation();
   return (
-    <div className="overflow-x-auto">
+    // Scrolls inside its own box, with the row and column headers kept in view (sticky).
+    <div className="max-h-[80vh] overflow-auto">
       <table className="border-collapse font-sans text-xs" data-testid="league-table">
         <caption className="mb-2 text-start text-sm text-muted">{caption}</caption>
         <thead>
           <tr>
-            <td />
+            <td className="sticky start-0 top-0 z-20 bg-paper" />
             {treatments.map((t) => (
-              <th key={t.id} scope="col" className="border border-rule px-2 py-1 font-semibold">
+              <th key={t.id} scope="col" className="sticky top-0 z-10 border border-rule bg-paper px-2 py-1 font-semibold">
                 {t.label}
               </th>
             ))}
@@ -38,14 +42,22 @@ export function LeagueTable({
         <tbody>
           {treatments.map((row) => (
             <tr key={row.id}>
-              <th scope="row" className="border border-rule px-2 py-1 text-start font-semibold">
+              <th scope="row" className="sticky start-0 z-10 border border-rule bg-paper px-2 py-1 text-start font-semibold">
                 {row.label}
               </th>
               {treatments.map((column) => {
                 const value = row.id === column.id ? null : cell(row.id, column.id);
                 return (
                   <td key={column.id} className="border border-rule px-2 py-1 text-center whitespace-nowrap">
-                    {value ? formatInterval(measure, value, t("brief.to")) : "—"}
+                    {value && href ? (
+                      <a href={href(row.id, column.id)} aria-label={t("brief.leagueCellLabel", { treatment: row.label, comparator: column.label, value: formatInterval(measure, value, t("brief.to")) })}>
+                        {formatInterval(measure, value, t("brief.to"))}
+                      </a>
+                    ) : value ? (
+                      formatInterval(measure, value, t("brief.to"))
+                    ) : (
+                      "—"
+                    )}
                   </td>
                 );
               })}

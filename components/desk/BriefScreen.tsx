@@ -3,13 +3,13 @@ import { Link, useParams } from "react-router";
 import { OutcomeForm } from "./OutcomeForm";
 import { TreatmentNamesForm } from "./TreatmentNamesForm";
 import { ApiError } from "./api";
-import { previewMarkdown, useBrief, useCreateOutcome, useNameTreatments, useSaveTexts, useUploadDataset } from "./queries";
+import { previewMarkdown, useBrief, useCreateOutcome, useDeleteOutcome, useNameTreatments, useSaveTexts, useUpdateOutcome, useUploadDataset } from "./queries";
 import { ReleasePanel } from "./ReleasePanel";
 import { TextsForm } from "./TextsForm";
 import type { OutcomeSummary } from "#web/api/contract";
 import { UploadForm } from "./UploadForm";
 
-export function BriefScreen({ canAnalyse, canEdit }: { canAnalyse: boolean; canEdit: boolean }) {
+export function BriefScreen({ personId, canAnalyse, canEdit }: { personId: string; canAnalyse: boolean; canEdit: boolean }) {
   const { t } = useTranslation();
   const { briefId = "" } = useParams();
   const brief = useBrief(briefId);
@@ -52,11 +52,11 @@ export function BriefScreen({ canAnalyse, canEdit }: { canAnalyse: boolean; canE
           onSave={(names) => nameTreatments.mutate(names)}
         />
       ) : null}
-      <ReleasePanel brief={data} canEdit={canEdit} canSubmit={canAnalyse || canEdit} />
+      <ReleasePanel brief={data} personId={personId} canEdit={canEdit} canSubmit={canAnalyse || canEdit} />
       {canAnalyse ? (
         <section className="mt-10 border-t border-rule pt-6">
           <h2 className="mb-4 text-xl font-semibold">{t("desk.addOutcome")}</h2>
-          <OutcomeForm onSubmit={(fields) => createOutcome.mutate(fields)} busy={createOutcome.isPending} error={createOutcome.error?.message ?? null} />
+          <OutcomeForm label={t("desk.addOutcome")} onSubmit={(fields) => createOutcome.mutate(fields)} busy={createOutcome.isPending} error={createOutcome.error?.message ?? null} />
         </section>
       ) : null}
     </>
@@ -66,6 +66,8 @@ export function BriefScreen({ canAnalyse, canEdit }: { canAnalyse: boolean; canE
 function OutcomePanel({ briefId, outcome, canAnalyse }: { briefId: string; outcome: OutcomeSummary; canAnalyse: boolean }) {
   const { t } = useTranslation();
   const upload = useUploadDataset(briefId, outcome.id);
+  const update = useUpdateOutcome(briefId, outcome.id);
+  const remove = useDeleteOutcome(briefId, outcome.id);
   return (
     <section className="mt-4 border border-rule bg-white p-5" aria-label={outcome.name}>
       <h3 className="text-xl font-semibold">{outcome.name}</h3>
@@ -81,6 +83,31 @@ function OutcomePanel({ briefId, outcome, canAnalyse }: { briefId: string; outco
           </>
         ) : null}
       </p>
+      {canAnalyse ? (
+        <details className="mt-4 font-sans">
+          <summary className="cursor-pointer font-semibold">{t("desk.editOutcome")}</summary>
+          <div className="mt-3">
+            <OutcomeForm
+              label={t("desk.saveOutcome")}
+              initial={outcome}
+              busy={update.isPending}
+              error={update.error instanceof ApiError && update.error.status === 409 ? t("desk.conflict") : (update.error?.message ?? null)}
+              onSubmit={(fields) => update.mutate({ ...fields, rowVersion: outcome.rowVersion })}
+            />
+            <button
+              type="button"
+              className="mt-4 border border-ink px-5 py-2 font-semibold"
+              disabled={remove.isPending}
+              onClick={() => {
+                if (window.confirm(t("desk.deleteOutcomeConfirm", { name: outcome.name }))) remove.mutate();
+              }}
+            >
+              {t("desk.deleteOutcome")}
+            </button>
+            {remove.error ? <p role="alert" className="mt-2 text-accent">{t("desk.error", { message: remove.error.message })}</p> : null}
+          </div>
+        </details>
+      ) : null}
       {canAnalyse ? (
         <div className="mt-4">
           <UploadForm

@@ -42,7 +42,7 @@ function SignedInDesk() {
   return (
     <Routes>
       <Route index element={<DeskHome person={person} onSignOut={() => signOut.mutate()} />} />
-      <Route path="briefs/:briefId" element={<BriefScreen canAnalyse={person.roles.includes("analyst")} canEdit={person.roles.includes("editor")} />} />
+      <Route path="briefs/:briefId" element={<BriefScreen personId={person.id} canAnalyse={person.roles.includes("analyst")} canEdit={person.roles.includes("editor")} />} />
       <Route path="briefs/:briefId/outcomes/:outcomeId" element={<ResultsScreen />} />
       <Route path="briefs/:briefId/outcomes/:outcomeId/certainty" element={<CertaintyScreen canJudge={person.roles.includes("analyst")} />} />
       <Route path="*" element={<p>{t("desk.notFound")}</p>} />

@@ -1,17 +1,32 @@
-import { useState } from "react";
+import { useId, useState } from "react";
 import { useTranslation } from "react-i18next";
 import type { CreateOutcomeBody } from "#web/api/contract";
 import { Field, SubmitRow, formValues, inputClass } from "./forms";
 
 const optionalNumber = (value: string | undefined) => (value && value.trim() !== "" ? Number(value) : null);
 
-export function OutcomeForm({ onSubmit, busy, error }: { onSubmit: (fields: CreateOutcomeBody) => void; busy: boolean; error: string | null }) {
+/** A new outcome, or, with `initial`, the settings of one to change (the server re-runs its analysis). */
+export function OutcomeForm({
+  onSubmit,
+  busy,
+  error,
+  initial,
+  label,
+}: {
+  onSubmit: (fields: CreateOutcomeBody) => void;
+  busy: boolean;
+  error: string | null;
+  initial?: Partial<CreateOutcomeBody>;
+  label: string;
+}) {
   const { t } = useTranslation();
-  const [kind, setKind] = useState<"binary" | "continuous">("binary");
+  const [kind, setKind] = useState<"binary" | "continuous">(initial?.kind ?? "binary");
+  const scaleId = useId();
+  const value = (name: keyof CreateOutcomeBody) => (initial?.[name] ?? undefined) as string | number | undefined;
   return (
     <form
       className="grid gap-4 font-sans sm:grid-cols-2"
-      aria-label={t("desk.addOutcome")}
+      aria-label={label}
       onSubmit={(event) => {
         event.preventDefault();
         const v = formValues(event.currentTarget);
@@ -32,7 +47,7 @@ export function OutcomeForm({ onSubmit, busy, error }: { onSubmit: (fields: Crea
       }}
     >
       <Field label={t("desk.field.name")}>
-        <input name="name" required className={inputClass} />
+        <input name="name" required defaultValue={value("name")} className={inputClass} />
       </Field>
       <Field label={t("desk.field.kind")}>
         <select name="kind" value={kind} onChange={(e) => setKind(e.target.value as "binary" | "continuous")} className={inputClass}>
@@ -42,7 +57,7 @@ export function OutcomeForm({ onSubmit, busy, error }: { onSubmit: (fields: Crea
       </Field>
       {kind === "binary" ? (
         <Field label={t("desk.field.measure")}>
-          <select name="measure" className={inputClass} defaultValue="OR">
+          <select name="measure" className={inputClass} defaultValue={value("measure") ?? "OR"}>
             <option value="OR">OR</option>
             <option value="RR">RR</option>
             <option value="RD">RD</option>
@@ -50,36 +65,36 @@ export function OutcomeForm({ onSubmit, busy, error }: { onSubmit: (fields: Crea
         </Field>
       ) : (
         <Field label={t("desk.field.unit")}>
-          <input name="unit" className={inputClass} />
+          <input name="unit" defaultValue={value("unit")} className={inputClass} />
         </Field>
       )}
       <Field label={t("desk.field.model")}>
-        <select name="model" className={inputClass} defaultValue="random">
+        <select name="model" className={inputClass} defaultValue={value("model") ?? "random"}>
           <option value="random">{t("desk.model.random")}</option>
           <option value="fixed">{t("desk.model.fixed")}</option>
         </select>
       </Field>
       <Field label={t("desk.field.reference")}>
-        <input name="referenceTreatment" required className={inputClass} />
+        <input name="referenceTreatment" required defaultValue={value("referenceTreatment")} className={inputClass} />
       </Field>
       <Field label={t("desk.field.direction")}>
-        <select name="direction" className={inputClass}>
+        <select name="direction" className={inputClass} defaultValue={value("direction")}>
           <option value="higher">{t("desk.direction.higher")}</option>
           <option value="lower">{t("desk.direction.lower")}</option>
         </select>
       </Field>
       {kind === "binary" ? (
         <Field label={t("desk.field.baselineRisk")}>
-          <input name="baselineRisk" type="number" step="any" min="0" max="1" className={inputClass} />
+          <input name="baselineRisk" type="number" step="any" min="0" max="1" defaultValue={value("baselineRisk")} className={inputClass} />
         </Field>
       ) : null}
-      <p className="text-sm text-muted sm:col-span-2" id="threshold-scale">{t(`desk.thresholdScale.${kind}`)}</p>
+      <p className="text-sm text-muted sm:col-span-2" id={scaleId}>{t(`desk.thresholdScale.${kind}`)}</p>
       {(["thresholdSmall", "thresholdModerate", "thresholdLarge"] as const).map((name) => (
         <Field key={name} label={`${t(`desk.field.${name}`)} (${t(`desk.thresholdUnit.${kind}`)})`}>
-          <input name={name} type="number" step="any" min="0" max={kind === "binary" ? 1000 : undefined} aria-describedby="threshold-scale" className={inputClass} />
+          <input name={name} type="number" step="any" min="0" max={kind === "binary" ? 1000 : undefined} defaultValue={value(name)} aria-describedby={scaleId} className={inputClass} />
         </Field>
       ))}
-      <SubmitRow label={t("desk.addOutcome")} busy={busy} error={error} />
+      <SubmitRow label={label} busy={busy} error={error} />
     </form>
   );
 }

@@ -5,10 +5,10 @@ import { useState } from "react";
 import { useTranslation } from "react-i18next";
 import { buttonClass, Field, formValues, inputClass } from "./forms";
 import { usePublish, useReadiness, useReviews, useReviewStep, useWithdraw } from "./queries";
-import type { BriefDetail } from "#web/api/contract";
+import type { BriefDetail, ReviewBody } from "#web/api/contract";
 import { previewUrl } from "#core/urls";
 
-export function ReleasePanel({ brief, canEdit, canSubmit }: { brief: BriefDetail; canEdit: boolean; canSubmit: boolean }) {
+export function ReleasePanel({ brief, personId, canEdit, canSubmit }: { brief: BriefDetail; personId: string; canEdit: boolean; canSubmit: boolean }) {
   const { t, i18n } = useTranslation();
   const reviews = useReviews(brief.id);
   const readiness = useReadiness(brief.id);
@@ -21,6 +21,8 @@ export function ReleasePanel({ brief, canEdit, canSubmit }: { brief: BriefDetail
   // A brief with a version is released, whatever step its next version is at: a correction needs its note.
   const published = brief.latestVersion > 0;
   const warnings = readiness.data?.warnings ?? [];
+  const latestStep = reviews.data?.steps[0];
+  const mySubmissionAwaits = brief.status === "in_review" && latestStep?.decision === "submitted" && latestStep.actorId === personId;
   const approval = reviews.data?.approval ?? "none";
   const error = review.error ?? publish.error ?? withdraw.error;
 
@@ -72,7 +74,7 @@ export function ReleasePanel({ brief, canEdit, canSubmit }: { brief: BriefDetail
             const form = event.currentTarget;
             const { comment } = formValues(form);
             const acknowledgeWarnings = (form.elements.namedItem("acknowledgeWarnings") as HTMLInputElement | null)?.checked ?? false;
-            review.mutate({ decision: submitter?.value as "submitted" | "returned" | "approved", comment: comment || undefined, acknowledgeWarnings }, { onSuccess: () => form.reset() });
+            review.mutate({ decision: submitter?.value as ReviewBody["decision"], comment: comment || undefined, acknowledgeWarnings }, { onSuccess: () => form.reset() });
           }}
         >
           <Field label={t("desk.release.comment")}>
@@ -85,10 +87,13 @@ export function ReleasePanel({ brief, canEdit, canSubmit }: { brief: BriefDetail
             </label>
           ) : null}
           <div className="flex flex-wrap gap-3">
-            {canSubmit ? (
+            {canSubmit && (brief.status !== "in_review" || approval === "stale") ? (
               <button type="submit" name="decision" value="submitted" className={buttonClass} disabled={review.isPending}>{t("desk.release.submit")}</button>
             ) : null}
-            {canEdit && brief.status === "in_review" ? (
+            {mySubmissionAwaits ? (
+              <button type="submit" name="decision" value="recalled" className="border border-ink px-5 py-2 font-semibold" disabled={review.isPending}>{t("desk.release.recall")}</button>
+            ) : null}
+            {canEdit && brief.status === "in_review" && !mySubmissionAwaits ? (
               <>
                 <button type="submit" name="decision" value="approved" className={buttonClass} disabled={review.isPending}>{t("desk.release.approve")}</button>
                 <button type="submit" name="decision" value="returned" className="border border-ink px-5 py-2 font-semibold" disabled={review.isPending}>{t("desk.release.return")}</button>

@@ -6,6 +6,7 @@ import type {
   CreateBriefBody,
   CreateOutcomeBody,
   JudgementBody,
+  PatchOutcomeBody,
   PublishBody,
   Result,
   ReviewBody,
@@ -73,6 +74,26 @@ export function useCreateOutcome(briefId: string) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (fields: CreateOutcomeBody) => callApi<ApiAnswers["outcome"]>("POST", `/api/briefs/${briefId}/outcomes`, fields),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: queryKeys.brief(briefId) }),
+  });
+}
+
+export function useUpdateOutcome(briefId: string, outcomeId: string) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (fields: PatchOutcomeBody) => callApi<ApiAnswers["outcome"]>("PATCH", `/api/outcomes/${outcomeId}`, fields),
+    onSettled: () => {
+      void queryClient.invalidateQueries({ queryKey: queryKeys.brief(briefId) });
+      void queryClient.invalidateQueries({ queryKey: queryKeys.certainty(outcomeId) });
+      void queryClient.invalidateQueries({ queryKey: queryKeys.result(outcomeId) });
+    },
+  });
+}
+
+export function useDeleteOutcome(briefId: string, outcomeId: string) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: () => callApi<void>("DELETE", `/api/outcomes/${outcomeId}`),
     onSuccess: () => queryClient.invalidateQueries({ queryKey: queryKeys.brief(briefId) }),
   });
 }

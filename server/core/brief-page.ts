@@ -44,6 +44,8 @@ export interface OutcomeView {
   pairs: ({ treatment: string; comparator: string } & Interval)[];
   rankScores: { rows: (Named & { pScore: number; sucra: number })[]; draws: number; seed: number };
   methods: OutcomeSnapshot["methods"] & { fileName: string; sha256: string; baselineRisk: number | null };
+  /** Pairs whose direct and indirect estimates disagree (p < 0.05, METHODS.md §5): said in words on the page. */
+  incoherentPairs: number;
 }
 
 export interface BriefHeader {
@@ -150,11 +152,13 @@ function outcomeView(outcome: OutcomeSnapshot, index: number, named: (id: string
     },
     pairs: outcome.pairs.map((p) => ({ treatment: p.treatment, comparator: p.comparator, ...interval(p.network) })),
     rankScores: {
-      rows: outcome.rankScores.rows.map((r) => ({ ...named(r.treatment), pScore: r.pScore, sucra: r.sucra })),
+      // Alphabetical by the names readers see, never by score (the list is not a leaderboard).
+      rows: outcome.rankScores.rows.map((r) => ({ ...named(r.treatment), pScore: r.pScore, sucra: r.sucra })).sort((x, y) => x.name.localeCompare(y.name)),
       draws: outcome.rankScores.draws,
       seed: outcome.rankScores.seed,
     },
     methods: { ...methods, fileName: outcome.dataset.fileName, sha256: outcome.dataset.sha256, baselineRisk: outcome.baselineRisk },
+    incoherentPairs: outcome.pairs.filter((p) => p.incoherenceP !== null && p.incoherenceP < 0.05).length,
   };
 }
 

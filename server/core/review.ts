@@ -29,6 +29,11 @@ export function refuseReviewStep(situation: ReviewSituation, step: { decision: R
     return null;
   }
   if (!inReview) return { reason: "wrong-status", detail: "the brief is not in review" };
+  if (step.decision === "recalled") {
+    // One person is never stuck with their own submission: they take it back while it awaits a decision.
+    if (latest?.decision !== "submitted") return { reason: "wrong-status", detail: "only a submission awaiting a decision can be recalled" };
+    return situation.submitterId === actorId ? null : { reason: "wrong-status", detail: "only whoever submitted the draft can recall it" };
+  }
   // An approval vouches for what was submitted: a draft changed after its approval is submitted again first.
   if (latest?.decision !== "submitted") return { reason: "wrong-status", detail: approvedAsIs ? "the brief is already approved as it stands" : "the draft changed since its approval: it needs to be submitted again" };
   // Four eyes (common editorial practice): whoever submitted the draft does not approve or return it.
@@ -38,4 +43,4 @@ export function refuseReviewStep(situation: ReviewSituation, step: { decision: R
 }
 
 /** The status a brief takes after a review step. */
-export const statusAfterReview = (decision: ReviewDecision): BriefStatus => (decision === "returned" ? "draft" : "in_review");
+export const statusAfterReview = (decision: ReviewDecision): BriefStatus => (decision === "returned" || decision === "recalled" ? "draft" : "in_review");

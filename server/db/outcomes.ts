@@ -3,7 +3,7 @@ import { and, eq, sql } from "drizzle-orm";
 import type { OutcomeInput } from "#core/outcome";
 import { recordAudit } from "./audit";
 import type { Database, Executor } from "./client";
-import { outcomes } from "./schema";
+import { analysisResults, certaintyJudgements, datasets, outcomes } from "./schema";
 
 export type OutcomeRow = typeof outcomes.$inferSelect;
 
@@ -37,4 +37,18 @@ export async function updateOutcomeSettings(tx: Executor, id: string, rowVersion
     .where(and(eq(outcomes.id, id), eq(outcomes.rowVersion, rowVersion)))
     .returning();
   return row ?? null;
+}
+
+/** Removes an outcome with its uploads, results and judgements; published versions keep their frozen copy. */
+export async function deleteOutcome(db: Database, id: string, actorId: string): Promise<boolean> {
+  return db.transaction(async (tx) => {
+    const before = await findOutcome(tx, id);
+    if (!before) return false;
+    await tx.delete(certaintyJudgements).where(eq(certaintyJudgements.outcomeId, id));
+    await tx.delete(analysisResults).where(eq(analysisResults.outcomeId, id));
+    await tx.delete(datasets).where(eq(datasets.outcomeId, id));
+    await tx.delete(outcomes).where(eq(outcomes.id, id));
+    await recordAudit(tx, { actorId, action: "delete", entity: "outcome", entityId: id, before, after: null });
+    return true;
+  });
 }

@@ -247,3 +247,15 @@ describe("treatment names", () => {
     ]);
   });
 });
+
+describe("removing an outcome", () => {
+  it("removes it with its data, results and judgements; a second removal is 404", async () => {
+    const { briefId, outcomeId } = await newBriefWithOutcome("Outcome to remove");
+    await analyst.upload(`/api/outcomes/${outcomeId}/dataset`, { name: "h.csv", bytes: hasselbladCsv }, { format: "arm-binary" });
+    expect((await analyst.request("DELETE", `/api/outcomes/${outcomeId}`)).status).toBe(204);
+    const brief = await analyst.request("GET", `/api/briefs/${briefId}`);
+    expect((brief.body.brief as { outcomes: unknown[] }).outcomes).toEqual([]);
+    expect((await analyst.request("GET", `/api/outcomes/${outcomeId}/result`)).status).toBe(404);
+    expect((await analyst.request("DELETE", `/api/outcomes/${outcomeId}`)).status).toBe(404);
+  });
+});

@@ -200,6 +200,22 @@ describe("citations", () => {
     expect((await get(`${base}/cite.ris`)).headers.get("content-type")).toContain("application/x-research-info-systems");
   });
 
+  it("carry the version (RIS ET, BibTeX edition) and an id unique to the brief, the version and the comparison", async () => {
+    const version = `/briefs/${small}/v/1`;
+    const comparison = `${version}/compare/light/usual_care`;
+    const [versionRis = "", comparisonRis = "", versionBib = "", comparisonBib = ""] = await Promise.all(
+      [`${version}/cite.ris`, `${comparison}/cite.ris`, `${version}/cite.bib`, `${comparison}/cite.bib`].map(async (path) => (await get(path)).text()),
+    );
+    expect(versionRis).toMatch(/^ET {2}- Version 1$/m);
+    expect(versionBib).toContain("edition = {Version 1}");
+    const risId = (ris: string) => /^ID {2}- (.+)$/m.exec(ris)![1];
+    const bibKey = (bib: string) => /^@\w+\{([^,]+),/.exec(bib)![1];
+    expect(risId(versionRis)).toBe(`fairweigh-briefs-${small}-v-1`);
+    expect(risId(comparisonRis)).toBe(`fairweigh-briefs-${small}-v-1-compare-light-usual-care`);
+    expect(bibKey(versionBib)).toBe(risId(versionRis));
+    expect(bibKey(comparisonBib)).toBe(risId(comparisonRis));
+  });
+
   it("a comparison's citation names the comparison and its own permalink", async () => {
     const path = `/briefs/${small}/v/1/compare/light/usual_care`;
     const csl = new Cite(await (await get(`${path}/cite.json`)).text()).data[0] as { title: string; URL: string };
@@ -214,7 +230,9 @@ describe("downloads", () => {
     const results = await get(`${base}/results.csv`);
     expect(results.headers.get("content-type")).toContain("text/csv");
     const lines = (await results.text()).trim().split("\n");
-    expect(lines[0]).toBe("outcome,treatment,comparator,measure,model,estimate,se,lower,upper,direct_estimate,direct_se,direct_studies,indirect_estimate,indirect_se,incoherence_p,certainty");
+    // Each estimate column states its scale, and reader names stand beside the labels of the data.
+    expect(lines[0]).toBe("outcome,treatment,treatment_name,comparator,comparator_name,measure,scale,model,estimate,se,lower,upper,direct_estimate,direct_se,direct_studies,indirect_estimate,indirect_se,incoherence_p,certainty");
+    expect(lines[1]).toMatch(/^Good sleep on most days at 4 weeks,combined,Light sessions with nap schedule,drug_k,Sleep aid K \(fictional\),OR,log odds ratio,random,/);
     expect(lines).toHaveLength(1 + 2 * 15); // two outcomes, 15 pairs of 6 treatments each
     const inputs = (await (await get(`${base}/inputs.json`)).json()) as { outcomes: { studies: unknown[] }[] };
     expect(inputs.outcomes[0]!.studies).toHaveLength(15);

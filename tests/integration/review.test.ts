@@ -62,6 +62,17 @@ describe("review", () => {
     expect(steps[2]).toMatchObject({ comment: "Name the treatments for readers.", actorName: "Demo editor" });
   });
 
+  it("lets whoever submitted recall the submission while it awaits a decision, so one person is never locked out", async () => {
+    const { briefId } = await analysedBrief("Recalled");
+    expect((await review("editor", briefId, { decision: "submitted" })).status).toBe(201);
+    expect((await review("analyst", briefId, { decision: "recalled" })).status).toBe(409);
+    const recalled = await review("editor", briefId, { decision: "recalled" });
+    expect(recalled.status).toBe(201);
+    expect(recalled.body).toEqual({ decision: "recalled", status: "draft" });
+    expect((await review("editor", briefId, { decision: "recalled" })).status).toBe(409);
+    expect((await review("analyst", briefId, { decision: "submitted" })).status).toBe(201);
+  });
+
   it("lets nobody approve what they submitted themselves, and only editors approve", async () => {
     const { briefId } = await analysedBrief("Four eyes");
     expect((await review("editor", briefId, { decision: "submitted" })).status).toBe(201);

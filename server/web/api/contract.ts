@@ -65,6 +65,7 @@ export const withdrawalBody = z.object({ reason: z.string().trim().min(1, "give 
 export type CreateBriefBody = z.infer<typeof createBriefBody>;
 export type PatchBriefBody = z.infer<typeof patchBriefBody>;
 export type CreateOutcomeBody = z.input<typeof outcomeInput>;
+export type PatchOutcomeBody = z.infer<typeof outcomePatch>;
 export type JudgementBody = z.infer<typeof judgementInput>;
 export type ReviewBody = z.infer<typeof reviewBody>;
 export type PublishBody = z.infer<typeof publishBody>;

@@ -6,7 +6,7 @@ import { DatasetError, formats } from "#core/nma/types";
 import { deskRoles } from "#core/roles";
 import { latestResult } from "#db/analyses";
 import type { Database } from "#db/client";
-import { findOutcome } from "#db/outcomes";
+import { deleteOutcome, findOutcome } from "#db/outcomes";
 import { formatFitsOutcome, storeDataset } from "#workflows/analysis";
 import { judgeComparison, outcomeCertainty } from "#workflows/certainty";
 import { changeOutcomeSettings } from "#workflows/outcome-settings";
@@ -46,6 +46,11 @@ export function outcomeRoutes(db: Database): Router {
         issues: error.issues,
       });
     }
+  });
+
+  router.delete("/outcomes/:id", requireRole("analyst"), async (req, res) => {
+    if (!(await deleteOutcome(db, String(req.params.id), req.user!.id))) return sendError(res, 404, { key: "errors.notFound", message: "There is no such outcome." });
+    res.status(204).end();
   });
 
   router.put("/outcomes/:id/dataset", requireRole("analyst"), (req, res, next) => {

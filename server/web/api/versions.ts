@@ -44,7 +44,7 @@ export function versionRoutes(db: Database): Router {
 
   router.post("/briefs/:id/reviews", requireRole("analyst", "editor"), validateBody(reviewBody), async (req, res) => {
     const step = req.body as z.infer<typeof reviewBody>;
-    if (step.decision !== "submitted" && !req.user!.roles.includes("editor")) {
+    if ((step.decision === "approved" || step.decision === "returned") && !req.user!.roles.includes("editor")) {
       return sendError(res, 403, { key: "errors.roleRequired", message: "Returning or approving a brief needs the role editor.", details: { required: ["editor"] } });
     }
     const outcome = await reviewBrief(db, String(req.params.id), step, req.user!.id);

@@ -32,6 +32,8 @@ export function cslItem(input: CitationInput) {
     author: [{ literal: "Fairweigh" }],
     publisher: "Fairweigh",
     version: String(input.version),
+    // RIS ET and BibTeX edition: reference managers show which version is cited.
+    edition: `Version ${input.version}`,
     issued: dateParts(new Date(input.releaseAt)),
     accessed: dateParts(input.accessed),
     URL: input.url,
@@ -49,13 +51,19 @@ export const citationMedia: Record<CitationFormat, string> = {
 export function citationFile(input: CitationInput, format: CitationFormat): string {
   const item = cslItem(input);
   if (format === "json") return `${JSON.stringify([item], null, 2)}\n`;
-  if (format === "bib") return new Cite(item).format("bibtex");
+  // citation-js makes its own keys (author, year, first title word), which repeat across versions and
+  // comparisons: each file carries the item's id instead, unique per brief, version and comparison.
+  if (format === "bib") return new Cite(item).format("bibtex").replace(/^(@\w+\{)[^,\n]*,/, `$1${item.id},`);
   // citation-js folds RIS values every 70 characters; reference managers read the continuation as a
   // new value or join it with a space, which breaks permalinks. Each value is joined back whole.
-  return new Cite(item).format("ris").replace(/\n(?![A-Z][A-Z0-9] {2}- |$)/g, "");
+  return new Cite(item)
+    .format("ris")
+    .replace(/\n(?![A-Z][A-Z0-9] {2}- |$)/g, "")
+    .replace(/^ID {2}- .*$/m, `ID  - ${item.id}`);
 }
 
 /** The reference as a reader copies it (APA style); the page adds the access date in its own words. */
 export function formattedReference(input: CitationInput): string {
-  return new Cite(cslItem(input)).format("bibliography", { format: "text", template: "apa", lang: "en-US" }).trim();
+  // APA names the version already ("(Version 1)"): the edition would say it twice.
+  return new Cite({ ...cslItem(input), edition: undefined }).format("bibliography", { format: "text", template: "apa", lang: "en-US" }).trim();
 }

@@ -29,13 +29,20 @@ export function inputsCsv(snapshot: VersionSnapshot): string {
   return csv(["outcome", "study", "treatment", "comparator", "events", "total", "mean", "sd", "n", "estimate", "se"], rows);
 }
 
+/** What the estimate columns of results.csv are on: the analysis scale (ratios are exponentiated only for display). */
+const analysisScale = { OR: "log odds ratio", RR: "log risk ratio", RD: "risk difference", MD: "mean difference" } as const;
+
 export function resultsCsv(snapshot: VersionSnapshot): string {
+  const names = new Map(snapshot.treatments.map((t) => [t.label, t.displayName]));
   const rows = snapshot.outcomes.flatMap((outcome) =>
     outcome.pairs.map((pair) => [
       outcome.name,
       pair.treatment,
+      names.get(pair.treatment) ?? pair.treatment,
       pair.comparator,
+      names.get(pair.comparator) ?? pair.comparator,
       outcome.settings.measure,
+      outcome.settings.measure === "MD" && outcome.unit ? `${analysisScale.MD} (${outcome.unit})` : analysisScale[outcome.settings.measure],
       outcome.settings.model,
       pair.network.estimate,
       pair.network.se,
@@ -47,11 +54,14 @@ export function resultsCsv(snapshot: VersionSnapshot): string {
       pair.indirect?.estimate ?? null,
       pair.indirect?.se ?? null,
       pair.incoherenceP,
-      pair.certainty,
+      pair.certainty ?? "not assessed",
     ]),
   );
   return csv(
-    ["outcome", "treatment", "comparator", "measure", "model", "estimate", "se", "lower", "upper", "direct_estimate", "direct_se", "direct_studies", "indirect_estimate", "indirect_se", "incoherence_p", "certainty"],
+    [
+      "outcome", "treatment", "treatment_name", "comparator", "comparator_name", "measure", "scale", "model", "estimate", "se", "lower", "upper",
+      "direct_estimate", "direct_se", "direct_studies", "indirect_estimate", "indirect_se", "incoherence_p", "certainty",
+    ],
     rows,
   );
 }

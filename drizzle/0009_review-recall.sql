@@ -1,0 +1,1 @@
+ALTER TYPE "public"."review_decision" ADD VALUE 'recalled';
