@@ -30,7 +30,7 @@ export function ReleasePanel({ brief, personId, canEdit, canSubmit }: { brief: B
     <section className="mt-10 border-t border-rule pt-6" aria-labelledby="release-title" data-testid="release">
       <h2 id="release-title" className="text-xl font-semibold">{t("desk.release.title")}</h2>
       <p className="mt-2 font-sans text-sm">
-        {t(`desk.release.approval.${approval}`)} ·{" "}
+        {approval === "none" && published && brief.status !== "in_review" ? t("desk.release.approval.released", { version: brief.latestVersion }) : t(`desk.release.approval.${approval}`)} ·{" "}
         <a href={previewUrl(brief.id)} target="_blank" rel="noreferrer">{t("desk.release.preview")}</a>
       </p>
       {error ? <p role="alert" className="mt-3 font-sans text-sm text-accent">{t("desk.error", { message: error.message })}</p> : null}
