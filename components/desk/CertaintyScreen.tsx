@@ -4,8 +4,10 @@ import { useTranslation } from "react-i18next";
 import { Link, useParams } from "react-router";
 import type { ComparisonCertainty, ComparisonJudgement } from "#core/grade/assess";
 import { ratings, type Downgrade, type Rating } from "#core/grade/certainty";
+import { formatInterval } from "#core/effects";
+import { comparisonOf } from "#core/nma/comparison";
 import { buttonClass, inputClass } from "./forms";
-import { useCertainty, useSaveJudgement } from "./queries";
+import { useCertainty, useResult, useSaveJudgement, useSaveJudgements } from "./queries";
 
 const domains = ["riskOfBias", "inconsistency", "indirectness", "publicationBias"] as const;
 
@@ -13,11 +15,34 @@ export function CertaintyScreen({ canJudge }: { canJudge: boolean }) {
   const { t } = useTranslation();
   const { briefId = "", outcomeId = "" } = useParams();
   const certainty = useCertainty(outcomeId);
+  const result = useResult(outcomeId);
+  const bulk = useSaveJudgements(outcomeId);
   const [open, setOpen] = useState<string | null>(null);
+  const [selected, setSelected] = useState<Set<string>>(new Set());
   if (certainty.isError) return <p role="alert">{t("desk.error", { message: certainty.error.message })}</p>;
-  if (!certainty.data) return <p aria-live="polite">{t("desk.loading")}</p>;
-  const pendingCount = certainty.data.filter((c) => c.pending.length > 0).length;
+  if (!certainty.data || !result.data) return <p aria-live="polite">{t("desk.loading")}</p>;
+  const comparisons = certainty.data;
+  const analysed = result.data;
+  const keyOf = (c: ComparisonCertainty) => `${c.treatment}|${c.comparator}`;
+  const chosen = comparisons.filter((c) => selected.has(keyOf(c)));
+  const pendingCount = comparisons.filter((c) => c.pending.length > 0).length;
   const rating = (value: string | null, exists: boolean) => (value ? t(`certainty.rating.${value}`) : exists ? t("desk.notRated") : t("desk.noEvidence"));
+  const toggle = (key: string) => setSelected((now) => {
+    const next = new Set(now);
+    if (next.has(key)) next.delete(key);
+    else next.add(key);
+    return next;
+  });
+  const selectWhere = (which: (c: ComparisonCertainty) => boolean) => setSelected(new Set(comparisons.filter(which).map(keyOf)));
+  // The computed suggestions for incoherence and imprecision, taken as they are; nothing else changes.
+  const acceptSuggestions = () =>
+    bulk.mutate(
+      chosen.map((c) => ({
+        treatment: c.treatment,
+        comparator: c.comparator,
+        judgement: { ...c.judgement, incoherence: { levels: c.suggestions.incoherence.levels, reason: "" }, imprecision: { levels: c.suggestions.imprecision.levels, reason: "" } },
+      })),
+    );
   return (
     <>
       <p className="font-sans text-sm">
@@ -28,47 +53,120 @@ export function CertaintyScreen({ canJudge }: { canJudge: boolean }) {
       <p className="mt-3 font-sans font-semibold" data-testid="pending-count">
         {pendingCount > 0 ? t("desk.pendingCount", { count: pendingCount }) : t("desk.allJudged")}
       </p>
-      <table className="mt-6 w-full border-collapse font-sans text-sm">
-        <thead>
-          <tr className="border-b border-rule text-start">
-            {(["comparison", "direct", "indirect", "network", "pending"] as const).map((c) => (
-              <th key={c} scope="col" className="py-2 pe-3 text-start">
-                {t(`desk.column.${c}`)}
-              </th>
-            ))}
-            <td />
-          </tr>
-        </thead>
-        <tbody>
-          {certainty.data.map((c) => {
-            const key = `${c.treatment}|${c.comparator}`;
-            return (
-              <tr key={key} className="border-b border-rule align-top">
-                <th scope="row" className="py-2 pe-3 text-start font-semibold">
-                  {c.treatment} vs {c.comparator}
+      {canJudge ? (
+        <div className="mt-4 space-y-3 border border-rule bg-white p-4 font-sans text-sm" data-testid="bulk">
+          <p>
+            {t("desk.bulk.selected", { count: chosen.length })}{" "}
+            <button type="button" className="underline" onClick={() => selectWhere((c) => c.pending.length > 0)}>{t("desk.bulk.selectPending")}</button>{" · "}
+            <button type="button" className="underline" onClick={() => selectWhere(() => true)}>{t("desk.bulk.selectAll")}</button>{" · "}
+            <button type="button" className="underline" onClick={() => setSelected(new Set())}>{t("desk.bulk.selectNone")}</button>
+          </p>
+          <button type="button" className={buttonClass} disabled={chosen.length === 0 || bulk.isPending} onClick={acceptSuggestions}>
+            {t("desk.bulk.accept", { count: chosen.length })}
+          </button>
+          <DirectBulkForm chosen={chosen} busy={bulk.isPending} onApply={(items) => bulk.mutate(items)} />
+          {bulk.isSuccess ? <p role="status">{t("desk.bulk.saved", { count: bulk.data.comparisons.length })}</p> : null}
+          {bulk.error ? <p role="alert" className="text-accent">{t("desk.error", { message: bulk.error.message })}</p> : null}
+        </div>
+      ) : null}
+      <div className="mt-6 overflow-x-auto">
+        <table className="w-full border-collapse font-sans text-sm">
+          <thead>
+            <tr className="border-b border-rule text-start">
+              {canJudge ? <td /> : null}
+              {(["comparison", "estimate", "direct", "indirect", "network", "suggested", "pending"] as const).map((c) => (
+                <th key={c} scope="col" className="py-2 pe-3 text-start">
+                  {t(`desk.column.${c}`, { measure: analysed.measure })}
                 </th>
-                <td className="py-2 pe-3">{rating(c.direct, c.pending.includes("direct") || c.direct !== null)}</td>
-                <td className="py-2 pe-3">{rating(c.indirect, c.pending.includes("indirect") || c.indirect !== null)}</td>
-                <td className="py-2 pe-3 font-semibold">{c.network ? t(`certainty.rating.${c.network}`) : t("desk.notRated")}</td>
-                <td className="py-2 pe-3">{c.pending.map((p) => t(`desk.pending.${p}`)).join(", ")}</td>
-                <td className="py-2">
+              ))}
+              <td />
+            </tr>
+          </thead>
+          <tbody>
+            {comparisons.map((c) => {
+              const key = keyOf(c);
+              const evidence = comparisonOf(analysed, c.treatment, c.comparator);
+              return (
+                <tr key={key} className="border-b border-rule align-top">
                   {canJudge ? (
-                    <button type="button" className="text-accent underline" onClick={() => setOpen(open === key ? null : key)} aria-expanded={open === key}>
-                      {t("desk.judge")}
-                    </button>
+                    <td className="py-2 pe-2">
+                      <input type="checkbox" checked={selected.has(key)} onChange={() => toggle(key)} aria-label={t("desk.bulk.select", { treatment: c.treatment, comparator: c.comparator })} />
+                    </td>
                   ) : null}
-                </td>
-              </tr>
-            );
-          })}
-        </tbody>
-      </table>
-      {certainty.data
-        .filter((c) => open === `${c.treatment}|${c.comparator}`)
+                  <th scope="row" className="py-2 pe-3 text-start font-semibold">
+                    {c.treatment} vs {c.comparator}
+                  </th>
+                  <td className="py-2 pe-3 tabular-nums">
+                    {evidence ? formatInterval(analysed.measure, evidence.network, t("brief.to")) : "—"}
+                    <span className="block text-xs text-muted">{t("desk.studiesDirect", { count: evidence?.direct?.studies ?? 0 })}</span>
+                  </td>
+                  <td className="py-2 pe-3">{rating(c.direct, c.pending.includes("direct") || c.direct !== null)}</td>
+                  <td className="py-2 pe-3">{rating(c.indirect, c.pending.includes("indirect") || c.indirect !== null)}</td>
+                  <td className="py-2 pe-3 font-semibold">{c.network ? t(`certainty.rating.${c.network}`) : t("desk.notRated")}</td>
+                  <td className="py-2 pe-3 text-xs">
+                    {t("desk.suggestedShort", { incoherence: c.suggestions.incoherence.levels, imprecision: c.suggestions.imprecision.levels })}
+                  </td>
+                  <td className="py-2 pe-3">{c.pending.map((p) => t(`desk.pending.${p}`)).join(", ")}</td>
+                  <td className="py-2">
+                    {canJudge ? (
+                      <button type="button" className="text-accent underline" onClick={() => setOpen(open === key ? null : key)} aria-expanded={open === key}>
+                        {t("desk.judge")}
+                      </button>
+                    ) : null}
+                  </td>
+                </tr>
+              );
+            })}
+          </tbody>
+        </table>
+      </div>
+      {comparisons
+        .filter((c) => open === keyOf(c))
         .map((c) => (
-          <JudgementForm key={`${c.treatment}|${c.comparator}`} outcomeId={outcomeId} comparison={c} />
+          <JudgementForm key={keyOf(c)} outcomeId={outcomeId} comparison={c} />
         ))}
     </>
+  );
+}
+
+/** One judgement of the direct evidence (the four domains, one reason) for every selected pair that has direct evidence. */
+function DirectBulkForm({ chosen, busy, onApply }: { chosen: ComparisonCertainty[]; busy: boolean; onApply: (items: { treatment: string; comparator: string; judgement: ComparisonJudgement }[]) => void }) {
+  const { t } = useTranslation();
+  const withDirect = chosen.filter((c) => c.direct !== null || c.pending.includes("direct"));
+  return (
+    <form
+      className="grid gap-2"
+      aria-label={t("desk.bulk.directTitle")}
+      onSubmit={(event) => {
+        event.preventDefault();
+        const data = new FormData(event.currentTarget);
+        const reason = String(data.get("reason") ?? "");
+        const domain = (d: (typeof domains)[number]) => {
+          const levels = Number(data.get(d)) as 0 | 1 | 2;
+          return { levels, reason: levels > 0 ? reason : "" };
+        };
+        const direct = { riskOfBias: domain("riskOfBias"), inconsistency: domain("inconsistency"), indirectness: domain("indirectness"), publicationBias: domain("publicationBias") };
+        onApply(withDirect.map((c) => ({ treatment: c.treatment, comparator: c.comparator, judgement: { ...c.judgement, direct } })));
+      }}
+    >
+      <p className="font-semibold">{t("desk.bulk.directTitle", { count: withDirect.length })}</p>
+      <div className="flex flex-wrap gap-3">
+        {domains.map((d) => (
+          <label key={d} className="grid gap-1">
+            <span>{t(`desk.domain.${d}`)}</span>
+            <select name={d} defaultValue="0" className={inputClass}>
+              {[0, 1, 2].map((level) => (
+                <option key={level} value={level}>{t(`desk.levels.${level}`)}</option>
+              ))}
+            </select>
+          </label>
+        ))}
+      </div>
+      <input name="reason" placeholder={t("desk.bulk.reason")} aria-label={t("desk.bulk.reason")} className={inputClass} />
+      <div>
+        <button type="submit" className="border border-ink px-5 py-2 font-semibold" disabled={withDirect.length === 0 || busy}>{t("desk.bulk.applyDirect", { count: withDirect.length })}</button>
+      </div>
+    </form>
   );
 }
 
@@ -112,6 +210,7 @@ function JudgementForm({ outcomeId, comparison }: { outcomeId: string; compariso
           ...(hasIndirect && !hasLoop && data.get("indirectRating")
             ? { indirectRating: { rating: data.get("indirectRating") as Rating, reason: String(data.get("indirectRating.reason") ?? "") } }
             : {}),
+          ...(hasDirect && hasIndirect ? { dominant: (data.get("dominant") || null) as "direct" | "indirect" | null } : {}),
           incoherence: read("incoherence"),
           imprecision: read("imprecision"),
         };
@@ -137,6 +236,16 @@ function JudgementForm({ outcomeId, comparison }: { outcomeId: string; compariso
           </select>
           <input name="indirectRating.reason" defaultValue={j.indirectRating?.reason ?? ""} placeholder={t("desk.reason")} aria-label={`${t("desk.indirectRatingLabel")}: ${t("desk.reason")}`} className={inputClass} />
         </fieldset>
+      ) : null}
+      {hasDirect && hasIndirect ? (
+        <label className="grid gap-2 sm:grid-cols-[14rem_12rem] sm:items-center">
+          <span className="font-semibold">{t("desk.dominant.label")}</span>
+          <select name="dominant" defaultValue={j.dominant ?? ""} className={inputClass}>
+            <option value="">{t("desk.dominant.higher")}</option>
+            <option value="direct">{t("desk.dominant.direct")}</option>
+            <option value="indirect">{t("desk.dominant.indirect")}</option>
+          </select>
+        </label>
       ) : null}
       {(["incoherence", "imprecision"] as const).map((name) => (
         <div key={name}>

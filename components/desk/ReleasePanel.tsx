@@ -17,6 +17,7 @@ export function ReleasePanel({ brief, personId, canEdit, canSubmit }: { brief: B
   const withdraw = useWithdraw(brief.id);
   const [schedule, setSchedule] = useState(false);
   const date = new Intl.DateTimeFormat(i18n.language, { dateStyle: "medium", timeStyle: "short" });
+  const zoned = new Intl.DateTimeFormat(i18n.language, { dateStyle: "full", timeStyle: "long" });
   const withdrawn = brief.status === "withdrawn";
   // A brief with a version is released, whatever step its next version is at: a correction needs its note.
   const published = brief.latestVersion > 0;
@@ -109,7 +110,11 @@ export function ReleasePanel({ brief, personId, canEdit, canSubmit }: { brief: B
           onSubmit={(event) => {
             event.preventDefault();
             const { releaseAt, note } = formValues(event.currentTarget);
-            publish.mutate({ releaseAt: schedule && releaseAt ? new Date(releaseAt).toISOString() : undefined, note: note || undefined });
+            const when = schedule && releaseAt ? new Date(releaseAt) : null;
+            // A published version is frozen for good: the editor confirms, with the time zone of an embargo spelled out.
+            const question = when ? t("desk.release.confirmSchedule", { at: zoned.format(when) }) : t("desk.release.confirmPublish");
+            if (!window.confirm(question)) return;
+            publish.mutate({ releaseAt: when?.toISOString(), note: note || undefined });
           }}
         >
           <label className="flex items-center gap-2 text-sm">
@@ -142,6 +147,7 @@ export function ReleasePanel({ brief, personId, canEdit, canSubmit }: { brief: B
             className="mt-3 grid gap-3"
             onSubmit={(event) => {
               event.preventDefault();
+              if (!window.confirm(t("desk.release.confirmWithdraw"))) return;
               withdraw.mutate({ reason: formValues(event.currentTarget).reason ?? "" });
             }}
           >

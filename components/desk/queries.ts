@@ -6,6 +6,7 @@ import type {
   CreateBriefBody,
   CreateOutcomeBody,
   JudgementBody,
+  JudgementsBody,
   PatchOutcomeBody,
   PublishBody,
   Result,
@@ -138,6 +139,15 @@ export function useSaveJudgement(outcomeId: string) {
   return useMutation({
     mutationFn: ({ treatment, comparator, judgement }: { treatment: string; comparator: string; judgement: JudgementBody }) =>
       callApi<ApiAnswers["judged"]>("PUT", `/api/outcomes/${outcomeId}/certainty/${encodeURIComponent(treatment)}/${encodeURIComponent(comparator)}`, judgement),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: queryKeys.certainty(outcomeId) }),
+  });
+}
+
+/** Judgements of many pairs in one request: all saved, or none. */
+export function useSaveJudgements(outcomeId: string) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (judgements: JudgementsBody["judgements"]) => callApi<ApiAnswers["judgedMany"]>("PUT", `/api/outcomes/${outcomeId}/certainty`, { judgements }),
     onSuccess: () => queryClient.invalidateQueries({ queryKey: queryKeys.certainty(outcomeId) }),
   });
 }

@@ -1,7 +1,7 @@
 // Reading and writing certainty judgements, one per outcome and pair.
 import { and, eq } from "drizzle-orm";
 import { recordAudit } from "./audit";
-import type { Database, Executor } from "./client";
+import type { Executor } from "./client";
 import { certaintyJudgements } from "./schema";
 import type { ComparisonJudgement } from "#core/grade/assess";
 import { pairKey } from "#core/pairs";
@@ -11,8 +11,9 @@ export async function loadJudgements(db: Executor, outcomeId: string): Promise<M
   return new Map(rows.map((row) => [pairKey(row.treatment, row.comparator), row.judgement as ComparisonJudgement]));
 }
 
+/** One judgement, with its audit row; inside the caller's transaction when it passes one. */
 export async function saveJudgement(
-  db: Database,
+  db: Executor,
   key: { outcomeId: string; treatment: string; comparator: string },
   judgement: ComparisonJudgement,
   actorId: string,

@@ -18,21 +18,32 @@ export async function outcomeCertainty(db: Database, outcome: OutcomeRow, result
   return assessCertainty(analysed, await loadJudgements(db, outcome.id), thresholdsOf(outcome), outcome.baselineRisk);
 }
 
-export type JudgementOutcome =
-  | { ok: true; comparison: ComparisonCertainty }
-  | { ok: false; reason: "no-result" }
-  | { ok: false; reason: "no-comparison" }
-  | { ok: false; reason: "unexplained"; domains: ("incoherence" | "imprecision")[] };
+type Pair = { treatment: string; comparator: string };
 
-/** Records the analyst's judgement of "treatment vs comparator", named in the order the result lists the pair. */
-export async function judgeComparison(db: Database, outcome: OutcomeRow, pair: { treatment: string; comparator: string }, judgement: JudgementInput, actorId: string): Promise<JudgementOutcome> {
-  const matches = (c: ComparisonCertainty) => c.treatment === pair.treatment && c.comparator === pair.comparator;
+export type JudgementOutcome =
+  | { ok: true; comparisons: ComparisonCertainty[] }
+  | { ok: false; reason: "no-result" }
+  | { ok: false; reason: "no-comparison"; pair: Pair }
+  | { ok: false; reason: "unexplained"; pair: Pair; domains: ("incoherence" | "imprecision")[] };
+
+/**
+ * Records the analyst's judgements of one or many comparisons, each named in the order the result
+ * lists the pair, all or none: one pair that is not in the result, or departs from a suggestion
+ * without a reason, refuses the whole set (the bulk actions of the desk rely on it).
+ */
+export async function judgeComparisons(db: Database, outcome: OutcomeRow, items: (Pair & { judgement: JudgementInput })[], actorId: string): Promise<JudgementOutcome> {
   const before = await outcomeCertainty(db, outcome);
   if (!before) return { ok: false, reason: "no-result" };
-  const current = before.find(matches);
-  if (!current) return { ok: false, reason: "no-comparison" };
-  const unexplained = unexplainedDepartures(judgement, current);
-  if (unexplained.length > 0) return { ok: false, reason: "unexplained", domains: unexplained };
-  await saveJudgement(db, { outcomeId: outcome.id, ...pair }, judgement, actorId);
-  return { ok: true, comparison: (await outcomeCertainty(db, outcome))!.find(matches)! };
+  const find = (list: ComparisonCertainty[], pair: Pair) => list.find((c) => c.treatment === pair.treatment && c.comparator === pair.comparator);
+  for (const { judgement, ...pair } of items) {
+    const current = find(before, pair);
+    if (!current) return { ok: false, reason: "no-comparison", pair };
+    const unexplained = unexplainedDepartures(judgement, current);
+    if (unexplained.length > 0) return { ok: false, reason: "unexplained", pair, domains: unexplained };
+  }
+  await db.transaction(async (tx) => {
+    for (const { judgement, ...pair } of items) await saveJudgement(tx, { outcomeId: outcome.id, ...pair }, judgement, actorId);
+  });
+  const after = (await outcomeCertainty(db, outcome))!;
+  return { ok: true, comparisons: items.map((pair) => find(after, pair)!) };
 }

@@ -60,7 +60,7 @@ it("goes from a CSV file to a forest plot and a certainty judgement, with a vali
   await form.getByRole("button", { name: en.desk.saveJudgement }).click();
   await form.getByRole("status").waitFor();
   // The table refreshes after the save; wait for the new rating rather than reading it at once.
-  await row.locator("td").first().filter({ hasText: en.certainty.rating.moderate }).waitFor();
+  await row.locator("td").filter({ hasText: en.certainty.rating.moderate }).first().waitFor();
   expect(errors).toEqual([]);
 });
 

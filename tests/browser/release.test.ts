@@ -15,6 +15,8 @@ async function signedIn(browser: Browser, email: string) {
   const page = await context.newPage();
   const errors: string[] = [];
   page.on("pageerror", (error) => errors.push(error.message));
+  // Publishing asks for confirmation: the editor confirms.
+  page.on("dialog", (dialog) => void dialog.accept());
   await page.goto(`${setup.server.url}/sign-in`);
   await page.fill("input[name=email]", email);
   await page.fill("input[name=password]", demoPassword);

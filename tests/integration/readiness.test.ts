@@ -93,3 +93,27 @@ describe("what the public page says", () => {
     expect(comparison).not.toContain('data-certainty="very_low"');
   });
 });
+
+describe("rating many pairs at once", () => {
+  it("saves every judgement of the set, or none when one departs from its suggestion without a reason", async () => {
+    const { outcomeId } = await draftBrief(clients.analyst!, "Bulk rating");
+    const { body } = await clients.analyst!.request("GET", `/api/outcomes/${outcomeId}/certainty`);
+    const comparisons = body.comparisons as unknown as Certainty[];
+    const accept = (c: Certainty) => ({
+      treatment: c.treatment,
+      comparator: c.comparator,
+      judgement: { ...c.judgement, incoherence: { levels: c.suggestions.incoherence.levels, reason: "" }, imprecision: { levels: c.suggestions.imprecision.levels, reason: "" } },
+    });
+    const [first, ...rest] = comparisons.map(accept);
+    const departing = { ...first!, judgement: { ...first!.judgement, imprecision: { levels: (first!.judgement.imprecision.levels + 1) % 3, reason: "" } } };
+    const refused = await clients.analyst!.request("PUT", `/api/outcomes/${outcomeId}/certainty`, { json: { judgements: [departing, ...rest] } });
+    expect(refused.status).toBe(400);
+    expect(refused.body.error?.key).toBe("errors.certainty.overrideReason");
+    const unchanged = (await clients.analyst!.request("GET", `/api/outcomes/${outcomeId}/certainty`)).body.comparisons as unknown as Certainty[];
+    expect(unchanged.every((c) => c.pending.includes("imprecision"))).toBe(true);
+
+    const saved = await clients.analyst!.request("PUT", `/api/outcomes/${outcomeId}/certainty`, { json: { judgements: [first, ...rest] } });
+    expect(saved.status).toBe(200);
+    expect((saved.body.comparisons as unknown as Certainty[]).map((c) => c.pending.includes("imprecision"))).toEqual(comparisons.map(() => false));
+  });
+});

@@ -51,6 +51,10 @@ export const patchBriefBody = z
 export const treatmentNamesBody = z.object({ names: z.record(z.string().min(1).max(200), z.string().trim().min(1).max(200)) }).strict();
 export const previewBody = z.object({ markdown: z.string().max(20_000) }).strict();
 export { judgementInput as judgementBody, outcomeInput as createOutcomeBody, outcomePatch as patchOutcomeBody };
+/** Judgements of many pairs at once: all saved, or none. */
+export const judgementsBody = z
+  .object({ judgements: z.array(z.object({ treatment: z.string().min(1).max(200), comparator: z.string().min(1).max(200), judgement: judgementInput })).min(1).max(2000) })
+  .strict();
 export const reviewBody = z
   .object({
     decision: z.enum(reviewDecisions),
@@ -67,6 +71,7 @@ export type PatchBriefBody = z.infer<typeof patchBriefBody>;
 export type CreateOutcomeBody = z.input<typeof outcomeInput>;
 export type PatchOutcomeBody = z.infer<typeof outcomePatch>;
 export type JudgementBody = z.infer<typeof judgementInput>;
+export type JudgementsBody = z.infer<typeof judgementsBody>;
 export type ReviewBody = z.infer<typeof reviewBody>;
 export type PublishBody = z.infer<typeof publishBody>;
 export type WithdrawalBody = z.infer<typeof withdrawalBody>;
@@ -99,6 +104,7 @@ export interface ApiAnswers {
   outcome: { outcome: Outcome };
   certainty: { comparisons: Certainty[] };
   judged: { comparison: Certainty };
+  judgedMany: { comparisons: Certainty[] };
   reviewStep: { decision: ReviewBody["decision"]; status: string };
   published: { version: number; url: string };
   withdrawn: { status: "withdrawn" };

@@ -1,5 +1,5 @@
 // An outcome's settings, data upload, result and certainty judgements.
-import { Router } from "express";
+import { Router, type Response } from "express";
 import multer from "multer";
 import { z } from "zod";
 import { DatasetError, formats } from "#core/nma/types";
@@ -8,11 +8,11 @@ import { latestResult } from "#db/analyses";
 import type { Database } from "#db/client";
 import { deleteOutcome, findOutcome } from "#db/outcomes";
 import { formatFitsOutcome, storeDataset } from "#workflows/analysis";
-import { judgeComparison, outcomeCertainty } from "#workflows/certainty";
+import { judgeComparisons, outcomeCertainty, type JudgementOutcome } from "#workflows/certainty";
 import { changeOutcomeSettings } from "#workflows/outcome-settings";
 import { requireRole } from "../auth/require-role";
 import { fieldIssues, rejectMalformedId, sendError, validateBody } from "../http/errors";
-import { judgementBody, patchOutcomeBody, type JudgementBody } from "./contract";
+import { judgementBody, judgementsBody, patchOutcomeBody, type JudgementBody, type JudgementsBody } from "./contract";
 
 const maximumUploadBytes = 5 * 1024 * 1024;
 
@@ -112,25 +112,40 @@ export function outcomeRoutes(db: Database): Router {
     res.json({ comparisons });
   });
 
-  router.put("/outcomes/:id/certainty/:treatment/:comparator", requireRole("analyst"), validateBody(judgementBody), async (req, res) => {
-    const outcome = await findOutcome(db, String(req.params.id));
-    if (!outcome) return sendError(res, 404, noResult);
-    const pair = { treatment: String(req.params.treatment), comparator: String(req.params.comparator) };
-    const judged = await judgeComparison(db, outcome, pair, req.body as JudgementBody, req.user!.id);
-    if (judged.ok) return res.json({ comparison: judged.comparison });
+  /** The answer to a refused judgement: which pair, and why. */
+  function refuseJudgement(res: Response, judged: Exclude<JudgementOutcome, { ok: true }>) {
     if (judged.reason === "no-result") return sendError(res, 404, noResult);
+    const { treatment, comparator } = judged.pair;
     if (judged.reason === "no-comparison") {
       return sendError(res, 404, {
         key: "errors.noComparison",
-        message: `The result has no comparison ${pair.treatment} vs ${pair.comparator}; pairs are named in the order the result lists them.`,
+        message: `The result has no comparison ${treatment} vs ${comparator}; pairs are named in the order the result lists them.`,
       });
     }
     // A suggestion may be overridden, but only with a reason: the reason is published as a footnote.
     sendError(res, 400, {
       key: "errors.certainty.overrideReason",
-      message: `Give the reason for departing from the suggestion: ${judged.domains.join(", ")}.`,
-      details: judged.domains.map((name) => ({ field: `${name}.reason`, message: "a reason is required to depart from the suggestion" })),
+      message: `Give the reason for departing from the suggestion (${treatment} vs ${comparator}): ${judged.domains.join(", ")}.`,
+      details: judged.domains.map((name) => ({ field: `${name}.reason`, message: "a reason is required to depart from the suggestion", treatment, comparator })),
     });
+  }
+
+  router.put("/outcomes/:id/certainty/:treatment/:comparator", requireRole("analyst"), validateBody(judgementBody), async (req, res) => {
+    const outcome = await findOutcome(db, String(req.params.id));
+    if (!outcome) return sendError(res, 404, noResult);
+    const pair = { treatment: String(req.params.treatment), comparator: String(req.params.comparator) };
+    const judged = await judgeComparisons(db, outcome, [{ ...pair, judgement: req.body as JudgementBody }], req.user!.id);
+    if (!judged.ok) return refuseJudgement(res, judged);
+    res.json({ comparison: judged.comparisons[0] });
+  });
+
+  // Many pairs at once (the desk's bulk actions): all are saved, or none.
+  router.put("/outcomes/:id/certainty", requireRole("analyst"), validateBody(judgementsBody), async (req, res) => {
+    const outcome = await findOutcome(db, String(req.params.id));
+    if (!outcome) return sendError(res, 404, noResult);
+    const judged = await judgeComparisons(db, outcome, (req.body as JudgementsBody).judgements, req.user!.id);
+    if (!judged.ok) return refuseJudgement(res, judged);
+    res.json({ comparisons: judged.comparisons });
   });
 
   return router;
