@@ -40,8 +40,24 @@ function SignedInDesk() {
   if (session.isError) return <p role="alert">{t("desk.loadError")}</p>;
   if (!person) return <p aria-live="polite">{t("desk.loading")}</p>;
   return (
+    <>
+      {/* Who is signed in, on every screen of the desk, with the way out. */}
+      <div className="mb-6 flex flex-wrap items-center justify-end gap-3 border-b border-rule pb-3 font-sans text-sm" data-testid="desk-person">
+        <span>{t("desk.signedInShort", { name: person.displayName, roles: person.roles.map((role) => t(`desk.role.${role}`)).join(", ") })}</span>
+        <button type="button" onClick={() => signOut.mutate()} className="underline">
+          {t("desk.signOut")}
+        </button>
+      </div>
+      <DeskRoutes person={person} />
+    </>
+  );
+}
+
+function DeskRoutes({ person }: { person: NonNullable<ReturnType<typeof useSignedInPerson>["data"]> }) {
+  const { t } = useTranslation();
+  return (
     <Routes>
-      <Route index element={<DeskHome person={person} onSignOut={() => signOut.mutate()} />} />
+      <Route index element={<DeskHome person={person} />} />
       <Route path="briefs/:briefId" element={<BriefScreen personId={person.id} canAnalyse={person.roles.includes("analyst")} canEdit={person.roles.includes("editor")} />} />
       <Route path="briefs/:briefId/outcomes/:outcomeId" element={<ResultsScreen />} />
       <Route path="briefs/:briefId/outcomes/:outcomeId/certainty" element={<CertaintyScreen canJudge={person.roles.includes("analyst")} />} />

@@ -6,7 +6,7 @@ import { NewBriefForm } from "./NewBriefForm";
 import { PressRoom } from "./PressRoom";
 import { useBriefs, useCreateBrief } from "./queries";
 
-export function DeskHome({ person, onSignOut }: { person: SignedInPerson; onSignOut: () => void }) {
+export function DeskHome({ person }: { person: SignedInPerson }) {
   const { t } = useTranslation();
   const navigate = useNavigate();
   const staff = person.roles.some((role) => role !== "press");
@@ -41,9 +41,6 @@ export function DeskHome({ person, onSignOut }: { person: SignedInPerson; onSign
           />
         </section>
       ) : null}
-      <button type="button" onClick={onSignOut} className="mt-10 border border-accent px-4 py-2 font-sans text-accent">
-        {t("desk.signOut")}
-      </button>
     </>
   );
 }

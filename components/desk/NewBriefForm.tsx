@@ -1,7 +1,8 @@
 import { useTranslation } from "react-i18next";
+import type { CreateBriefBody } from "#web/api/contract";
 import { Field, SubmitRow, formValues, inputClass } from "./forms";
 
-export function NewBriefForm({ onCreate, busy, error }: { onCreate: (fields: { title: string; topic: string; condition: string; population: string }) => void; busy: boolean; error: string | null }) {
+export function NewBriefForm({ onCreate, busy, error }: { onCreate: (fields: CreateBriefBody) => void; busy: boolean; error: string | null }) {
   const { t } = useTranslation();
   return (
     <form
@@ -10,7 +11,7 @@ export function NewBriefForm({ onCreate, busy, error }: { onCreate: (fields: { t
       onSubmit={(event) => {
         event.preventDefault();
         const v = formValues(event.currentTarget);
-        onCreate({ title: v.title ?? "", topic: v.topic ?? "", condition: v.condition ?? "", population: v.population ?? "" });
+        onCreate({ title: v.title ?? "", topic: v.topic ?? "", condition: v.condition ?? "", population: v.population ?? "", reviewGroup: v.reviewGroup || null });
       }}
     >
       {(["title", "topic", "condition", "population"] as const).map((name) => (
@@ -18,6 +19,9 @@ export function NewBriefForm({ onCreate, busy, error }: { onCreate: (fields: { t
           <input name={name} required className={inputClass} />
         </Field>
       ))}
+      <Field label={t("desk.field.reviewGroup")}>
+        <input name="reviewGroup" className={inputClass} />
+      </Field>
       <SubmitRow label={t("desk.create")} busy={busy} error={error} />
     </form>
   );

@@ -40,6 +40,7 @@ export function OutcomeForm({
           direction: v.direction as CreateOutcomeBody["direction"],
           baselineRisk: kind === "binary" ? optionalNumber(v.baselineRisk) : null,
           unit: kind === "continuous" ? v.unit || null : null,
+          statementPhrase: v.statementPhrase || null,
           thresholdSmall: optionalNumber(v.thresholdSmall),
           thresholdModerate: optionalNumber(v.thresholdModerate),
           thresholdLarge: optionalNumber(v.thresholdLarge),
@@ -73,6 +74,9 @@ export function OutcomeForm({
           <option value="random">{t("desk.model.random")}</option>
           <option value="fixed">{t("desk.model.fixed")}</option>
         </select>
+      </Field>
+      <Field label={t("desk.field.statementPhrase")}>
+        <input name="statementPhrase" defaultValue={value("statementPhrase")} placeholder={t("desk.statementPhraseHint")} title={t("desk.statementPhraseHint")} className={inputClass} />
       </Field>
       <Field label={t("desk.field.reference")}>
         <input name="referenceTreatment" required defaultValue={value("referenceTreatment")} className={inputClass} />

@@ -4,7 +4,7 @@
 import { useState } from "react";
 import { useTranslation } from "react-i18next";
 import { buttonClass, Field, formValues, inputClass } from "./forms";
-import { usePublish, useReadiness, useReviews, useReviewStep, useWithdraw } from "./queries";
+import { usePublish, useReadiness, useReschedule, useReviews, useReviewStep, useWithdraw } from "./queries";
 import type { BriefDetail, ReviewBody } from "#web/api/contract";
 import { previewUrl } from "#core/urls";
 
@@ -15,6 +15,7 @@ export function ReleasePanel({ brief, personId, canEdit, canSubmit }: { brief: B
   const review = useReviewStep(brief.id);
   const publish = usePublish(brief.id);
   const withdraw = useWithdraw(brief.id);
+  const reschedule = useReschedule(brief.id, brief.latestVersion);
   const [schedule, setSchedule] = useState(false);
   const date = new Intl.DateTimeFormat(i18n.language, { dateStyle: "medium", timeStyle: "short" });
   const zoned = new Intl.DateTimeFormat(i18n.language, { dateStyle: "full", timeStyle: "long" });
@@ -25,7 +26,7 @@ export function ReleasePanel({ brief, personId, canEdit, canSubmit }: { brief: B
   const latestStep = reviews.data?.steps[0];
   const mySubmissionAwaits = brief.status === "in_review" && latestStep?.decision === "submitted" && latestStep.actorId === personId;
   const approval = reviews.data?.approval ?? "none";
-  const error = review.error ?? publish.error ?? withdraw.error;
+  const error = review.error ?? publish.error ?? withdraw.error ?? reschedule.error;
 
   return (
     <section className="mt-10 border-t border-rule pt-6" aria-labelledby="release-title" data-testid="release">
@@ -39,6 +40,30 @@ export function ReleasePanel({ brief, personId, canEdit, canSubmit }: { brief: B
         <p role="status" className="mt-3 font-sans text-sm">
           {t("desk.release.published", { version: publish.data.version })} <a href={publish.data.url}>{publish.data.url}</a>
         </p>
+      ) : null}
+
+      {brief.embargoedUntil && canEdit ? (
+        <form
+          className="mt-4 grid gap-2 border-s-4 border-accent ps-4 font-sans text-sm"
+          aria-label={t("desk.release.rescheduleTitle")}
+          data-testid="embargo"
+          onSubmit={(event) => {
+            event.preventDefault();
+            const { releaseAt } = formValues(event.currentTarget);
+            if (!releaseAt) return;
+            const when = new Date(releaseAt);
+            if (!window.confirm(t("desk.release.confirmSchedule", { at: zoned.format(when) }))) return;
+            reschedule.mutate({ releaseAt: when.toISOString() });
+          }}
+        >
+          <p className="font-semibold">{t("desk.release.embargoedUntil", { at: zoned.format(new Date(brief.embargoedUntil)) })}</p>
+          <Field label={t("desk.release.newReleaseAt")}>
+            <input type="datetime-local" name="releaseAt" required className={inputClass} />
+          </Field>
+          <div>
+            <button type="submit" className="border border-ink px-5 py-2 font-semibold" disabled={reschedule.isPending}>{t("desk.release.rescheduleButton")}</button>
+          </div>
+        </form>
       ) : null}
 
       {readiness.data ? (

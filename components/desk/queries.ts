@@ -11,6 +11,7 @@ import type {
   PublishBody,
   Result,
   ReviewBody,
+  RescheduleBody,
   ReviewHistory,
   UploadReport,
   WithdrawalBody,
@@ -210,6 +211,10 @@ export function useReviewStep(briefId: string) {
 
 export function usePublish(briefId: string) {
   return useReleaseStep(briefId, (body: PublishBody) => callApi<ApiAnswers["published"]>("POST", `/api/briefs/${briefId}/versions`, body));
+}
+
+export function useReschedule(briefId: string, version: number) {
+  return useReleaseStep(briefId, (body: RescheduleBody) => callApi<ApiAnswers["rescheduled"]>("PUT", `/api/briefs/${briefId}/versions/${version}/release`, body));
 }
 
 export function useWithdraw(briefId: string) {

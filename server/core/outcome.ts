@@ -11,6 +11,7 @@ export const outcomeFields = z.object({
     direction: z.enum(["higher", "lower"]),
     baselineRisk: z.number().gt(0).lt(1).nullish(),
     unit: z.string().trim().max(50).nullish(),
+    statementPhrase: z.string().trim().max(200).nullish(),
     thresholdSmall: z.number().positive().nullish(),
     thresholdModerate: z.number().positive().nullish(),
     thresholdLarge: z.number().positive().nullish(),

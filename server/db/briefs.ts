@@ -13,6 +13,7 @@ export interface BriefFields {
   topic: string;
   condition: string;
   population: string;
+  reviewGroup?: string | null;
 }
 
 /** What the editor writes: Markdown, rendered and sanitised wherever it is shown. */
@@ -71,8 +72,10 @@ export async function briefWithOutcomes(db: Database, id: string) {
   for (const outcome of rows) for (const label of await latestTreatments(db, outcome.id)) labels.add(label);
   const named = new Map((await db.select().from(treatmentNames).where(eq(treatmentNames.briefId, id))).map((r) => [r.label, r.displayName]));
   const treatments = [...labels].sort().map((label) => ({ label, displayName: named.get(label) ?? label, named: named.has(label) }));
-  const [latest] = await db.select({ number: briefVersions.number }).from(briefVersions).where(eq(briefVersions.briefId, id)).orderBy(desc(briefVersions.number)).limit(1);
-  return { ...brief, outcomes: withStatus, treatments, latestVersion: latest?.number ?? 0 };
+  const [latest] = await db.select({ number: briefVersions.number, releaseAt: briefVersions.releaseAt }).from(briefVersions).where(eq(briefVersions.briefId, id)).orderBy(desc(briefVersions.number)).limit(1);
+  // The newest version's release time while it is still embargoed: the desk shows it and may move it.
+  const embargoedUntil = latest && latest.releaseAt.getTime() > Date.now() ? latest.releaseAt : null;
+  return { ...brief, outcomes: withStatus, treatments, latestVersion: latest?.number ?? 0, embargoedUntil };
 }
 
 /** Sets the names readers see for treatment labels of the data; an empty name falls back to the label. */

@@ -25,8 +25,8 @@ export async function findOutcome(db: Executor, id: string): Promise<OutcomeRow 
 
 /** The settings as an analyst would send them, from a stored outcome. */
 export function outcomeInputOf(row: OutcomeRow): OutcomeInput {
-  const { name, kind, measure, model, referenceTreatment, direction, baselineRisk, unit, thresholdSmall, thresholdModerate, thresholdLarge } = row;
-  return { name, kind, measure, model, referenceTreatment, direction, baselineRisk, unit, thresholdSmall, thresholdModerate, thresholdLarge };
+  const { name, kind, measure, model, referenceTreatment, direction, baselineRisk, unit, statementPhrase, thresholdSmall, thresholdModerate, thresholdLarge } = row;
+  return { name, kind, measure, model, referenceTreatment, direction, baselineRisk, unit, statementPhrase, thresholdSmall, thresholdModerate, thresholdLarge };
 }
 
 /** Writes new settings if the row is still at `rowVersion`; null when someone else changed it first. */

@@ -90,6 +90,8 @@ export const briefs = pgTable("briefs", {
   topic: text("topic").notNull(),
   condition: text("condition").notNull(),
   population: text("population").notNull(),
+  /** The group that did the review, named as the author of its citations; the product's name when empty. */
+  reviewGroup: text("review_group"),
   /** The editor's plain-language summary and key messages, in Markdown (rendered and sanitised on the server). */
   laySummary: text("lay_summary").notNull().default(""),
   keyMessages: text("key_messages").notNull().default(""),
@@ -136,6 +138,8 @@ export const outcomes = pgTable("outcomes", {
   baselineRisk: doublePrecision("baseline_risk"),
   /** Continuous outcomes: the unit of the mean difference. */
   unit: text("unit"),
+  /** How the outcome reads inside a statement ("the chance of being free of pain"); the name when empty. */
+  statementPhrase: text("statement_phrase"),
   /** Thresholds for small, moderate and large effects on the analysis scale (absolute values). */
   thresholdSmall: doublePrecision("threshold_small"),
   thresholdModerate: doublePrecision("threshold_moderate"),

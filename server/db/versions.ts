@@ -20,6 +20,20 @@ export async function hasVersion(db: Executor, briefId: string): Promise<boolean
   return (await lastVersionNumber(db, briefId)) > 0;
 }
 
+/** A version's release time, for a step that may move it; null when there is no such version. */
+export async function releaseTimeOf(db: Executor, briefId: string, number: number): Promise<Date | null> {
+  const [row] = await db.select({ releaseAt: briefVersions.releaseAt }).from(briefVersions).where(and(eq(briefVersions.briefId, briefId), eq(briefVersions.number, number)));
+  return row?.releaseAt ?? null;
+}
+
+/** Moves an embargoed version's release time, in the row and in its snapshot: the one change the database allows (migration 0012). */
+export async function moveReleaseTime(db: Executor, briefId: string, number: number, releaseAt: Date): Promise<void> {
+  await db
+    .update(briefVersions)
+    .set({ releaseAt, snapshot: sql`jsonb_set(${briefVersions.snapshot}, '{releaseAt}', to_jsonb(${releaseAt.toISOString()}::text))` })
+    .where(and(eq(briefVersions.briefId, briefId), eq(briefVersions.number, number)));
+}
+
 /** Freezes a version: the database refuses any later change to the row (a trigger). */
 export async function insertVersion(db: Executor, values: { briefId: string; number: number; releaseAt: Date; note: string | null; snapshot: VersionSnapshot; createdBy: string }) {
   await db.insert(briefVersions).values(values);

@@ -5,7 +5,7 @@ import { versionUrl } from "#core/urls";
 import { lockBrief, setBriefState } from "#db/briefs";
 import type { Database } from "#db/client";
 import { approvalOf } from "#db/reviews";
-import { insertVersion, lastVersionNumber } from "#db/versions";
+import { insertVersion, lastVersionNumber, moveReleaseTime, releaseTimeOf } from "#db/versions";
 import type { ReadinessItem } from "#core/readiness";
 import { briefReadiness } from "./readiness";
 import { contentChecksum, draftSnapshot } from "./snapshot";
@@ -13,6 +13,22 @@ import { contentChecksum, draftSnapshot } from "./snapshot";
 export type PublishOutcome =
   | { ok: true; version: number; url: string }
   | { ok: false; reason: "not-found" | "not-ready" | "not-approved" | "withdrawn" | "note-required"; detail: string; items?: ReadinessItem[] };
+
+export type RescheduleOutcome = { ok: true; releaseAt: string } | { ok: false; reason: "not-found" | "released" | "past"; detail: string };
+
+/** An embargoed version's release moves to another future time; once released, it is frozen like any other. */
+export async function rescheduleRelease(db: Database, briefId: string, number: number, releaseAt: Date, actorId: string): Promise<RescheduleOutcome> {
+  if (releaseAt.getTime() <= Date.now()) return { ok: false, reason: "past", detail: "the new release time must be in the future (publish now instead)" };
+  return db.transaction(async (tx) => {
+    const brief = await lockBrief(tx, briefId);
+    const current = brief ? await releaseTimeOf(tx, briefId, number) : null;
+    if (!brief || !current) return { ok: false, reason: "not-found", detail: "there is no such version" };
+    if (current.getTime() <= Date.now()) return { ok: false, reason: "released", detail: "this version is released and frozen" };
+    await moveReleaseTime(tx, briefId, number, releaseAt);
+    await setBriefState(tx, brief, {}, { actorId, action: "reschedule", after: { version: number, from: current, releaseAt } });
+    return { ok: true, releaseAt: releaseAt.toISOString() };
+  });
+}
 
 export async function publishVersion(db: Database, briefId: string, options: { releaseAt?: Date; note?: string }, actorId: string): Promise<PublishOutcome> {
   const readiness = await briefReadiness(db, briefId);

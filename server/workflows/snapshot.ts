@@ -40,13 +40,13 @@ export async function draftSnapshot(db: Database, briefId: string): Promise<Draf
       dataset: { fileName: dataset.fileName, sha256: dataset.sha256, format: dataset.format, parsed },
       result,
       certainty,
-      ...concludeOutcome(result, certainty, { name: outcome.name, baselineRisk: outcome.baselineRisk, thresholds, names }),
+      ...concludeOutcome(result, certainty, { name: outcome.name, statementPhrase: outcome.statementPhrase, baselineRisk: outcome.baselineRisk, thresholds, names }),
       ...outcomeFacts(result, certainty, parsed.studies),
     });
   }
   const snapshot = draftSnapshotSchema.parse({
     schemaVersion: snapshotSchemaVersion,
-    brief: { slug: brief.slug, title: brief.title, topic: brief.topic, condition: brief.condition, population: brief.population, demo: brief.demo },
+    brief: { slug: brief.slug, title: brief.title, topic: brief.topic, condition: brief.condition, population: brief.population, demo: brief.demo, reviewGroup: brief.reviewGroup },
     treatments: brief.treatments,
     texts: { laySummaryHtml: renderMarkdown(brief.laySummary), keyMessagesHtml: renderMarkdown(brief.keyMessages) },
     outcomes,

@@ -9,7 +9,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { slugify } from "#core/slug";
 import { demoBriefs } from "#workflows/demo-briefs";
 import { demoPassword } from "#workflows/seed";
-import { approve, publishedBrief } from "../support/briefs";
+import { analysedBrief, approve, publishedBrief } from "../support/briefs";
 import { ApiClient } from "../support/client";
 import { startProductionServer, type RunningServer } from "../support/production-server";
 
@@ -214,6 +214,17 @@ describe("citations", () => {
     expect(risId(comparisonRis)).toBe(`fairweigh-briefs-${small}-v-1-compare-light-usual-care`);
     expect(bibKey(versionBib)).toBe(risId(versionRis));
     expect(bibKey(comparisonBib)).toBe(risId(comparisonRis));
+  });
+
+  it("name the brief's review group as their author", async () => {
+    const { briefId, slug } = await analysedBrief(clients.analyst!, "Cited with its review group");
+    const { rowVersion } = (await clients.analyst!.request("GET", `/api/briefs/${briefId}`)).body.brief as { rowVersion: number };
+    expect((await clients.analyst!.request("PATCH", `/api/briefs/${briefId}`, { json: { rowVersion, reviewGroup: "Northfield Evidence Unit (fictional)" } })).status).toBe(200);
+    await approve(clients.analyst!, clients.editor!, briefId);
+    expect((await clients.editor!.request("POST", `/api/briefs/${briefId}/versions`, { json: {} })).status).toBe(201);
+    const ris = await (await get(`/briefs/${slug}/v/1/cite.ris`)).text();
+    expect(ris).toMatch(/^AU {2}- Northfield Evidence Unit \(fictional\)$/m);
+    expect(await (await get(`/briefs/${slug}/v/1`)).text()).toContain("Northfield Evidence Unit (fictional). (");
   });
 
   it("a comparison's citation names the comparison and its own permalink", async () => {

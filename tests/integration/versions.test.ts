@@ -113,6 +113,29 @@ describe("the embargo", () => {
     expect((brief.body.brief as { status: string }).status).toBe("scheduled");
   });
 
+  it("lets an editor move the release time while it is embargoed, and never once it is released", async () => {
+    const { briefId, slug } = await analysedBrief("Moved embargo");
+    await approve(briefId);
+    const first = new Date(Date.now() + 24 * 3600 * 1000).toISOString();
+    expect((await clients.editor!.request("POST", `/api/briefs/${briefId}/versions`, { json: { releaseAt: first } })).status).toBe(201);
+    const moved = new Date(Date.now() + 72 * 3600 * 1000).toISOString();
+    const release = (releaseAt: string, who = clients.editor!) => who.request("PUT", `/api/briefs/${briefId}/versions/1/release`, { json: { releaseAt } });
+    expect((await release(moved, clients.analyst!)).status).toBe(403);
+    const answer = await release(moved);
+    expect(answer.status).toBe(200);
+    const version = await clients.press!.request("GET", `/api/briefs/${slug}/versions/1`);
+    expect(version.body.releaseAt).toBe(moved);
+    expect(((await clients.editor!.request("GET", `/api/briefs/${briefId}`)).body.brief as { embargoedUntil: string }).embargoedUntil).toBe(moved);
+    expect((await release(new Date(Date.now() - 1000).toISOString())).status).toBe(400);
+    // Released now: the row is frozen like any other, in the database too.
+    expect((await release(new Date(Date.now() + 1500).toISOString())).status).toBe(200);
+    await new Promise((resolve) => setTimeout(resolve, 1700));
+    const late = await release(new Date(Date.now() + 3600 * 1000).toISOString());
+    expect(late.status).toBe(409);
+    expect(late.body.error?.key).toBe("errors.publish.released");
+    await expect(app.connection.pool.query("update brief_versions set release_at = now() + interval '1 day' where brief_id = $1", [briefId])).rejects.toThrow(/frozen/);
+  });
+
   it("lifts itself at the release time: the version becomes public and the brief reads as published", async () => {
     const { briefId, slug } = await analysedBrief("Released on time");
     await approve(briefId);

@@ -46,6 +46,8 @@ export interface OutcomeConclusions {
 
 export interface OutcomeFacts {
   name: string;
+  /** How the outcome reads inside a statement, when the analysts gave it ("the chance of being free of pain"). */
+  statementPhrase?: string | null;
   baselineRisk: number | null;
   thresholds: Thresholds;
   /** The names readers see, by the label in the data. */
@@ -108,7 +110,7 @@ export function concludeOutcome(result: AnalysisResult, certainty: ComparisonCer
         const rating = rated.get(pairKey(t, u)) ?? null;
         const magnitude = magnitudeFor(scale.effect(t, u), scale.thresholds);
         const statement = rating
-          ? statementFor({ treatment: name(t), comparator: name(u), outcome: inSentence(outcome.name), estimate: network.estimate, certainty: rating, magnitude })
+          ? statementFor({ treatment: name(t), comparator: name(u), outcome: outcome.statementPhrase?.trim() || inSentence(outcome.name), estimate: network.estimate, certainty: rating, magnitude })
           : null;
         const comparatorRisk = scale.riskUnder(u);
         const absolute = comparatorRisk === null ? null : absoluteEffect(result.measure, network, comparatorRisk);

@@ -111,7 +111,8 @@ const outcomeSnapshot = z.object({
 
 export const draftSnapshotSchema = z.object({
   schemaVersion: z.literal(snapshotSchemaVersion),
-  brief: z.object({ slug: text, title: text, topic: text, condition: text, population: text, demo: z.boolean() }),
+  // reviewGroup: optional, so versions frozen before it read as before (the product's name as author).
+  brief: z.object({ slug: text, title: text, topic: text, condition: text, population: text, demo: z.boolean(), reviewGroup: text.nullable().optional() }),
   treatments: z.array(z.object({ label: text, displayName: text })),
   texts: z.object({ laySummaryHtml: text, keyMessagesHtml: text }),
   outcomes: z.array(outcomeSnapshot),

@@ -36,7 +36,9 @@ const briefFields = {
   condition: z.string().trim().min(1).max(200),
   population: z.string().trim().min(1).max(500),
 };
-export const createBriefBody = z.object(briefFields).strict();
+/** The review group named as the author of the brief's citations (an organisation). */
+const reviewGroup = z.string().trim().max(200).nullish();
+export const createBriefBody = z.object({ ...briefFields, reviewGroup }).strict();
 export const patchBriefBody = z
   .object({
     rowVersion,
@@ -44,6 +46,7 @@ export const patchBriefBody = z
     topic: briefFields.topic.optional(),
     condition: briefFields.condition.optional(),
     population: briefFields.population.optional(),
+    reviewGroup,
     laySummary: z.string().max(20_000).optional(),
     keyMessages: z.string().max(20_000).optional(),
   })
@@ -64,6 +67,7 @@ export const reviewBody = z
   })
   .strict();
 export const publishBody = z.object({ releaseAt: z.iso.datetime({ offset: true }).optional(), note: z.string().trim().max(5000).optional() }).strict();
+export const rescheduleBody = z.object({ releaseAt: z.iso.datetime({ offset: true }) }).strict();
 export const withdrawalBody = z.object({ reason: z.string().trim().min(1, "give the public reason for the withdrawal").max(5000) }).strict();
 
 export type CreateBriefBody = z.infer<typeof createBriefBody>;
@@ -75,6 +79,7 @@ export type JudgementsBody = z.infer<typeof judgementsBody>;
 export type ReviewBody = z.infer<typeof reviewBody>;
 export type PublishBody = z.infer<typeof publishBody>;
 export type WithdrawalBody = z.infer<typeof withdrawalBody>;
+export type RescheduleBody = z.infer<typeof rescheduleBody>;
 
 // Answers --------------------------------------------------------------------------------------
 
@@ -108,6 +113,7 @@ export interface ApiAnswers {
   reviewStep: { decision: ReviewBody["decision"]; status: string };
   published: { version: number; url: string };
   withdrawn: { status: "withdrawn" };
+  rescheduled: { releaseAt: string };
   pressRoom: { versions: PressRoomVersion[] };
   people: { people: Person[] };
   readiness: Readiness;

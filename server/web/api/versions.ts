@@ -8,11 +8,11 @@ import { requireRole } from "../auth/require-role";
 import { reviewBrief, reviewHistory, withdrawBrief } from "#workflows/review";
 import { listPressRoom, readVersion } from "#db/versions";
 import type { ReadinessItem } from "#core/readiness";
-import { publishVersion } from "#workflows/publish";
+import { publishVersion, rescheduleRelease } from "#workflows/publish";
 import { briefReadiness } from "#workflows/readiness";
 import type { Database } from "#db/client";
 import { rejectMalformedId, sendError, validateBody } from "../http/errors";
-import { publishBody, reviewBody, withdrawalBody } from "./contract";
+import { publishBody, rescheduleBody, reviewBody, withdrawalBody, type RescheduleBody } from "./contract";
 
 /** The HTTP status and message key for each reason a step is refused. */
 const refusals = {
@@ -26,6 +26,8 @@ const refusals = {
   "own-submission": [403, "errors.review.ownSubmission"],
   "comment-required": [400, "errors.review.commentRequired"],
   "not-published": [409, "errors.withdrawal.notPublished"],
+  released: [409, "errors.publish.released"],
+  past: [400, "errors.publish.pastRelease"],
 } as const;
 
 type Refusal = keyof typeof refusals;
@@ -68,6 +70,14 @@ export function versionRoutes(db: Database): Router {
     if (outcome.ok) return res.status(201).json({ version: outcome.version, url: outcome.url });
     const detail = outcome.reason === "not-found" ? outcome.detail : `the brief cannot be published yet: ${outcome.detail}`;
     refuse(res, outcome.reason, detail, "note", outcome.items);
+  });
+
+  router.put("/briefs/:id/versions/:number/release", requireRole("editor"), validateBody(rescheduleBody), async (req, res) => {
+    const number = versionNumberOf(String(req.params.number));
+    if (number === null) return sendError(res, 404, { key: "errors.notFound", message: "There is no such version." });
+    const outcome = await rescheduleRelease(db, String(req.params.id), number, new Date((req.body as RescheduleBody).releaseAt), req.user!.id);
+    if (!outcome.ok) return refuse(res, outcome.reason, outcome.detail, "releaseAt");
+    res.json({ releaseAt: outcome.releaseAt });
   });
 
   router.post("/briefs/:id/withdrawal", requireRole("editor"), validateBody(withdrawalBody), async (req, res) => {

@@ -42,7 +42,7 @@ function citation(pageContext: PageContextServer, snapshot: VersionSnapshot, pat
   const accessed = new Date();
   const permalink = `${pageContext.siteUrl ?? ""}${path}`;
   return {
-    reference: formattedReference({ title: snapshot.brief.title, version: snapshot.version, releaseAt: snapshot.releaseAt, url: permalink, accessed, comparison }),
+    reference: formattedReference({ title: snapshot.brief.title, author: snapshot.brief.reviewGroup, version: snapshot.version, releaseAt: snapshot.releaseAt, url: permalink, accessed, comparison }),
     accessed: accessed.toISOString(),
     permalink,
   };

@@ -16,6 +16,8 @@ export interface CitationInput {
   accessed: Date;
   /** For one comparison: "A vs B". */
   comparison?: string;
+  /** The review group, the citation's author; the product's name when none is set. */
+  author?: string | null;
 }
 
 const dateParts = (date: Date) => ({ "date-parts": [[date.getUTCFullYear(), date.getUTCMonth() + 1, date.getUTCDate()]] });
@@ -29,7 +31,7 @@ export function cslItem(input: CitationInput) {
     id: `fairweigh-${new URL(input.url).pathname.replace(/[^a-z0-9]+/gi, "-").replace(/^-|-$/g, "")}`,
     type: "report",
     title,
-    author: [{ literal: "Fairweigh" }],
+    author: [{ literal: input.author?.trim() || "Fairweigh" }],
     publisher: "Fairweigh",
     version: String(input.version),
     // RIS ET and BibTeX edition: reference managers show which version is cited.

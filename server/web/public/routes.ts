@@ -41,7 +41,7 @@ export function publicFileRoutes(db: Database, publicUrl: string | undefined): R
     if (!format || !page) return res.status(404).type("text/plain").send(notFound);
     const { snapshot, embargoed } = page;
     const url = `${siteUrl(req, publicUrl)}${versionUrl({ slug: snapshot.brief.slug, version: snapshot.version })}`;
-    sendCitation(res, format, embargoed, `${snapshot.brief.slug}-v${snapshot.version}`, { title: snapshot.brief.title, version: snapshot.version, releaseAt: snapshot.releaseAt, url });
+    sendCitation(res, format, embargoed, `${snapshot.brief.slug}-v${snapshot.version}`, { title: snapshot.brief.title, author: snapshot.brief.reviewGroup, version: snapshot.version, releaseAt: snapshot.releaseAt, url });
   });
 
   router.get("/briefs/:slug/v/:number/compare/:a/:b/cite.:format", async (req, res) => {
@@ -52,6 +52,7 @@ export function publicFileRoutes(db: Database, publicUrl: string | undefined): R
     const url = `${siteUrl(req, publicUrl)}${comparisonUrl({ slug: view.slug, version: view.version, treatment: view.treatment.id, comparator: view.comparator.id })}`;
     sendCitation(res, format, page.embargoed, `${view.slug}-v${view.version}-${view.treatment.id}-vs-${view.comparator.id}`, {
       title: view.title,
+      author: page.snapshot.brief.reviewGroup,
       version: view.version,
       releaseAt: view.releaseAt,
       url,

@@ -75,3 +75,23 @@ describe("the size of an effect for its statement", () => {
     expect(magnitudeFor({ estimate: 0.2, lower: 0.1, upper: 0.3 }, none)).toBe("moderate");
   });
 });
+
+describe("statements with the outcome's own phrase", () => {
+  it("read naturally in both directions: 'may slightly increase the chance of …' and its mirror", () => {
+    const low = result.comparisons.map((c) => ({ treatment: c.treatment, comparator: c.comparator, network: "low" }) as ComparisonCertainty);
+    // Alpha is about 201 more per 1000 than placebo at a baseline of 200 (tests/unit/grade/decision-scale.test.ts): a small effect against 100 / 300 / 500.
+    const { readings } = concludeOutcome(result, low, {
+      name: "Free of pain at 2 hours",
+      statementPhrase: "the chance of being free of pain two hours after one dose",
+      baselineRisk: 0.2,
+      thresholds: { small: 100, moderate: 300, large: 500 },
+      names,
+    });
+    const say = (t1: string, t2: string) => {
+      const statement = readings.find((r) => r.treatment === t1 && r.comparator === t2)!.statement!;
+      return t(statement.key, statement.values);
+    };
+    expect(say("alpha", "placebo")).toBe("Alpha may slightly increase the chance of being free of pain two hours after one dose compared with Placebo.");
+    expect(say("placebo", "alpha")).toBe("Placebo may slightly reduce the chance of being free of pain two hours after one dose compared with Alpha.");
+  });
+});

@@ -1,6 +1,7 @@
 // The full grid of plain-language statements: 4 certainty levels × 4 magnitudes × benefit or harm,
 // against the wording of Santesso et al., GRADE guidelines 26, J Clin Epidemiol 2020;119:126–135
-// (the phrases below are recalled from that paper's table of suggested statements).
+// (the phrases below are recalled from that paper's table of suggested statements; "slightly" stands
+// before the verb, our wording, so that a long outcome phrase still reads naturally).
 import { describe, expect, it } from "vitest";
 import { createI18n, locales } from "#components/i18n";
 import type { Rating } from "#core/grade/certainty";
@@ -10,19 +11,19 @@ const wording: Record<Exclude<Rating, "very_low">, Record<Magnitude, { reduce: s
   high: {
     large: { reduce: "results in a large reduction in pain", increase: "results in a large increase in pain" },
     moderate: { reduce: "reduces pain", increase: "increases pain" },
-    small: { reduce: "reduces pain slightly", increase: "increases pain slightly" },
+    small: { reduce: "slightly reduces pain", increase: "slightly increases pain" },
     trivial: { reduce: "results in little to no difference in pain", increase: "results in little to no difference in pain" },
   },
   moderate: {
     large: { reduce: "likely results in a large reduction in pain", increase: "likely results in a large increase in pain" },
     moderate: { reduce: "probably reduces pain", increase: "probably increases pain" },
-    small: { reduce: "probably reduces pain slightly", increase: "probably increases pain slightly" },
+    small: { reduce: "probably slightly reduces pain", increase: "probably slightly increases pain" },
     trivial: { reduce: "probably results in little to no difference in pain", increase: "probably results in little to no difference in pain" },
   },
   low: {
     large: { reduce: "may result in a large reduction in pain", increase: "may result in a large increase in pain" },
     moderate: { reduce: "may reduce pain", increase: "may increase pain" },
-    small: { reduce: "may reduce pain slightly", increase: "may increase pain slightly" },
+    small: { reduce: "may slightly reduce pain", increase: "may slightly increase pain" },
     trivial: { reduce: "may result in little to no difference in pain", increase: "may result in little to no difference in pain" },
   },
 };
