@@ -180,6 +180,10 @@ describe("a withdrawn brief", () => {
       expect(html).toContain("A trial in the data was retracted.");
       expect(html).toContain("Quit smoking");
     }
+    // The feed announces the withdrawal, with its reason.
+    const feed = await (await get("/feed.xml")).text();
+    expect(feed).toContain('<title type="text">Withdrawn: Withdrawn page</title>');
+    expect(feed).toContain("Withdrawn: A trial in the data was retracted.");
     // The withdrawn page is cached in turn: a fresh render would carry a new nonce, hence a new ETag.
     const [first, second] = [await get(`/briefs/${slug}/v/1`), await get(`/briefs/${slug}/v/1`)];
     expect(second.status).toBe(410);

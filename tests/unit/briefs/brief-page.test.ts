@@ -49,6 +49,8 @@ describe("the brief page model", () => {
     const view = briefContent(snapshot);
     expect(view.outcomes[0]!.effects.map((e) => e.name)).toEqual(["Beta drops", "Zeta tablets"]);
     expect(view.outcomes[0]!.reference).toEqual({ id: "placebo", name: "Placebo" });
+    // The rank-score list too: alphabetical by reader name, as its explainer says.
+    expect(view.outcomes[0]!.rankScores.rows.map((r) => r.name)).toEqual(["Beta drops", "Placebo", "Zeta tablets"]);
   });
 });
 
