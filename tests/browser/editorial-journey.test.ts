@@ -6,26 +6,12 @@ import path from "node:path";
 import type { Browser, Page } from "playwright-core";
 import { expect, it } from "vitest";
 import en from "../../locales/en/common.json";
-import { demoPassword } from "#workflows/seed";
-import { withServerAndBrowser } from "../support/browser";
+import { signedIn as signedInAt, withServerAndBrowser } from "../support/browser";
 
 const hasselblad = path.resolve(__dirname, "../fixtures/reference/hasselblad1998.csv");
 const title = "Editorial journey (browser test)";
 const setup = withServerAndBrowser();
-
-async function signedIn(browser: Browser, email: string) {
-  const context = await browser.newContext();
-  const page = await context.newPage();
-  const errors: string[] = [];
-  page.on("pageerror", (error) => errors.push(error.message));
-  // Publishing and withdrawing ask for confirmation: the person confirms.
-  page.on("dialog", (dialog) => void dialog.accept());
-  await page.goto(`${setup.server.url}/sign-in`);
-  await page.fill("input[name=email]", email);
-  await page.fill("input[name=password]", demoPassword);
-  await Promise.all([page.waitForURL(`${setup.server.url}/desk`), page.click("button[type=submit]")]);
-  return { page, errors, close: () => context.close() };
-}
+const signedIn = (browser: Browser, email: string) => signedInAt(browser, setup.server.url, email);
 
 const openBrief = async (page: Page) => {
   await page.getByRole("link", { name: title }).first().click();

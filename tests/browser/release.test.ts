@@ -4,25 +4,12 @@ import type { Browser } from "playwright-core";
 import { expect, it } from "vitest";
 import en from "../../locales/en/common.json";
 import { demoPassword } from "#workflows/seed";
-import { withServerAndBrowser } from "../support/browser";
+import { signedIn as signedInAt, withServerAndBrowser } from "../support/browser";
 import { analysedBrief } from "../support/briefs";
 import { ApiClient } from "../support/client";
 
 const setup = withServerAndBrowser();
-
-async function signedIn(browser: Browser, email: string) {
-  const context = await browser.newContext();
-  const page = await context.newPage();
-  const errors: string[] = [];
-  page.on("pageerror", (error) => errors.push(error.message));
-  // Publishing asks for confirmation: the editor confirms.
-  page.on("dialog", (dialog) => void dialog.accept());
-  await page.goto(`${setup.server.url}/sign-in`);
-  await page.fill("input[name=email]", email);
-  await page.fill("input[name=password]", demoPassword);
-  await Promise.all([page.waitForURL(`${setup.server.url}/desk`), page.click("button[type=submit]")]);
-  return { page, errors, close: () => context.close() };
-}
+const signedIn = (browser: Browser, email: string) => signedInAt(browser, setup.server.url, email);
 
 it("goes from a draft through review to a public page, and a reporter sees it in the press room", async () => {
   const api = new ApiClient(setup.server.url);

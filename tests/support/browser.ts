@@ -2,6 +2,7 @@
 // network (background services, updates, sync) and let it run as root in a container.
 import { chromium, type Browser } from "playwright-core";
 import { afterAll, beforeAll } from "vitest";
+import { demoPassword } from "#workflows/seed";
 import { startProductionServer, type RunningServer } from "./production-server";
 
 export function launchChromium(): Promise<Browser> {
@@ -38,4 +39,22 @@ export function withServerAndBrowser(): { readonly server: RunningServer; readon
       return state.browser!;
     },
   };
+}
+
+/**
+ * A fresh browser context signed in through the sign-in form, landed on /desk. Page errors are
+ * collected for the test to check; confirmation dialogs (publish, withdraw) are accepted, as the
+ * person would.
+ */
+export async function signedIn(browser: Browser, baseUrl: string, email: string) {
+  const context = await browser.newContext();
+  const page = await context.newPage();
+  const errors: string[] = [];
+  page.on("pageerror", (error) => errors.push(error.message));
+  page.on("dialog", (dialog) => void dialog.accept());
+  await page.goto(`${baseUrl}/sign-in`);
+  await page.fill("input[name=email]", email);
+  await page.fill("input[name=password]", demoPassword);
+  await Promise.all([page.waitForURL(`${baseUrl}/desk`), page.click("button[type=submit]")]);
+  return { page, errors, close: () => context.close() };
 }
