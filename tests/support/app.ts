@@ -1,7 +1,7 @@
 // An in-process server on a free port, against the test cluster that scripts/test.ts started.
 import type { AddressInfo } from "node:net";
 import type { Server } from "node:http";
-import { createApp } from "#web/app";
+import { createApp, type AppOptions } from "#web/app";
 import { connectDatabase, type DatabaseConnection } from "#db/client";
 
 export function testDatabaseUrl(): string {
@@ -19,7 +19,7 @@ export interface TestApp {
 }
 
 /** `databaseUrl` defaults to the test cluster; a test of an unreachable database passes its own. */
-export async function startTestApp(databaseUrl = testDatabaseUrl()): Promise<TestApp> {
+export async function startTestApp(databaseUrl = testDatabaseUrl(), options: Partial<AppOptions> = {}): Promise<TestApp> {
   const connection = connectDatabase(databaseUrl);
   const app = await createApp({
     db: connection.db,
@@ -29,6 +29,7 @@ export async function startTestApp(databaseUrl = testDatabaseUrl()): Promise<Tes
     secureTransport: false,
     logLevel: "silent",
     pages: false,
+    ...options,
   });
   const server: Server = await new Promise((resolve) => {
     const listening = app.listen(0, "127.0.0.1", () => resolve(listening));
