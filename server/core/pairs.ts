@@ -18,15 +18,25 @@ export function flipInterval<T extends Interval>(x: T): T {
   return { ...x, estimate: -x.estimate, lower: -x.upper, upper: -x.lower };
 }
 
+type Finder<T> = (a: string, b: string) => { item: T; flipped: boolean } | null;
+
+// Results and snapshots are never changed once made: one index per list of pairs serves every lookup.
+const finders = new WeakMap<readonly object[], Finder<object>>();
+
 /**
  * Finds "a vs b" among items that list each pair once, in either order: the item, and whether it is
- * listed the other way round (then its estimates must be flipped to read as a vs b).
+ * listed the other way round (then its estimates must be flipped to read as a vs b). The index is
+ * built once per list.
  */
-export function pairFinder<T extends { treatment: string; comparator: string }>(items: readonly T[]): (a: string, b: string) => { item: T; flipped: boolean } | null {
+export function pairFinder<T extends { treatment: string; comparator: string }>(items: readonly T[]): Finder<T> {
+  const known = finders.get(items);
+  if (known) return known as Finder<T>;
   const byKey = new Map(items.map((item) => [pairKey(item.treatment, item.comparator), item]));
-  return (a, b) => {
+  const find: Finder<T> = (a, b) => {
     const item = byKey.get(pairKey(a, b));
     if (!item || a === b) return null;
     return { item, flipped: item.treatment !== a };
   };
+  finders.set(items, find as Finder<object>);
+  return find;
 }

@@ -4,13 +4,9 @@ import { flipInterval, pairFinder } from "../pairs";
 import type { AnalysisResult, Comparison } from "./analyse";
 import type { Estimate } from "./types";
 
-const finders = new WeakMap<AnalysisResult, ReturnType<typeof pairFinder<Comparison>>>();
-
 /** "a vs b" from a result, whichever order the result lists the pair in (θ_a − θ_b = −(θ_b − θ_a)). */
 export function comparisonOf(result: AnalysisResult, a: string, b: string): Comparison | null {
-  let find = finders.get(result);
-  if (!find) finders.set(result, (find = pairFinder(result.comparisons)));
-  const found = find(a, b);
+  const found = pairFinder(result.comparisons)(a, b);
   if (!found || !found.flipped) return found?.item ?? null;
   const listed = found.item;
   const flip = (e: Estimate) => ({ ...e, estimate: -e.estimate });
