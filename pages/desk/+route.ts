@@ -1,7 +1,7 @@
 import type { PageContext } from "vike/types";
+import { isDeskPath } from "#core/urls";
 
 /** /desk and everything below it; React Router takes over from there. */
 export default function route(pageContext: PageContext): boolean {
-  const path = pageContext.urlPathname;
-  return path === "/desk" || path.startsWith("/desk/");
+  return isDeskPath(pageContext.urlPathname);
 }

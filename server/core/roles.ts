@@ -2,9 +2,6 @@
 export const roleNames = ["admin", "analyst", "editor", "translator", "press"] as const;
 export type Role = (typeof roleNames)[number];
 
-/** Staff who work on drafts in the desk; the public and the press read only what is released. */
-export const deskRoles: Role[] = ["analyst", "editor", "translator", "admin"];
-
 /** Who may read a version before its release: the press, and the editors who scheduled it. */
 export const embargoReaders: Role[] = ["press", "editor"];
 

@@ -25,6 +25,8 @@ export const topicUrl = (topicSlug: string) => `/topics/${segment(topicSlug)}`;
 export const briefUrl = (slug: string) => `/briefs/${segment(slug)}`;
 export const versionUrl = (at: VersionAddress) => `${briefUrl(at.slug)}/v/${at.version}`;
 export const comparisonUrl = (at: ComparisonAddress) => `${versionUrl(at)}/compare/${segment(at.treatment)}/${segment(at.comparator)}`;
+/** The desk, a client-rendered app: /desk and every screen below it. */
+export const isDeskPath = (path: string) => path === "/desk" || path.startsWith("/desk/");
 export const previewUrl = (briefId: string) => `/preview/${segment(briefId)}`;
 
 /** The search page, with its query when there is one. */

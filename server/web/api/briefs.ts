@@ -1,8 +1,7 @@
 // Briefs and their outcomes, treatment names and the Markdown preview: the desk's drafts.
 import { Router } from "express";
 import type { z } from "zod";
-import { deskRoles } from "#core/roles";
-import { requireRole } from "../auth/require-role";
+import { guard } from "../auth/require-role";
 import { briefWithOutcomes, createBrief, findBrief, listBriefs, nameTreatments, updateBrief } from "#db/briefs";
 import { createOutcome } from "#db/outcomes";
 import { createBriefBody, createOutcomeBody, patchBriefBody, previewBody, treatmentNamesBody } from "./contract";
@@ -17,22 +16,22 @@ export function briefRoutes(db: Database): Router {
   const router = Router();
   router.param("id", rejectMalformedId);
 
-  router.get("/briefs", requireRole(...deskRoles), async (_req, res) => {
+  router.get("/briefs", guard("GET /api/briefs"), async (_req, res) => {
     res.json({ briefs: await listBriefs(db) });
   });
 
-  router.post("/briefs", requireRole("analyst"), validateBody(createBriefBody), async (req, res) => {
+  router.post("/briefs", guard("POST /api/briefs"), validateBody(createBriefBody), async (req, res) => {
     const brief = await createBrief(db, req.body, req.user!.id);
     res.status(201).json({ id: brief.id, slug: brief.slug });
   });
 
-  router.get("/briefs/:id", requireRole(...deskRoles), async (req, res) => {
+  router.get("/briefs/:id", guard("GET /api/briefs/:id"), async (req, res) => {
     const brief = await briefWithOutcomes(db, String(req.params.id));
     if (!brief) return sendError(res, 404, { key: "errors.notFound", message: "There is no such brief." });
     res.json({ brief });
   });
 
-  router.patch("/briefs/:id", requireRole("analyst", "editor"), validateBody(patchBriefBody), async (req, res) => {
+  router.patch("/briefs/:id", guard("PATCH /api/briefs/:id"), validateBody(patchBriefBody), async (req, res) => {
     const { rowVersion, ...changes } = req.body as z.infer<typeof patchBriefBody>;
     if (editorialFields.some((field) => field in changes) && !req.user!.roles.includes("editor")) {
       return sendError(res, 403, { key: "errors.roleRequired", message: "The lay summary and key messages need the role editor.", details: { required: ["editor"] } });
@@ -47,7 +46,7 @@ export function briefRoutes(db: Database): Router {
     });
   });
 
-  router.put("/briefs/:id/treatments", requireRole("analyst"), validateBody(treatmentNamesBody), async (req, res) => {
+  router.put("/briefs/:id/treatments", guard("PUT /api/briefs/:id/treatments"), validateBody(treatmentNamesBody), async (req, res) => {
     const current = await briefWithOutcomes(db, String(req.params.id));
     if (!current) return sendError(res, 404, { key: "errors.notFound", message: "There is no such brief." });
     const { names } = req.body as z.infer<typeof treatmentNamesBody>;
@@ -66,11 +65,11 @@ export function briefRoutes(db: Database): Router {
     res.json({ treatments: brief!.treatments });
   });
 
-  router.post("/preview", requireRole(...deskRoles), validateBody(previewBody), (req, res) => {
+  router.post("/preview", guard("POST /api/preview"), validateBody(previewBody), (req, res) => {
     res.json({ html: renderMarkdown((req.body as z.infer<typeof previewBody>).markdown) });
   });
 
-  router.post("/briefs/:id/outcomes", requireRole("analyst"), validateBody(createOutcomeBody), async (req, res) => {
+  router.post("/briefs/:id/outcomes", guard("POST /api/briefs/:id/outcomes"), validateBody(createOutcomeBody), async (req, res) => {
     if (!(await findBrief(db, String(req.params.id)))) return sendError(res, 404, { key: "errors.notFound", message: "There is no such brief." });
     const outcome = await createOutcome(db, String(req.params.id), req.body, req.user!.id);
     res.status(201).json({ outcome });

@@ -3,14 +3,13 @@ import { Router, type Response } from "express";
 import multer from "multer";
 import { z } from "zod";
 import { DatasetError, formats } from "#core/nma/types";
-import { deskRoles } from "#core/roles";
 import { latestResult } from "#db/analyses";
 import type { Database } from "#db/client";
 import { deleteOutcome, findOutcome } from "#db/outcomes";
 import { formatFitsOutcome, storeDataset } from "#workflows/analysis";
 import { judgeComparisons, outcomeCertainty, type JudgementOutcome } from "#workflows/certainty";
 import { changeOutcomeSettings } from "#workflows/outcome-settings";
-import { requireRole } from "../auth/require-role";
+import { guard } from "../auth/require-role";
 import { fieldIssues, rejectMalformedId, sendError, validateBody } from "../http/errors";
 import { judgementBody, judgementsBody, patchOutcomeBody, type JudgementBody, type JudgementsBody } from "./contract";
 
@@ -25,7 +24,7 @@ export function outcomeRoutes(db: Database): Router {
   const router = Router();
   router.param("id", rejectMalformedId);
 
-  router.patch("/outcomes/:id", requireRole("analyst"), validateBody(patchOutcomeBody), async (req, res) => {
+  router.patch("/outcomes/:id", guard("PATCH /api/outcomes/:id"), validateBody(patchOutcomeBody), async (req, res) => {
     const { rowVersion, ...changes } = req.body as z.infer<typeof patchOutcomeBody>;
     try {
       const update = await changeOutcomeSettings(db, String(req.params.id), rowVersion, changes, req.user!.id);
@@ -48,12 +47,12 @@ export function outcomeRoutes(db: Database): Router {
     }
   });
 
-  router.delete("/outcomes/:id", requireRole("analyst"), async (req, res) => {
+  router.delete("/outcomes/:id", guard("DELETE /api/outcomes/:id"), async (req, res) => {
     if (!(await deleteOutcome(db, String(req.params.id), req.user!.id))) return sendError(res, 404, { key: "errors.notFound", message: "There is no such outcome." });
     res.status(204).end();
   });
 
-  router.put("/outcomes/:id/dataset", requireRole("analyst"), (req, res, next) => {
+  router.put("/outcomes/:id/dataset", guard("PUT /api/outcomes/:id/dataset"), (req, res, next) => {
     upload.single("file")(req, res, (error: unknown) => {
       if (!error) return next();
       const tooLarge = error instanceof multer.MulterError && error.code === "LIMIT_FILE_SIZE";
@@ -97,7 +96,7 @@ export function outcomeRoutes(db: Database): Router {
     }
   });
 
-  router.get("/outcomes/:id/result", requireRole(...deskRoles), async (req, res) => {
+  router.get("/outcomes/:id/result", guard("GET /api/outcomes/:id/result"), async (req, res) => {
     const stored = await latestResult(db, String(req.params.id));
     if (!stored) return sendError(res, 404, noResult);
     res.json(stored.result);
@@ -105,7 +104,7 @@ export function outcomeRoutes(db: Database): Router {
 
   const noResult = { key: "errors.noResult", message: "This outcome has no analysis yet: upload its data first." };
 
-  router.get("/outcomes/:id/certainty", requireRole(...deskRoles), async (req, res) => {
+  router.get("/outcomes/:id/certainty", guard("GET /api/outcomes/:id/certainty"), async (req, res) => {
     const outcome = await findOutcome(db, String(req.params.id));
     const comparisons = outcome ? await outcomeCertainty(db, outcome) : null;
     if (!comparisons) return sendError(res, 404, noResult);
@@ -130,7 +129,7 @@ export function outcomeRoutes(db: Database): Router {
     });
   }
 
-  router.put("/outcomes/:id/certainty/:treatment/:comparator", requireRole("analyst"), validateBody(judgementBody), async (req, res) => {
+  router.put("/outcomes/:id/certainty/:treatment/:comparator", guard("PUT /api/outcomes/:id/certainty/:treatment/:comparator"), validateBody(judgementBody), async (req, res) => {
     const outcome = await findOutcome(db, String(req.params.id));
     if (!outcome) return sendError(res, 404, noResult);
     const pair = { treatment: String(req.params.treatment), comparator: String(req.params.comparator) };
@@ -140,7 +139,7 @@ export function outcomeRoutes(db: Database): Router {
   });
 
   // Many pairs at once (the desk's bulk actions): all are saved, or none.
-  router.put("/outcomes/:id/certainty", requireRole("analyst"), validateBody(judgementsBody), async (req, res) => {
+  router.put("/outcomes/:id/certainty", guard("PUT /api/outcomes/:id/certainty"), validateBody(judgementsBody), async (req, res) => {
     const outcome = await findOutcome(db, String(req.params.id));
     if (!outcome) return sendError(res, 404, noResult);
     const judged = await judgeComparisons(db, outcome, (req.body as JudgementsBody).judgements, req.user!.id);

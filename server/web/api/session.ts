@@ -2,6 +2,7 @@
 // a form post is answered with a redirect, so that signing in works without JavaScript.
 import { Router, type NextFunction, type Request, type Response } from "express";
 import type { AppPassport } from "../auth/passport";
+import { guard } from "../auth/require-role";
 import { recordAudit } from "#db/audit";
 import type { Database } from "#db/client";
 import { fieldIssues, sendError } from "../http/errors";
@@ -24,11 +25,7 @@ function signInPage(error: string, next: string): string {
 export function sessionRoutes(db: Database, passport: AppPassport, sessionCookie: string): Router {
   const router = Router();
 
-  router.get("/", (req, res) => {
-    if (!req.user) {
-      sendError(res, 401, { key: "errors.notSignedIn", message: "Nobody is signed in." });
-      return;
-    }
+  router.get("/", guard("GET /api/session"), (req, res) => {
     res.json({ person: req.user });
   });
 
@@ -51,6 +48,7 @@ export function sessionRoutes(db: Database, passport: AppPassport, sessionCookie
     passport.authenticate("local", (error: unknown, person: Person | false) => {
       if (error) return next(error);
       if (!person) {
+        res.locals.signInFailed = true;
         if (form) return res.redirect(303, signInPage("invalid", safeNext(req.body.next)));
         return sendError(res, 401, {
           key: "errors.signIn.invalid",

@@ -2,9 +2,8 @@
 // 0009-review-and-withdrawal.md).
 import { Router } from "express";
 import type { z } from "zod";
-import { deskRoles } from "#core/roles";
 import { versionNumberOf } from "#core/urls";
-import { requireRole } from "../auth/require-role";
+import { guard } from "../auth/require-role";
 import { reviewBrief, reviewHistory, withdrawBrief } from "#workflows/review";
 import { listPressRoom, readVersion } from "#db/versions";
 import type { ReadinessItem } from "#core/readiness";
@@ -44,7 +43,7 @@ export function versionRoutes(db: Database): Router {
   const router = Router();
   router.param("id", rejectMalformedId);
 
-  router.post("/briefs/:id/reviews", requireRole("analyst", "editor"), validateBody(reviewBody), async (req, res) => {
+  router.post("/briefs/:id/reviews", guard("POST /api/briefs/:id/reviews"), validateBody(reviewBody), async (req, res) => {
     const step = req.body as z.infer<typeof reviewBody>;
     if ((step.decision === "approved" || step.decision === "returned") && !req.user!.roles.includes("editor")) {
       return sendError(res, 403, { key: "errors.roleRequired", message: "Returning or approving a brief needs the role editor.", details: { required: ["editor"] } });
@@ -54,17 +53,17 @@ export function versionRoutes(db: Database): Router {
     res.status(201).json({ decision: outcome.decision, status: outcome.status });
   });
 
-  router.get("/briefs/:id/readiness", requireRole(...deskRoles), async (req, res) => {
+  router.get("/briefs/:id/readiness", guard("GET /api/briefs/:id/readiness"), async (req, res) => {
     const readiness = await briefReadiness(db, String(req.params.id));
     if (!readiness) return sendError(res, 404, { key: "errors.notFound", message: "There is no such brief." });
     res.json(readiness);
   });
 
-  router.get("/briefs/:id/reviews", requireRole(...deskRoles), async (req, res) => {
+  router.get("/briefs/:id/reviews", guard("GET /api/briefs/:id/reviews"), async (req, res) => {
     res.json(await reviewHistory(db, String(req.params.id)));
   });
 
-  router.post("/briefs/:id/versions", requireRole("editor"), validateBody(publishBody), async (req, res) => {
+  router.post("/briefs/:id/versions", guard("POST /api/briefs/:id/versions"), validateBody(publishBody), async (req, res) => {
     const body = req.body as z.infer<typeof publishBody>;
     const outcome = await publishVersion(db, String(req.params.id), { releaseAt: body.releaseAt ? new Date(body.releaseAt) : undefined, note: body.note }, req.user!.id);
     if (outcome.ok) return res.status(201).json({ version: outcome.version, url: outcome.url });
@@ -72,7 +71,7 @@ export function versionRoutes(db: Database): Router {
     refuse(res, outcome.reason, detail, "note", outcome.items);
   });
 
-  router.put("/briefs/:id/versions/:number/release", requireRole("editor"), validateBody(rescheduleBody), async (req, res) => {
+  router.put("/briefs/:id/versions/:number/release", guard("PUT /api/briefs/:id/versions/:number/release"), validateBody(rescheduleBody), async (req, res) => {
     const number = versionNumberOf(String(req.params.number));
     if (number === null) return sendError(res, 404, { key: "errors.notFound", message: "There is no such version." });
     const outcome = await rescheduleRelease(db, String(req.params.id), number, new Date((req.body as RescheduleBody).releaseAt), req.user!.id);
@@ -80,14 +79,14 @@ export function versionRoutes(db: Database): Router {
     res.json({ releaseAt: outcome.releaseAt });
   });
 
-  router.post("/briefs/:id/withdrawal", requireRole("editor"), validateBody(withdrawalBody), async (req, res) => {
+  router.post("/briefs/:id/withdrawal", guard("POST /api/briefs/:id/withdrawal"), validateBody(withdrawalBody), async (req, res) => {
     const outcome = await withdrawBrief(db, String(req.params.id), (req.body as z.infer<typeof withdrawalBody>).reason, req.user!.id);
     if (!outcome.ok) return refuse(res, outcome.reason, outcome.detail);
     res.json({ status: "withdrawn" });
   });
 
   // The press room: embargoed versions and the latest releases, for reporters and editors.
-  router.get("/press-room", requireRole("press", "editor"), async (_req, res) => {
+  router.get("/press-room", guard("GET /api/press-room"), async (_req, res) => {
     res.json({ versions: await listPressRoom(db) });
   });
 

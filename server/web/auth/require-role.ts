@@ -1,28 +1,27 @@
-// Role checks on the server: 401 for anonymous callers, 403 for people without any of the roles.
+// Role checks on the server, from the access table (server/core/access.ts): 401 for anonymous
+// callers, 403 for people without any of the roles the route names.
 import type { NextFunction, Request, Response } from "express";
+import { apiAccess, type ApiRoute, type Audience } from "#core/access";
 import { sendError } from "../http/errors";
-import type { Role } from "#core/roles";
 
-export function requireSignedIn(req: Request, res: Response, next: NextFunction): void {
-  if (!req.user) {
-    sendError(res, 401, { key: "errors.signInRequired", message: "Sign in to use this part of the API." });
-    return;
-  }
-  next();
-}
-
-/** Passes when the signed-in person holds at least one of the roles. */
-export function requireRole(...roles: Role[]) {
+function check(who: Audience) {
   return (req: Request, res: Response, next: NextFunction): void => {
-    if (!req.user) return requireSignedIn(req, res, next);
-    if (!roles.some((role) => req.user!.roles.includes(role))) {
+    if (who === "anyone") return next();
+    if (!req.user) {
+      sendError(res, 401, { key: "errors.signInRequired", message: "Sign in to use this part of the API." });
+      return;
+    }
+    if (who !== "signed-in" && !who.some((role) => req.user!.roles.includes(role))) {
       sendError(res, 403, {
         key: "errors.roleRequired",
-        message: `This needs the role ${roles.join(" or ")}.`,
-        details: { required: roles },
+        message: `This needs the role ${who.join(" or ")}.`,
+        details: { required: who },
       });
       return;
     }
     next();
   };
 }
+
+/** The role check of an API route, as the access table states it. */
+export const guard = (route: ApiRoute) => check(apiAccess[route].who);

@@ -57,13 +57,15 @@ export function createCsrf(secret: string, secureTransport: boolean) {
 /**
  * More than five failed sign-ins within a minute, for one e-mail or from one address, are refused
  * (common practice; OWASP's authentication guidance asks for a limit without fixing the numbers).
- * Successful sign-ins do not count.
+ * Only a password that did not match counts (the route marks it with `signInFailed`), whether the
+ * answer is JSON (401) or the form's redirect: a malformed request checks no password.
  */
 export function signInRateLimits(onLimited: (req: Request, res: Response) => void): RequestHandler[] {
   const common = {
     windowMs: 60_000,
     limit: 5,
     skipSuccessfulRequests: true,
+    requestWasSuccessful: (_req: Request, res: Response) => res.locals.signInFailed !== true,
     standardHeaders: "draft-8" as const,
     legacyHeaders: false,
     handler: (req: Request, res: Response) => onLimited(req, res),

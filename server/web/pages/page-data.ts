@@ -4,7 +4,8 @@ import { render } from "vike/abort";
 import type { PageContextServer } from "vike/types";
 import { briefContent, comparisonContent, type BriefView, type ComparisonView, type PageState } from "#core/brief-page";
 import { localeOf, locales } from "#core/locales";
-import { deskRoles, mayReadEmbargoed } from "#core/roles";
+import { mayReadEmbargoed } from "#core/roles";
+import { admits, pageAccess } from "#core/access";
 import type { VersionSnapshot } from "#core/snapshot/schema";
 import { cacheState, readPublicVersion, versionHistory, type PublicVersion } from "#db/versions";
 import { draftSnapshot } from "#workflows/snapshot";
@@ -82,7 +83,7 @@ export type ComparisonPageData = Awaited<ReturnType<typeof comparisonPageData>>;
 export async function previewPageData(pageContext: PageContextServer) {
   const roles = pageContext.person?.roles ?? [];
   if (!pageContext.person) throw render(401);
-  if (!roles.some((role) => deskRoles.includes(role))) throw render(403);
+  if (!admits(pageAccess["GET /preview/:id"].who, roles)) throw render(403);
   const briefId = String(pageContext.routeParams.id);
   if (!/^[0-9a-f-]{36}$/i.test(briefId)) throw render(404);
   const draft = await draftSnapshot(pageContext.db!, briefId);

@@ -9,7 +9,8 @@ import { publicVersionState } from "#db/versions";
 import { siteUrl } from "../public/routes";
 import type { Database } from "#db/client";
 import type { createCsrf } from "../http/security";
-import { canonicalVersionPath, parseVersionPath } from "#core/urls";
+import { canonicalVersionPath, isDeskPath, parseVersionPath } from "#core/urls";
+import { admits, pageAccess } from "#core/access";
 import { encode, etagOf, PageCache, StateMemo, type CachedPage, type Encodings } from "./page-cache";
 
 /** Pages whose HTML carries a CSRF token, because they hold a form that posts without JavaScript. */
@@ -81,6 +82,11 @@ export async function pageRoutes(options: {
 
   router.use(async (req, res, next) => {
     if (req.method !== "GET" && req.method !== "HEAD") return next();
+    // The desk is rendered in the browser; a reader who is not signed in is sent to sign in first,
+    // and comes back to the same screen afterwards.
+    if (isDeskPath(req.path) && !admits(pageAccess["GET /desk/*"].who, req.user?.roles ?? null)) {
+      return res.redirect(303, `/sign-in?next=${encodeURIComponent(req.originalUrl)}`);
+    }
     // Only a reader who sees what the public sees shares the cache: the press and editors also see
     // embargoed versions in a page's history, so their pages are rendered for them alone.
     const parsed = parseVersionPath(req.path);

@@ -1,0 +1,212 @@
+// The role matrix: every address in the access table (server/core/access.ts) requested as every reader
+// (nobody signed in, then each role alone) against the production build. An admitted reader passes the
+// role check (never 401 or 403); a refused one gets 401 (or, for a page, the way to sign in) when not
+// signed in and 403 otherwise. The same table renders docs/roles.md, and the router and the pages
+// folder are enumerated so that no address is missing from it.
+import { readdirSync, readFileSync, statSync } from "node:fs";
+import path from "node:path";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { admits, apiAccess, fileAccess, pageAccess, readers, rolesDocument, type AccessRule } from "#core/access";
+import { slugify } from "#core/slug";
+import { createApp, projectRoot } from "#web/app";
+import { connectDatabase } from "#db/client";
+import { demoBriefs } from "#workflows/demo-briefs";
+import { demoPassword } from "#workflows/seed";
+import { publishedBrief } from "../support/briefs";
+import { ApiClient } from "../support/client";
+import { testDatabaseUrl, testSessionSecret } from "../support/app";
+import { startProductionServer, type RunningServer } from "../support/production-server";
+
+const nobody = "00000000-0000-4000-8000-000000000000";
+const demo = { slug: slugify(demoBriefs()[0]!.title), topic: slugify(demoBriefs()[0]!.topic) };
+
+/**
+ * One request per address, built so that it changes nothing: ids that match no brief (404 once the
+ * role check passes) and empty bodies (400). Sign-out comes last, as it ends the reader's session.
+ */
+const apiRequests: Record<keyof typeof apiAccess, { path: string; json?: unknown }> = {
+  "GET /api/health": { path: "/api/health" },
+  "GET /api/csrf": { path: "/api/csrf" },
+  "GET /api/session": { path: "/api/session" },
+  "POST /api/session": { path: "/api/session", json: {} },
+  "GET /api/people": { path: "/api/people" },
+  "GET /api/briefs": { path: "/api/briefs" },
+  "POST /api/briefs": { path: "/api/briefs", json: {} },
+  "GET /api/briefs/:id": { path: `/api/briefs/${nobody}` },
+  "PATCH /api/briefs/:id": { path: `/api/briefs/${nobody}`, json: {} },
+  "PUT /api/briefs/:id/treatments": { path: `/api/briefs/${nobody}/treatments`, json: {} },
+  "POST /api/preview": { path: "/api/preview", json: {} },
+  "POST /api/briefs/:id/outcomes": { path: `/api/briefs/${nobody}/outcomes`, json: {} },
+  "POST /api/briefs/:id/reviews": { path: `/api/briefs/${nobody}/reviews`, json: {} },
+  "GET /api/briefs/:id/readiness": { path: `/api/briefs/${nobody}/readiness` },
+  "GET /api/briefs/:id/reviews": { path: `/api/briefs/${nobody}/reviews` },
+  "POST /api/briefs/:id/versions": { path: `/api/briefs/${nobody}/versions`, json: { releaseAt: "not a time" } },
+  "PUT /api/briefs/:id/versions/:number/release": { path: `/api/briefs/${nobody}/versions/1/release`, json: {} },
+  "POST /api/briefs/:id/withdrawal": { path: `/api/briefs/${nobody}/withdrawal`, json: {} },
+  "GET /api/press-room": { path: "/api/press-room" },
+  "GET /api/briefs/:slug/versions/:number": { path: `/api/briefs/${demo.slug}/versions/1` },
+  "PATCH /api/outcomes/:id": { path: `/api/outcomes/${nobody}`, json: {} },
+  "DELETE /api/outcomes/:id": { path: `/api/outcomes/${nobody}` },
+  "PUT /api/outcomes/:id/dataset": { path: `/api/outcomes/${nobody}/dataset`, json: {} },
+  "GET /api/outcomes/:id/result": { path: `/api/outcomes/${nobody}/result` },
+  "GET /api/outcomes/:id/certainty": { path: `/api/outcomes/${nobody}/certainty` },
+  "PUT /api/outcomes/:id/certainty/:treatment/:comparator": { path: `/api/outcomes/${nobody}/certainty/a/b`, json: {} },
+  "PUT /api/outcomes/:id/certainty": { path: `/api/outcomes/${nobody}/certainty`, json: {} },
+  "DELETE /api/session": { path: "/api/session" },
+};
+
+const version = `/briefs/${demo.slug}/v/1`;
+const comparison = `${version}/compare/combined/usual_care`;
+const siteRequests: Record<keyof typeof fileAccess | keyof typeof pageAccess, string> = {
+  "GET /briefs/:slug/v/:number/cite.:format": `${version}/cite.ris`,
+  "GET /briefs/:slug/v/:number/compare/:a/:b/cite.:format": `${comparison}/cite.bib`,
+  "GET /briefs/:slug/v/:number/downloads/:file": `${version}/downloads/inputs.csv`,
+  "GET /feed.xml": "/feed.xml",
+  "GET /sitemap.xml": "/sitemap.xml",
+  "GET /robots.txt": "/robots.txt",
+  "GET /": "/",
+  "GET /briefs": "/briefs?q=sleep",
+  "GET /briefs/:slug": `/briefs/${demo.slug}`,
+  "GET /briefs/:slug/v/:number": version,
+  "GET /briefs/:slug/v/:number/compare/:a/:b": comparison,
+  "GET /topics/:slug": `/topics/${demo.topic}`,
+  "GET /sign-in": "/sign-in",
+  "GET /desk/*": "/desk/briefs",
+  "GET /preview/:id": `/preview/${nobody}`,
+};
+
+let server: RunningServer;
+let embargoed: string;
+const clients = new Map<string, ApiClient>();
+
+/** A client for the reader, signed in with the reader's demo account unless the reader is anonymous. */
+async function signInAs(reader: (typeof readers)[number]) {
+  const client = new ApiClient(server.url);
+  if (reader.roles) expect((await client.signIn(`${reader.name}@fairweigh.example`, demoPassword)).status).toBe(200);
+  clients.set(reader.name, client);
+}
+
+beforeAll(async () => {
+  server = await startProductionServer();
+  for (const reader of readers) await signInAs(reader);
+  // A version under embargo, for the rule that only the press and editors read it before its release.
+  const inTwoDays = new Date(Date.now() + 48 * 3600 * 1000).toISOString();
+  embargoed = (await publishedBrief(clients.get("analyst")!, clients.get("editor")!, "Role matrix embargo", inTwoDays)).slug;
+}, 90_000);
+afterAll(async () => {
+  await server?.stop();
+});
+
+/** The expectation for one reader at one address, as a sentence a failure prints. */
+function expectAccess(rule: AccessRule, reader: (typeof readers)[number], status: number, location: string | null, where: string) {
+  const label = `${where} as ${reader.name} → ${status}`;
+  expect(status, label).toBeLessThan(500);
+  const toSignIn = status === 303 && (location ?? "").startsWith("/sign-in");
+  if (admits(rule.who, reader.roles)) {
+    expect([401, 403], label).not.toContain(status);
+    expect(toSignIn, label).toBe(false);
+  } else if (reader.roles === null) {
+    expect(status === 401 || toSignIn, label).toBe(true);
+  } else {
+    expect(status, label).toBe(403);
+  }
+}
+
+describe("every address as every reader", () => {
+  it("the API", async () => {
+    let cases = 0;
+    for (const reader of readers) {
+      const client = clients.get(reader.name)!;
+      for (const [route, request] of Object.entries(apiRequests)) {
+        const method = route.split(" ")[0]!;
+        const answer = await client.request(method, request.path, request.json === undefined ? {} : { json: request.json });
+        expectAccess(apiAccess[route as keyof typeof apiAccess], reader, answer.status, null, route);
+        cases += 1;
+      }
+      // Signing out ended the session: a new one for the tests below.
+      await signInAs(reader);
+    }
+    expect(cases).toBe(readers.length * Object.keys(apiAccess).length);
+  });
+
+  it("the pages and files of the public site", async () => {
+    const rules: Record<string, AccessRule> = { ...fileAccess, ...pageAccess };
+    for (const reader of readers) {
+      const client = clients.get(reader.name)!;
+      for (const [route, address] of Object.entries(siteRequests)) {
+        const answer = await client.request("GET", address, { headers: { accept: "text/html" } });
+        expectAccess(rules[route]!, reader, answer.status, answer.headers.get("location"), route);
+      }
+    }
+  });
+
+  it("a version under embargo: its page, files and API answer only the press and editors", async () => {
+    const at = `/briefs/${embargoed}/v/1`;
+    const addresses = [at, `${at}/cite.ris`, `${at}/downloads/results.csv`, `/api/briefs/${embargoed}/versions/1`];
+    for (const reader of readers) {
+      const mayRead = reader.roles?.some((role) => role === "press" || role === "editor") ?? false;
+      for (const address of addresses) {
+        const answer = await clients.get(reader.name)!.request("GET", address);
+        expect(answer.status, `${address} as ${reader.name}`).toBe(mayRead ? 200 : 404);
+      }
+    }
+  });
+});
+
+/** "GET /api/briefs/:id" for every route of an Express router, mounted routers included. */
+function routesOf(router: { stack: unknown[] }, prefix = ""): string[] {
+  type Layer = { rawPath?: string; route?: { path: string; methods: Record<string, boolean> }; handle?: { stack?: unknown[] } };
+  return (router.stack as Layer[]).flatMap((layer) => {
+    if (layer.route) {
+      const methods = Object.keys(layer.route.methods).filter((m) => m !== "_all");
+      return methods.map((method) => `${method.toUpperCase()} ${prefix}${layer.route!.path === "/" && prefix ? "" : layer.route!.path}`);
+    }
+    if (layer.handle?.stack) {
+      const mount = typeof layer.rawPath === "string" && layer.rawPath !== "/" ? layer.rawPath : "";
+      return routesOf({ stack: layer.handle.stack }, prefix + mount);
+    }
+    return [];
+  });
+}
+
+/** "GET /briefs/:slug/v/:number" for every page folder (a folder holding +Page.tsx is an address). */
+function pagesOf(folder: string, segments: string[] = []): string[] {
+  const found: string[] = [];
+  for (const name of readdirSync(folder)) {
+    const inner = path.join(folder, name);
+    if (!statSync(inner).isDirectory() || name.startsWith("_")) continue;
+    // (group) folders share files without adding to the address; index is the home page.
+    const segment = /^\(.*\)$/.test(name) || name === "index" ? null : name.replace(/^@/, ":");
+    const next = segment ? [...segments, segment] : segments;
+    if (readdirSync(inner).includes("+Page.tsx")) found.push(`GET /${next.join("/")}`);
+    found.push(...pagesOf(inner, next));
+  }
+  return found;
+}
+
+describe("the table is complete and the documentation is the table", () => {
+  it("every route of the server is in the access table, and every entry is a route", async () => {
+    const connection = connectDatabase(testDatabaseUrl());
+    try {
+      const app = await createApp({ db: connection.db, pool: connection.pool, sessionSecret: testSessionSecret, production: false, secureTransport: false, logLevel: "silent", pages: false });
+      const routes = routesOf((app as unknown as { router: { stack: unknown[] } }).router);
+      expect(new Set(routes)).toEqual(new Set([...Object.keys(apiAccess), ...Object.keys(fileAccess)]));
+    } finally {
+      await connection.close();
+    }
+  });
+
+  it("every page folder is in the access table, and every entry is a page", () => {
+    const pages = pagesOf(path.join(projectRoot, "pages")).map((page) => (page === "GET /desk" ? "GET /desk/*" : page));
+    expect(new Set(pages)).toEqual(new Set(Object.keys(pageAccess)));
+  });
+
+  it("every address of the table has its request in this test", () => {
+    expect(new Set(Object.keys(apiRequests))).toEqual(new Set(Object.keys(apiAccess)));
+    expect(new Set(Object.keys(siteRequests))).toEqual(new Set([...Object.keys(fileAccess), ...Object.keys(pageAccess)]));
+  });
+
+  it("docs/roles.md is rendered from the table (npm run docs:roles)", () => {
+    expect(readFileSync(path.join(projectRoot, "docs/roles.md"), "utf8")).toBe(rolesDocument());
+  });
+});
