@@ -1,0 +1,172 @@
+// Hostile input by property-based tests (fast-check, fixed seed so a failure replays): malformed CSV
+// to the upload route, random JSON to every API route that takes a body, random path segments in every
+// public address. Always an answer below 500, a 4xx that says what is wrong, and nothing stored from
+// a refused upload. The counts below are the number of requests each property makes.
+import fc from "fast-check";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { admits, apiAccess, fileAccess, pageAccess, readers, type AccessRule } from "#core/access";
+import { formats } from "#core/nma/types";
+import { slugify } from "#core/slug";
+import { demoBriefs } from "#workflows/demo-briefs";
+import { demoPassword } from "#workflows/seed";
+import { analysedBrief } from "../support/briefs";
+import { ApiClient } from "../support/client";
+import { startProductionServer, type RunningServer } from "../support/production-server";
+
+const seed = 20261202;
+const runs = { csv: 120, jsonPerRoute: 40, paths: 300 };
+
+let server: RunningServer;
+const clients = new Map<string, ApiClient>();
+let draft: { briefId: string; outcomeId: string };
+
+beforeAll(async () => {
+  server = await startProductionServer();
+  for (const reader of readers) {
+    const client = new ApiClient(server.url);
+    if (reader.roles) expect((await client.signIn(`${reader.name}@fairweigh.example`, demoPassword)).status).toBe(200);
+    clients.set(reader.name, client);
+  }
+  draft = await analysedBrief(clients.get("analyst")!, "Fuzzed draft");
+}, 90_000);
+afterAll(async () => {
+  await server?.stop();
+});
+
+/** An error answer of the API names what is wrong: a key and a sentence. */
+function expectClearRefusal(status: number, body: unknown, where: string) {
+  expect(status, where).toBeLessThan(500);
+  if (status < 400) return;
+  const error = (body as { error?: { key?: unknown; message?: unknown } } | null)?.error;
+  expect(typeof error?.key, `${where}: ${JSON.stringify(body)?.slice(0, 200)}`).toBe("string");
+  expect(String(error?.message ?? "").length, where).toBeGreaterThan(10);
+}
+
+// ---------------------------------------------------------------------------------------------------
+// CSV to the upload route
+
+const header = "study,treatment,events,total";
+const cell = fc.oneof(
+  fc.string({ maxLength: 12 }),
+  fc.string({ unit: "binary", maxLength: 12 }),
+  fc.constantFrom("=HYPERLINK(\"http://x\")", "+1+1", "-2", "@SUM(A1)", "\u0000", "NaN", "Infinity", "1e400", "-0", "\"unclosed", "1,5", " ", ""),
+  fc.integer({ min: -5, max: 2_000_000_000 }).map(String),
+);
+const row = fc.array(cell, { minLength: 0, maxLength: 6 }).map((cells) => cells.join(","));
+const csvText = fc.array(row, { maxLength: 30 }).map((rows) => [header, ...rows].join("\n"));
+const hostileCsv: fc.Arbitrary<Uint8Array | string> = fc.oneof(
+  csvText,
+  fc.uint8Array({ maxLength: 4096 }),
+  fc.constantFrom(
+    `${header}\nS1,a,1,"unclosed\nS1,b,2,10\n`,
+    `${header}\nS1,${"x".repeat(300_000)},1,10\nS1,b,2,10\n`,
+    Array.from({ length: 10_000 }, (_, i) => `c${i}`).join(",") + "\n" + Array.from({ length: 10_000 }, () => "1").join(","),
+    "",
+    "\uFEFF",
+  ),
+  // The same rows in encodings other than UTF-8: UTF-16 with its byte-order mark, and Latin-1 bytes.
+  csvText.map((text) => new Uint8Array([0xff, 0xfe, ...Buffer.from(text, "utf16le")])),
+  csvText.map((text) => new Uint8Array(Buffer.from(`${text}\nS9,caf\u00e9,1,10`, "latin1"))),
+);
+
+describe("hostile CSV to the upload route", () => {
+  it(`${runs.csv} uploads: each refused with a reason, and the data stored before stays`, async () => {
+    const analyst = clients.get("analyst")!;
+    const resultPath = `/api/outcomes/${draft.outcomeId}/result`;
+    const before = JSON.stringify((await analyst.request("GET", resultPath)).body);
+    const statuses = new Map<number, number>();
+    await fc.assert(
+      fc.asyncProperty(hostileCsv, fc.constantFrom(...formats, "arm-binary", "nonsense"), async (bytes, format) => {
+        const answer = await analyst.upload(`/api/outcomes/${draft.outcomeId}/dataset`, { name: "hostile.csv", bytes }, { format });
+        statuses.set(answer.status, (statuses.get(answer.status) ?? 0) + 1);
+        expectClearRefusal(answer.status, answer.body, `upload (${format})`);
+        expect(answer.status, "random bytes made a valid upload").not.toBe(200);
+        if (answer.status === 422) expect((answer.body.issues as unknown[]).length).toBeGreaterThan(0);
+        expect(JSON.stringify((await analyst.request("GET", resultPath)).body)).toBe(before);
+      }),
+      { seed, numRuns: runs.csv },
+    );
+    // Both doors were tried: the request's fields (400) and the rows themselves (422).
+    expect([...statuses.keys()].sort()).toEqual(expect.arrayContaining([400, 422]));
+  });
+});
+
+// ---------------------------------------------------------------------------------------------------
+// JSON to every API body
+
+/** Raw request bodies: any JSON value, deep nesting, NUL bytes, numbers beyond any column, and text that is not JSON. */
+const hostileJson: fc.Arbitrary<string> = fc.oneof(
+  fc.jsonValue({ maxDepth: 4 }).map((value) => JSON.stringify(value)),
+  fc.dictionary(fc.constantFrom("title", "rowVersion", "decision", "names", "releaseAt", "note", "email", "password", "laySummary", "model", "kind", "judgements", "comment"), fc.oneof(fc.string(), fc.constant("a\u0000b"), fc.double(), fc.constantFrom(2 ** 31, 2 ** 63, -1, 1e308, null, true, [], {}))).map((value) => JSON.stringify(value)),
+  fc.integer({ min: 1, max: 20_000 }).map((depth) => "[".repeat(depth) + "]".repeat(depth)),
+  fc.integer({ min: 1, max: 5_000 }).map((depth) => '{"a":'.repeat(depth) + "1" + "}".repeat(depth)),
+  fc.string({ unit: "binary", maxLength: 64 }),
+  fc.constantFrom("{", "null", "123", '"text"', '{"__proto__":{"admin":true}}', '{"constructor":{"prototype":{}}}', "\u0000"),
+);
+
+const withBody = Object.entries(apiAccess).filter(([route]) => !route.startsWith("GET ") && !route.startsWith("DELETE "));
+
+/** A reader the route admits, so that the body is read rather than refused at the door. */
+function admittedReader(rule: AccessRule): string {
+  return readers.find((reader) => reader.roles && admits(rule.who, reader.roles))!.name;
+}
+
+describe("random JSON to every API body", () => {
+  it(`${withBody.length} routes × ${runs.jsonPerRoute} bodies: never a 500, always a reason`, async () => {
+    const ids = { id: draft.briefId, number: "1", treatment: "self_help", comparator: "no_contact" };
+    const statuses = new Set<number>();
+    for (const [route, rule] of withBody) {
+      const [method, pattern] = route.split(" ") as [string, string];
+      // The fuzzed brief and its outcome, so that a body that parses reaches the handler.
+      const address = pattern.replace(/:(\w+)/g, (_, name: string) => (pattern.startsWith("/api/outcomes") && name === "id" ? draft.outcomeId : ids[name as keyof typeof ids]));
+      const client = clients.get(admittedReader(rule))!;
+      await fc.assert(
+        fc.asyncProperty(hostileJson, async (body) => {
+          const csrf = (await client.request("GET", "/api/csrf")).body.token as string;
+          const answer = await fetch(`${server.url}${address}`, { method, headers: { "content-type": "application/json", "x-csrf-token": csrf, cookie: client.cookieHeader, accept: "application/json" }, body });
+          const text = await answer.text();
+          let parsed: unknown = null;
+          try {
+            parsed = JSON.parse(text);
+          } catch {
+            parsed = text;
+          }
+          statuses.add(answer.status);
+          expectClearRefusal(answer.status, parsed, `${route} with ${body.slice(0, 80)}`);
+        }),
+        { seed, numRuns: runs.jsonPerRoute },
+      );
+    }
+    expect([...statuses]).toEqual(expect.arrayContaining([400]));
+    console.log(`random JSON: statuses seen ${[...statuses].sort().join(", ")}`);
+  }, 300_000);
+});
+
+// ---------------------------------------------------------------------------------------------------
+// Random path segments in every public address
+
+const segment: fc.Arbitrary<string> = fc.oneof(
+  fc.string({ maxLength: 20 }).map(encodeURIComponent),
+  fc.string({ unit: "binary", maxLength: 20 }).map(encodeURIComponent),
+  fc.constantFrom("%00", "%", "%zz", "%E0%A4%A", "..", "%2e%2e", "__proto__", "constructor", "toString", "9".repeat(40), "-1", "0", "2147483648", "%2F", "a%2Fb", "%C0%AE", ";", "v", "~"),
+);
+
+describe("random path segments in every public address", () => {
+  it(`${runs.paths} addresses across every page and file: never a 500`, async () => {
+    const patterns = [...Object.keys(pageAccess), ...Object.keys(fileAccess)].map((route) => route.split(" ")[1]!).filter((pattern) => /:\w+/.test(pattern));
+    const slug = slugify(demoBriefs()[0]!.title);
+    const statuses = new Set<number>();
+    await fc.assert(
+      fc.asyncProperty(fc.constantFrom(...patterns), fc.array(segment, { minLength: 5, maxLength: 5 }), fc.boolean(), async (pattern, segments, keepSlug) => {
+        let i = 0;
+        // Half keep a real brief, so that the later segments are read too.
+        const address = pattern.replace(/:(\w+)/g, (_, name: string) => (name === "slug" && keepSlug ? slug : segments[i++ % segments.length]!)).replace("*", segments[4]!);
+        const answer = await fetch(`${server.url}${address}`, { redirect: "manual" });
+        statuses.add(answer.status);
+        expect(answer.status, address).toBeLessThan(500);
+      }),
+      { seed, numRuns: runs.paths },
+    );
+    console.log(`random paths: statuses seen ${[...statuses].sort().join(", ")}`);
+  }, 120_000);
+});
