@@ -1,18 +1,21 @@
 // The production build served by server/index.ts in a child process, as `npm start` serves it:
 // used by the browser and integration tests and by `npm run bench:http`.
 import { spawn, type ChildProcess } from "node:child_process";
-import path from "node:path";
 import { freePort } from "./postgres";
 import { projectRoot } from "./steps";
 
 export interface RunningServer {
   url: string;
   stop(): Promise<void>;
+  /** Ends the process at once (SIGKILL), as a crash or a power cut would: no shutdown runs. */
+  kill(): Promise<void>;
 }
 
 export async function startProductionServer(options: { databaseUrl: string; sessionSecret: string }): Promise<RunningServer> {
   const port = await freePort();
-  const child: ChildProcess = spawn(path.join(projectRoot, "node_modules/.bin/tsx"), ["server/index.ts"], {
+  // Node itself with tsx's loader, not the tsx command: that one runs the server in a child of its
+  // own, which a SIGKILL (kill(), as a crash would) leaves running.
+  const child: ChildProcess = spawn(process.execPath, ["--import", "tsx", "server/index.ts"], {
     cwd: projectRoot,
     env: {
       ...process.env,
@@ -35,12 +38,11 @@ export async function startProductionServer(options: { databaseUrl: string; sess
     });
     child.once("exit", (code) => reject(new Error(`the production server exited with code ${code}`)));
   });
-  return {
-    url,
-    stop: () =>
-      new Promise((resolve) => {
-        child.once("exit", () => resolve());
-        child.kill("SIGTERM");
-      }),
-  };
+  const end = (signal: NodeJS.Signals) =>
+    new Promise<void>((resolve) => {
+      if (child.exitCode !== null || child.signalCode !== null) return resolve();
+      child.once("exit", () => resolve());
+      child.kill(signal);
+    });
+  return { url, stop: () => end("SIGTERM"), kill: () => end("SIGKILL") };
 }

@@ -1,0 +1,149 @@
+// Faults: the database restarted under load, the server killed in the middle of a publish, and a
+// backup restored into a fresh cluster. The first and last use a cluster of their own, so that
+// stopping it and comparing its tables meet no other test.
+import { chmodSync, mkdtempSync, rmSync } from "node:fs";
+import { tmpdir } from "node:os";
+import path from "node:path";
+import pg from "pg";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { readSnapshot } from "#core/snapshot/upgrade";
+import { demoPassword } from "#workflows/seed";
+import { backupDatabase, restoreDatabase } from "../../scripts/lib/backup";
+import { ensureCluster, freePort, type Cluster } from "../../scripts/lib/postgres";
+import { startProductionServer as startServer } from "../../scripts/lib/production-server";
+import { migrateAndSeed } from "../../scripts/lib/steps";
+import { analysedBrief, approve } from "../support/briefs";
+import { ApiClient } from "../support/client";
+import { startTestApp, testDatabaseUrl, testSessionSecret, type TestApp } from "../support/app";
+
+const quiet = () => {};
+const folder = mkdtempSync(path.join(tmpdir(), "fairweigh-faults-"));
+chmodSync(folder, 0o755);
+let cluster: Cluster;
+let port: number;
+
+beforeAll(async () => {
+  port = await freePort();
+  cluster = await ensureCluster({ dataDir: path.join(folder, "main"), port, log: quiet });
+  await migrateAndSeed(cluster.url, true);
+}, 120_000);
+afterAll(() => {
+  cluster?.stop();
+  rmSync(folder, { recursive: true, force: true });
+});
+
+describe("the database restarted while requests arrive", () => {
+  let app: TestApp;
+  afterAll(async () => {
+    await app?.close();
+  });
+
+  it("answers 503 while it is down, and serves again once it is back, the session kept", async () => {
+    app = await startTestApp(cluster.url);
+    const analyst = new ApiClient(app.url);
+    expect((await analyst.signIn("analyst@fairweigh.example", demoPassword)).status).toBe(200);
+    expect((await analyst.request("GET", "/api/briefs")).status).toBe(200);
+
+    // Requests keep arriving while the database stops: each is answered, 200 or 503, never 500.
+    const statuses: number[] = [];
+    let running = true;
+    const load = (async () => {
+      while (running) statuses.push((await analyst.request("GET", "/api/briefs")).status);
+    })();
+    cluster.stop();
+    const down = await analyst.request("GET", "/api/briefs");
+    expect(down.status).toBe(503);
+    expect(down.body.error?.key).toBe("errors.unavailable");
+    expect((await fetch(`${app.url}/api/health`)).status).toBe(503);
+
+    cluster = await ensureCluster({ dataDir: path.join(folder, "main"), port, log: quiet });
+    // The pool drops its broken connections and opens new ones: within a few tries all is well.
+    let back = 0;
+    for (let attempt = 0; attempt < 50 && back !== 200; attempt += 1) {
+      back = (await analyst.request("GET", "/api/briefs")).status;
+      if (back !== 200) await new Promise((resolve) => setTimeout(resolve, 100));
+    }
+    running = false;
+    await load;
+    expect(back).toBe(200);
+    expect(new Set(statuses.filter((status) => status !== 200 && status !== 503))).toEqual(new Set());
+    expect(statuses).toContain(503);
+    expect((await fetch(`${app.url}/api/health`)).status).toBe(200);
+  }, 60_000);
+});
+
+describe("the server killed during a publish", () => {
+  it("leaves each version whole or absent, never half-made, at every moment of the kill", async () => {
+    const db = new pg.Client({ connectionString: testDatabaseUrl() });
+    await db.connect();
+    try {
+      const seen: string[] = [];
+      // Kills from before the request reaches the database to after it has answered.
+      for (const delay of [0, 5, 15, 30, 60, 90, 120]) {
+        const server = await startServer({ databaseUrl: testDatabaseUrl(), sessionSecret: testSessionSecret });
+        const analyst = new ApiClient(server.url);
+        const editor = new ApiClient(server.url);
+        await analyst.signIn("analyst@fairweigh.example", demoPassword);
+        await editor.signIn("editor@fairweigh.example", demoPassword);
+        const { briefId } = await analysedBrief(analyst, `Killed at ${delay} ms`);
+        await approve(analyst, editor, briefId);
+        await editor.request("GET", "/api/csrf");
+        const statusBefore = (await db.query("select status from briefs where id = $1", [briefId])).rows[0].status as string;
+        const publishing = editor.request("POST", `/api/briefs/${briefId}/versions`, { json: {} }).catch(() => null);
+        await new Promise((resolve) => setTimeout(resolve, delay));
+        await server.kill();
+        await publishing;
+
+        const versions = await db.query("select snapshot from brief_versions where brief_id = $1", [briefId]);
+        const brief = await db.query("select status from briefs where id = $1", [briefId]);
+        const audit = await db.query("select 1 from audit_log where entity_id = $1 and action = 'publish'", [briefId]);
+        const published = versions.rowCount === 1;
+        expect(versions.rowCount, `killed at ${delay} ms`).toBeLessThanOrEqual(1);
+        expect(brief.rows[0].status, `killed at ${delay} ms`).toBe(published ? "published" : statusBefore);
+        expect(audit.rowCount, `killed at ${delay} ms`).toBe(published ? 1 : 0);
+        if (published) expect(readSnapshot(versions.rows[0].snapshot).version).toBe(1);
+        seen.push(`${delay} ms: ${published ? "whole" : "absent"}`);
+      }
+      console.log(`killed during publish: ${seen.join("; ")}`);
+    } finally {
+      await db.end();
+    }
+  }, 120_000);
+});
+
+describe("backup and restore (npm run backup, npm run restore)", () => {
+  it("a backup restored into a fresh cluster holds every table, row for row", async () => {
+    const file = path.join(folder, "fairweigh.dump");
+    backupDatabase(cluster.url, file, quiet);
+    const fresh = await ensureCluster({ dataDir: path.join(folder, "restored"), port: await freePort(), log: quiet });
+    try {
+      restoreDatabase(fresh.url, file, quiet);
+      const [before, after] = await Promise.all([tableDigests(cluster.url), tableDigests(fresh.url)]);
+      expect(Object.keys(before).length).toBeGreaterThan(10);
+      expect(before.briefs!.rows).toBeGreaterThan(0);
+      expect(after).toEqual(before);
+    } finally {
+      fresh.stop();
+    }
+  }, 90_000);
+});
+
+/** Every table of the public schema (the migrations' journal included): its row count and an md5 of its rows in order. */
+async function tableDigests(url: string): Promise<Record<string, { rows: number; md5: string }>> {
+  const client = new pg.Client({ connectionString: url });
+  await client.connect();
+  try {
+    const tables = await client.query<{ schema: string; name: string }>(
+      "select table_schema as schema, table_name as name from information_schema.tables where table_schema in ('public', 'drizzle') and table_type = 'BASE TABLE' order by 1, 2",
+    );
+    const digests: Record<string, { rows: number; md5: string }> = {};
+    for (const { schema, name } of tables.rows) {
+      const table = `"${schema}"."${name}"`;
+      const { rows } = await client.query<{ rows: string; md5: string | null }>(`select count(*) as rows, md5(string_agg(t::text, '|' order by t::text)) as md5 from ${table} t`);
+      digests[schema === "public" ? name : `${schema}.${name}`] = { rows: Number(rows[0]!.rows), md5: rows[0]!.md5 ?? "" };
+    }
+    return digests;
+  } finally {
+    await client.end();
+  }
+}
