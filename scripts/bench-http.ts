@@ -1,21 +1,27 @@
 // npm run bench:http: the production build on loopback, against a throw-away cluster with the demo
-// seed, measured with autocannon: a cached brief page, a comparison page and a static asset side by
-// side (50 connections, 10 s each, after a warm-up, asking for compressed answers as browsers do). Prints requests per second and p50/p99 latency,
-// and how they compare with the targets; asserts nothing, so a slow machine reports rather than fails.
-// autocannon runs on the same machine and takes a core of its own: on two cores its share shows in
-// every latency, the static asset's included.
-import { chmodSync, mkdtempSync, readdirSync, rmSync } from "node:fs";
+// seed, measured with autocannon (50 connections, asking for compressed answers as browsers do):
+// 1. single addresses side by side, after a warm-up: a cached brief page, a comparison page, the
+//    search page and a static asset (10 s each);
+// 2. a mixed load for 30 s: nine public reads in ten (brief pages, versions, comparisons, search,
+//    topics, the feed) and one signed-in desk read, with the server's memory before, at its peak and
+//    after. Any error or 5xx is reported.
+// It prints requests per second and p50/p99 latency against the targets, and asserts nothing: a slow
+// machine reports rather than fails. autocannon runs on the same machine and takes a core of its own:
+// on two cores its share shows in every latency, the static asset's included.
+import { readFileSync, chmodSync, mkdtempSync, readdirSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import autocannon from "autocannon";
 import { slugify } from "#core/slug";
 import { demoBriefs } from "#workflows/demo-briefs";
+import { demoPassword } from "#workflows/seed";
 import { ensureCluster, freePort, type Cluster } from "./lib/postgres";
 import { startProductionServer, type RunningServer } from "./lib/production-server";
 import { build, log, migrateAndSeed, projectRoot } from "./lib/steps";
 
 const connections = 50;
-const duration = 10;
+const single = 10;
+const mixed = 30;
 
 const folder = mkdtempSync(path.join(tmpdir(), "fairweigh-bench-"));
 chmodSync(folder, 0o755);
@@ -25,36 +31,99 @@ let server: RunningServer | null = null;
 // As a browser asks: compressed if the server can.
 const headers = { "accept-encoding": "br, gzip" };
 
-async function measure(url: string) {
-  const result = await autocannon({ url, connections, duration, headers });
-  if (result.non2xx > 0 || result.errors > 0) throw new Error(`${url}: ${result.non2xx} non-2xx answers and ${result.errors} errors`);
-  return { rps: result.requests.average, p50: result.latency.p50, p99: result.latency.p99 };
+interface Row {
+  name: string;
+  rps: number;
+  p50: number;
+  p99: number;
+  errors: number;
+  non2xx: number;
 }
+
+async function measure(name: string, options: autocannon.Options): Promise<Row> {
+  const result = await autocannon({ connections, headers, ...options });
+  return { name, rps: result.requests.average, p50: result.latency.p50, p99: result.latency.p99, errors: result.errors + result.timeouts, non2xx: result.non2xx };
+}
+
+/** The server's resident memory in MiB, from /proc. */
+function residentMiB(pid: number): number {
+  const line = readFileSync(`/proc/${pid}/status`, "utf8").split("\n").find((l) => l.startsWith("VmRSS:"))!;
+  return Number(line.replace(/\D+/g, "")) / 1024;
+}
+
+/** A signed-in session's cookie, as the desk's browser holds it. */
+async function signIn(baseUrl: string, email: string): Promise<string> {
+  const csrf = await fetch(`${baseUrl}/api/csrf`);
+  const cookies = csrf.headers.getSetCookie().map((c) => c.split(";")[0]);
+  const { token } = (await csrf.json()) as { token: string };
+  const answer = await fetch(`${baseUrl}/api/session`, {
+    method: "POST",
+    headers: { "content-type": "application/json", "x-csrf-token": token, cookie: cookies.join("; ") },
+    body: JSON.stringify({ email, password: demoPassword }),
+  });
+  if (answer.status !== 200) throw new Error(`signing in as ${email}: ${answer.status}`);
+  const session = answer.headers.getSetCookie().map((c) => c.split(";")[0]!);
+  return [...cookies.filter((c) => !session.some((s) => s.split("=")[0] === c!.split("=")[0])), ...session].join("; ");
+}
+
+const table = (rows: Row[]) =>
+  [`| load | requests/s | p50 ms | p99 ms | errors | non-2xx |`, `|---|---:|---:|---:|---:|---:|`, ...rows.map((r) => `| ${r.name} | ${r.rps.toFixed(0)} | ${r.p50} | ${r.p99} | ${r.errors} | ${r.non2xx} |`)].join("\n");
 
 try {
   cluster = await ensureCluster({ dataDir: path.join(folder, "postgres"), port: await freePort(), log });
   await migrateAndSeed(cluster.url, true);
   build();
   server = await startProductionServer({ databaseUrl: cluster.url, sessionSecret: "a-session-secret-used-only-by-the-benchmark-0123" });
-  const slug = slugify(demoBriefs()[0]!.title);
+  const [small, large] = demoBriefs().map((brief) => slugify(brief.title)) as [string, string];
+  const topic = slugify(demoBriefs()[0]!.topic);
   const css = readdirSync(path.join(projectRoot, "dist/client/assets/static")).find((f) => f.endsWith(".css"))!;
-  const targets = {
-    "brief page (released version, cached)": `${server.url}/briefs/${slug}/v/1`,
-    "comparison page (cached)": `${server.url}/briefs/${slug}/v/1/compare/combined/usual_care`,
+
+  const singles = {
+    "brief page (released version, cached)": `${server.url}/briefs/${small}/v/1`,
+    "comparison page (cached)": `${server.url}/briefs/${small}/v/1/compare/combined/usual_care`,
+    "search page (?q=)": `${server.url}/briefs?q=sleep`,
     "static asset (CSS)": `${server.url}/assets/static/${css}`,
   };
-  log(`autocannon: ${connections} connections, ${duration} s per address`);
+  log(`autocannon: ${connections} connections; ${single} s per address, then ${mixed} s of mixed load`);
   // Warm-up of every address first (the page cache, the JIT, the pool), so that order does not matter.
-  for (const url of Object.values(targets)) await autocannon({ url, connections, duration: 5, headers });
-  const rows: { name: string; rps: number; p50: number; p99: number }[] = [];
-  for (const [name, url] of Object.entries(targets)) rows.push({ name, ...(await measure(url)) });
+  for (const url of Object.values(singles)) await autocannon({ url, connections, duration: 5, headers });
+  const rows: Row[] = [];
+  for (const [name, url] of Object.entries(singles)) rows.push(await measure(name, { url, duration: single }));
 
-  console.log(`\n| address | requests/s | p50 ms | p99 ms |\n|---|---:|---:|---:|`);
-  for (const row of rows) console.log(`| ${row.name} | ${row.rps.toFixed(0)} | ${row.p50} | ${row.p99} |`);
-  const [brief, , asset] = rows as [(typeof rows)[0], (typeof rows)[0], (typeof rows)[0]];
+  // Nine public reads and one desk read per round: each connection walks the list in order.
+  const cookie = await signIn(server.url, "editor@fairweigh.example");
+  const briefList = (await (await fetch(`${server.url}/api/briefs`, { headers: { cookie } })).json()) as { briefs: { id: string }[] };
+  const publicReads = [
+    `/briefs/${small}/v/1`,
+    `/briefs/${large}/v/1`,
+    `/briefs/${small}`,
+    `/briefs/${small}/v/1/compare/combined/usual_care`,
+    `/briefs/${small}/v/1/compare/light/usual_care`,
+    `/briefs?q=headache`,
+    `/briefs?q=sleep%20usual`,
+    `/topics/${topic}`,
+    `/feed.xml`,
+  ];
+  const requests = [
+    ...publicReads.map((address) => ({ method: "GET" as const, path: address })),
+    { method: "GET" as const, path: `/api/briefs/${briefList.briefs[0]!.id}`, headers: { ...headers, cookie } },
+  ];
+  const before = residentMiB(server.pid);
+  let peak = before;
+  const sampler = setInterval(() => (peak = Math.max(peak, residentMiB(server!.pid))), 250);
+  const mixedRow = await measure("mixed: 90% public reads, 10% desk reads", { url: server.url, duration: mixed, requests });
+  clearInterval(sampler);
+  const after = residentMiB(server.pid);
+  rows.push(mixedRow);
+
+  console.log(`\n${table(rows)}`);
+  const [brief, , search, asset] = rows as [Row, Row, Row, Row];
   const share = brief.rps / asset.rps;
   console.log(`\nBrief page at ${(share * 100).toFixed(0)}% of the static asset's rate (target ≥ 50%): ${share >= 0.5 ? "met" : "NOT met"}.`);
   console.log(`Brief page p99 ${brief.p99} ms at ${connections} connections (target < 50 ms): ${brief.p99 < 50 ? "met" : "NOT met"}.`);
+  console.log(`Search p99 ${search.p99} ms at ${connections} connections.`);
+  console.log(`Mixed load: ${mixedRow.errors} errors and ${mixedRow.non2xx} non-2xx answers (target: none): ${mixedRow.errors + mixedRow.non2xx === 0 ? "met" : "NOT met"}; p99 ${mixedRow.p99} ms.`);
+  console.log(`Server memory (RSS): ${before.toFixed(0)} MiB before, ${peak.toFixed(0)} MiB at the peak, ${after.toFixed(0)} MiB after.`);
 } finally {
   await server?.stop();
   cluster?.stop();

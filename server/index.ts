@@ -23,8 +23,16 @@ export async function startServer(config: ServerConfig): Promise<{ url: string; 
   });
   return {
     url: `http://${config.host}:${config.port}`,
+    /**
+     * Stops taking requests, lets those under way finish (five seconds at most, then their connections
+     * are cut), and closes the database pool. Idle keep-alive connections would otherwise hold it open.
+     */
     async close() {
-      await new Promise<void>((resolve) => server.close(() => resolve()));
+      const closed = new Promise<void>((resolve) => server.close(() => resolve()));
+      server.closeIdleConnections();
+      const cut = setTimeout(() => server.closeAllConnections(), 5000);
+      await closed;
+      clearTimeout(cut);
       await connection.close();
     },
   };

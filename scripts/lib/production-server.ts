@@ -6,6 +6,8 @@ import { projectRoot } from "./steps";
 
 export interface RunningServer {
   url: string;
+  /** The server's process id (its memory is read from /proc by the benchmark). */
+  pid: number;
   stop(): Promise<void>;
   /** Ends the process at once (SIGKILL), as a crash or a power cut would: no shutdown runs. */
   kill(): Promise<void>;
@@ -44,5 +46,5 @@ export async function startProductionServer(options: { databaseUrl: string; sess
       child.once("exit", () => resolve());
       child.kill(signal);
     });
-  return { url, stop: () => end("SIGTERM"), kill: () => end("SIGKILL") };
+  return { url, pid: child.pid!, stop: () => end("SIGTERM"), kill: () => end("SIGKILL") };
 }

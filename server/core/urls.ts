@@ -93,5 +93,12 @@ export function parseVersionPath(path: string): VersionPath | null {
   return { kind: "comparison", at, canonical: !trailing && comparisonUrl(at) === path };
 }
 
+/** The slug of a brief's latest address /briefs/:slug, spelled canonically; null for anything else. */
+export function parseBriefPath(path: string): string | null {
+  const match = /^\/briefs\/([^/]+)$/.exec(path);
+  const slug = match ? decoded(match[1]!) : null;
+  return slug !== null && briefUrl(slug) === path ? slug : null;
+}
+
 /** The address a version path is canonically spelled as. */
 export const canonicalVersionPath = (parsed: VersionPath) => (parsed.kind === "version" ? versionUrl(parsed.at) : comparisonUrl(parsed.at));

@@ -222,6 +222,17 @@ export const briefVersions = pgTable(
     /** The public correction note of a version after the first. */
     note: text("note"),
     snapshot: jsonb("snapshot").notNull(),
+    /**
+     * What lists, search and the feed read: the frozen brief's description and its treatments, a few
+     * hundred bytes beside a snapshot of up to megabytes. PostgreSQL computes them from the snapshot,
+     * so they cannot drift from it (docs/decisions/0019-listing-beside-the-snapshot.md).
+     */
+    listedBrief: jsonb("listed_brief")
+      .notNull()
+      .generatedAlwaysAs(sql`snapshot -> 'brief'`),
+    listedTreatments: jsonb("listed_treatments")
+      .notNull()
+      .generatedAlwaysAs(sql`snapshot -> 'treatments'`),
     createdBy: uuid("created_by").references(() => people.id),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   },

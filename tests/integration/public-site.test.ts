@@ -151,11 +151,15 @@ describe("a shared cache holds only what the public may see", () => {
     }
   });
 
-  it("a cached version page learns of a newer version at once", async () => {
+  it("a cached version page, and the cached latest address, learn of a newer version at once", async () => {
     const { briefId, slug } = await publishedBrief(clients.analyst!, clients.editor!, "Correction after caching");
     const before = await get(`/briefs/${slug}/v/1`);
     const beforeHtml = await before.text();
     expect(beforeHtml).not.toContain("A newer version");
+    // The latest address is kept in memory too: the second answer is the first, byte for byte.
+    const latestBefore = await get(`/briefs/${slug}`);
+    expect(await latestBefore.text()).not.toContain("Two studies were entered twice.");
+    expect((await get(`/briefs/${slug}`)).headers.get("etag")).toBe(latestBefore.headers.get("etag"));
     await approve(clients.analyst!, clients.editor!, briefId);
     expect((await clients.editor!.request("POST", `/api/briefs/${briefId}/versions`, { json: { note: "Two studies were entered twice." } })).status).toBe(201);
     // The two-second memory of a version's state is the only delay a reader may see.
@@ -165,6 +169,16 @@ describe("a shared cache holds only what the public may see", () => {
     expect(after.headers.get("etag")).not.toBe(before.headers.get("etag"));
     expect(afterHtml).toContain("Two studies were entered twice.");
     expect(afterHtml).toContain("A newer version");
+    const latestAfter = await get(`/briefs/${slug}`);
+    expect(latestAfter.headers.get("etag")).not.toBe(latestBefore.headers.get("etag"));
+    expect(await latestAfter.text()).toContain("Two studies were entered twice.");
+  });
+
+  it("a cold page asked for by many readers at once gives each the same page (rendered once, the others wait for it)", async () => {
+    const { slug } = await publishedBrief(clients.analyst!, clients.editor!, "Many readers at once");
+    const answers = await Promise.all(Array.from({ length: 12 }, () => get(`/briefs/${slug}/v/1`)));
+    expect(answers.map((answer) => answer.status)).toEqual(answers.map(() => 200));
+    expect(new Set(answers.map((answer) => answer.headers.get("etag"))).size).toBe(1);
   });
 });
 

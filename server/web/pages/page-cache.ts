@@ -30,6 +30,8 @@ export interface CachedPage {
   nonce: string;
   /** What may still change on the frozen page (newer versions, withdrawal): checked on every hit. */
   state: string;
+  /** "version" for a released version's pages (cached by browsers for an hour), "revalidate" for a brief's latest address. */
+  caching: "version" | "revalidate";
 }
 
 export function etagOf(html: string): string {

@@ -9,7 +9,7 @@ import { publicVersionState } from "#db/versions";
 import { siteUrl } from "../public/routes";
 import type { Database } from "#db/client";
 import type { createCsrf } from "../http/security";
-import { canonicalVersionPath, isDeskPath, parseVersionPath } from "#core/urls";
+import { canonicalVersionPath, isDeskPath, parseBriefPath, parseVersionPath } from "#core/urls";
 import { admits, pageAccess } from "#core/access";
 import { encode, etagOf, PageCache, StateMemo, type CachedPage, type Encodings } from "./page-cache";
 
@@ -45,6 +45,7 @@ export async function pageRoutes(options: {
   const router = Router();
   const cache = new PageCache();
   const states = new StateMemo<string | null>();
+  const rendering = new Map<string, Promise<CachedPage | null>>();
   if (production) {
     // Built assets carry a content hash in their name, so they can be cached for a year.
     router.use(
@@ -57,7 +58,7 @@ export async function pageRoutes(options: {
     router.use(devMiddleware);
   }
 
-  function send(req: Request, res: Response, page: Omit<CachedPage, "state" | "encodings"> & { encodings?: Encodings }, caching: keyof typeof cacheControl) {
+  function send(req: Request, res: Response, page: Omit<CachedPage, "state" | "encodings" | "caching"> & { encodings?: Encodings }, caching: keyof typeof cacheControl) {
     for (const [name, value] of page.headers) res.setHeader(name, value);
     const policy = res.getHeader("content-security-policy");
     const nonce = res.locals.cspNonce as string;
@@ -87,55 +88,86 @@ export async function pageRoutes(options: {
     if (isDeskPath(req.path) && !admits(pageAccess["GET /desk/*"].who, req.user?.roles ?? null)) {
       return res.redirect(303, `/sign-in?next=${encodeURIComponent(req.originalUrl)}`);
     }
-    // Only a reader who sees what the public sees shares the cache: the press and editors also see
-    // embargoed versions in a page's history, so their pages are rendered for them alone.
     const parsed = parseVersionPath(req.path);
     // A version's page has one address: another spelling of it (percent-encoding, a trailing slash)
     // is sent there, so that each page is rendered and cached once.
     if (parsed && !parsed.canonical) return res.redirect(301, canonicalVersionPath(parsed) + (req.originalUrl.slice(req.path.length) || ""));
-    const version = parsed && !mayReadEmbargoed(req.user?.roles ?? []) ? parsed.at : null;
-    const key = PageCache.key(defaultLocale, req.path);
     try {
-      if (version) {
-        const cached = cache.get(key);
+      const memory = memoryCached(req);
+      if (memory) {
+        const cached = cache.get(memory.key);
         if (cached) {
-          const state = await states.get(`${version.slug}/${version.version}`, () => publicVersionState(db, version.slug, version.version));
-          if (state === cached.state) return send(req, res, cached, "version");
-          cache.delete(key);
+          if ((await memory.state()) === cached.state) return send(req, res, cached, cached.caching);
+          cache.delete(memory.key);
+        }
+        // One render per address at a time: readers who arrive meanwhile get its result, so that a
+        // cold page under load is rendered once rather than once per reader.
+        const pending = rendering.get(memory.key);
+        if (pending) {
+          const entry = await pending;
+          if (entry) return send(req, res, entry, entry.caching);
         }
       }
-
-      let csrfToken: string | undefined;
-      if (pagesWithForms.has(req.path)) {
-        req.session.csrfIssued = true;
-        csrfToken = csrf.generateCsrfToken(req, res, { overwrite: false });
-      }
-      const pageContext = await renderPage({
-        urlOriginal: req.originalUrl,
-        headersOriginal: req.headers,
-        cspNonce: res.locals.cspNonce as string,
-        person: req.user ?? null,
-        db,
-        csrfToken,
-        siteUrl: siteUrl(req, publicUrl),
-      });
-      const { httpResponse } = pageContext;
-      if (!httpResponse) return next();
-      const answer = ((pageContext as { data?: unknown }).data ?? {}) as PageAnswer;
-      const html = await httpResponse.getBody();
-      // helmet has set the full policy with the same nonce; Vike's shorter one would replace it.
-      const headers = httpResponse.headers.filter(([name]) => name.toLowerCase() !== "content-security-policy") as [string, string][];
-      const page = { html, etag: etagOf(html), status: answer.httpStatus ?? httpResponse.statusCode, headers, nonce: res.locals.cspNonce as string };
-      const caching = httpResponse.statusCode >= 400 && !answer.httpStatus ? "private" : (answer.caching ?? "private");
-      if (caching === "version" && version) {
-        const entry = { ...page, encodings: encode(html), state: answer.cacheState ?? "" };
-        cache.set(key, entry);
-        return send(req, res, entry, caching);
-      }
-      send(req, res, page, caching);
+      const rendered = renderAndKeep(req, res, memory?.key ?? null);
+      if (memory) rendering.set(memory.key, rendered.then((result) => result?.entry ?? null));
+      const result = await rendered.finally(() => memory && rendering.delete(memory.key));
+      if (!result) return next();
+      send(req, res, result.entry ?? result.page, result.caching);
     } catch (error) {
       next(error);
     }
   });
+
+  /**
+   * The public pages kept in memory, with the state each is checked against on every hit: a released
+   * version's pages and a brief's latest address. Only a reader who sees what the public sees shares
+   * them: the press and editors also see embargoed versions in a page's history.
+   */
+  function memoryCached(req: Request): { key: string; state: () => Promise<string | null> } | null {
+    if (mayReadEmbargoed(req.user?.roles ?? [])) return null;
+    const key = PageCache.key(defaultLocale, req.path);
+    const version = parseVersionPath(req.path);
+    if (version) {
+      const { slug, version: number } = version.at;
+      return { key, state: () => states.get(`${slug}/${number}`, () => publicVersionState(db, slug, number)) };
+    }
+    const latest = parseBriefPath(req.path);
+    // The latest address shows the newest released version: the same state, read from version 1 on.
+    if (latest) return { key, state: () => states.get(`${latest}/latest`, () => publicVersionState(db, latest, 1)) };
+    return null;
+  }
+
+  /** Renders the page; one that says how it may be cached in memory is kept under `key`. */
+  async function renderAndKeep(req: Request, res: Response, key: string | null) {
+    let csrfToken: string | undefined;
+    if (pagesWithForms.has(req.path)) {
+      req.session.csrfIssued = true;
+      csrfToken = csrf.generateCsrfToken(req, res, { overwrite: false });
+    }
+    const pageContext = await renderPage({
+      urlOriginal: req.originalUrl,
+      headersOriginal: req.headers,
+      cspNonce: res.locals.cspNonce as string,
+      person: req.user ?? null,
+      db,
+      csrfToken,
+      siteUrl: siteUrl(req, publicUrl),
+    });
+    const { httpResponse } = pageContext;
+    if (!httpResponse) return null;
+    const answer = ((pageContext as { data?: unknown }).data ?? {}) as PageAnswer;
+    const html = await httpResponse.getBody();
+    // helmet has set the full policy with the same nonce; Vike's shorter one would replace it.
+    const headers = httpResponse.headers.filter(([name]) => name.toLowerCase() !== "content-security-policy") as [string, string][];
+    const page = { html, etag: etagOf(html), status: answer.httpStatus ?? httpResponse.statusCode, headers, nonce: res.locals.cspNonce as string };
+    const caching = httpResponse.statusCode >= 400 && !answer.httpStatus ? "private" : (answer.caching ?? "private");
+    if (key && caching !== "private" && answer.cacheState !== undefined) {
+      const entry: CachedPage = { ...page, encodings: encode(html), state: answer.cacheState, caching };
+      cache.set(key, entry);
+      return { page, caching, entry };
+    }
+    return { page, caching, entry: null };
+  }
+
   return router;
 }

@@ -4,7 +4,9 @@ import type { PageContext } from "vike/types";
 import { parseVersionPath } from "#core/urls";
 
 export default function route(pageContext: PageContext) {
-  const parsed = parseVersionPath(pageContext.urlOriginal.split(/[?#]/)[0]!);
+  // The path as sent (still percent-encoded), without the suffix of a client navigation's
+  // pageContext.json request: urlOriginal would carry that suffix and match nothing.
+  const parsed = parseVersionPath(pageContext.urlParsed.pathnameOriginal);
   if (parsed?.kind !== "comparison") return false;
   const { slug, version, treatment, comparator } = parsed.at;
   return { routeParams: { slug, number: String(version), a: treatment, b: comparator } };
