@@ -6,7 +6,7 @@ import path from "node:path";
 import type { Browser, Page } from "playwright-core";
 import { expect, it } from "vitest";
 import en from "../../locales/en/common.json";
-import { signedIn as signedInAt, withServerAndBrowser } from "../support/browser";
+import { keepScreenshot, signedIn as signedInAt, withServerAndBrowser } from "../support/browser";
 
 const hasselblad = path.resolve(__dirname, "../fixtures/reference/hasselblad1998.csv");
 const title = "Editorial journey (browser test)";
@@ -53,6 +53,7 @@ it("goes upload → bulk rating → approval → publication → correction with
   await bulk.getByRole("button", { name: en.desk.bulk.selectAll }).click();
   await bulk.getByRole("button", { name: /^Accept the suggestions/ }).click();
   await page.getByTestId("pending-count").filter({ hasText: en.desk.allJudged }).waitFor();
+  await keepScreenshot(page, "editorial-1-analyst-rated");
 
   await page.goto(briefUrl);
   const release = page.getByTestId("release");
@@ -81,6 +82,7 @@ it("goes upload → bulk rating → approval → publication → correction with
   await panelOfEditor.getByRole("button", { name: en.desk.release.publish }).click();
   const published = panelOfEditor.getByRole("link", { name: /\/briefs\/.+\/v\/1$/ });
   await published.waitFor();
+  await keepScreenshot(editor.page, "editorial-2-editor-published");
   const versionPath = (await published.getAttribute("href"))!;
   expect((await fetch(`${setup.server.url}${versionPath}`)).status).toBe(200);
 
@@ -98,6 +100,7 @@ it("goes upload → bulk rating → approval → publication → correction with
   await panelOfEditor.getByLabel(en.desk.release.note).fill("The short take now says the data are test data.");
   await panelOfEditor.getByRole("button", { name: en.desk.release.correct }).click();
   await panelOfEditor.getByRole("link", { name: /\/v\/2$/ }).waitFor();
+  await keepScreenshot(editor.page, "editorial-3-editor-corrected");
   const oldVersion = await (await fetch(`${setup.server.url}${versionPath}`)).text();
   expect(oldVersion).toContain("The short take now says the data are test data.");
 
@@ -106,6 +109,7 @@ it("goes upload → bulk rating → approval → publication → correction with
   await panelOfEditor.getByLabel(en.desk.release.withdrawReason).fill("A trial in the test data was retracted.");
   await panelOfEditor.getByRole("button", { name: en.desk.release.withdrawButton }).click();
   await editor.page.getByText(en.desk.status.withdrawn, { exact: false }).first().waitFor();
+  await keepScreenshot(editor.page, "editorial-4-editor-withdrawn");
   // A cached page learns of the withdrawal within the two seconds its state is remembered (decision record 0010).
   await expect.poll(async () => (await fetch(`${setup.server.url}${versionPath}`)).status, { timeout: 5000 }).toBe(410);
   expect(await (await fetch(`${setup.server.url}${versionPath}`)).text()).toContain("A trial in the test data was retracted.");

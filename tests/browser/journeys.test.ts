@@ -1,25 +1,20 @@
 // The release as its readers live it, in Debian's Chromium, with a screenshot at each step kept in
-// test-results/journeys/ to be looked at: the editor schedules a ready brief with an embargo from the
+// test-results/screenshots/release-*.png to be looked at: the editor schedules a ready brief with an embargo from the
 // desk; the reporter reads it in the press room before its release and, once it is out, cites one
 // comparison; a member of the public finds it through search and downloads its data as CSV.
 // (The analyst's upload and rating, and the editor's texts and approval, are walked through in
 // editorial-journey.test.ts; here the draft is made ready through the API.)
-import { mkdirSync, readFileSync } from "node:fs";
-import path from "node:path";
-import type { Browser, Page } from "playwright-core";
+import { readFileSync } from "node:fs";
+import type { Browser } from "playwright-core";
 import { expect, it } from "vitest";
 import en from "../../locales/en/common.json";
-import { projectRoot } from "#web/app";
 import { demoPassword } from "#workflows/seed";
-import { launchChromium, signedIn as signedInAt, withServerAndBrowser } from "../support/browser";
+import { keepScreenshot, launchChromium, signedIn as signedInAt, withServerAndBrowser } from "../support/browser";
 import { analysedBrief, approve } from "../support/briefs";
 import { ApiClient } from "../support/client";
 
 const setup = withServerAndBrowser();
 const signedIn = (browser: Browser, email: string) => signedInAt(browser, setup.server.url, email);
-const folder = path.join(projectRoot, "test-results/journeys");
-mkdirSync(folder, { recursive: true });
-const shot = (page: Page, name: string) => page.screenshot({ path: path.join(folder, `${name}.png`), fullPage: true });
 
 // One title per run, so that a database reused across runs holds one brief of this name.
 const run = Date.now().toString(36);
@@ -43,7 +38,7 @@ it("editor schedules with an embargo → reporter reads it early, then cites a c
   await release.getByLabel(en.desk.release.releaseAt).fill(local);
   await release.getByRole("button", { name: en.desk.release.scheduleButton }).click();
   await release.getByLabel(en.desk.release.rescheduleTitle).waitFor();
-  await shot(editor.page, "1-editor-scheduled");
+  await keepScreenshot(editor.page, "release-1-editor-scheduled");
   expect(editor.errors).toEqual([]);
   await editor.close();
 
@@ -52,10 +47,10 @@ it("editor schedules with an embargo → reporter reads it early, then cites a c
   const reporter = await signedIn(setup.browser, "press@fairweigh.example");
   const entry = reporter.page.getByTestId("press-room").getByRole("link", { name: title });
   await entry.waitFor();
-  await shot(reporter.page, "2-reporter-press-room");
+  await keepScreenshot(reporter.page, "release-2-reporter-press-room");
   await Promise.all([reporter.page.waitForURL(`${setup.server.url}/briefs/${slug}/v/1`), entry.click()]);
   await reporter.page.getByText("embargo", { exact: false }).first().waitFor();
-  await shot(reporter.page, "3-reporter-embargoed-brief");
+  await keepScreenshot(reporter.page, "release-3-reporter-embargoed-brief");
 
   // The release time arrives (moved to a few seconds from now, as the editor may, rather than waiting a day).
   const soon = new Date(Date.now() + 3000).toISOString();
@@ -67,7 +62,7 @@ it("editor schedules with an embargo → reporter reads it early, then cites a c
   const comparison = reporter.page.getByRole("link", { name: en.brief.compareLabel.replace("{{treatment}}", "Group counselling").replace("{{comparator}}", "No contact") }).first();
   await Promise.all([reporter.page.waitForURL(/\/compare\/grp_counseling\/no_contact$/), comparison.click()]);
   await reporter.page.getByTestId("citation").waitFor();
-  await shot(reporter.page, "4-reporter-comparison");
+  await keepScreenshot(reporter.page, "release-4-reporter-comparison");
   const [ris] = await Promise.all([reporter.page.waitForEvent("download"), reporter.page.getByTestId("cite").getByRole("link", { name: "RIS" }).click()]);
   const citation = readFileSync((await ris.path())!, "utf8");
   expect(citation).toContain(`Group counselling vs No contact: ${title}`);
@@ -82,9 +77,9 @@ it("editor schedules with an embargo → reporter reads it early, then cites a c
     await page.goto(setup.server.url);
     await page.locator("#home-search").fill(`counselling embargoed ${run}`);
     await Promise.all([page.waitForURL(/\/briefs\?q=/), page.locator("#home-search").press("Enter")]);
-    await shot(page, "5-public-search");
+    await keepScreenshot(page, "release-5-public-search");
     await Promise.all([page.waitForURL(`${setup.server.url}/briefs/${slug}`), page.getByRole("link", { name: title }).click()]);
-    await shot(page, "6-public-brief");
+    await keepScreenshot(page, "release-6-public-brief");
     const [csv] = await Promise.all([page.waitForEvent("download"), page.getByTestId("downloads").getByRole("link", { name: en.brief.download.inputs_csv }).click()]);
     const rows = readFileSync((await csv.path())!, "utf8").trim().split("\n");
     expect(rows[0]).toContain("study");

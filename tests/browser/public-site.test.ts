@@ -1,15 +1,12 @@
 // The public site in Debian's Chromium: every page type without JavaScript, no serious or critical
 // accessibility violation (axe-core), keyboard use, and screenshots of a brief at phone and desktop
 // widths (written to test-results/screenshots/ to be looked at).
-import { mkdirSync } from "node:fs";
-import path from "node:path";
 import AxeBuilder from "@axe-core/playwright";
 import { describe, expect, it } from "vitest";
 import en from "../../locales/en/common.json";
 import { slugify } from "#core/slug";
 import { demoBriefs } from "#workflows/demo-briefs";
-import { projectRoot } from "../../scripts/lib/steps";
-import { withServerAndBrowser } from "../support/browser";
+import { keepScreenshot, withServerAndBrowser } from "../support/browser";
 
 const setup = withServerAndBrowser();
 const small = slugify(demoBriefs()[0]!.title);
@@ -77,20 +74,18 @@ describe("accessibility", () => {
 });
 
 describe("screenshots of a brief", () => {
-  const folder = path.join(projectRoot, "test-results/screenshots");
   it.each([
     ["phone", 390],
     ["desktop", 1280],
   ])("at %s width (%i px) the page fits without sideways scrolling", async (name, width) => {
-    mkdirSync(folder, { recursive: true });
     const context = await setup.browser.newContext({ viewport: { width, height: 900 } });
     const page = await context.newPage();
     await page.goto(setup.server.url + pages.latest);
     // Wide tables scroll inside their own box; the page itself must not.
     expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(width);
-    await page.screenshot({ path: path.join(folder, `brief-${name}.png`), fullPage: true });
+    await keepScreenshot(page, `brief-${name}`);
     await page.emulateMedia({ media: "print" });
-    await page.screenshot({ path: path.join(folder, `brief-${name}-print.png`), fullPage: true });
+    await keepScreenshot(page, `brief-${name}-print`);
     expect(await page.locator("header[data-site-header]").isVisible()).toBe(false);
     expect(await page.getByTestId("citation").isVisible()).toBe(true);
     await context.close();

@@ -1,9 +1,22 @@
 // Debian's Chromium driven by playwright-core. The flags keep it off this machine's closed
 // network (background services, updates, sync) and let it run as root in a container.
-import { chromium, type Browser } from "playwright-core";
+import { mkdirSync } from "node:fs";
+import path from "node:path";
+import { chromium, type Browser, type Page } from "playwright-core";
 import { afterAll, beforeAll } from "vitest";
 import { demoPassword } from "#workflows/seed";
 import { startProductionServer, type RunningServer } from "./production-server";
+
+const screenshots = path.resolve(__dirname, "../../test-results/screenshots");
+
+/**
+ * The whole page as an image in test-results/screenshots/<name>.png, kept after the run as an
+ * artefact to be looked at (the journeys number theirs in the order they happen).
+ */
+export async function keepScreenshot(page: Page, name: string): Promise<void> {
+  mkdirSync(screenshots, { recursive: true });
+  await page.screenshot({ path: path.join(screenshots, `${name}.png`), fullPage: true });
+}
 
 export function launchChromium(): Promise<Browser> {
   return chromium.launch({
