@@ -4,7 +4,8 @@
 import { spawn } from "node:child_process";
 import path from "node:path";
 import { demoAccounts, demoPassword } from "#workflows/seed";
-import { ensureCluster, type Cluster } from "./lib/postgres";
+import { ensureCluster, freePort, type Cluster } from "./lib/postgres";
+import { startMailbox } from "./lib/mailbox";
 import { build, localSecret, log, migrateAndSeed, projectRoot } from "./lib/steps";
 
 const development = process.argv.includes("--dev");
@@ -34,6 +35,10 @@ try {
   process.exit(1);
 }
 
+// E-mail goes to a fake SMTP server on loopback that keeps every message under .data/mail/, unless
+// SMTP_URL names a real one (docs/operations.md).
+const mailbox = process.env.SMTP_URL ? null : await startMailbox({ port: await freePort(), folder: path.join(dataFolder, "mail") });
+
 const sessionSecret =
   process.env.SESSION_SECRET ?? (cluster ? localSecret(path.join(dataFolder, "session-secret")) : undefined);
 const server = spawn(path.join(projectRoot, "node_modules", ".bin", "tsx"), [path.join(projectRoot, "server/index.ts")], {
@@ -44,6 +49,7 @@ const server = spawn(path.join(projectRoot, "node_modules", ".bin", "tsx"), [pat
     NODE_ENV: development ? "development" : "production",
     DATABASE_URL: databaseUrl,
     PORT: String(port),
+    ...(mailbox ? { SMTP_URL: mailbox.url } : {}),
     ...(sessionSecret ? { SESSION_SECRET: sessionSecret } : {}),
   },
 });
@@ -54,6 +60,7 @@ server.stdout.on("data", (chunk: Buffer) => {
   if (chunk.toString().includes("Fairweigh is serving")) {
     console.log("");
     console.log(`  Open http://127.0.0.1:${port}`);
+    if (mailbox) console.log(`  E-mail is kept, not sent: every message is a JSON file in ${path.relative(projectRoot, path.join(dataFolder, "mail"))}/`);
     if (cluster) {
       console.log(`  Demo accounts (password ${demoPassword}):`);
       for (const account of demoAccounts) console.log(`    ${account.email.padEnd(32)} ${account.roles.join(", ")}`);

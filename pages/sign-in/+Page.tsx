@@ -1,5 +1,6 @@
 import { useTranslation } from "react-i18next";
 import { usePageContext } from "vike-react/usePageContext";
+import { passwordResetUrl } from "#core/urls";
 
 const knownErrors = new Set(["invalid", "missing", "too-many", "expired"]);
 
@@ -9,10 +10,16 @@ export default function Page() {
   const pageContext = usePageContext();
   const error = pageContext.urlParsed.search.error;
   const next = pageContext.urlParsed.search.next ?? "/desk";
+  const done = pageContext.urlParsed.search.done === "password";
   return (
     <div className="max-w-md">
       <h1 className="text-4xl font-semibold tracking-tight">{t("signIn.title")}</h1>
       <p className="mt-4 text-lg text-muted">{t("signIn.lead")}</p>
+      {done ? (
+        <p role="status" className="mt-6 border-s-4 border-ink bg-white px-4 py-3 font-sans">
+          {t("signIn.done.password")}
+        </p>
+      ) : null}
       {error && knownErrors.has(error) ? (
         <p role="alert" className="mt-6 border-s-4 border-accent bg-accent-soft px-4 py-3 font-sans">
           {t(`signIn.errors.${error}`)}
@@ -45,6 +52,9 @@ export default function Page() {
           {t("signIn.submit")}
         </button>
       </form>
+      <p className="mt-6 font-sans text-sm">
+        <a href={passwordResetUrl()}>{t("signIn.forgot")}</a>
+      </p>
     </div>
   );
 }

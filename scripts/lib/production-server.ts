@@ -13,8 +13,8 @@ export interface RunningServer {
   kill(): Promise<void>;
 }
 
-export async function startProductionServer(options: { databaseUrl: string; sessionSecret: string }): Promise<RunningServer> {
-  const port = await freePort();
+export async function startProductionServer(options: { databaseUrl: string; sessionSecret: string; port?: number; env?: Record<string, string> }): Promise<RunningServer> {
+  const port = options.port ?? (await freePort());
   // Node itself with tsx's loader, not the tsx command: that one runs the server in a child of its
   // own, which a SIGKILL (kill(), as a crash would) leaves running.
   const child: ChildProcess = spawn(process.execPath, ["--import", "tsx", "server/index.ts"], {
@@ -26,6 +26,7 @@ export async function startProductionServer(options: { databaseUrl: string; sess
       SESSION_SECRET: options.sessionSecret,
       PORT: String(port),
       LOG_LEVEL: "warn",
+      ...options.env,
     },
     stdio: ["ignore", "pipe", "inherit"],
   });

@@ -25,6 +25,10 @@ export const topicUrl = (topicSlug: string) => `/topics/${segment(topicSlug)}`;
 export const briefUrl = (slug: string) => `/briefs/${segment(slug)}`;
 export const versionUrl = (at: VersionAddress) => `${briefUrl(at.slug)}/v/${at.version}`;
 export const comparisonUrl = (at: ComparisonAddress) => `${versionUrl(at)}/compare/${segment(at.treatment)}/${segment(at.comparator)}`;
+/** One-time account links (server/core/tokens.ts), and the form that asks for a reset link. */
+export const invitationUrl = (token: string) => `/invitation/${segment(token)}`;
+export const passwordResetUrl = (token?: string) => (token ? `/password-reset/${segment(token)}` : "/password-reset");
+
 /** The desk, a client-rendered app: /desk and every screen below it. */
 export const isDeskPath = (path: string) => path === "/desk" || path.startsWith("/desk/");
 export const previewUrl = (briefId: string) => `/preview/${segment(briefId)}`;

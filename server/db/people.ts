@@ -1,45 +1,70 @@
 // People and their roles: the only place that reads or writes the people tables.
-import { eq } from "drizzle-orm";
+import { and, eq, isNull, sql } from "drizzle-orm";
 import type { Database } from "./client";
-import { people, personRoles } from "./schema";
+import { people, personRoles, sessions } from "./schema";
 import { recordAudit } from "./audit";
 import { hashPassword } from "#core/passwords";
 import type { Role } from "#core/roles";
 
+type Executor = Pick<Database, "select" | "insert" | "update" | "delete" | "query">;
+
+/** A person as the session and the desk know them. */
 export interface Person {
   id: string;
   email: string;
   displayName: string;
   roles: Role[];
+  /** The language of their e-mails. */
+  locale: string;
+  /** For translators: the locales they may translate into. */
+  translationLocales: string[];
+}
+
+/** A person as administrators see them: also whether they are active and have accepted the invitation. */
+export interface PersonRecord extends Person {
+  active: boolean;
+  passwordSet: boolean;
+  createdAt: string;
 }
 
 export function normaliseEmail(email: string): string {
   return email.trim().toLowerCase();
 }
 
-export async function findPersonById(db: Database, id: string): Promise<Person | null> {
-  const row = await db.query.people.findFirst({ where: eq(people.id, id) });
+/** The person behind a session: null once deactivated, so that their sessions end at once. */
+export async function findPersonById(db: Executor, id: string): Promise<Person | null> {
+  const row = await db.query.people.findFirst({ where: and(eq(people.id, id), isNull(people.deactivatedAt)) });
   return row ? withRoles(db, row) : null;
 }
 
-/** The person and their password hash, for sign-in only. */
+/** The person and their password hash, for sign-in only; nobody for a deactivated account or one without a password yet. */
 export async function findCredentials(db: Database, email: string) {
-  const row = await db.query.people.findFirst({ where: eq(people.email, normaliseEmail(email)) });
-  return row ? { person: await withRoles(db, row), passwordHash: row.passwordHash } : null;
+  const row = await db.query.people.findFirst({ where: and(eq(people.email, normaliseEmail(email)), isNull(people.deactivatedAt)) });
+  return row?.passwordHash ? { person: await withRoles(db, row), passwordHash: row.passwordHash } : null;
 }
 
-export async function listPeople(db: Database): Promise<Person[]> {
+/** An active person by e-mail, for a password reset. */
+export async function findActiveByEmail(db: Executor, email: string): Promise<Person | null> {
+  const row = await db.query.people.findFirst({ where: and(eq(people.email, normaliseEmail(email)), isNull(people.deactivatedAt)) });
+  return row ? withRoles(db, row) : null;
+}
+
+export async function listPeople(db: Database): Promise<PersonRecord[]> {
   const rows = await db.select().from(people).orderBy(people.email);
   const roleRows = await db.select().from(personRoles);
   return rows.map((row) => ({
-    id: row.id,
-    email: row.email,
-    displayName: row.displayName,
-    roles: roleRows.filter((r) => r.personId === row.id).map((r) => r.role).sort(),
+    ...personOf(row, roleRows.filter((r) => r.personId === row.id).map((r) => r.role)),
+    active: row.deactivatedAt === null,
+    passwordSet: row.passwordHash !== null,
+    createdAt: row.createdAt.toISOString(),
   }));
 }
 
-/** Creates a person with roles, or returns the existing one with that e-mail unchanged. */
+export async function findPersonRecord(db: Database, id: string): Promise<PersonRecord | null> {
+  return (await listPeople(db)).find((person) => person.id === id) ?? null;
+}
+
+/** Creates a person with roles, or returns the existing one with that e-mail unchanged (the demo seed). */
 export async function ensurePerson(
   db: Database,
   input: { email: string; displayName: string; password: string; roles: Role[] },
@@ -49,19 +74,88 @@ export async function ensurePerson(
   const existing = await db.query.people.findFirst({ where: eq(people.email, email) });
   if (existing) return withRoles(db, existing);
   const passwordHash = await hashPassword(input.password);
-  return db.transaction(async (tx) => {
-    const [row] = await tx.insert(people).values({ email, displayName: input.displayName, passwordHash }).returning();
-    if (!row) throw new Error(`inserting ${email} returned no row`);
-    if (input.roles.length > 0) {
-      await tx.insert(personRoles).values(input.roles.map((role) => ({ personId: row.id, role })));
-    }
-    const person = { id: row.id, email, displayName: row.displayName, roles: [...input.roles].sort() };
-    await recordAudit(tx, { actorId, action: "create", entity: "person", entityId: row.id, before: null, after: person });
-    return person;
-  });
+  const person = await db.transaction((tx) => insertPerson(tx, { email, displayName: input.displayName, passwordHash, roles: input.roles, translationLocales: [], locale: "en" }, actorId));
+  if (!person) throw new Error(`${email} was created by someone else at the same moment`);
+  return person;
 }
 
-async function withRoles(db: Database, row: typeof people.$inferSelect): Promise<Person> {
+/** A new person; `passwordHash` null for an invitation. Null when the e-mail is taken. */
+export async function insertPerson(
+  tx: Executor,
+  input: { email: string; displayName: string; passwordHash: string | null; roles: Role[]; translationLocales: string[]; locale: string },
+  actorId: string | null,
+): Promise<Person | null> {
+  const email = normaliseEmail(input.email);
+  const [row] = await tx
+    .insert(people)
+    .values({ email, displayName: input.displayName, passwordHash: input.passwordHash, translationLocales: input.translationLocales, locale: input.locale })
+    .onConflictDoNothing({ target: people.email })
+    .returning();
+  if (!row) return null;
+  if (input.roles.length > 0) await tx.insert(personRoles).values(input.roles.map((role) => ({ personId: row.id, role })));
+  const person = personOf(row, input.roles);
+  await recordAudit(tx, { actorId, action: "create", entity: "person", entityId: row.id, before: null, after: person });
+  return person;
+}
+
+/** Changes roles, locales or whether the person is active; deactivation ends their sessions in the same transaction. */
+export async function updatePerson(
+  tx: Executor,
+  id: string,
+  changes: { roles?: Role[]; translationLocales?: string[]; locale?: string; displayName?: string; active?: boolean },
+  actorId: string,
+): Promise<Person | null> {
+  const before = await tx.query.people.findFirst({ where: eq(people.id, id) });
+  if (!before) return null;
+  const beforePerson = await withRoles(tx, before);
+  const { roles, active, ...columns } = changes;
+  const deactivatedAt = active === undefined ? undefined : active ? null : (before.deactivatedAt ?? new Date());
+  if (Object.keys(columns).length > 0 || deactivatedAt !== undefined) {
+    await tx.update(people).set({ ...columns, ...(deactivatedAt !== undefined ? { deactivatedAt } : {}) }).where(eq(people.id, id));
+  }
+  if (roles) {
+    await tx.delete(personRoles).where(eq(personRoles.personId, id));
+    if (roles.length > 0) await tx.insert(personRoles).values(roles.map((role) => ({ personId: id, role })));
+  }
+  if (active === false) await endSessions(tx, id);
+  const row = (await tx.query.people.findFirst({ where: eq(people.id, id) }))!;
+  const after = { ...(await withRoles(tx, row)), active: row.deactivatedAt === null };
+  await recordAudit(tx, { actorId, action: "update", entity: "person", entityId: id, before: { ...beforePerson, active: before.deactivatedAt === null }, after });
+  return withRoles(tx, row);
+}
+
+/** Sets a password (an accepted invitation, a reset, or the person's own change). */
+export async function setPasswordHash(tx: Executor, id: string, passwordHash: string, actorId: string, action: string): Promise<void> {
+  await tx.update(people).set({ passwordHash }).where(eq(people.id, id));
+  await recordAudit(tx, { actorId, action, entity: "person", entityId: id, before: null, after: null });
+}
+
+export async function passwordHashOf(db: Executor, id: string): Promise<string | null> {
+  const row = await db.query.people.findFirst({ where: eq(people.id, id) });
+  return row?.passwordHash ?? null;
+}
+
+/** Ends every session of the person, except `keep` (their current one, after a change of their own password). */
+export async function endSessions(tx: Executor, personId: string, keep?: string): Promise<void> {
+  const mine = sql`${sessions.sess}::jsonb -> 'passport' ->> 'user' = ${personId}`;
+  await tx.delete(sessions).where(keep ? and(mine, sql`${sessions.sid} <> ${keep}`) : mine);
+}
+
+/** How many active administrators there are, so that the last one cannot be removed. */
+export async function activeAdminCount(db: Executor): Promise<number> {
+  const [row] = await db
+    .select({ count: sql<number>`count(*)::int` })
+    .from(personRoles)
+    .innerJoin(people, eq(people.id, personRoles.personId))
+    .where(and(eq(personRoles.role, "admin"), isNull(people.deactivatedAt)));
+  return row?.count ?? 0;
+}
+
+function personOf(row: typeof people.$inferSelect, roles: Role[]): Person {
+  return { id: row.id, email: row.email, displayName: row.displayName, roles: [...roles].sort(), locale: row.locale, translationLocales: row.translationLocales };
+}
+
+async function withRoles(db: Executor, row: typeof people.$inferSelect): Promise<Person> {
   const roles = await db.select({ role: personRoles.role }).from(personRoles).where(eq(personRoles.personId, row.id));
-  return { id: row.id, email: row.email, displayName: row.displayName, roles: roles.map((r) => r.role).sort() };
+  return personOf(row, roles.map((r) => r.role));
 }

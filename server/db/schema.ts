@@ -29,10 +29,64 @@ export const people = pgTable("people", {
   /** Stored lower-cased, so that sign-in and uniqueness ignore case. */
   email: text("email").notNull().unique(),
   displayName: text("display_name").notNull(),
-  /** An argon2id hash in PHC string form. */
-  passwordHash: text("password_hash").notNull(),
+  /** An argon2id hash in PHC string form; null until an invited person sets a password. */
+  passwordHash: text("password_hash"),
+  /** The language of the person's e-mails. */
+  locale: text("locale").notNull().default("en"),
+  /** For translators: the locales they may translate into. */
+  translationLocales: text("translation_locales").array().notNull().default(sql`'{}'::text[]`),
+  /** A deactivated person cannot sign in, and their sessions end at once. */
+  deactivatedAt: timestamp("deactivated_at", { withTimezone: true }),
   createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
 });
+
+export const accountTokenPurpose = pgEnum("account_token_purpose", ["invitation", "password-reset"]);
+
+/**
+ * One-time links: an invitation to set a first password, or a password reset. Only the SHA-256 of
+ * the token is stored, so a copy of the database opens no account (docs/decisions/0021-account-tokens.md).
+ */
+export const accountTokens = pgTable(
+  "account_tokens",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    personId: uuid("person_id")
+      .notNull()
+      .references(() => people.id, { onDelete: "cascade" }),
+    purpose: accountTokenPurpose("purpose").notNull(),
+    tokenHash: text("token_hash").notNull().unique(),
+    expiresAt: timestamp("expires_at", { withTimezone: true }).notNull(),
+    usedAt: timestamp("used_at", { withTimezone: true }),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (table) => [index("account_tokens_person_idx").on(table.personId)],
+);
+
+export const messageState = pgEnum("message_state", ["queued", "sent", "failed"]);
+
+/**
+ * Every e-mail the product sends, with its delivery state. The job queue (pg-boss) delivers it and
+ * retries with back-off; administrators read the states (docs/decisions/0020-mail-through-a-queue.md).
+ */
+export const messages = pgTable(
+  "messages",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    kind: text("kind").notNull(),
+    recipient: text("recipient").notNull(),
+    locale: text("locale").notNull(),
+    subject: text("subject").notNull(),
+    text: text("text").notNull(),
+    html: text("html").notNull(),
+    headers: jsonb("headers").$type<Record<string, string>>().notNull().default({}),
+    state: messageState("state").notNull().default("queued"),
+    attempts: integer("attempts").notNull().default(0),
+    lastError: text("last_error"),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+    sentAt: timestamp("sent_at", { withTimezone: true }),
+  },
+  (table) => [index("messages_state_idx").on(table.state, table.createdAt)],
+);
 
 export const personRoles = pgTable(
   "person_roles",

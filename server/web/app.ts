@@ -9,6 +9,7 @@ import session from "express-session";
 import pino from "pino";
 import { pinoHttp } from "pino-http";
 import type pg from "pg";
+import type { Queue } from "#workflows/queue";
 import { apiRoutes } from "./api";
 import { createPassport } from "./auth/passport";
 import { addressable } from "#core/urls";
@@ -31,6 +32,8 @@ export interface AppOptions {
   publicUrl?: string;
   /** Leave out the pages (integration tests of the API need no build). */
   pages?: boolean;
+  /** The job queue that delivers e-mail (server/workflows/queue.ts); without one, messages stay queued. */
+  queue?: Queue | null;
 }
 
 export async function createApp(options: AppOptions): Promise<express.Express> {
@@ -80,7 +83,7 @@ export async function createApp(options: AppOptions): Promise<express.Express> {
   });
 
   const csrf = createCsrf(sessionSecret, secureTransport);
-  app.use("/api", apiRoutes({ db, pool, passport, csrf, sessionCookie: sessionCookieName(secureTransport) }));
+  app.use("/api", apiRoutes({ db, pool, passport, csrf, sessionCookie: sessionCookieName(secureTransport), queue: options.queue ?? null, publicUrl: options.publicUrl }));
   app.use(publicFileRoutes(db, options.publicUrl));
   if (options.pages !== false) app.use(await pageRoutes({ root: projectRoot, production, csrf, db, publicUrl: options.publicUrl }));
 

@@ -4,6 +4,7 @@ import { testDatabaseUrl, testSessionSecret } from "./app";
 
 export type { RunningServer };
 
-export function startProductionServer(): Promise<RunningServer> {
-  return start({ databaseUrl: testDatabaseUrl(), sessionSecret: testSessionSecret });
+/** `port` to start again where a stopped one listened; `env` for settings such as SMTP_URL. */
+export function startProductionServer(options: { port?: number; env?: Record<string, string> } = {}): Promise<RunningServer> {
+  return start({ databaseUrl: testDatabaseUrl(), sessionSecret: testSessionSecret, ...options });
 }

@@ -11,6 +11,8 @@ import type { DatasetIssue } from "#core/nma/types";
 import { outcomeInput, outcomePatch } from "#core/outcome";
 import type { Readiness } from "#core/readiness";
 import { reviewDecisions } from "#core/status";
+import { locales, translationLocales } from "#core/locales";
+import { roleNames } from "#core/roles";
 import type { briefWithOutcomes, listBriefs } from "#db/briefs";
 import type { OutcomeRow } from "#db/outcomes";
 import type { Person } from "#db/people";
@@ -26,6 +28,39 @@ export const credentialsBody = z.object({
   email: z.string().trim().min(1, "Enter your e-mail address.").max(320),
   password: z.string().min(1, "Enter your password.").max(1024),
 });
+
+/**
+ * A new password: at least 12 characters, any characters, no composition rules (common practice,
+ * after NIST SP 800-63B's advice to favour length over composition); 200 at most, as argon2 reads it all.
+ */
+const newPassword = z.string().min(12, "Choose a password of at least 12 characters.").max(200);
+
+export const inviteBody = z.object({
+  email: z.string().trim().toLowerCase().email("Enter an e-mail address.").max(320),
+  displayName: z.string().trim().min(1).max(120),
+  roles: z.array(z.enum(roleNames)).min(1, "Choose at least one role.").max(roleNames.length),
+  translationLocales: z.array(z.enum(translationLocales)).max(translationLocales.length).default([]),
+  locale: z.enum(locales).default("en"),
+});
+
+export const changePersonBody = z
+  .object({
+    roles: z.array(z.enum(roleNames)).max(roleNames.length),
+    translationLocales: z.array(z.enum(translationLocales)).max(translationLocales.length),
+    locale: z.enum(locales),
+    active: z.boolean(),
+  })
+  .partial()
+  .refine((changes) => Object.keys(changes).length > 0, "Send at least one of roles, translationLocales, locale, active.");
+
+export const accountBody = z
+  .object({ displayName: z.string().trim().min(1).max(120), currentPassword: z.string().max(1024), newPassword })
+  .partial()
+  .refine((changes) => changes.newPassword === undefined || changes.currentPassword !== undefined, { message: "Enter your current password to choose a new one.", path: ["currentPassword"] });
+
+export const passwordResetBody = z.object({ email: z.string().trim().min(1, "Enter your e-mail address.").max(320) });
+
+export const newPasswordBody = z.object({ token: z.string().max(200), password: newPassword });
 
 /** A row version as the database stores it (PostgreSQL's integer). */
 export const rowVersion = z.number().int().positive().max(2_147_483_647);

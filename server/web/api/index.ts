@@ -11,6 +11,10 @@ import { outcomeRoutes } from "./outcomes";
 import { versionRoutes } from "./versions";
 import { peopleRoutes } from "./people";
 import { sessionRoutes } from "./session";
+import { accountRoutes } from "./account";
+import { siteUrl } from "../public/routes";
+import type { Queue } from "#workflows/queue";
+import type { AccountContext } from "#workflows/accounts";
 
 export interface ApiDependencies {
   db: Database;
@@ -19,9 +23,14 @@ export interface ApiDependencies {
   csrf: ReturnType<typeof createCsrf>;
   /** The session cookie's name, which signing out clears. */
   sessionCookie: string;
+  /** The job queue (e-mail); null where none runs, and then messages stay queued. */
+  queue: Queue | null;
+  /** The address readers use, for links in e-mails; the request's own address when unset. */
+  publicUrl?: string;
 }
 
-export function apiRoutes({ db, pool, passport, csrf, sessionCookie }: ApiDependencies): Router {
+export function apiRoutes({ db, pool, passport, csrf, sessionCookie, queue, publicUrl }: ApiDependencies): Router {
+  const accounts = (req: Request): AccountContext => ({ db, queue, siteUrl: siteUrl(req, publicUrl) });
   const api = Router();
   // Answers depend on who asks (drafts, the press room, embargoed versions): no shared cache keeps them.
   api.use((_req, res, next) => {
@@ -52,7 +61,8 @@ export function apiRoutes({ db, pool, passport, csrf, sessionCookie }: ApiDepend
   });
 
   api.use("/session", sessionRoutes(db, passport, sessionCookie));
-  api.use("/people", peopleRoutes(db));
+  api.use(peopleRoutes(accounts));
+  api.use(accountRoutes(accounts));
   api.use(briefRoutes(db));
   api.use(versionRoutes(db));
   api.use(outcomeRoutes(db));

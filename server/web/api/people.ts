@@ -1,13 +1,46 @@
-import { Router } from "express";
+// People, for administrators: invite, change roles and locales, deactivate, send an invitation again,
+// and the delivery state of every e-mail.
+import { Router, type Request } from "express";
+import type { z } from "zod";
+import { findPersonRecord, listPeople } from "#db/people";
+import { listMessages } from "#db/messages";
+import { changePerson, invitePerson, resendInvitation, type AccountContext } from "#workflows/accounts";
 import { guard } from "../auth/require-role";
-import type { Database } from "#db/client";
-import { listPeople } from "#db/people";
+import { rejectMalformedId, sendError, validateBody } from "../http/errors";
+import { changePersonBody, inviteBody } from "./contract";
 
-/** People and their roles: administrators only. */
-export function peopleRoutes(db: Database): Router {
+export function peopleRoutes(context: (req: Request) => AccountContext): Router {
   const router = Router();
-  router.get("/", guard("GET /api/people"), async (_req, res) => {
-    res.json({ people: await listPeople(db) });
+  router.param("id", rejectMalformedId);
+
+  router.get("/people", guard("GET /api/people"), async (req, res) => {
+    res.json({ people: await listPeople(context(req).db) });
   });
+
+  router.post("/people", guard("POST /api/people"), validateBody(inviteBody), async (req, res) => {
+    const outcome = await invitePerson(context(req), req.body as z.infer<typeof inviteBody>, req.user!);
+    if (!outcome.ok) return sendError(res, 409, { key: "errors.people.taken", message: "Someone already has an account with that e-mail address.", details: [{ field: "email", message: "taken" }] });
+    res.status(201).json({ person: await findPersonRecord(context(req).db, outcome.person.id) });
+  });
+
+  router.patch("/people/:id", guard("PATCH /api/people/:id"), validateBody(changePersonBody), async (req, res) => {
+    const outcome = await changePerson(context(req), String(req.params.id), req.body as z.infer<typeof changePersonBody>, req.user!);
+    if (outcome.ok) return res.json({ person: await findPersonRecord(context(req).db, outcome.person.id) });
+    if (outcome.reason === "not-found") return sendError(res, 404, { key: "errors.notFound", message: "There is no such person." });
+    if (outcome.reason === "self") return sendError(res, 409, { key: "errors.people.self", message: "You cannot deactivate your own account: ask another administrator." });
+    sendError(res, 409, { key: "errors.people.lastAdmin", message: "This would leave nobody able to administer the site: give another active person the role admin first." });
+  });
+
+  router.post("/people/:id/invitation", guard("POST /api/people/:id/invitation"), async (req, res) => {
+    const outcome = await resendInvitation(context(req), String(req.params.id), req.user!);
+    if (outcome.ok) return res.status(202).json({ sent: true });
+    if (outcome.reason === "not-found") return sendError(res, 404, { key: "errors.notFound", message: "There is no such person." });
+    sendError(res, 409, { key: "errors.people.accepted", message: "This person has already set a password: they can reset it from the sign-in page." });
+  });
+
+  router.get("/messages", guard("GET /api/messages"), async (req, res) => {
+    res.json({ messages: await listMessages(context(req).db) });
+  });
+
   return router;
 }

@@ -85,3 +85,34 @@ export function tooManyAttempts(res: Response): void {
     message: "Too many failed sign-ins. Wait a minute, then try again.",
   });
 }
+
+/**
+ * Asking for reset links: twenty requests per address and five per e-mail in ten minutes, counted
+ * whatever their outcome, so that nobody can flood an inbox (common practice).
+ */
+export function resetRequestLimits(onLimited: (req: Request, res: Response) => void): RequestHandler[] {
+  const common = { windowMs: 10 * 60_000, standardHeaders: "draft-8" as const, legacyHeaders: false, handler: (req: Request, res: Response) => onLimited(req, res) };
+  return [
+    rateLimit({ ...common, limit: 20, keyGenerator: (req) => `reset:${ipKeyGenerator(req.ip ?? "unknown")}` }),
+    rateLimit({ ...common, limit: 5, keyGenerator: (req) => `reset-email:${String(req.body?.email ?? "").trim().toLowerCase()}` }),
+  ];
+}
+
+/**
+ * Using one-time links: ten links that did not work per address in ten minutes (the route marks them
+ * with `linkRefused`), so that nobody tries tokens at speed; links that work do not count.
+ */
+export function linkLimits(onLimited: (req: Request, res: Response) => void): RequestHandler[] {
+  return [
+    rateLimit({
+      windowMs: 10 * 60_000,
+      limit: 10,
+      standardHeaders: "draft-8",
+      legacyHeaders: false,
+      skipSuccessfulRequests: true,
+      requestWasSuccessful: (_req: Request, res: Response) => res.locals.linkRefused !== true,
+      keyGenerator: (req) => `link:${ipKeyGenerator(req.ip ?? "unknown")}`,
+      handler: (req: Request, res: Response) => onLimited(req, res),
+    }),
+  ];
+}

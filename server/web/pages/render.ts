@@ -14,7 +14,7 @@ import { admits, pageAccess } from "#core/access";
 import { encode, etagOf, PageCache, StateMemo, type CachedPage, type Encodings } from "./page-cache";
 
 /** Pages whose HTML carries a CSRF token, because they hold a form that posts without JavaScript. */
-const pagesWithForms = new Set(["/sign-in"]);
+const holdsForm = (path: string) => path === "/sign-in" || path === "/password-reset" || /^\/(password-reset|invitation)\/[^/]+$/.test(path);
 
 /**
  * What a page's +data may say about its HTTP answer: a status other than 200 (410 for a withdrawn
@@ -140,7 +140,7 @@ export async function pageRoutes(options: {
   /** Renders the page; one that says how it may be cached in memory is kept under `key`. */
   async function renderAndKeep(req: Request, res: Response, key: string | null) {
     let csrfToken: string | undefined;
-    if (pagesWithForms.has(req.path)) {
+    if (holdsForm(req.path)) {
       req.session.csrfIssued = true;
       csrfToken = csrf.generateCsrfToken(req, res, { overwrite: false });
     }

@@ -1,0 +1,3 @@
+import type { Config } from "vike/types";
+
+export default { title: "Reset your password · Fairweigh" } satisfies Config;

@@ -1,0 +1,57 @@
+// The e-mails the product sends, composed from locales/<locale>/mail.json: a plain-text part and an
+// HTML part of the same words, in the recipient's language. Pure: the queue sends what this returns.
+import i18next, { type TFunction } from "i18next";
+import en from "../../locales/en/mail.json";
+import { localeOf, type Locale } from "./locales";
+import type { Role } from "./roles";
+
+export interface Message {
+  kind: string;
+  recipient: string;
+  locale: Locale;
+  subject: string;
+  text: string;
+  html: string;
+  headers?: Record<string, string>;
+}
+
+const translator = i18next.createInstance();
+void translator.init({ resources: { en: { mail: en } }, ns: ["mail"], defaultNS: "mail", fallbackLng: "en", initAsync: false, interpolation: { escapeValue: false } });
+
+const t = (locale: Locale): TFunction => translator.getFixedT(locale, "mail");
+
+const escapeHtml = (text: string) => text.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`);
+
+/** Paragraphs and one link, as plain text and as simple HTML (no images, no tracking). */
+function compose(locale: Locale, subject: string, paragraphs: string[], action: { label: string; url: string }, after: string[]) {
+  const words = t(locale);
+  const text = [...paragraphs, "", `${action.label}: ${action.url}`, "", ...after, "", "-- ", words("signature"), words("footer")].join("\n");
+  const p = (line: string) => `<p>${escapeHtml(line)}</p>`;
+  const html = `<!doctype html><html lang="${locale}"><head><meta charset="utf-8"><title>${escapeHtml(subject)}</title></head><body style="font-family: Georgia, serif; max-width: 36em">${paragraphs.map(p).join("")}<p><a href="${escapeHtml(action.url)}">${escapeHtml(action.label)}</a></p>${after.map(p).join("")}<hr><p style="color:#555">${escapeHtml(words("signature"))}<br>${escapeHtml(words("footer"))}</p></body></html>`;
+  return { subject, text, html };
+}
+
+const utc = (date: Date) => date.toISOString().slice(0, 16).replace("T", " ");
+
+export function invitationMessage(input: { recipient: string; name: string; inviter: string; roles: Role[]; link: string; expires: Date; locale?: string }): Message {
+  const locale = localeOf(input.locale);
+  const words = t(locale);
+  const roles = input.roles.map((role) => words(`role.${role}`)).join(", ");
+  return {
+    kind: "invitation",
+    recipient: input.recipient,
+    locale,
+    ...compose(locale, words("invitation.subject"), [words("invitation.greeting", { name: input.name }), words("invitation.body", { inviter: input.inviter, roles })], { label: words("invitation.action"), url: input.link }, [words("invitation.expiry", { expires: utc(input.expires) })]),
+  };
+}
+
+export function passwordResetMessage(input: { recipient: string; name: string; link: string; expires: Date; locale?: string }): Message {
+  const locale = localeOf(input.locale);
+  const words = t(locale);
+  return {
+    kind: "password-reset",
+    recipient: input.recipient,
+    locale,
+    ...compose(locale, words("passwordReset.subject"), [words("passwordReset.greeting", { name: input.name }), words("passwordReset.body")], { label: words("passwordReset.action"), url: input.link }, [words("passwordReset.expiry", { expires: utc(input.expires) })]),
+  };
+}

@@ -1,0 +1,45 @@
+// The job queue for background work, kept in PostgreSQL by pg-boss (its own schema, `pgboss`): a job
+// survives a restart of the server, and a failed one is retried with exponential back-off
+// (docs/decisions/0020-mail-through-a-queue.md). E-mail is its first use.
+import PgBoss from "pg-boss";
+
+export interface QueueOptions {
+  /** How often a failing job is tried again, and the first delay in seconds (doubling each time). */
+  retryLimit: number;
+  retryDelaySeconds: number;
+}
+
+/** The defaults: 12 retries from 10 s doubling, about 11 hours in all before a job is given up. */
+export const defaultQueueOptions: QueueOptions = { retryLimit: 12, retryDelaySeconds: 10 };
+
+export interface Queue {
+  send(name: string, data: object, singletonKey?: string): Promise<void>;
+  work<T extends object>(name: string, handler: (job: { data: T; retryCount: number; retryLimit: number }) => Promise<void>): Promise<void>;
+  stop(): Promise<void>;
+}
+
+export async function startQueue(databaseUrl: string, options: QueueOptions = defaultQueueOptions, onError: (error: Error) => void = () => {}): Promise<Queue> {
+  const boss = new PgBoss({ connectionString: databaseUrl, schema: "pgboss", max: 4 });
+  boss.on("error", onError);
+  await boss.start();
+  const ensureQueue = async (name: string) => {
+    if (await boss.getQueue(name)) return;
+    await boss.createQueue(name).catch(async (error: unknown) => {
+      // Another process created it at the same moment.
+      if (!(await boss.getQueue(name))) throw error;
+    });
+  };
+  return {
+    async send(name, data, singletonKey) {
+      await ensureQueue(name);
+      await boss.send(name, data, { retryLimit: options.retryLimit, retryDelay: options.retryDelaySeconds, retryBackoff: true, singletonKey });
+    },
+    async work(name, handler) {
+      await ensureQueue(name);
+      await boss.work<object>(name, { includeMetadata: true, batchSize: 1, pollingIntervalSeconds: 0.5 }, async ([job]) => {
+        if (job) await handler({ data: job.data as never, retryCount: job.retryCount, retryLimit: job.retryLimit });
+      });
+    },
+    stop: () => boss.stop({ graceful: true, timeout: 5000 }),
+  };
+}

@@ -1,0 +1,184 @@
+// People and e-mail against a real SMTP conversation with the fake mailbox (scripts/lib/mailbox.ts):
+// an invitation arrives and its link works exactly once; a password reset answers the same for every
+// address and its link works once; a deactivated person's session is refused at once; e-mail waits
+// out an SMTP outage and a server restart in the queue, and arrives afterwards.
+import pg from "pg";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { demoPassword } from "#workflows/seed";
+import { startMailbox, type Mailbox } from "../../scripts/lib/mailbox";
+import { ApiClient } from "../support/client";
+import { testDatabaseUrl } from "../support/app";
+import { startProductionServer, type RunningServer } from "../support/production-server";
+
+let mailbox: Mailbox;
+let server: RunningServer;
+let port: number;
+let admin: ApiClient;
+const run = Date.now().toString(36);
+const mailEnv = () => ({ SMTP_URL: mailbox.url, MAIL_RETRY_DELAY_SECONDS: "1" });
+
+beforeAll(async () => {
+  mailbox = await startMailbox();
+  server = await startProductionServer({ env: mailEnv() });
+  port = Number(new URL(server.url).port);
+  admin = new ApiClient(server.url);
+  expect((await admin.signIn("admin@fairweigh.example", demoPassword)).status).toBe(200);
+}, 60_000);
+afterAll(async () => {
+  await server?.stop();
+  await mailbox?.stop();
+});
+
+/** The one link of a message's plain-text part that points at this site. */
+const linkIn = (text: string) => new URL(/https?:\/\/\S+\/(invitation|password-reset)\/[A-Za-z0-9_-]+/.exec(text)![0]);
+
+/** Sets a password through the form the link opens, as a browser without JavaScript would. */
+async function choosePassword(link: URL, password: string) {
+  const client = new ApiClient(server.url);
+  const page = await fetch(`${server.url}${link.pathname}`, { headers: { cookie: client.cookieHeader } });
+  client.cookieHeader = page.headers.getSetCookie().map((c) => c.split(";")[0]).join("; ");
+  const csrf = /name="_csrf" value="([^"]+)"/.exec(await page.text())![1]!;
+  const answer = await fetch(`${server.url}/api/account/password`, {
+    method: "POST",
+    headers: { "content-type": "application/x-www-form-urlencoded", cookie: client.cookieHeader },
+    body: new URLSearchParams({ _csrf: csrf, token: link.pathname.split("/").pop()!, password, from: link.pathname }),
+    redirect: "manual",
+  });
+  return answer.headers.get("location") ?? "";
+}
+
+describe("invitations", () => {
+  it("arrive with the right recipient, subject and a link that sets the password exactly once", async () => {
+    const email = `translator-${run}@example.org`;
+    const invited = await admin.request("POST", "/api/people", { json: { email, displayName: "Tess Translator", roles: ["translator"], translationLocales: ["es", "ar"] } });
+    expect(invited.status).toBe(201);
+    expect(invited.body.person).toMatchObject({ email, roles: ["translator"], translationLocales: ["es", "ar"], active: true, passwordSet: false });
+
+    const mail = await mailbox.waitFor(email);
+    expect(mail.subject).toBe("You are invited to Fairweigh");
+    expect(mail.text).toContain("Demo administrator has invited you to Fairweigh as translator");
+    expect(mail.html).toContain("<a href=");
+    const link = linkIn(mail.text);
+    expect(link.pathname).toMatch(/^\/invitation\//);
+
+    // Before the password is set nobody can sign in; after, the person can; the link is then spent.
+    expect((await new ApiClient(server.url).signIn(email, "a long enough password")).status).toBe(401);
+    expect(await choosePassword(link, "a long enough password")).toBe("/sign-in?done=password");
+    expect((await new ApiClient(server.url).signIn(email, "a long enough password")).status).toBe(200);
+    expect(await choosePassword(link, "another long password")).toContain("error=link");
+
+    // The message's state is visible to administrators, never its body (it held the link).
+    const messages = (await admin.request("GET", "/api/messages")).body.messages as { recipient: string; state: string; attempts: number; kind: string }[];
+    expect(messages.find((m) => m.recipient === email)).toMatchObject({ kind: "invitation", state: "sent", attempts: 1 });
+    expect(JSON.stringify(messages)).not.toContain(link.pathname);
+  });
+
+  it("an address that has an account is refused, naming the field", async () => {
+    const answer = await admin.request("POST", "/api/people", { json: { email: "EDITOR@fairweigh.example", displayName: "Again", roles: ["editor"] } });
+    expect(answer.status).toBe(409);
+    expect(answer.body.error).toMatchObject({ key: "errors.people.taken", details: [{ field: "email" }] });
+  });
+
+  it("sent again, the new link works and the old one no longer does", async () => {
+    const email = `press-${run}@example.org`;
+    const { body } = await admin.request("POST", "/api/people", { json: { email, displayName: "Pat Press", roles: ["press"] } });
+    const first = linkIn((await mailbox.waitFor(email)).text);
+    expect((await admin.request("POST", `/api/people/${(body.person as { id: string }).id}/invitation`)).status).toBe(202);
+    const second = linkIn((await mailbox.waitFor(email, (m) => !m.text.includes(first.pathname))).text);
+    expect(await choosePassword(first, "a long enough password")).toContain("error=link");
+    expect(await choosePassword(second, "a long enough password")).toBe("/sign-in?done=password");
+  });
+});
+
+describe("password reset", () => {
+  it("answers exactly the same for a known and an unknown address", async () => {
+    const ask = (email: string) => new ApiClient(server.url).request("POST", "/api/password-reset", { json: { email } });
+    const known = await ask("analyst@fairweigh.example");
+    const unknown = await ask(`nobody-${run}@example.org`);
+    expect([known.status, unknown.status]).toEqual([202, 202]);
+    expect(unknown.body).toEqual(known.body);
+    await mailbox.waitFor("analyst@fairweigh.example", (m) => m.subject === "Choose a new Fairweigh password");
+    // Only the known address gets a message.
+    await new Promise((resolve) => setTimeout(resolve, 1500));
+    expect(mailbox.messages().some((m) => m.to.includes(`nobody-${run}`))).toBe(false);
+  });
+
+  it("a reset link works once, ends the person's sessions, and an expired one never works", async () => {
+    const email = `reset-${run}@example.org`;
+    await admin.request("POST", "/api/people", { json: { email, displayName: "Rae Reset", roles: ["analyst"] } });
+    expect(await choosePassword(linkIn((await mailbox.waitFor(email)).text), "the first long password")).toBe("/sign-in?done=password");
+    const signedIn = new ApiClient(server.url);
+    expect((await signedIn.signIn(email, "the first long password")).status).toBe(200);
+
+    await new ApiClient(server.url).request("POST", "/api/password-reset", { json: { email } });
+    const link = linkIn((await mailbox.waitFor(email, (m) => m.subject.includes("new Fairweigh password"))).text);
+    expect(await choosePassword(link, "the second long password")).toBe("/sign-in?done=password");
+    expect((await signedIn.request("GET", "/api/session")).status).toBe(401);
+    expect((await new ApiClient(server.url).signIn(email, "the second long password")).status).toBe(200);
+    expect(await choosePassword(link, "a third long password")).toContain("error=link");
+
+    // An expired link: the database's clock says so.
+    await new ApiClient(server.url).request("POST", "/api/password-reset", { json: { email } });
+    const expired = linkIn((await mailbox.waitFor(email, (m) => m.subject.includes("new Fairweigh password") && !m.text.includes(link.pathname))).text);
+    const db = new pg.Client({ connectionString: testDatabaseUrl() });
+    await db.connect();
+    await db.query("update account_tokens set expires_at = now() - interval '1 second' where used_at is null and person_id = (select id from people where email = $1)", [email]);
+    await db.end();
+    expect(await choosePassword(expired, "a fourth long password")).toContain("error=link");
+  });
+});
+
+describe("deactivation", () => {
+  it("refuses the person's session at once, and they cannot sign in again", async () => {
+    const email = `leaver-${run}@example.org`;
+    const { body } = await admin.request("POST", "/api/people", { json: { email, displayName: "Lee Leaver", roles: ["editor"] } });
+    const id = (body.person as { id: string }).id;
+    await choosePassword(linkIn((await mailbox.waitFor(email)).text), "a long enough password");
+    const leaver = new ApiClient(server.url);
+    await leaver.signIn(email, "a long enough password");
+    expect((await leaver.request("GET", "/api/briefs")).status).toBe(200);
+    expect((await admin.request("PATCH", `/api/people/${id}`, { json: { active: false } })).status).toBe(200);
+    expect((await leaver.request("GET", "/api/briefs")).status).toBe(401);
+    expect((await new ApiClient(server.url).signIn(email, "a long enough password")).status).toBe(401);
+  });
+
+  it("never leaves the site without an active administrator, and nobody deactivates themselves", async () => {
+    const me = (await admin.request("GET", "/api/session")).body.person as { id: string };
+    expect((await admin.request("PATCH", `/api/people/${me.id}`, { json: { active: false } })).body.error?.key).toBe("errors.people.self");
+    const people = (await admin.request("GET", "/api/people")).body.people as { id: string; roles: string[]; active: boolean }[];
+    const admins = people.filter((p) => p.roles.includes("admin") && p.active);
+    if (admins.length === 1) {
+      const answer = await admin.request("PATCH", `/api/people/${me.id}`, { json: { roles: ["editor"] } });
+      expect(answer.status).toBe(409);
+      expect(answer.body.error?.key).toBe("errors.people.lastAdmin");
+    }
+  });
+});
+
+describe("e-mail through an outage", () => {
+  it("with the SMTP server down, an invitation still succeeds; the message arrives once it is back, and survives a server restart", async () => {
+    const outageStarted = Date.now();
+    await mailbox.stop();
+    const email = `outage-${run}@example.org`;
+    expect((await admin.request("POST", "/api/people", { json: { email, displayName: "Otto Outage", roles: ["analyst"] } })).status).toBe(201);
+    // The server restarts while the message waits: nothing is lost.
+    await new Promise((resolve) => setTimeout(resolve, 3000));
+    await server.stop();
+    server = await startProductionServer({ port, env: mailEnv() });
+    const messages = await (async () => {
+      const again = new ApiClient(server.url);
+      await again.signIn("admin@fairweigh.example", demoPassword);
+      admin = again;
+      return (await again.request("GET", "/api/messages")).body.messages as { recipient: string; state: string; attempts: number; lastError: string | null }[];
+    })();
+    const waiting = messages.find((m) => m.recipient === email)!;
+    expect(waiting.state).toBe("queued");
+    expect(waiting.attempts).toBeGreaterThanOrEqual(1);
+    expect(waiting.lastError).toBeTruthy();
+
+    mailbox = await startMailbox({ port: Number(new URL(mailbox.url).port) });
+    const mail = await mailbox.waitFor(email, undefined, 40_000);
+    expect(mail.subject).toBe("You are invited to Fairweigh");
+    console.log(`e-mail outage survived: ${((Date.now() - outageStarted) / 1000).toFixed(0)} s, with a server restart`);
+  }, 90_000);
+});
