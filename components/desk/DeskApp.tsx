@@ -5,6 +5,7 @@ import { BrowserRouter, Route, Routes } from "react-router";
 import { BriefScreen } from "./BriefScreen";
 import { CertaintyScreen } from "./CertaintyScreen";
 import { DeskHome } from "./DeskHome";
+import { PeopleScreen } from "./PeopleScreen";
 import { ResultsScreen } from "./ResultsScreen";
 import { useSignedInPerson, useSignOut } from "./queries";
 
@@ -61,6 +62,7 @@ function DeskRoutes({ person }: { person: NonNullable<ReturnType<typeof useSigne
       <Route path="briefs/:briefId" element={<BriefScreen personId={person.id} canAnalyse={person.roles.includes("analyst")} canEdit={person.roles.includes("editor")} />} />
       <Route path="briefs/:briefId/outcomes/:outcomeId" element={<ResultsScreen />} />
       <Route path="briefs/:briefId/outcomes/:outcomeId/certainty" element={<CertaintyScreen canJudge={person.roles.includes("analyst")} />} />
+      {person.roles.includes("admin") ? <Route path="people" element={<PeopleScreen selfId={person.id} />} /> : null}
       <Route path="*" element={<p>{t("desk.notFound")}</p>} />
     </Routes>
   );

@@ -1,5 +1,5 @@
 import { useTranslation } from "react-i18next";
-import { useNavigate } from "react-router";
+import { Link, useNavigate } from "react-router";
 import type { SignedInPerson } from "./api";
 import { BriefList } from "./BriefList";
 import { NewBriefForm } from "./NewBriefForm";
@@ -29,6 +29,11 @@ export function DeskHome({ person }: { person: SignedInPerson }) {
           <h2 className="mb-3 font-sans text-sm font-semibold uppercase tracking-wide">{t("desk.briefs")}</h2>
           {briefs.data ? <BriefList briefs={briefs.data} /> : <p aria-live="polite">{t("desk.loading")}</p>}
         </section>
+      ) : null}
+      {person.roles.includes("admin") ? (
+        <p className="mt-8 font-sans">
+          <Link to="/people">{t("desk.people.link")}</Link>
+        </p>
       ) : null}
       {person.roles.includes("press") || person.roles.includes("editor") ? <PressRoom /> : null}
       {person.roles.includes("analyst") ? (

@@ -3,6 +3,8 @@ import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import type { Format } from "#core/nma/types";
 import type {
   ApiAnswers,
+  ChangePersonBody,
+  InviteBody,
   CreateBriefBody,
   CreateOutcomeBody,
   JudgementBody,
@@ -28,6 +30,8 @@ export const queryKeys = {
   reviews: (briefId: string) => ["reviews", briefId],
   readiness: (briefId: string) => ["readiness", briefId],
   pressRoom: ["press-room"],
+  people: ["people"],
+  messages: ["messages"],
 } as const;
 
 /** The signed-in person, or null when nobody is (a 401 is an answer here, not an error). */
@@ -224,3 +228,29 @@ export function useWithdraw(briefId: string) {
 export function usePressRoom() {
   return useQuery({ queryKey: queryKeys.pressRoom, queryFn: async () => (await callApi<ApiAnswers["pressRoom"]>("GET", "/api/press-room")).versions });
 }
+
+export function usePeople() {
+  return useQuery({ queryKey: queryKeys.people, queryFn: async () => (await callApi<ApiAnswers["people"]>("GET", "/api/people")).people });
+}
+
+/** The e-mails and their states, asked again every two seconds while one is still waiting to be sent. */
+export function useMessages() {
+  return useQuery({
+    queryKey: queryKeys.messages,
+    queryFn: async () => (await callApi<ApiAnswers["messages"]>("GET", "/api/messages")).messages,
+    refetchInterval: (query) => (query.state.data?.some((message) => message.state === "queued") ? 2000 : false),
+  });
+}
+
+/** Invitations, changes and re-sent invitations: each refreshes the people and the messages. */
+function usePeopleMutation<T>(call: (input: T) => Promise<unknown>) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: call,
+    onSuccess: () => Promise.all([queryClient.invalidateQueries({ queryKey: queryKeys.people }), queryClient.invalidateQueries({ queryKey: queryKeys.messages })]),
+  });
+}
+
+export const useInvite = () => usePeopleMutation((body: InviteBody) => callApi<ApiAnswers["person"]>("POST", "/api/people", body));
+export const useChangePerson = () => usePeopleMutation(({ id, ...body }: ChangePersonBody & { id: string }) => callApi<ApiAnswers["person"]>("PATCH", `/api/people/${id}`, body));
+export const useResendInvitation = () => usePeopleMutation((id: string) => callApi<unknown>("POST", `/api/people/${id}/invitation`));

@@ -15,7 +15,8 @@ import { locales, translationLocales } from "#core/locales";
 import { roleNames } from "#core/roles";
 import type { briefWithOutcomes, listBriefs } from "#db/briefs";
 import type { OutcomeRow } from "#db/outcomes";
-import type { Person } from "#db/people";
+import type { Person, PersonRecord } from "#db/people";
+import type { listMessages } from "#db/messages";
 import type { PressRoomEntry } from "#db/versions";
 import type { reviewHistory } from "#workflows/review";
 
@@ -115,6 +116,8 @@ export type ReviewBody = z.infer<typeof reviewBody>;
 export type PublishBody = z.infer<typeof publishBody>;
 export type WithdrawalBody = z.infer<typeof withdrawalBody>;
 export type RescheduleBody = z.infer<typeof rescheduleBody>;
+export type InviteBody = z.input<typeof inviteBody>;
+export type ChangePersonBody = z.infer<typeof changePersonBody>;
 
 // Answers --------------------------------------------------------------------------------------
 
@@ -150,6 +153,8 @@ export interface ApiAnswers {
   withdrawn: { status: "withdrawn" };
   rescheduled: { releaseAt: string };
   pressRoom: { versions: PressRoomVersion[] };
-  people: { people: Person[] };
+  people: { people: PersonRecord[] };
+  person: { person: PersonRecord };
+  messages: { messages: Json<Awaited<ReturnType<typeof listMessages>>> };
   readiness: Readiness;
 }
