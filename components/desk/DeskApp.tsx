@@ -6,6 +6,7 @@ import { BriefScreen } from "./BriefScreen";
 import { CertaintyScreen } from "./CertaintyScreen";
 import { DeskHome } from "./DeskHome";
 import { PeopleScreen } from "./PeopleScreen";
+import { AuditScreen } from "./AuditScreen";
 import { ResultsScreen } from "./ResultsScreen";
 import { useSignedInPerson, useSignOut } from "./queries";
 
@@ -63,6 +64,7 @@ function DeskRoutes({ person }: { person: NonNullable<ReturnType<typeof useSigne
       <Route path="briefs/:briefId/outcomes/:outcomeId" element={<ResultsScreen />} />
       <Route path="briefs/:briefId/outcomes/:outcomeId/certainty" element={<CertaintyScreen canJudge={person.roles.includes("analyst")} />} />
       {person.roles.includes("admin") ? <Route path="people" element={<PeopleScreen selfId={person.id} />} /> : null}
+      {person.roles.includes("admin") ? <Route path="audit" element={<AuditScreen />} /> : null}
       <Route path="*" element={<p>{t("desk.notFound")}</p>} />
     </Routes>
   );

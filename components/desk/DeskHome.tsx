@@ -32,7 +32,7 @@ export function DeskHome({ person }: { person: SignedInPerson }) {
       ) : null}
       {person.roles.includes("admin") ? (
         <p className="mt-8 font-sans">
-          <Link to="/people">{t("desk.people.link")}</Link>
+          <Link to="/people">{t("desk.people.link")}</Link> · <Link to="/audit">{t("desk.audit.link")}</Link>
         </p>
       ) : null}
       {person.roles.includes("press") || person.roles.includes("editor") ? <PressRoom /> : null}

@@ -1,8 +1,9 @@
 // TanStack Query hooks: the only place the desk's screens get their data from.
-import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
+import { useInfiniteQuery, useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import type { Format } from "#core/nma/types";
 import type {
   ApiAnswers,
+  AuditQuery,
   ChangePersonBody,
   InviteBody,
   CreateBriefBody,
@@ -32,6 +33,7 @@ export const queryKeys = {
   pressRoom: ["press-room"],
   people: ["people"],
   messages: ["messages"],
+  audit: (filter: AuditQuery) => ["audit", filter],
 } as const;
 
 /** The signed-in person, or null when nobody is (a 401 is an answer here, not an error). */
@@ -254,3 +256,16 @@ function usePeopleMutation<T>(call: (input: T) => Promise<unknown>) {
 export const useInvite = () => usePeopleMutation((body: InviteBody) => callApi<ApiAnswers["person"]>("POST", "/api/people", body));
 export const useChangePerson = () => usePeopleMutation(({ id, ...body }: ChangePersonBody & { id: string }) => callApi<ApiAnswers["person"]>("PATCH", `/api/people/${id}`, body));
 export const useResendInvitation = () => usePeopleMutation((id: string) => callApi<unknown>("POST", `/api/people/${id}/invitation`));
+
+/** The audit log, newest first, a page at a time (the cursor is the last entry's id). */
+export function useAudit(filter: Omit<AuditQuery, "before">) {
+  return useInfiniteQuery({
+    queryKey: queryKeys.audit(filter),
+    initialPageParam: null as number | null,
+    queryFn: ({ pageParam }) => {
+      const query = new URLSearchParams(Object.entries({ ...filter, before: pageParam ?? undefined }).filter(([, v]) => v !== undefined && v !== "").map(([k, v]) => [k, String(v)]));
+      return callApi<ApiAnswers["audit"]>("GET", `/api/audit?${query}`);
+    },
+    getNextPageParam: (page) => page.next,
+  });
+}

@@ -34,6 +34,7 @@ export const apiAccess = {
   },
   "POST /api/people/:id/invitation": { who: ["admin"], does: "send an invitation again (the earlier link stops working)" },
   "GET /api/messages": { who: ["admin"], does: "the e-mails sent and their delivery state" },
+  "GET /api/audit": { who: ["admin"], does: "the audit log: every change with who, when, what, before and after; filtered and paged" },
   "PATCH /api/account": { who: "signed-in", does: "change one's own display name or password" },
   "POST /api/password-reset": { who: "anyone", does: "ask for a password reset link (the same answer for every address; rate limited)" },
   "POST /api/account/password": { who: "anyone", does: "set a password from a one-time invitation or reset link (rate limited)" },

@@ -34,6 +34,13 @@ it("admin invites a translator → the e-mail's link → a password → the tran
   await admin.page.getByTestId("people").getByText(email).waitFor();
   await admin.page.getByTestId("messages").getByText(`You are invited to Fairweigh → ${email}: sent`).waitFor({ timeout: 15_000 });
   await keepScreenshot(admin.page, "invitation-1-admin-people");
+  // The invitation is in the audit log, found with the action filter.
+  await admin.page.goto(`${server.url}/desk/audit`);
+  await admin.page.getByLabel(en.desk.audit.action).selectOption("create");
+  const entry = admin.page.getByTestId("audit").locator("li", { hasText: "create person" }).first();
+  await entry.getByText(en.desk.audit.beforeAfter).click();
+  await entry.getByText(email).waitFor();
+  await keepScreenshot(admin.page, "invitation-2-admin-audit");
   expect(admin.errors).toEqual([]);
   await admin.close();
 
@@ -43,7 +50,7 @@ it("admin invites a translator → the e-mail's link → a password → the tran
   const page = await context.newPage();
   await page.goto(link);
   await page.getByRole("heading", { name: en.account.choose.invitationTitle }).waitFor();
-  await keepScreenshot(page, "invitation-2-choose-password");
+  await keepScreenshot(page, "invitation-3-choose-password");
   await page.getByLabel(en.account.choose.password).fill("four words make a password");
   await Promise.all([page.waitForURL(/\/sign-in\?done=password$/), page.getByRole("button", { name: en.account.choose.submit }).click()]);
   await page.getByText(en.signIn.done.password).waitFor();
@@ -51,6 +58,6 @@ it("admin invites a translator → the e-mail's link → a password → the tran
   await page.fill("input[name=password]", "four words make a password");
   await Promise.all([page.waitForURL(`${server.url}/desk`), page.click("button[type=submit]")]);
   await page.getByTestId("desk-person").getByText("Tomás Translator").waitFor();
-  await keepScreenshot(page, "invitation-3-translator-signed-in");
+  await keepScreenshot(page, "invitation-4-translator-signed-in");
   await context.close();
 }, 90_000);

@@ -34,6 +34,7 @@ const apiRequests: Record<keyof typeof apiAccess, { path: string; json?: unknown
   "PATCH /api/people/:id": { path: `/api/people/${nobody}`, json: {} },
   "POST /api/people/:id/invitation": { path: `/api/people/${nobody}/invitation` },
   "GET /api/messages": { path: "/api/messages" },
+  "GET /api/audit": { path: "/api/audit?limit=5" },
   "PATCH /api/account": { path: "/api/account", json: {} },
   "POST /api/password-reset": { path: "/api/password-reset", json: {} },
   "POST /api/account/password": { path: "/api/account/password", json: {} },

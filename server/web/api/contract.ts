@@ -17,6 +17,7 @@ import type { briefWithOutcomes, listBriefs } from "#db/briefs";
 import type { OutcomeRow } from "#db/outcomes";
 import type { Person, PersonRecord } from "#db/people";
 import type { listMessages } from "#db/messages";
+import type { listAudit } from "#db/audit";
 import type { PressRoomEntry } from "#db/versions";
 import type { reviewHistory } from "#workflows/review";
 
@@ -58,6 +59,17 @@ export const accountBody = z
   .object({ displayName: z.string().trim().min(1).max(120), currentPassword: z.string().max(1024), newPassword })
   .partial()
   .refine((changes) => changes.newPassword === undefined || changes.currentPassword !== undefined, { message: "Enter your current password to choose a new one.", path: ["currentPassword"] });
+
+const uuidParam = z.string().regex(/^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i, "not an id");
+
+/** GET /api/audit: filters by person, action and brief; `before` is the cursor of the next page. */
+export const auditQuery = z.object({
+  person: uuidParam.optional(),
+  action: z.string().max(60).optional(),
+  brief: uuidParam.optional(),
+  before: z.coerce.number().int().positive().max(Number.MAX_SAFE_INTEGER).optional(),
+  limit: z.coerce.number().int().min(1).max(200).default(50),
+});
 
 export const passwordResetBody = z.object({ email: z.string().trim().min(1, "Enter your e-mail address.").max(320) });
 
@@ -117,6 +129,7 @@ export type PublishBody = z.infer<typeof publishBody>;
 export type WithdrawalBody = z.infer<typeof withdrawalBody>;
 export type RescheduleBody = z.infer<typeof rescheduleBody>;
 export type InviteBody = z.input<typeof inviteBody>;
+export type AuditQuery = z.input<typeof auditQuery>;
 export type ChangePersonBody = z.infer<typeof changePersonBody>;
 
 // Answers --------------------------------------------------------------------------------------
@@ -156,5 +169,6 @@ export interface ApiAnswers {
   people: { people: PersonRecord[] };
   person: { person: PersonRecord };
   messages: { messages: Json<Awaited<ReturnType<typeof listMessages>>> };
+  audit: Json<Awaited<ReturnType<typeof listAudit>>> & { actions: string[] };
   readiness: Readiness;
 }

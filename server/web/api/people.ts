@@ -1,13 +1,14 @@
 // People, for administrators: invite, change roles and locales, deactivate, send an invitation again,
-// and the delivery state of every e-mail.
+// the delivery state of every e-mail, and the audit log of every change.
 import { Router, type Request } from "express";
 import type { z } from "zod";
 import { findPersonRecord, listPeople } from "#db/people";
 import { listMessages } from "#db/messages";
+import { auditActions, listAudit } from "#db/audit";
 import { changePerson, invitePerson, resendInvitation, type AccountContext } from "#workflows/accounts";
 import { guard } from "../auth/require-role";
-import { rejectMalformedId, sendError, validateBody } from "../http/errors";
-import { changePersonBody, inviteBody } from "./contract";
+import { rejectMalformedId, sendError, validateBody, validateQuery } from "../http/errors";
+import { auditQuery, changePersonBody, inviteBody } from "./contract";
 
 export function peopleRoutes(context: (req: Request) => AccountContext): Router {
   const router = Router();
@@ -40,6 +41,13 @@ export function peopleRoutes(context: (req: Request) => AccountContext): Router 
 
   router.get("/messages", guard("GET /api/messages"), async (req, res) => {
     res.json({ messages: await listMessages(context(req).db) });
+  });
+
+  router.get("/audit", guard("GET /api/audit"), validateQuery(auditQuery), async (req, res) => {
+    const query = res.locals.query as z.infer<typeof auditQuery>;
+    const db = context(req).db;
+    const page = await listAudit(db, { actorId: query.person, action: query.action, briefId: query.brief, before: query.before, limit: query.limit });
+    res.json({ ...page, actions: await auditActions(db) });
   });
 
   return router;

@@ -1,0 +1,74 @@
+// /desk/audit, for administrators: every change, who made it and when, with the record before and
+// after; filtered by person, brief and action, fifty at a time.
+import { useState } from "react";
+import { useTranslation } from "react-i18next";
+import { Field, inputClass } from "./forms";
+import { useAudit, useBriefs, usePeople } from "./queries";
+
+export function AuditScreen() {
+  const { t, i18n } = useTranslation();
+  const [filter, setFilter] = useState({ person: "", brief: "", action: "" });
+  const audit = useAudit(filter);
+  const people = usePeople();
+  const briefs = useBriefs();
+  const entries = audit.data?.pages.flatMap((page) => page.entries) ?? [];
+  const actions = audit.data?.pages[0]?.actions ?? [];
+  const when = new Intl.DateTimeFormat(i18n.language, { dateStyle: "medium", timeStyle: "medium", timeZone: "UTC" });
+  const choose = (name: keyof typeof filter) => (event: React.ChangeEvent<HTMLSelectElement>) => setFilter({ ...filter, [name]: event.target.value });
+
+  return (
+    <>
+      <h1 className="text-4xl font-semibold tracking-tight">{t("desk.audit.title")}</h1>
+      <form aria-label={t("desk.audit.filters")} className="mt-6 grid gap-4 font-sans sm:grid-cols-3" onSubmit={(event) => event.preventDefault()}>
+        <Field label={t("desk.audit.person")}>
+          <select className={inputClass} value={filter.person} onChange={choose("person")}>
+            <option value="">{t("desk.audit.anyone")}</option>
+            {people.data?.map((person) => (
+              <option key={person.id} value={person.id}>
+                {person.displayName}
+              </option>
+            ))}
+          </select>
+        </Field>
+        <Field label={t("desk.audit.brief")}>
+          <select className={inputClass} value={filter.brief} onChange={choose("brief")}>
+            <option value="">{t("desk.audit.anyBrief")}</option>
+            {briefs.data?.map((brief) => (
+              <option key={brief.id} value={brief.id}>
+                {brief.title}
+              </option>
+            ))}
+          </select>
+        </Field>
+        <Field label={t("desk.audit.action")}>
+          <select className={inputClass} value={filter.action} onChange={choose("action")}>
+            <option value="">{t("desk.audit.anyAction")}</option>
+            {actions.map((action) => (
+              <option key={action} value={action}>
+                {action}
+              </option>
+            ))}
+          </select>
+        </Field>
+      </form>
+      {audit.isError ? <p role="alert">{t("desk.error", { message: audit.error.message })}</p> : null}
+      <ol className="mt-6 divide-y divide-rule font-sans text-sm" data-testid="audit">
+        {entries.map((entry) => (
+          <li key={entry.id} className="py-2">
+            <span className="text-muted">{when.format(new Date(entry.at))} UTC</span> · {entry.actorName ?? t("desk.audit.system")} · <strong>{entry.action}</strong> {entry.entity} <code>{entry.entityId}</code>
+            <details className="mt-1">
+              <summary className="cursor-pointer">{t("desk.audit.beforeAfter")}</summary>
+              <pre className="mt-1 overflow-x-auto bg-white p-2 text-xs">{JSON.stringify({ before: entry.before, after: entry.after }, null, 2)}</pre>
+            </details>
+          </li>
+        ))}
+      </ol>
+      {audit.data && entries.length === 0 ? <p className="mt-4">{t("desk.audit.empty")}</p> : null}
+      {audit.hasNextPage ? (
+        <button type="button" className="mt-4 underline" disabled={audit.isFetchingNextPage} onClick={() => void audit.fetchNextPage()}>
+          {t("desk.audit.older")}
+        </button>
+      ) : null}
+    </>
+  );
+}
