@@ -8,13 +8,16 @@ import { migrateDatabase } from "#db/migrate";
 import { defaultQueueOptions, startQueue } from "#workflows/queue";
 import { startMailWorker } from "#workflows/mail";
 import { startAccountWorker } from "#workflows/accounts";
+import { startReleaseWorker } from "#workflows/alerts";
 
 export async function startServer(config: ServerConfig): Promise<{ url: string; close(): Promise<void> }> {
   const connection = connectDatabase(config.databaseUrl);
   await migrateDatabase(connection.db);
   // The job queue runs in the server's process: e-mail is delivered only where SMTP_URL says how.
   const queue = await startQueue(config.databaseUrl, { ...defaultQueueOptions, retryDelaySeconds: config.mailRetryDelaySeconds }, (error) => console.error("queue:", error.message));
-  await startAccountWorker({ db: connection.db, queue, siteUrl: config.publicUrl });
+  const mail = { db: connection.db, queue, siteUrl: config.publicUrl };
+  await startAccountWorker(mail);
+  await startReleaseWorker(mail);
   if (config.smtpUrl) await startMailWorker(queue, connection.db, config.smtpUrl);
   else console.warn("SMTP_URL is not set: e-mails are stored and wait in the queue until it is.");
   const app = await createApp({

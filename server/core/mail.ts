@@ -55,3 +55,63 @@ export function passwordResetMessage(input: { recipient: string; name: string; l
     ...compose(locale, words("passwordReset.subject"), [words("passwordReset.greeting", { name: input.name }), words("passwordReset.body")], { label: words("passwordReset.action"), url: input.link }, [words("passwordReset.expiry", { expires: utc(input.expires) })]),
   };
 }
+
+/** A time as the recipient reads it: their language, their time zone. */
+function localTime(at: Date, locale: Locale, timeZone: string): string {
+  return new Intl.DateTimeFormat(locale, { dateStyle: "long", timeStyle: "short", timeZone }).format(at);
+}
+
+interface Recipient {
+  email: string;
+  displayName: string;
+  locale?: string;
+  timeZone?: string;
+}
+
+interface Announced {
+  title: string;
+  number: number;
+  releaseAt: Date;
+  note: string | null;
+}
+
+/** To the press when a version is scheduled: the embargo's end in the reporter's time zone. */
+export function pressAlertMessage(to: Recipient, version: Announced, link: string): Message {
+  const locale = localeOf(to.locale);
+  const words = t(locale);
+  const zone = to.timeZone ?? "UTC";
+  const values = { name: to.displayName, title: version.title, version: version.number, time: localTime(version.releaseAt, locale, zone), zone, note: version.note };
+  return {
+    kind: "press-alert",
+    recipient: to.email,
+    locale,
+    ...compose(locale, words("pressAlert.subject", values), [words("pressAlert.greeting", values), words("pressAlert.body", values), ...(version.note ? [words("pressAlert.note", values)] : [])], { label: words("pressAlert.action"), url: link }, []),
+  };
+}
+
+/** To the press when a version becomes public. */
+export function releaseAlertMessage(to: Recipient, version: Announced, link: string): Message {
+  const locale = localeOf(to.locale);
+  const words = t(locale);
+  const zone = to.timeZone ?? "UTC";
+  const values = { name: to.displayName, title: version.title, version: version.number, time: localTime(version.releaseAt, locale, zone), zone };
+  return {
+    kind: "release-alert",
+    recipient: to.email,
+    locale,
+    ...compose(locale, words("releaseAlert.subject", values), [words("releaseAlert.greeting", values), words("releaseAlert.body", values)], { label: words("releaseAlert.action"), url: link }, []),
+  };
+}
+
+/** To a translator when a version is released: the locales they translate it into. */
+export function translationRequestMessage(to: Recipient & { translationLocales: string[] }, version: Announced, link: string): Message {
+  const locale = localeOf(to.locale);
+  const words = t(locale);
+  const values = { name: to.displayName, title: version.title, version: version.number, locales: to.translationLocales.join(", ") };
+  return {
+    kind: "translation-request",
+    recipient: to.email,
+    locale,
+    ...compose(locale, words("translationRequest.subject", values), [words("translationRequest.greeting", values), words("translationRequest.body", values)], { label: words("translationRequest.action"), url: link }, []),
+  };
+}

@@ -18,6 +18,8 @@ export interface Person {
   locale: string;
   /** For translators: the locales they may translate into. */
   translationLocales: string[];
+  /** The IANA time zone of times in their e-mails. */
+  timeZone: string;
 }
 
 /** A person as administrators see them: also whether they are active and have accepted the invitation. */
@@ -102,7 +104,7 @@ export async function insertPerson(
 export async function updatePerson(
   tx: Executor,
   id: string,
-  changes: { roles?: Role[]; translationLocales?: string[]; locale?: string; displayName?: string; active?: boolean },
+  changes: { roles?: Role[]; translationLocales?: string[]; locale?: string; displayName?: string; timeZone?: string; active?: boolean },
   actorId: string,
 ): Promise<Person | null> {
   const before = await tx.query.people.findFirst({ where: eq(people.id, id) });
@@ -141,6 +143,16 @@ export async function endSessions(tx: Executor, personId: string, keep?: string)
   await tx.delete(sessions).where(keep ? and(mine, sql`${sessions.sid} <> ${keep}`) : mine);
 }
 
+/** The active people holding a role: the recipients of alerts. */
+export async function activePeopleWithRole(db: Executor, role: Role): Promise<Person[]> {
+  const rows = await db
+    .select({ person: people })
+    .from(people)
+    .innerJoin(personRoles, eq(personRoles.personId, people.id))
+    .where(and(eq(personRoles.role, role), isNull(people.deactivatedAt), sql`${people.passwordHash} is not null`));
+  return Promise.all(rows.map(({ person }) => withRoles(db, person)));
+}
+
 /** How many active administrators there are, so that the last one cannot be removed. */
 export async function activeAdminCount(db: Executor): Promise<number> {
   const [row] = await db
@@ -152,7 +164,7 @@ export async function activeAdminCount(db: Executor): Promise<number> {
 }
 
 function personOf(row: typeof people.$inferSelect, roles: Role[]): Person {
-  return { id: row.id, email: row.email, displayName: row.displayName, roles: [...roles].sort(), locale: row.locale, translationLocales: row.translationLocales };
+  return { id: row.id, email: row.email, displayName: row.displayName, roles: [...roles].sort(), locale: row.locale, translationLocales: row.translationLocales, timeZone: row.timeZone };
 }
 
 async function withRoles(db: Executor, row: typeof people.$inferSelect): Promise<Person> {

@@ -33,6 +33,8 @@ export const people = pgTable("people", {
   passwordHash: text("password_hash"),
   /** The language of the person's e-mails. */
   locale: text("locale").notNull().default("en"),
+  /** The IANA time zone times are shown in, in their e-mails (an embargo's end). */
+  timeZone: text("time_zone").notNull().default("UTC"),
   /** For translators: the locales they may translate into. */
   translationLocales: text("translation_locales").array().notNull().default(sql`'{}'::text[]`),
   /** A deactivated person cannot sign in, and their sessions end at once. */
@@ -316,3 +318,14 @@ export const briefReviews = pgTable(
   },
   (table) => [index("brief_reviews_brief_idx").on(table.briefId, table.createdAt)],
 );
+
+/**
+ * A version's release, announced once: the press's release alert and the translators' requests go
+ * out when its release time has come, whichever queued job gets there first (docs/decisions/0020).
+ */
+export const releaseAnnouncements = pgTable("release_announcements", {
+  versionId: uuid("version_id")
+    .primaryKey()
+    .references(() => briefVersions.id),
+  at: timestamp("at", { withTimezone: true }).notNull().defaultNow(),
+});

@@ -3,7 +3,7 @@
 import { and, desc, eq, gte, isNull, lte, sql } from "drizzle-orm";
 import { mayReadEmbargoed, type Role } from "#core/roles";
 import type { Database, Executor } from "./client";
-import { briefs, briefVersions } from "./schema";
+import { briefs, briefVersions, releaseAnnouncements } from "./schema";
 import { slugify } from "#core/slug";
 import type { VersionEntry } from "#core/brief-page";
 import type { ReleasedBrief } from "#core/search";
@@ -210,4 +210,20 @@ export async function listReleasedVersions(db: Database): Promise<ReleasedVersio
     .where(lte(briefVersions.releaseAt, new Date()))
     .orderBy(desc(briefVersions.releaseAt), desc(briefVersions.number));
   return rows.map((row) => ({ ...row, releaseAt: row.releaseAt.toISOString(), withdrawnAt: row.withdrawnAt?.toISOString() ?? null }));
+}
+
+/** What an announcement of a version says: its brief, number, release time and note. */
+export async function versionForAnnouncement(db: Database, briefId: string, number: number) {
+  const [row] = await db
+    .select({ versionId: briefVersions.id, slug: briefs.slug, title: sql<string>`${briefVersions.listedBrief}->>'title'`, topic: sql<string>`${briefVersions.listedBrief}->>'topic'`, number: briefVersions.number, releaseAt: briefVersions.releaseAt, note: briefVersions.note })
+    .from(briefVersions)
+    .innerJoin(briefs, eq(briefs.id, briefVersions.briefId))
+    .where(and(eq(briefVersions.briefId, briefId), eq(briefVersions.number, number)));
+  return row ?? null;
+}
+
+/** Claims the announcement of a released version: true for the first caller only. */
+export async function claimAnnouncement(db: Database, versionId: string): Promise<boolean> {
+  const rows = await db.insert(releaseAnnouncements).values({ versionId }).onConflictDoNothing().returning();
+  return rows.length === 1;
 }

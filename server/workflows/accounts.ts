@@ -5,19 +5,13 @@ import { hashPassword, verifyPassword } from "#core/passwords";
 import { invitationMessage, passwordResetMessage } from "#core/mail";
 import type { Role } from "#core/roles";
 import { invitationUrl, passwordResetUrl } from "#core/urls";
-import type { Database } from "#db/client";
 import { insertMessage } from "#db/messages";
 import { activeAdminCount, endSessions, findActiveByEmail, findPersonRecord, insertPerson, passwordHashOf, setPasswordHash, updatePerson, type Person } from "#db/people";
 import { consumeToken, issueToken } from "#db/tokens";
-import { deliver } from "./mail";
+import { deliver, type MailContext } from "./mail";
 import type { Queue } from "./queue";
 
-export interface AccountContext {
-  db: Database;
-  queue: Queue | null;
-  /** The address readers use, for the links in e-mails. */
-  siteUrl: string;
-}
+export type AccountContext = MailContext;
 
 const passwordResetJob = "password-reset";
 
@@ -89,14 +83,15 @@ export async function setPasswordWithToken(ctx: AccountContext, token: string, p
 }
 
 /** The person's own display name and password; a new password ends their other sessions. */
-export async function changeOwnAccount(ctx: AccountContext, person: Person, sessionId: string, changes: { displayName?: string; currentPassword?: string; newPassword?: string }) {
+export async function changeOwnAccount(ctx: AccountContext, person: Person, sessionId: string, changes: { displayName?: string; timeZone?: string; currentPassword?: string; newPassword?: string }) {
   if (changes.newPassword !== undefined) {
     const current = await passwordHashOf(ctx.db, person.id);
     if (!current || !(await verifyPassword(current, changes.currentPassword ?? ""))) return { ok: false as const, reason: "wrong-password" as const };
   }
   const passwordHash = changes.newPassword === undefined ? null : await hashPassword(changes.newPassword);
   const updated = await ctx.db.transaction(async (tx) => {
-    const after = changes.displayName === undefined ? person : await updatePerson(tx, person.id, { displayName: changes.displayName }, person.id);
+    const { displayName, timeZone } = changes;
+    const after = displayName === undefined && timeZone === undefined ? person : await updatePerson(tx, person.id, { displayName, timeZone }, person.id);
     if (passwordHash) {
       await setPasswordHash(tx, person.id, passwordHash, person.id, "change-password");
       await endSessions(tx, person.id, sessionId);

@@ -6,6 +6,13 @@ import type { Database } from "#db/client";
 import { findMessage, markAttemptFailed, markSent, queuedMessageIds } from "#db/messages";
 import type { Queue } from "./queue";
 
+/** What a workflow that sends e-mail needs: the database, the queue (null where none runs) and the site's address for links. */
+export interface MailContext {
+  db: Database;
+  queue: Queue | null;
+  siteUrl: string;
+}
+
 const mailJob = "mail";
 export const senderAddress = "Fairweigh <no-reply@fairweigh.example>";
 

@@ -13,7 +13,8 @@ export interface QueueOptions {
 export const defaultQueueOptions: QueueOptions = { retryLimit: 12, retryDelaySeconds: 10 };
 
 export interface Queue {
-  send(name: string, data: object, singletonKey?: string): Promise<void>;
+  /** `startAfter`: not before this time (a release). */
+  send(name: string, data: object, singletonKey?: string, startAfter?: Date): Promise<void>;
   work<T extends object>(name: string, handler: (job: { data: T; retryCount: number; retryLimit: number }) => Promise<void>): Promise<void>;
   stop(): Promise<void>;
 }
@@ -30,9 +31,9 @@ export async function startQueue(databaseUrl: string, options: QueueOptions = de
     });
   };
   return {
-    async send(name, data, singletonKey) {
+    async send(name, data, singletonKey, startAfter) {
       await ensureQueue(name);
-      await boss.send(name, data, { retryLimit: options.retryLimit, retryDelay: options.retryDelaySeconds, retryBackoff: true, singletonKey });
+      await boss.send(name, data, { retryLimit: options.retryLimit, retryDelay: options.retryDelaySeconds, retryBackoff: true, singletonKey, startAfter });
     },
     async work(name, handler) {
       await ensureQueue(name);

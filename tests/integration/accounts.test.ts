@@ -1,12 +1,14 @@
 // People and e-mail against a real SMTP conversation with the fake mailbox (scripts/lib/mailbox.ts):
 // an invitation arrives and its link works exactly once; a password reset answers the same for every
-// address and its link works once; a deactivated person's session is refused at once; e-mail waits
-// out an SMTP outage and a server restart in the queue, and arrives afterwards.
+// address and its link works once; a deactivated person's session is refused at once; the press and
+// translators are alerted around a release; e-mail waits out an SMTP outage and a server restart in
+// the queue, and arrives afterwards.
 import pg from "pg";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { demoPassword } from "#workflows/seed";
 import { startMailbox, type Mailbox } from "../../scripts/lib/mailbox";
 import { ApiClient } from "../support/client";
+import { analysedBrief, approve } from "../support/briefs";
 import { testDatabaseUrl } from "../support/app";
 import { startProductionServer, type RunningServer } from "../support/production-server";
 
@@ -155,12 +157,63 @@ describe("deactivation", () => {
   });
 });
 
+/** A new person with a password, signed in: invited by the administrator, link taken from the mailbox. */
+async function newPerson(prefix: string, roles: string[], extra: Record<string, unknown> = {}) {
+  const email = `${prefix}-${run}@example.org`;
+  expect((await admin.request("POST", "/api/people", { json: { email, displayName: `${prefix} person`, roles, ...extra } })).status).toBe(201);
+  await choosePassword(linkIn((await mailbox.waitFor(email)).text), "a long enough password");
+  const client = new ApiClient(server.url);
+  expect((await client.signIn(email, "a long enough password")).status).toBe(200);
+  return { email, client };
+}
+
+describe("alerts around a release", () => {
+  it("the press hears of an embargo in its own time zone and of the release; translators are asked to translate", async () => {
+    const reporter = await newPerson("reporter", ["press"]);
+    expect((await reporter.client.request("PATCH", "/api/account", { json: { timeZone: "America/New_York" } })).status).toBe(200);
+    const translator = await newPerson("spanish", ["translator"], { translationLocales: ["es"] });
+    const analyst = new ApiClient(server.url);
+    await analyst.signIn("analyst@fairweigh.example", demoPassword);
+    const editor = new ApiClient(server.url);
+    await editor.signIn("editor@fairweigh.example", demoPassword);
+    const title = `Alerted brief ${run}`;
+    const { briefId, slug } = await analysedBrief(analyst, title);
+    await approve(analyst, editor, briefId);
+    const releaseAt = new Date(Date.now() + 4000);
+    expect((await editor.request("POST", `/api/briefs/${briefId}/versions`, { json: { releaseAt: releaseAt.toISOString() } })).status).toBe(201);
+
+    const embargo = await mailbox.waitFor(reporter.email, (m) => m.subject.startsWith("Embargoed until"));
+    const newYork = new Intl.DateTimeFormat("en", { dateStyle: "long", timeStyle: "short", timeZone: "America/New_York" }).format(releaseAt);
+    expect(embargo.subject).toBe(`Embargoed until ${newYork}: ${title}`);
+    expect(embargo.text).toContain("(America/New_York)");
+    const released = await mailbox.waitFor(reporter.email, (m) => m.subject === `Released: ${title}`, 20_000);
+    expect(released.text).toContain(`/briefs/${slug}/v/1`);
+    expect(new Date(released.receivedAt).getTime()).toBeGreaterThanOrEqual(releaseAt.getTime());
+    const request = await mailbox.waitFor(translator.email, (m) => m.subject === `To translate: ${title}`);
+    expect(request.text).toContain("into es");
+    // Announced once, whatever jobs there were.
+    await new Promise((resolve) => setTimeout(resolve, 1500));
+    expect(mailbox.messages().filter((m) => m.to.includes(reporter.email) && m.subject === `Released: ${title}`)).toHaveLength(1);
+  }, 60_000);
+});
+
 describe("e-mail through an outage", () => {
-  it("with the SMTP server down, an invitation still succeeds; the message arrives once it is back, and survives a server restart", async () => {
+  it("with the SMTP server down, an invitation, a scheduling and a release still succeed; the messages arrive once it is back, and survive a server restart", async () => {
+    const analyst = new ApiClient(server.url);
+    await analyst.signIn("analyst@fairweigh.example", demoPassword);
+    const editor = new ApiClient(server.url);
+    await editor.signIn("editor@fairweigh.example", demoPassword);
+    const title = `Released during an outage ${run}`;
+    const { briefId } = await analysedBrief(analyst, title);
+    await approve(analyst, editor, briefId);
+
     const outageStarted = Date.now();
     await mailbox.stop();
     const email = `outage-${run}@example.org`;
     expect((await admin.request("POST", "/api/people", { json: { email, displayName: "Otto Outage", roles: ["analyst"] } })).status).toBe(201);
+    // Scheduled and released while no e-mail can go out.
+    const releaseAt = new Date(Date.now() + 2000);
+    expect((await editor.request("POST", `/api/briefs/${briefId}/versions`, { json: { releaseAt: releaseAt.toISOString() } })).status).toBe(201);
     // The server restarts while the message waits: nothing is lost.
     await new Promise((resolve) => setTimeout(resolve, 3000));
     await server.stop();
@@ -179,6 +232,8 @@ describe("e-mail through an outage", () => {
     mailbox = await startMailbox({ port: Number(new URL(mailbox.url).port) });
     const mail = await mailbox.waitFor(email, undefined, 40_000);
     expect(mail.subject).toBe("You are invited to Fairweigh");
+    await mailbox.waitFor("press@fairweigh.example", (m) => m.subject.startsWith("Embargoed until") && m.subject.endsWith(title), 40_000);
+    await mailbox.waitFor("press@fairweigh.example", (m) => m.subject === `Released: ${title}`, 40_000);
     console.log(`e-mail outage survived: ${((Date.now() - outageStarted) / 1000).toFixed(0)} s, with a server restart`);
   }, 90_000);
 });

@@ -55,8 +55,11 @@ export const changePersonBody = z
   .partial()
   .refine((changes) => Object.keys(changes).length > 0, "Send at least one of roles, translationLocales, locale, active.");
 
+/** An IANA time zone name this runtime knows (Intl), or UTC. */
+const timeZone = z.string().max(60).refine((zone) => zone === "UTC" || Intl.supportedValuesOf("timeZone").includes(zone), "Choose a time zone such as Europe/Madrid or UTC.");
+
 export const accountBody = z
-  .object({ displayName: z.string().trim().min(1).max(120), currentPassword: z.string().max(1024), newPassword })
+  .object({ displayName: z.string().trim().min(1).max(120), timeZone, currentPassword: z.string().max(1024), newPassword })
   .partial()
   .refine((changes) => changes.newPassword === undefined || changes.currentPassword !== undefined, { message: "Enter your current password to choose a new one.", path: ["currentPassword"] });
 

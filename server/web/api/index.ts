@@ -64,7 +64,7 @@ export function apiRoutes({ db, pool, passport, csrf, sessionCookie, queue, publ
   api.use(peopleRoutes(accounts));
   api.use(accountRoutes(accounts));
   api.use(briefRoutes(db));
-  api.use(versionRoutes(db));
+  api.use(versionRoutes(db, accounts));
   api.use(outcomeRoutes(db));
 
   api.use((_req, res) => sendError(res, 404, { key: "errors.notFound", message: "There is no such API route." }));

@@ -1,6 +1,8 @@
 // Review, publishing, withdrawal and reading frozen versions (docs/decisions/0007-frozen-versions.md,
 // 0009-review-and-withdrawal.md).
-import { Router } from "express";
+import { Router, type Request } from "express";
+import { afterPublish } from "#workflows/alerts";
+import type { MailContext } from "#workflows/mail";
 import type { z } from "zod";
 import { versionNumberOf } from "#core/urls";
 import { guard } from "../auth/require-role";
@@ -39,7 +41,16 @@ function refuse(res: Parameters<typeof sendError>[0], reason: Refusal, detail: s
   sendError(res, status, { key, message: `${sentence}${listed}.`, details: items ?? (field && status === 400 ? [{ field, message: detail }] : undefined) });
 }
 
-export function versionRoutes(db: Database): Router {
+/** Alerts follow a publish; the version is out whatever becomes of them, so a failure is logged, not answered. */
+async function alert(req: Request, ctx: MailContext, briefId: string, number: number, rescheduled = false) {
+  try {
+    await afterPublish(ctx, briefId, number, { rescheduled });
+  } catch (error) {
+    req.log.error({ err: error }, "release alerts could not be queued");
+  }
+}
+
+export function versionRoutes(db: Database, mail: (req: Request) => MailContext): Router {
   const router = Router();
   router.param("id", rejectMalformedId);
 
@@ -66,7 +77,10 @@ export function versionRoutes(db: Database): Router {
   router.post("/briefs/:id/versions", guard("POST /api/briefs/:id/versions"), validateBody(publishBody), async (req, res) => {
     const body = req.body as z.infer<typeof publishBody>;
     const outcome = await publishVersion(db, String(req.params.id), { releaseAt: body.releaseAt ? new Date(body.releaseAt) : undefined, note: body.note }, req.user!.id);
-    if (outcome.ok) return res.status(201).json({ version: outcome.version, url: outcome.url });
+    if (outcome.ok) {
+      await alert(req, mail(req), String(req.params.id), outcome.version);
+      return res.status(201).json({ version: outcome.version, url: outcome.url });
+    }
     const detail = outcome.reason === "not-found" ? outcome.detail : `the brief cannot be published yet: ${outcome.detail}`;
     refuse(res, outcome.reason, detail, "note", outcome.items);
   });
@@ -76,6 +90,7 @@ export function versionRoutes(db: Database): Router {
     if (number === null) return sendError(res, 404, { key: "errors.notFound", message: "There is no such version." });
     const outcome = await rescheduleRelease(db, String(req.params.id), number, new Date((req.body as RescheduleBody).releaseAt), req.user!.id);
     if (!outcome.ok) return refuse(res, outcome.reason, outcome.detail, "releaseAt");
+    await alert(req, mail(req), String(req.params.id), number, true);
     res.json({ releaseAt: outcome.releaseAt });
   });
 
