@@ -9,6 +9,7 @@ import { defaultQueueOptions, startQueue } from "#workflows/queue";
 import { startMailWorker } from "#workflows/mail";
 import { startAccountWorker } from "#workflows/accounts";
 import { startReleaseWorker } from "#workflows/alerts";
+import { startSubscriptionWorker } from "#workflows/subscriptions";
 
 export async function startServer(config: ServerConfig): Promise<{ url: string; close(): Promise<void> }> {
   const connection = connectDatabase(config.databaseUrl);
@@ -18,6 +19,7 @@ export async function startServer(config: ServerConfig): Promise<{ url: string; 
   const mail = { db: connection.db, queue, siteUrl: config.publicUrl };
   await startAccountWorker(mail);
   await startReleaseWorker(mail);
+  await startSubscriptionWorker(mail);
   if (config.smtpUrl) await startMailWorker(queue, connection.db, config.smtpUrl);
   else console.warn("SMTP_URL is not set: e-mails are stored and wait in the queue until it is.");
   const app = await createApp({

@@ -4,6 +4,7 @@ import { useTranslation } from "react-i18next";
 import type { BriefPageData } from "#web/pages/page-data";
 import { HealthCaution } from "../HealthCaution";
 import { CiteBlock } from "./CiteBlock";
+import { SubscribeForm } from "../SubscribeForm";
 import { VersionBanners } from "./Notices";
 import { OutcomeSection } from "./OutcomeSection";
 import { VersionHistory } from "./VersionHistory";
@@ -72,6 +73,7 @@ export function BriefPage({ data }: { data: BriefPageData }) {
       ))}
 
       <CiteBlock heading={t("cite.brief")} reference={citation.reference} accessed={citation.accessed} permalink={citation.permalink} citing={version} />
+      <SubscribeForm topic={view.topic} />
 
       <section aria-labelledby="data-title" className="mt-16 border-t border-rule pt-6 print:hidden">
         <h2 id="data-title" className="text-xl font-semibold">{t("brief.data")}</h2>

@@ -38,8 +38,9 @@ export async function startMailbox(options: { port?: number; folder?: string } =
       simpleParser(stream)
         .then((parsed) => {
           const to = Array.isArray(parsed.to) ? parsed.to.map((a) => a.text).join(", ") : (parsed.to?.text ?? "");
+          // The header lines as sent (lower-cased names): mailparser's own map folds List-* headers together.
           const headers: Record<string, string> = {};
-          for (const [name, value] of parsed.headers) headers[name] = typeof value === "string" ? value : JSON.stringify(value);
+          for (const { key, line } of parsed.headerLines) headers[key] = line.slice(line.indexOf(":") + 1).trim();
           const mail = { to, from: parsed.from?.text ?? "", subject: parsed.subject ?? "", text: parsed.text ?? "", html: typeof parsed.html === "string" ? parsed.html : "", headers, receivedAt: new Date().toISOString() };
           received.push(mail);
           if (options.folder) writeFileSync(path.join(options.folder, `${Date.now()}-${received.length}.json`), JSON.stringify(mail, null, 2));

@@ -115,3 +115,33 @@ export function translationRequestMessage(to: Recipient & { translationLocales: 
     ...compose(locale, words("translationRequest.subject", values), [words("translationRequest.greeting", values), words("translationRequest.body", values)], { label: words("translationRequest.action"), url: link }, []),
   };
 }
+
+/** The double opt-in: no alert goes out before the reader confirms with this link. */
+export function subscriptionConfirmMessage(input: { recipient: string; topic: string; link: string; expires: Date; locale?: string }): Message {
+  const locale = localeOf(input.locale);
+  const words = t(locale);
+  return {
+    kind: "subscription-confirm",
+    recipient: input.recipient,
+    locale,
+    ...compose(locale, words("subscriptionConfirm.subject", { topic: input.topic }), [words("subscriptionConfirm.body", { topic: input.topic })], { label: words("subscriptionConfirm.action"), url: input.link }, [words("subscriptionConfirm.expiry", { expires: utc(input.expires) })]),
+  };
+}
+
+/**
+ * A new or corrected brief in a topic, to its subscribers, with a one-click unsubscribe (RFC 8058:
+ * List-Unsubscribe names the address to POST to, List-Unsubscribe-Post says it takes one click).
+ */
+export function topicNoticeMessage(input: { recipient: string; topic: string; title: string; version: number; note: string | null; link: string; unsubscribeUrl: string; locale?: string }): Message {
+  const locale = localeOf(input.locale);
+  const words = t(locale);
+  const corrected = input.version > 1;
+  const values = { topic: input.topic, title: input.title, version: input.version, note: input.note ?? "" };
+  return {
+    kind: corrected ? "correction-notice" : "release-notice",
+    recipient: input.recipient,
+    locale,
+    headers: { "List-Unsubscribe": `<${input.unsubscribeUrl}>`, "List-Unsubscribe-Post": "List-Unsubscribe=One-Click" },
+    ...compose(locale, words(corrected ? "topicNotice.correctedSubject" : "topicNotice.newSubject", values), [words(corrected ? "topicNotice.correctedBody" : "topicNotice.newBody", values)], { label: words("topicNotice.action"), url: input.link }, [words("topicNotice.unsubscribe", { link: input.unsubscribeUrl }), words("subscriptionFooter")]),
+  };
+}

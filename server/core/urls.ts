@@ -29,6 +29,11 @@ export const comparisonUrl = (at: ComparisonAddress) => `${versionUrl(at)}/compa
 export const invitationUrl = (token: string) => `/invitation/${segment(token)}`;
 export const passwordResetUrl = (token?: string) => (token ? `/password-reset/${segment(token)}` : "/password-reset");
 
+/** A reader's topic alerts: the confirmation and unsubscribe pages, and the one-click address of RFC 8058. */
+export const confirmSubscriptionUrl = (token: string) => `/subscriptions/confirm/${segment(token)}`;
+export const unsubscribeUrl = (token: string) => `/subscriptions/unsubscribe/${segment(token)}`;
+export const oneClickUnsubscribeUrl = (token: string) => `/api/subscriptions/unsubscribe?token=${encodeURIComponent(token)}`;
+
 /** The desk, a client-rendered app: /desk and every screen below it. */
 export const isDeskPath = (path: string) => path === "/desk" || path.startsWith("/desk/");
 export const previewUrl = (briefId: string) => `/preview/${segment(briefId)}`;

@@ -329,3 +329,25 @@ export const releaseAnnouncements = pgTable("release_announcements", {
     .references(() => briefVersions.id),
   at: timestamp("at", { withTimezone: true }).notNull().defaultNow(),
 });
+
+/**
+ * A reader's e-mail subscription to a topic, confirmed by a link (double opt-in) and ended by another
+ * (RFC 8058 one-click). The confirmation token is stored as a hash; the unsubscribe token as it is,
+ * because every notice carries it and it can do nothing but unsubscribe (docs/decisions/0022-subscriptions.md).
+ */
+export const subscriptions = pgTable(
+  "subscriptions",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    email: text("email").notNull(),
+    topicSlug: text("topic_slug").notNull(),
+    locale: text("locale").notNull().default("en"),
+    confirmTokenHash: text("confirm_token_hash").unique(),
+    confirmBy: timestamp("confirm_by", { withTimezone: true }),
+    unsubscribeToken: text("unsubscribe_token").notNull().unique(),
+    confirmedAt: timestamp("confirmed_at", { withTimezone: true }),
+    unsubscribedAt: timestamp("unsubscribed_at", { withTimezone: true }),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (table) => [uniqueIndex("subscriptions_email_topic_idx").on(table.email, table.topicSlug)],
+);

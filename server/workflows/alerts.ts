@@ -1,5 +1,6 @@
 // Alerts around a release: the press hears of a version when it is scheduled (embargoed) and again
-// when it becomes public; translators of a locale hear when a version is released. A job of the queue
+// when it becomes public; translators of a locale hear when a version is released; a topic's
+// subscribers hear of a new or corrected brief. A job of the queue
 // waits for the release time (a moved release time re-queues it), and each release is announced once
 // (`release_announcements`), whichever job gets there first. The messages go through the mail queue.
 import { pressAlertMessage, releaseAlertMessage, translationRequestMessage, type Message } from "#core/mail";
@@ -8,6 +9,7 @@ import { insertMessage } from "#db/messages";
 import { activePeopleWithRole } from "#db/people";
 import { claimAnnouncement, versionForAnnouncement } from "#db/versions";
 import { deliver, type MailContext } from "./mail";
+import { noticesFor } from "./subscriptions";
 
 const releaseJob = "release";
 type Version = NonNullable<Awaited<ReturnType<typeof versionForAnnouncement>>>;
@@ -39,7 +41,11 @@ async function announce(ctx: MailContext, version: Version): Promise<void> {
   const link = ctx.siteUrl + versionUrl({ slug: version.slug, version: version.number });
   const press = await activePeopleWithRole(ctx.db, "press");
   const translators = (await activePeopleWithRole(ctx.db, "translator")).filter((person) => person.translationLocales.length > 0);
-  await send(ctx, [...press.map((person) => releaseAlertMessage(person, version, link)), ...translators.map((person) => translationRequestMessage(person, version, `${ctx.siteUrl}/desk`))]);
+  await send(ctx, [
+    ...press.map((person) => releaseAlertMessage(person, version, link)),
+    ...translators.map((person) => translationRequestMessage(person, version, `${ctx.siteUrl}/desk`)),
+    ...(await noticesFor(ctx, version)),
+  ]);
 }
 
 /** The queue's side: at the release time, announce; if the time was moved later, wait again. */

@@ -197,6 +197,68 @@ describe("alerts around a release", () => {
   }, 60_000);
 });
 
+describe("topic alerts for readers", () => {
+  it("double opt-in, a correction notice with a one-click unsubscribe (RFC 8058), then nothing more", async () => {
+    const analyst = new ApiClient(server.url);
+    await analyst.signIn("analyst@fairweigh.example", demoPassword);
+    const editor = new ApiClient(server.url);
+    await editor.signIn("editor@fairweigh.example", demoPassword);
+    const title = `Subscribed brief ${run}`;
+    const { briefId } = await analysedBrief(analyst, title);
+    await approve(analyst, editor, briefId);
+    expect((await editor.request("POST", `/api/briefs/${briefId}/versions`, { json: {} })).status).toBe(201);
+
+    // A reader without an account or a CSRF token, as the form on a cached page sends it.
+    const reader = `reader-${run}@example.org`;
+    const subscribe = () => fetch(`${server.url}/api/subscriptions`, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify({ email: reader, topic: "Smoking" }) });
+    const first = await subscribe();
+    expect(first.status).toBe(202);
+    const confirmation = await mailbox.waitFor(reader, (m) => m.subject === "Confirm your Fairweigh alerts for Smoking");
+    const token = /\/subscriptions\/confirm\/([A-Za-z0-9_-]+)/.exec(confirmation.text)![1]!;
+    // Before confirming, nothing is sent; confirming works once.
+    const confirm = () => fetch(`${server.url}/api/subscriptions/confirm`, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify({ token }) });
+    expect((await confirm()).status).toBe(200);
+    expect((await confirm()).status).toBe(400);
+    // Asking again answers the same, and sends nothing new.
+    const again = await subscribe();
+    expect([again.status, await again.text()]).toEqual([202, await first.text()]);
+
+    const correct = async (note: string) => {
+      await approveChange(analyst, editor, briefId);
+      expect((await editor.request("POST", `/api/briefs/${briefId}/versions`, { json: { note } })).status).toBe(201);
+    };
+    await correct("A study's arms were swapped.");
+    const notice = await mailbox.waitFor(reader, (m) => m.subject === `Corrected: ${title}`, 20_000);
+    expect(notice.text).toContain("A study's arms were swapped.");
+    expect(notice.headers["list-unsubscribe-post"]).toBe("List-Unsubscribe=One-Click");
+    expect(notice.headers["list-unsubscribe"]).toMatch(/^<https?:\/\/\S+\/api\/subscriptions\/unsubscribe\?token=[A-Za-z0-9_%-]+>$/);
+    const oneClick = /https?:\/\/\S+\/api\/subscriptions\/unsubscribe\?token=[A-Za-z0-9_%-]+/.exec(notice.text)![0];
+    // The mail program's one click: a POST with that body, no cookie, no token.
+    const unsubscribed = await fetch(oneClick, { method: "POST", headers: { "content-type": "application/x-www-form-urlencoded" }, body: "List-Unsubscribe=One-Click" });
+    expect(unsubscribed.status).toBe(200);
+
+    await correct("A second correction.");
+    await mailbox.waitFor("press@fairweigh.example", (m) => m.subject === `Released: ${title}` && m.text.includes("version 3"), 20_000);
+    await new Promise((resolve) => setTimeout(resolve, 1500));
+    expect(mailbox.messages().filter((m) => m.to.includes(reader)).map((m) => m.subject)).toEqual(["Confirm your Fairweigh alerts for Smoking", `Corrected: ${title}`]);
+    expect(mailbox.messages().filter((m) => m.to.includes(reader) && m.subject === "Confirm your Fairweigh alerts for Smoking")).toHaveLength(1);
+  }, 90_000);
+
+  it("a topic without a released brief is refused, naming the field", async () => {
+    const answer = await fetch(`${server.url}/api/subscriptions`, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify({ email: "x@example.org", topic: "No such topic" }) });
+    expect(answer.status).toBe(400);
+    expect(((await answer.json()) as { error: { details: { field: string }[] } }).error.details[0]!.field).toBe("topic");
+  });
+});
+
+/** A change to a published brief through review again: the editor edits the short take, the analyst submits, the editor approves. */
+async function approveChange(analyst: ApiClient, editor: ApiClient, briefId: string) {
+  const current = await editor.request("GET", `/api/briefs/${briefId}`);
+  const rowVersion = (current.body.brief as { rowVersion: number }).rowVersion;
+  expect((await editor.request("PATCH", `/api/briefs/${briefId}`, { json: { rowVersion, keyMessages: `Changed at ${Date.now()}` } })).status).toBe(200);
+  await approve(analyst, editor, briefId);
+}
+
 describe("e-mail through an outage", () => {
   it("with the SMTP server down, an invitation, a scheduling and a release still succeed; the messages arrive once it is back, and survive a server restart", async () => {
     const analyst = new ApiClient(server.url);

@@ -1,3 +1,4 @@
+import { SubscribeForm } from "#components/SubscribeForm";
 import { useTranslation } from "react-i18next";
 import { useData } from "vike-react/useData";
 import { BriefList } from "#components/BriefList";
@@ -14,6 +15,7 @@ export default function Page() {
       </p>
       <h1 className="mt-2 text-4xl leading-tight font-semibold tracking-tight">{t("topic.title", { name: topic.name })}</h1>
       <BriefList briefs={briefs} />
+      <SubscribeForm topic={topic.name} />
     </>
   );
 }

@@ -12,6 +12,7 @@ import { versionRoutes } from "./versions";
 import { peopleRoutes } from "./people";
 import { sessionRoutes } from "./session";
 import { accountRoutes } from "./account";
+import { subscriptionRoutes } from "./subscriptions";
 import { siteUrl } from "../public/routes";
 import type { Queue } from "#workflows/queue";
 import type { AccountContext } from "#workflows/accounts";
@@ -48,7 +49,9 @@ export function apiRoutes({ db, pool, passport, csrf, sessionCookie, queue, publ
     res.json({ token: csrf.generateCsrfToken(req, res, { overwrite: false }) });
   });
 
-  // Every route below that changes state needs the token (GET and HEAD do not).
+  // Readers' alerts take no token (see subscriptions.ts for why); every route below that changes
+  // state needs it (GET and HEAD do not).
+  api.use(subscriptionRoutes(accounts));
   api.use((req: Request, res: Response, next: NextFunction) => {
     csrf.doubleCsrfProtection(req, res, (error?: unknown) => {
       if (!error) return next();

@@ -1,0 +1,3 @@
+import type { Config } from "vike/types";
+
+export default { title: "E-mail alerts · Fairweigh" } satisfies Config;

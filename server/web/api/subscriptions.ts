@@ -1,0 +1,59 @@
+// Readers' topic alerts, without an account. These routes take no CSRF token: a reader's form sits on
+// shared cached pages that cannot carry a per-session token, and a mail program's one-click
+// unsubscribe (RFC 8058) posts without one. Nothing here acts for a signed-in person: a forged
+// subscription only sends a confirmation link (double opt-in), and the tokens authorise the rest.
+import { Router, type Request, type Response } from "express";
+import { z } from "zod";
+import { localeOf } from "#core/locales";
+import { topicsOf } from "#core/search";
+import { wellFormedToken } from "#core/tokens";
+import { confirmSubscription, unsubscribe } from "#db/subscriptions";
+import { listReleasedBriefs } from "#db/versions";
+import { askToSubscribe } from "#workflows/subscriptions";
+import type { MailContext } from "#workflows/mail";
+import { guard } from "../auth/require-role";
+import { fieldIssues, sendError } from "../http/errors";
+import { resetRequestLimits } from "../http/security";
+
+const isFormPost = (req: Request) => req.is("application/x-www-form-urlencoded") === "application/x-www-form-urlencoded";
+const subscribeBody = z.object({ email: z.string().trim().toLowerCase().email("Enter an e-mail address.").max(320), topic: z.string().trim().min(1).max(200), locale: z.string().max(10).optional() });
+const done = (what: string) => `/subscriptions/done?what=${what}`;
+
+export function subscriptionRoutes(context: (req: Request) => MailContext): Router {
+  const router = Router();
+  const limited = (req: Request, res: Response) => (isFormPost(req) ? res.redirect(303, done("too-many")) : sendError(res, 429, { key: "errors.account.tooMany", message: "Too many requests from here: wait ten minutes, then try again." }));
+
+  // The same answer whether or not the address is subscribed already.
+  router.post("/subscriptions", guard("POST /api/subscriptions"), ...resetRequestLimits(limited), async (req, res) => {
+    const parsed = subscribeBody.safeParse(req.body ?? {});
+    const topics = parsed.success ? topicsOf(await listReleasedBriefs(context(req).db)) : [];
+    const topic = parsed.success ? topics.find((t) => t.name === parsed.data.topic || t.slug === parsed.data.topic) : undefined;
+    if (!parsed.success || !topic) {
+      if (isFormPost(req)) return res.redirect(303, done("invalid"));
+      const details = parsed.success ? [{ field: "topic", message: "no released brief has this topic" }] : fieldIssues(parsed.error);
+      return sendError(res, 400, { key: "errors.invalidRequest", message: `Send an e-mail address and the topic of a released brief: ${details.map((d) => `${d.field}: ${d.message}`).join("; ")}`, details });
+    }
+    await askToSubscribe(context(req), { email: parsed.data.email, topic: topic.name, locale: localeOf(parsed.data.locale) });
+    if (isFormPost(req)) return res.redirect(303, done("sent"));
+    res.status(202).json({ sent: true });
+  });
+
+  router.post("/subscriptions/confirm", guard("POST /api/subscriptions/confirm"), ...resetRequestLimits(limited), async (req, res) => {
+    const token = req.body?.token;
+    const topic = wellFormedToken(token) ? await confirmSubscription(context(req).db, token) : null;
+    if (isFormPost(req)) return res.redirect(303, done(topic ? "confirmed" : "invalid"));
+    if (!topic) return sendError(res, 400, { key: "errors.subscription.invalidLink", message: "This confirmation link has been used or has expired: subscribe again.", details: [{ field: "token", message: "used or expired" }] });
+    res.json({ confirmed: true });
+  });
+
+  // RFC 8058: the mail program posts "List-Unsubscribe=One-Click" to the address in the header, whose
+  // query holds the token; the unsubscribe page's form sends the token in the body.
+  router.post("/subscriptions/unsubscribe", guard("POST /api/subscriptions/unsubscribe"), async (req, res) => {
+    const token = typeof req.query.token === "string" ? req.query.token : req.body?.token;
+    if (wellFormedToken(token)) await unsubscribe(context(req).db, token);
+    if (isFormPost(req) && req.body?.["List-Unsubscribe"] !== "One-Click") return res.redirect(303, done("unsubscribed"));
+    res.json({ unsubscribed: true });
+  });
+
+  return router;
+}

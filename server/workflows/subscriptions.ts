@@ -1,0 +1,38 @@
+// Readers' topic alerts: a request queues a job (so the answer reveals nothing about who subscribed),
+// the job sends a confirmation link unless the address is already subscribed; releases in the topic
+// are announced to confirmed subscribers (server/workflows/alerts.ts calls `noticesFor`).
+import { slugify } from "#core/slug";
+import { subscriptionConfirmMessage, topicNoticeMessage, type Message } from "#core/mail";
+import { confirmSubscriptionUrl, oneClickUnsubscribeUrl, versionUrl } from "#core/urls";
+import { insertMessage } from "#db/messages";
+import { requestSubscription, subscribersOf } from "#db/subscriptions";
+import { deliver, type MailContext } from "./mail";
+import type { Queue } from "./queue";
+
+const subscribeJob = "subscribe";
+
+export async function askToSubscribe(ctx: MailContext, request: { email: string; topic: string; locale: string }): Promise<void> {
+  if (ctx.queue) await ctx.queue.send(subscribeJob, request);
+  else await sendConfirmation(ctx, request);
+}
+
+async function sendConfirmation(ctx: MailContext, { email, topic, locale }: { email: string; topic: string; locale: string }): Promise<void> {
+  const started = await requestSubscription(ctx.db, email, slugify(topic), locale);
+  if (!started) return;
+  const message = subscriptionConfirmMessage({ recipient: email, topic, link: ctx.siteUrl + confirmSubscriptionUrl(started.token), expires: new Date(Date.now() + 7 * 24 * 3600 * 1000), locale });
+  const id = await ctx.db.transaction((tx) => insertMessage(tx, message));
+  await deliver(ctx.queue, [id]);
+}
+
+export async function startSubscriptionWorker(ctx: MailContext & { queue: Queue }): Promise<void> {
+  await ctx.queue.work<{ email: string; topic: string; locale: string }>(subscribeJob, ({ data }) => sendConfirmation(ctx, data));
+}
+
+/** The notices of a release to its topic's subscribers, each with its own unsubscribe link. */
+export async function noticesFor(ctx: MailContext, version: { slug: string; title: string; topic: string; number: number; note: string | null }): Promise<Message[]> {
+  const link = ctx.siteUrl + versionUrl({ slug: version.slug, version: version.number });
+  const subscribers = await subscribersOf(ctx.db, slugify(version.topic));
+  return subscribers.map((subscriber) =>
+    topicNoticeMessage({ recipient: subscriber.email, topic: version.topic, title: version.title, version: version.number, note: version.note, link, unsubscribeUrl: ctx.siteUrl + oneClickUnsubscribeUrl(subscriber.unsubscribeToken), locale: subscriber.locale }),
+  );
+}
