@@ -1,12 +1,13 @@
 import { QueryClient, QueryClientProvider } from "@tanstack/react-query";
 import { useEffect, useState } from "react";
 import { useTranslation } from "react-i18next";
-import { BrowserRouter, Route, Routes } from "react-router";
+import { BrowserRouter, Link, Route, Routes } from "react-router";
 import { BriefScreen } from "./BriefScreen";
 import { CertaintyScreen } from "./CertaintyScreen";
 import { DeskHome } from "./DeskHome";
 import { PeopleScreen } from "./PeopleScreen";
 import { AuditScreen } from "./AuditScreen";
+import { AccountScreen } from "./AccountScreen";
 import { ResultsScreen } from "./ResultsScreen";
 import { useSignedInPerson, useSignOut } from "./queries";
 
@@ -46,6 +47,7 @@ function SignedInDesk() {
       {/* Who is signed in, on every screen of the desk, with the way out. */}
       <div className="mb-6 flex flex-wrap items-center justify-end gap-3 border-b border-rule pb-3 font-sans text-sm" data-testid="desk-person">
         <span>{t("desk.signedInShort", { name: person.displayName, roles: person.roles.map((role) => t(`desk.role.${role}`)).join(", ") })}</span>
+        <Link to="/account">{t("desk.account.link")}</Link>
         <button type="button" onClick={() => signOut.mutate()} className="underline">
           {t("desk.signOut")}
         </button>
@@ -65,6 +67,7 @@ function DeskRoutes({ person }: { person: NonNullable<ReturnType<typeof useSigne
       <Route path="briefs/:briefId/outcomes/:outcomeId/certainty" element={<CertaintyScreen canJudge={person.roles.includes("analyst")} />} />
       {person.roles.includes("admin") ? <Route path="people" element={<PeopleScreen selfId={person.id} />} /> : null}
       {person.roles.includes("admin") ? <Route path="audit" element={<AuditScreen />} /> : null}
+      <Route path="account" element={<AccountScreen person={person} />} />
       <Route path="*" element={<p>{t("desk.notFound")}</p>} />
     </Routes>
   );

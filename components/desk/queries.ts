@@ -4,6 +4,7 @@ import type { Format } from "#core/nma/types";
 import type {
   ApiAnswers,
   AuditQuery,
+  AccountBody,
   ChangePersonBody,
   InviteBody,
   CreateBriefBody,
@@ -267,5 +268,14 @@ export function useAudit(filter: Omit<AuditQuery, "before">) {
       return callApi<ApiAnswers["audit"]>("GET", `/api/audit?${query}`);
     },
     getNextPageParam: (page) => page.next,
+  });
+}
+
+/** The signed-in person's own name, time zone or password; the session's person is refreshed. */
+export function useUpdateAccount() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (body: AccountBody) => callApi<ApiAnswers["session"]>("PATCH", "/api/account", body),
+    onSuccess: ({ person }) => queryClient.setQueryData(queryKeys.session, person),
   });
 }

@@ -59,5 +59,12 @@ it("admin invites a translator → the e-mail's link → a password → the tran
   await Promise.all([page.waitForURL(`${server.url}/desk`), page.click("button[type=submit]")]);
   await page.getByTestId("desk-person").getByText("Tomás Translator").waitFor();
   await keepScreenshot(page, "invitation-4-translator-signed-in");
+  // Their own account: the time zone of their e-mails.
+  await page.getByRole("link", { name: en.desk.account.link }).click();
+  const account = page.getByRole("form", { name: en.desk.account.title });
+  await account.getByLabel(en.desk.account.timeZone).selectOption("America/Bogota");
+  await account.getByRole("button", { name: en.desk.account.save }).click();
+  await account.getByText(en.desk.account.saved).waitFor();
+  await keepScreenshot(page, "invitation-5-translator-account");
   await context.close();
 }, 90_000);

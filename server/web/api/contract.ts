@@ -133,6 +133,7 @@ export type WithdrawalBody = z.infer<typeof withdrawalBody>;
 export type RescheduleBody = z.infer<typeof rescheduleBody>;
 export type InviteBody = z.input<typeof inviteBody>;
 export type AuditQuery = z.input<typeof auditQuery>;
+export type AccountBody = z.infer<typeof accountBody>;
 export type ChangePersonBody = z.infer<typeof changePersonBody>;
 
 // Answers --------------------------------------------------------------------------------------
