@@ -35,7 +35,7 @@ export function DeskHome({ person }: { person: SignedInPerson }) {
           <Link to="/people">{t("desk.people.link")}</Link> · <Link to="/audit">{t("desk.audit.link")}</Link>
         </p>
       ) : null}
-      {person.roles.includes("press") || person.roles.includes("editor") ? <PressRoom /> : null}
+      {person.roles.includes("press") || person.roles.includes("editor") ? <PressRoom canAsk={person.roles.includes("press")} /> : null}
       {person.roles.includes("analyst") ? (
         <section className="mt-10 border-t border-rule pt-6">
           <h2 className="mb-4 text-xl font-semibold">{t("desk.newBrief")}</h2>

@@ -1,10 +1,53 @@
 // The press room: embargoed versions (readable by the press before their release) and the latest
 // releases, each with its page and its release time.
 import { useTranslation } from "react-i18next";
-import { usePressRoom } from "./queries";
+import { useAskEditors, usePressRoom } from "./queries";
+import { Field, formValues, inputClass, SubmitRow } from "./forms";
 import { versionUrl } from "#core/urls";
 
-export function PressRoom() {
+/** The press room's contact form: a question to the editors, who answer by e-mail. */
+function AskEditors({ briefs }: { briefs: { slug: string; title: string }[] }) {
+  const { t } = useTranslation();
+  const ask = useAskEditors();
+  return (
+    <section className="mt-8 border-t border-rule pt-6">
+      <h3 className="mb-3 text-lg font-semibold">{t("desk.pressRoom.ask.title")}</h3>
+      <form
+        aria-label={t("desk.pressRoom.ask.title")}
+        className="grid gap-4 font-sans sm:grid-cols-2"
+        onSubmit={(event) => {
+          event.preventDefault();
+          const form = event.currentTarget;
+          const { subject, body, briefSlug } = formValues(form);
+          ask.mutate({ subject: subject ?? "", body: body ?? "", briefSlug: briefSlug || null }, { onSuccess: () => form.reset() });
+        }}
+      >
+        <Field label={t("desk.pressRoom.ask.subject")}>
+          <input name="subject" required maxLength={200} className={inputClass} />
+        </Field>
+        <Field label={t("desk.pressRoom.ask.brief")}>
+          <select name="briefSlug" className={inputClass}>
+            <option value="">{t("desk.pressRoom.ask.none")}</option>
+            {[...new Map(briefs.map((brief) => [brief.slug, brief])).values()].map((brief) => (
+              <option key={brief.slug} value={brief.slug}>
+                {brief.title}
+              </option>
+            ))}
+          </select>
+        </Field>
+        <div className="sm:col-span-2">
+          <Field label={t("desk.pressRoom.ask.body")}>
+            <textarea name="body" required rows={4} maxLength={5000} className={inputClass} />
+          </Field>
+        </div>
+        <SubmitRow label={t("desk.pressRoom.ask.send")} busy={ask.isPending} error={ask.error?.message ?? null} />
+        {ask.isSuccess ? <p role="status">{t("desk.pressRoom.ask.sent")}</p> : null}
+      </form>
+    </section>
+  );
+}
+
+export function PressRoom({ canAsk = false }: { canAsk?: boolean }) {
   const { t, i18n } = useTranslation();
   const versions = usePressRoom();
   const date = new Intl.DateTimeFormat(i18n.language, { dateStyle: "long", timeStyle: "short", timeZone: "UTC" });
@@ -31,6 +74,7 @@ export function PressRoom() {
           </li>
         ))}
       </ul>
+      {canAsk ? <AskEditors briefs={versions.data ?? []} /> : null}
     </section>
   );
 }

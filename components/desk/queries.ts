@@ -5,6 +5,7 @@ import type {
   ApiAnswers,
   AuditQuery,
   AccountBody,
+  PressEnquiryBody,
   ChangePersonBody,
   InviteBody,
   CreateBriefBody,
@@ -278,4 +279,8 @@ export function useUpdateAccount() {
     mutationFn: (body: AccountBody) => callApi<ApiAnswers["session"]>("PATCH", "/api/account", body),
     onSuccess: ({ person }) => queryClient.setQueryData(queryKeys.session, person),
   });
+}
+
+export function useAskEditors() {
+  return useMutation({ mutationFn: (body: PressEnquiryBody) => callApi<unknown>("POST", "/api/press-enquiries", body) });
 }

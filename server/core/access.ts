@@ -63,6 +63,7 @@ export const apiAccess = {
   "PUT /api/briefs/:id/versions/:number/release": { who: ["editor"], does: "move an embargoed version's release time" },
   "POST /api/briefs/:id/withdrawal": { who: ["editor"], does: "withdraw a published brief" },
   "GET /api/press-room": { who: ["press", "editor"], does: "the press room: embargoed and recent versions" },
+  "POST /api/press-enquiries": { who: ["press"], does: "ask the editors a question from the press room (stored, and e-mailed to each editor)" },
   "GET /api/briefs/:slug/versions/:number": { who: "anyone", does: "read a released version's frozen snapshot", also: embargo },
   "PATCH /api/outcomes/:id": { who: ["analyst"], does: "change an outcome's settings" },
   "DELETE /api/outcomes/:id": { who: ["analyst"], does: "remove an outcome" },

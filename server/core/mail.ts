@@ -145,3 +145,17 @@ export function topicNoticeMessage(input: { recipient: string; topic: string; ti
     ...compose(locale, words(corrected ? "topicNotice.correctedSubject" : "topicNotice.newSubject", values), [words(corrected ? "topicNotice.correctedBody" : "topicNotice.newBody", values)], { label: words("topicNotice.action"), url: input.link }, [words("topicNotice.unsubscribe", { link: input.unsubscribeUrl }), words("subscriptionFooter")]),
   };
 }
+
+/** A reporter's question, to each editor; a reply goes to the reporter. */
+export function pressEnquiryMessage(to: Recipient, enquiry: { name: string; email: string; subject: string; body: string; briefSlug: string | null }, link: string): Message {
+  const locale = localeOf(to.locale);
+  const words = t(locale);
+  const about = enquiry.briefSlug ? words("pressEnquiry.about", { slug: enquiry.briefSlug }) : "";
+  return {
+    kind: "press-enquiry",
+    recipient: to.email,
+    locale,
+    headers: { "Reply-To": enquiry.email },
+    ...compose(locale, words("pressEnquiry.subject", { subject: enquiry.subject }), [words("pressEnquiry.body", { name: enquiry.name, email: enquiry.email, about }), enquiry.body, words("pressEnquiry.reply")], { label: words("pressEnquiry.action"), url: link }, []),
+  };
+}

@@ -351,3 +351,15 @@ export const subscriptions = pgTable(
   },
   (table) => [uniqueIndex("subscriptions_email_topic_idx").on(table.email, table.topicSlug)],
 );
+
+/** A reporter's question to the editors from the press room, kept with who asked and about which brief. */
+export const pressEnquiries = pgTable("press_enquiries", {
+  id: uuid("id").primaryKey().defaultRandom(),
+  personId: uuid("person_id")
+    .notNull()
+    .references(() => people.id),
+  briefSlug: text("brief_slug"),
+  subject: text("subject").notNull(),
+  body: text("body").notNull(),
+  createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+});

@@ -29,7 +29,8 @@ export async function startMailWorker(queue: Queue, db: Database, smtpUrl: strin
     const message = await findMessage(db, data.messageId);
     if (!message || message.state !== "queued") return;
     try {
-      await transport.sendMail({ from: senderAddress, to: message.recipient, subject: message.subject, text: message.text, html: message.html, headers: message.headers });
+      const { "Reply-To": replyTo, ...headers } = message.headers;
+      await transport.sendMail({ from: senderAddress, to: message.recipient, replyTo, subject: message.subject, text: message.text, html: message.html, headers });
     } catch (error) {
       await markAttemptFailed(db, message.id, error instanceof Error ? error.message : String(error), retryCount >= retryLimit);
       throw error;

@@ -37,8 +37,18 @@ export async function startQueue(databaseUrl: string, options: QueueOptions = de
     },
     async work(name, handler) {
       await ensureQueue(name);
-      await boss.work<object>(name, { includeMetadata: true, batchSize: 1, pollingIntervalSeconds: 0.5 }, async ([job]) => {
-        if (job) await handler({ data: job.data as never, retryCount: job.retryCount, retryLimit: job.retryLimit });
+      // Up to ten jobs at a time, each on its own: one that fails is marked failed (and retried
+      // later) while the others complete, so a backlog drains quickly after an outage.
+      await boss.work<object>(name, { includeMetadata: true, batchSize: 10, pollingIntervalSeconds: 0.5 }, async (jobs) => {
+        await Promise.all(
+          jobs.map(async (job) => {
+            try {
+              await handler({ data: job.data as never, retryCount: job.retryCount, retryLimit: job.retryLimit });
+            } catch (error) {
+              await boss.fail(name, job.id, { message: error instanceof Error ? error.message : String(error) });
+            }
+          }),
+        );
       });
     },
     stop: () => boss.stop({ graceful: true, timeout: 5000 }),

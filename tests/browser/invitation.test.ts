@@ -32,7 +32,7 @@ it("admin invites a translator → the e-mail's link → a password → the tran
   await form.getByLabel("es", { exact: true }).check();
   await form.getByRole("button", { name: en.desk.people.send }).click();
   await admin.page.getByTestId("people").getByText(email).waitFor();
-  await admin.page.getByTestId("messages").getByText(`You are invited to Fairweigh → ${email}: sent`).waitFor({ timeout: 15_000 });
+  await admin.page.getByTestId("messages").getByText(`You are invited to Fairweigh → ${email}: sent`).waitFor({ timeout: 30_000 });
   await keepScreenshot(admin.page, "invitation-1-admin-people");
   // The invitation is in the audit log, found with the action filter.
   await admin.page.goto(`${server.url}/desk/audit`);

@@ -197,6 +197,22 @@ describe("alerts around a release", () => {
   }, 60_000);
 });
 
+describe("the press room's contact form", () => {
+  it("stores the question and e-mails every editor, with the reporter to reply to", async () => {
+    const reporter = new ApiClient(server.url);
+    await reporter.signIn("press@fairweigh.example", demoPassword);
+    const subject = `Embargo question ${run}`;
+    const asked = await reporter.request("POST", "/api/press-enquiries", { json: { subject, body: "May we quote the lay summary before the release?", briefSlug: null } });
+    expect(asked.status).toBe(201);
+    const mail = await mailbox.waitFor("editor@fairweigh.example", (m) => m.subject === `Press question: ${subject}`);
+    expect(mail.text).toContain("May we quote the lay summary before the release?");
+    expect(mail.headers["reply-to"]).toBe("press@fairweigh.example");
+    const empty = await reporter.request("POST", "/api/press-enquiries", { json: { subject: "", body: "" } });
+    expect(empty.status).toBe(400);
+    expect(empty.body.error?.message).toContain("subject");
+  });
+});
+
 describe("topic alerts for readers", () => {
   it("double opt-in, a correction notice with a one-click unsubscribe (RFC 8058), then nothing more", async () => {
     const analyst = new ApiClient(server.url);

@@ -55,6 +55,7 @@ const apiRequests: Record<keyof typeof apiAccess, { path: string; json?: unknown
   "PUT /api/briefs/:id/versions/:number/release": { path: `/api/briefs/${nobody}/versions/1/release`, json: {} },
   "POST /api/briefs/:id/withdrawal": { path: `/api/briefs/${nobody}/withdrawal`, json: {} },
   "GET /api/press-room": { path: "/api/press-room" },
+  "POST /api/press-enquiries": { path: "/api/press-enquiries", json: {} },
   "GET /api/briefs/:slug/versions/:number": { path: `/api/briefs/${demo.slug}/versions/1` },
   "PATCH /api/outcomes/:id": { path: `/api/outcomes/${nobody}`, json: {} },
   "DELETE /api/outcomes/:id": { path: `/api/outcomes/${nobody}` },

@@ -74,6 +74,12 @@ export const auditQuery = z.object({
   limit: z.coerce.number().int().min(1).max(200).default(50),
 });
 
+export const pressEnquiryBody = z.object({
+  subject: z.string().trim().min(1, "Say what it is about.").max(200),
+  body: z.string().trim().min(1, "Write your question.").max(5000),
+  briefSlug: z.string().trim().max(200).nullish().transform((slug) => slug || null),
+});
+
 export const passwordResetBody = z.object({ email: z.string().trim().min(1, "Enter your e-mail address.").max(320) });
 
 export const newPasswordBody = z.object({ token: z.string().max(200), password: newPassword });
@@ -134,6 +140,7 @@ export type RescheduleBody = z.infer<typeof rescheduleBody>;
 export type InviteBody = z.input<typeof inviteBody>;
 export type AuditQuery = z.input<typeof auditQuery>;
 export type AccountBody = z.infer<typeof accountBody>;
+export type PressEnquiryBody = z.input<typeof pressEnquiryBody>;
 export type ChangePersonBody = z.infer<typeof changePersonBody>;
 
 // Answers --------------------------------------------------------------------------------------

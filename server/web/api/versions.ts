@@ -13,7 +13,8 @@ import { publishVersion, rescheduleRelease } from "#workflows/publish";
 import { briefReadiness } from "#workflows/readiness";
 import type { Database } from "#db/client";
 import { rejectMalformedId, sendError, validateBody } from "../http/errors";
-import { publishBody, rescheduleBody, reviewBody, withdrawalBody, type RescheduleBody } from "./contract";
+import { pressEnquiryBody, publishBody, rescheduleBody, reviewBody, withdrawalBody, type RescheduleBody } from "./contract";
+import { askEditors } from "#workflows/press";
 
 /** The HTTP status and message key for each reason a step is refused. */
 const refusals = {
@@ -98,6 +99,12 @@ export function versionRoutes(db: Database, mail: (req: Request) => MailContext)
     const outcome = await withdrawBrief(db, String(req.params.id), (req.body as z.infer<typeof withdrawalBody>).reason, req.user!.id);
     if (!outcome.ok) return refuse(res, outcome.reason, outcome.detail);
     res.json({ status: "withdrawn" });
+  });
+
+  // A reporter's question to the editors, by e-mail through the queue.
+  router.post("/press-enquiries", guard("POST /api/press-enquiries"), validateBody(pressEnquiryBody), async (req, res) => {
+    await askEditors(mail(req), req.user!, req.body as z.infer<typeof pressEnquiryBody>);
+    res.status(201).json({ sent: true });
   });
 
   // The press room: embargoed versions and the latest releases, for reporters and editors.
