@@ -49,7 +49,7 @@ const server = spawn(path.join(projectRoot, "node_modules", ".bin", "tsx"), [pat
     NODE_ENV: development ? "development" : "production",
     DATABASE_URL: databaseUrl,
     PORT: String(port),
-    ...(mailbox ? { SMTP_URL: mailbox.url } : {}),
+    ...(mailbox ? { SMTP_URL: mailbox.url, MAIL_FOLDER: path.join(dataFolder, "mail") } : {}),
     ...(sessionSecret ? { SESSION_SECRET: sessionSecret } : {}),
   },
 });

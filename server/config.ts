@@ -14,6 +14,8 @@ const environment = z.object({
   SMTP_URL: z.string().regex(/^smtps?:\/\//, { message: "SMTP_URL must start with smtp:// or smtps://" }).optional(),
   /** The first retry delay of a failed e-mail in seconds, doubling each time (tests shorten it). */
   MAIL_RETRY_DELAY_SECONDS: z.coerce.number().int().min(1).max(3600).default(10),
+  /** Development only: the fake SMTP server's folder, shown at /desk/dev/mail. */
+  MAIL_FOLDER: z.string().optional(),
 });
 
 export type ServerConfig = {
@@ -28,6 +30,7 @@ export type ServerConfig = {
   logLevel: z.infer<typeof environment>["LOG_LEVEL"];
   smtpUrl: string | null;
   mailRetryDelaySeconds: number;
+  mailFolder: string | null;
 };
 
 export function readConfig(env: NodeJS.ProcessEnv = process.env): ServerConfig {
@@ -49,5 +52,6 @@ export function readConfig(env: NodeJS.ProcessEnv = process.env): ServerConfig {
     logLevel: value.LOG_LEVEL,
     smtpUrl: value.SMTP_URL ?? null,
     mailRetryDelaySeconds: value.MAIL_RETRY_DELAY_SECONDS,
+    mailFolder: value.MAIL_FOLDER ?? null,
   };
 }

@@ -31,6 +31,7 @@ export async function startServer(config: ServerConfig): Promise<{ url: string; 
     secureTransport: config.secureTransport,
     logLevel: config.logLevel,
     publicUrl: config.publicUrl,
+    mailFolder: config.mailFolder,
   });
   const server: Server = await new Promise((resolve) => {
     const listening = app.listen(config.port, config.host, () => resolve(listening));

@@ -3,18 +3,22 @@ import type { FormEvent } from "react";
 import { useTranslation } from "react-i18next";
 import type { SignedInPerson } from "./api";
 import { Field, formValues, inputClass, SubmitRow } from "./forms";
-import { useUpdateAccount } from "./queries";
+import { useTopics, useUpdateAccount } from "./queries";
 
 export function AccountScreen({ person }: { person: SignedInPerson }) {
   const { t } = useTranslation();
   const details = useUpdateAccount();
   const password = useUpdateAccount();
   const zones = ["UTC", ...Intl.supportedValuesOf("timeZone")];
+  const press = person.roles.includes("press");
+  const topics = useTopics();
 
   function onDetails(event: FormEvent<HTMLFormElement>) {
     event.preventDefault();
-    const { displayName, timeZone } = formValues(event.currentTarget);
-    details.mutate({ displayName, timeZone });
+    const form = event.currentTarget;
+    const { displayName, timeZone } = formValues(form);
+    const alertTopics = press ? new FormData(form).getAll("alertTopics").map(String) : undefined;
+    details.mutate({ displayName, timeZone, alertTopics });
   }
   function onPassword(event: FormEvent<HTMLFormElement>) {
     event.preventDefault();
@@ -37,6 +41,16 @@ export function AccountScreen({ person }: { person: SignedInPerson }) {
             ))}
           </select>
         </Field>
+        {press ? (
+          <fieldset className="sm:col-span-2">
+            <legend className="text-sm font-semibold">{t("desk.account.alertTopics")}</legend>
+            {topics.data?.map((topic) => (
+              <label key={topic.slug} className="me-4 inline-flex items-center gap-1">
+                <input type="checkbox" name="alertTopics" value={topic.slug} defaultChecked={person.alertTopics.includes(topic.slug)} /> {topic.name}
+              </label>
+            ))}
+          </fieldset>
+        ) : null}
         <SubmitRow label={t("desk.account.save")} busy={details.isPending} error={details.error?.message ?? null} />
         {details.isSuccess ? <p role="status">{t("desk.account.saved")}</p> : null}
       </form>

@@ -8,6 +8,7 @@ import { DeskHome } from "./DeskHome";
 import { PeopleScreen } from "./PeopleScreen";
 import { AuditScreen } from "./AuditScreen";
 import { AccountScreen } from "./AccountScreen";
+import { DevMailScreen } from "./DevMailScreen";
 import { ResultsScreen } from "./ResultsScreen";
 import { useSignedInPerson, useSignOut } from "./queries";
 
@@ -68,6 +69,7 @@ function DeskRoutes({ person }: { person: NonNullable<ReturnType<typeof useSigne
       {person.roles.includes("admin") ? <Route path="people" element={<PeopleScreen selfId={person.id} />} /> : null}
       {person.roles.includes("admin") ? <Route path="audit" element={<AuditScreen />} /> : null}
       <Route path="account" element={<AccountScreen person={person} />} />
+      <Route path="dev/mail" element={<DevMailScreen />} />
       <Route path="*" element={<p>{t("desk.notFound")}</p>} />
     </Routes>
   );

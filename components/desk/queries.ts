@@ -284,3 +284,17 @@ export function useUpdateAccount() {
 export function useAskEditors() {
   return useMutation({ mutationFn: (body: PressEnquiryBody) => callApi<unknown>("POST", "/api/press-enquiries", body) });
 }
+
+export function useTopics() {
+  return useQuery({ queryKey: ["topics"], queryFn: async () => (await callApi<ApiAnswers["topics"]>("GET", "/api/topics")).topics });
+}
+
+/** The development mailbox (404 outside development, shown as the error). */
+export function useDevMail() {
+  return useQuery({
+    queryKey: ["dev-mail"],
+    queryFn: async () => (await callApi<{ messages: { to: string; subject: string; text: string; receivedAt: string }[] }>("GET", "/api/dev/mail")).messages,
+    refetchInterval: 3000,
+    retry: false,
+  });
+}

@@ -20,6 +20,8 @@ export interface Person {
   translationLocales: string[];
   /** The IANA time zone of times in their e-mails. */
   timeZone: string;
+  /** For the press: the topic slugs that alert them; empty for all. */
+  alertTopics: string[];
 }
 
 /** A person as administrators see them: also whether they are active and have accepted the invitation. */
@@ -104,7 +106,7 @@ export async function insertPerson(
 export async function updatePerson(
   tx: Executor,
   id: string,
-  changes: { roles?: Role[]; translationLocales?: string[]; locale?: string; displayName?: string; timeZone?: string; active?: boolean },
+  changes: { roles?: Role[]; translationLocales?: string[]; locale?: string; displayName?: string; timeZone?: string; alertTopics?: string[]; active?: boolean },
   actorId: string,
 ): Promise<Person | null> {
   const before = await tx.query.people.findFirst({ where: eq(people.id, id) });
@@ -164,7 +166,7 @@ export async function activeAdminCount(db: Executor): Promise<number> {
 }
 
 function personOf(row: typeof people.$inferSelect, roles: Role[]): Person {
-  return { id: row.id, email: row.email, displayName: row.displayName, roles: [...roles].sort(), locale: row.locale, translationLocales: row.translationLocales, timeZone: row.timeZone };
+  return { id: row.id, email: row.email, displayName: row.displayName, roles: [...roles].sort(), locale: row.locale, translationLocales: row.translationLocales, timeZone: row.timeZone, alertTopics: row.alertTopics };
 }
 
 async function withRoles(db: Executor, row: typeof people.$inferSelect): Promise<Person> {

@@ -35,6 +35,8 @@ export const people = pgTable("people", {
   locale: text("locale").notNull().default("en"),
   /** The IANA time zone times are shown in, in their e-mails (an embargo's end). */
   timeZone: text("time_zone").notNull().default("UTC"),
+  /** For the press: the topics whose embargoes and releases alert them; empty for every topic. */
+  alertTopics: text("alert_topics").array().notNull().default(sql`'{}'::text[]`),
   /** For translators: the locales they may translate into. */
   translationLocales: text("translation_locales").array().notNull().default(sql`'{}'::text[]`),
   /** A deactivated person cannot sign in, and their sessions end at once. */

@@ -34,6 +34,8 @@ export interface AppOptions {
   pages?: boolean;
   /** The job queue that delivers e-mail (server/workflows/queue.ts); without one, messages stay queued. */
   queue?: Queue | null;
+  /** The development mailbox's folder, for /desk/dev/mail; never used in production. */
+  mailFolder?: string | null;
 }
 
 export async function createApp(options: AppOptions): Promise<express.Express> {
@@ -83,7 +85,7 @@ export async function createApp(options: AppOptions): Promise<express.Express> {
   });
 
   const csrf = createCsrf(sessionSecret, secureTransport);
-  app.use("/api", apiRoutes({ db, pool, passport, csrf, sessionCookie: sessionCookieName(secureTransport), queue: options.queue ?? null, publicUrl: options.publicUrl }));
+  app.use("/api", apiRoutes({ db, pool, passport, csrf, sessionCookie: sessionCookieName(secureTransport), queue: options.queue ?? null, publicUrl: options.publicUrl, mailFolder: production ? null : (options.mailFolder ?? null) }));
   app.use(publicFileRoutes(db, options.publicUrl));
   if (options.pages !== false) app.use(await pageRoutes({ root: projectRoot, production, csrf, db, publicUrl: options.publicUrl }));
 

@@ -9,9 +9,17 @@ import { insertMessage } from "#db/messages";
 import { activePeopleWithRole } from "#db/people";
 import { claimAnnouncement, versionForAnnouncement } from "#db/versions";
 import { deliver, type MailContext } from "./mail";
+import { slugify } from "#core/slug";
+import type { Person } from "#db/people";
 import { noticesFor } from "./subscriptions";
 
 const releaseJob = "release";
+
+/** The press who want alerts on this version's topic (a reporter who chose no topic wants them all). */
+async function pressFor(ctx: MailContext, version: Version): Promise<Person[]> {
+  const topic = slugify(version.topic);
+  return (await activePeopleWithRole(ctx.db, "press")).filter((person) => person.alertTopics.length === 0 || person.alertTopics.includes(topic));
+}
 type Version = NonNullable<Awaited<ReturnType<typeof versionForAnnouncement>>>;
 
 async function send(ctx: MailContext, messages: Message[]): Promise<void> {
@@ -26,8 +34,7 @@ export async function afterPublish(ctx: MailContext, briefId: string, number: nu
   if (!version) return;
   if (version.releaseAt.getTime() > Date.now()) {
     if (!rescheduled) {
-      const press = await activePeopleWithRole(ctx.db, "press");
-      await send(ctx, press.map((person) => pressAlertMessage(person, version, `${ctx.siteUrl}/desk`)));
+      await send(ctx, (await pressFor(ctx, version)).map((person) => pressAlertMessage(person, version, `${ctx.siteUrl}/desk`)));
     }
     await ctx.queue?.send(releaseJob, { briefId, number }, undefined, version.releaseAt);
     return;
@@ -39,7 +46,7 @@ export async function afterPublish(ctx: MailContext, briefId: string, number: nu
 async function announce(ctx: MailContext, version: Version): Promise<void> {
   if (!(await claimAnnouncement(ctx.db, version.versionId))) return;
   const link = ctx.siteUrl + versionUrl({ slug: version.slug, version: version.number });
-  const press = await activePeopleWithRole(ctx.db, "press");
+  const press = await pressFor(ctx, version);
   const translators = (await activePeopleWithRole(ctx.db, "translator")).filter((person) => person.translationLocales.length > 0);
   await send(ctx, [
     ...press.map((person) => releaseAlertMessage(person, version, link)),

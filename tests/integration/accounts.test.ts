@@ -171,6 +171,9 @@ describe("alerts around a release", () => {
   it("the press hears of an embargo in its own time zone and of the release; translators are asked to translate", async () => {
     const reporter = await newPerson("reporter", ["press"]);
     expect((await reporter.client.request("PATCH", "/api/account", { json: { timeZone: "America/New_York" } })).status).toBe(200);
+    // A reporter who follows only another topic hears nothing of this one.
+    const sleepReporter = await newPerson("sleep-reporter", ["press"]);
+    expect((await sleepReporter.client.request("PATCH", "/api/account", { json: { alertTopics: ["sleep"] } })).status).toBe(200);
     const translator = await newPerson("spanish", ["translator"], { translationLocales: ["es"] });
     const analyst = new ApiClient(server.url);
     await analyst.signIn("analyst@fairweigh.example", demoPassword);
@@ -194,6 +197,7 @@ describe("alerts around a release", () => {
     // Announced once, whatever jobs there were.
     await new Promise((resolve) => setTimeout(resolve, 1500));
     expect(mailbox.messages().filter((m) => m.to.includes(reporter.email) && m.subject === `Released: ${title}`)).toHaveLength(1);
+    expect(mailbox.messages().filter((m) => m.to.includes(sleepReporter.email)).map((m) => m.subject)).toEqual(["You are invited to Fairweigh"]);
   }, 60_000);
 });
 

@@ -10,6 +10,7 @@ import type { AnalysisResult } from "#core/nma/analyse";
 import type { DatasetIssue } from "#core/nma/types";
 import { outcomeInput, outcomePatch } from "#core/outcome";
 import type { Readiness } from "#core/readiness";
+import type { Topic } from "#core/search";
 import { reviewDecisions } from "#core/status";
 import { locales, translationLocales } from "#core/locales";
 import { roleNames } from "#core/roles";
@@ -59,7 +60,7 @@ export const changePersonBody = z
 const timeZone = z.string().max(60).refine((zone) => zone === "UTC" || Intl.supportedValuesOf("timeZone").includes(zone), "Choose a time zone such as Europe/Madrid or UTC.");
 
 export const accountBody = z
-  .object({ displayName: z.string().trim().min(1).max(120), timeZone, currentPassword: z.string().max(1024), newPassword })
+  .object({ displayName: z.string().trim().min(1).max(120), timeZone, alertTopics: z.array(z.string().trim().min(1).max(200)).max(100), currentPassword: z.string().max(1024), newPassword })
   .partial()
   .refine((changes) => changes.newPassword === undefined || changes.currentPassword !== undefined, { message: "Enter your current password to choose a new one.", path: ["currentPassword"] });
 
@@ -180,6 +181,7 @@ export interface ApiAnswers {
   people: { people: PersonRecord[] };
   person: { person: PersonRecord };
   messages: { messages: Json<Awaited<ReturnType<typeof listMessages>>> };
+  topics: { topics: Topic[] };
   audit: Json<Awaited<ReturnType<typeof listAudit>>> & { actions: string[] };
   readiness: Readiness;
 }

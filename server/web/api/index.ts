@@ -13,6 +13,7 @@ import { peopleRoutes } from "./people";
 import { sessionRoutes } from "./session";
 import { accountRoutes } from "./account";
 import { subscriptionRoutes } from "./subscriptions";
+import { devRoutes } from "./dev";
 import { siteUrl } from "../public/routes";
 import type { Queue } from "#workflows/queue";
 import type { AccountContext } from "#workflows/accounts";
@@ -28,9 +29,11 @@ export interface ApiDependencies {
   queue: Queue | null;
   /** The address readers use, for links in e-mails; the request's own address when unset. */
   publicUrl?: string;
+  /** Where the development mailbox keeps messages; null in production. */
+  mailFolder: string | null;
 }
 
-export function apiRoutes({ db, pool, passport, csrf, sessionCookie, queue, publicUrl }: ApiDependencies): Router {
+export function apiRoutes({ db, pool, passport, csrf, sessionCookie, queue, publicUrl, mailFolder }: ApiDependencies): Router {
   const accounts = (req: Request): AccountContext => ({ db, queue, siteUrl: siteUrl(req, publicUrl) });
   const api = Router();
   // Answers depend on who asks (drafts, the press room, embargoed versions): no shared cache keeps them.
@@ -66,6 +69,7 @@ export function apiRoutes({ db, pool, passport, csrf, sessionCookie, queue, publ
   api.use("/session", sessionRoutes(db, passport, sessionCookie));
   api.use(peopleRoutes(accounts));
   api.use(accountRoutes(accounts));
+  api.use(devRoutes(mailFolder));
   api.use(briefRoutes(db));
   api.use(versionRoutes(db, accounts));
   api.use(outcomeRoutes(db));

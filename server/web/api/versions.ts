@@ -7,7 +7,8 @@ import type { z } from "zod";
 import { versionNumberOf } from "#core/urls";
 import { guard } from "../auth/require-role";
 import { reviewBrief, reviewHistory, withdrawBrief } from "#workflows/review";
-import { listPressRoom, readVersion } from "#db/versions";
+import { listPressRoom, listReleasedBriefs, readVersion } from "#db/versions";
+import { topicsOf } from "#core/search";
 import type { ReadinessItem } from "#core/readiness";
 import { publishVersion, rescheduleRelease } from "#workflows/publish";
 import { briefReadiness } from "#workflows/readiness";
@@ -99,6 +100,11 @@ export function versionRoutes(db: Database, mail: (req: Request) => MailContext)
     const outcome = await withdrawBrief(db, String(req.params.id), (req.body as z.infer<typeof withdrawalBody>).reason, req.user!.id);
     if (!outcome.ok) return refuse(res, outcome.reason, outcome.detail);
     res.json({ status: "withdrawn" });
+  });
+
+  // The topics of the released briefs (the press choose which alert them).
+  router.get("/topics", guard("GET /api/topics"), async (_req, res) => {
+    res.json({ topics: topicsOf(await listReleasedBriefs(db)) });
   });
 
   // A reporter's question to the editors, by e-mail through the queue.
