@@ -9,6 +9,7 @@ import { PeopleScreen } from "./PeopleScreen";
 import { AuditScreen } from "./AuditScreen";
 import { AccountScreen } from "./AccountScreen";
 import { DevMailScreen } from "./DevMailScreen";
+import { PressRoom } from "./PressRoom";
 import { ResultsScreen } from "./ResultsScreen";
 import { useSignedInPerson, useSignOut } from "./queries";
 
@@ -70,6 +71,7 @@ function DeskRoutes({ person }: { person: NonNullable<ReturnType<typeof useSigne
       {person.roles.includes("admin") ? <Route path="audit" element={<AuditScreen />} /> : null}
       <Route path="account" element={<AccountScreen person={person} />} />
       <Route path="dev/mail" element={<DevMailScreen />} />
+      {person.roles.includes("press") || person.roles.includes("editor") ? <Route path="press" element={<PressRoom canAsk={person.roles.includes("press")} />} /> : null}
       <Route path="*" element={<p>{t("desk.notFound")}</p>} />
     </Routes>
   );

@@ -7,6 +7,31 @@ import { translationLocales } from "#core/locales";
 import { Field, inputClass, SubmitRow } from "./forms";
 import { useChangePerson, useInvite, useMessages, usePeople, useResendInvitation } from "./queries";
 
+/** The roles and, for translators, the locales: checkboxes shared by the invitation and the change forms. */
+function RoleAndLocaleChoices({ roles, locales }: { roles: readonly string[]; locales: readonly string[] }) {
+  const { t } = useTranslation();
+  return (
+    <>
+      <fieldset>
+        <legend className="text-sm font-semibold">{t("desk.people.roles")}</legend>
+        {roleNames.map((role) => (
+          <label key={role} className="me-4 inline-flex items-center gap-1">
+            <input type="checkbox" name="roles" value={role} defaultChecked={roles.includes(role)} /> {t(`desk.role.${role}`)}
+          </label>
+        ))}
+      </fieldset>
+      <fieldset className="mt-2">
+        <legend className="text-sm font-semibold">{t("desk.people.translationLocales")}</legend>
+        {translationLocales.map((locale) => (
+          <label key={locale} className="me-4 inline-flex items-center gap-1">
+            <input type="checkbox" name="translationLocales" value={locale} defaultChecked={locales.includes(locale)} /> {locale}
+          </label>
+        ))}
+      </fieldset>
+    </>
+  );
+}
+
 export function PeopleScreen({ selfId }: { selfId: string }) {
   const { t } = useTranslation();
   const people = usePeople();
@@ -58,6 +83,23 @@ export function PeopleScreen({ selfId }: { selfId: string }) {
               <td className="py-2">
                 {person.roles.map((role) => t(`desk.role.${role}`)).join(", ")}
                 {person.translationLocales.length > 0 ? ` (${person.translationLocales.join(", ")})` : ""}
+                <details className="mt-1">
+                  <summary className="cursor-pointer underline">{t("desk.people.change", { name: person.displayName })}</summary>
+                  <form
+                    aria-label={t("desk.people.change", { name: person.displayName })}
+                    className="mt-2 space-y-2"
+                    onSubmit={(event) => {
+                      event.preventDefault();
+                      const data = new FormData(event.currentTarget);
+                      change.mutate({ id: person.id, roles: data.getAll("roles").map(String) as Role[], translationLocales: data.getAll("translationLocales").map(String) as (typeof translationLocales)[number][] });
+                    }}
+                  >
+                    <RoleAndLocaleChoices roles={person.roles} locales={person.translationLocales} />
+                    <button type="submit" className="border border-ink px-3 py-1 font-semibold" disabled={change.isPending}>
+                      {t("desk.people.save")}
+                    </button>
+                  </form>
+                </details>
               </td>
               <td className="py-2">{!person.active ? t("desk.people.inactive") : person.passwordSet ? t("desk.people.active") : t("desk.people.invited")}</td>
               <td className="space-x-3 py-2 text-end">
@@ -86,22 +128,9 @@ export function PeopleScreen({ selfId }: { selfId: string }) {
           <Field label={t("desk.people.displayName")}>
             <input name="displayName" required className={inputClass} />
           </Field>
-          <fieldset className="sm:col-span-2">
-            <legend className="text-sm font-semibold">{t("desk.people.roles")}</legend>
-            {roleNames.map((role) => (
-              <label key={role} className="me-4 inline-flex items-center gap-1">
-                <input type="checkbox" name="roles" value={role} /> {t(`desk.role.${role}`)}
-              </label>
-            ))}
-          </fieldset>
-          <fieldset className="sm:col-span-2">
-            <legend className="text-sm font-semibold">{t("desk.people.translationLocales")}</legend>
-            {translationLocales.map((locale) => (
-              <label key={locale} className="me-4 inline-flex items-center gap-1">
-                <input type="checkbox" name="translationLocales" value={locale} /> {locale}
-              </label>
-            ))}
-          </fieldset>
+          <div className="sm:col-span-2">
+            <RoleAndLocaleChoices roles={[]} locales={[]} />
+          </div>
           <SubmitRow label={t("desk.people.send")} busy={invite.isPending} error={invite.error?.message ?? null} />
           {invite.isSuccess ? (
             <p role="status" className="sm:col-span-2">

@@ -34,7 +34,7 @@ export async function afterPublish(ctx: MailContext, briefId: string, number: nu
   if (!version) return;
   if (version.releaseAt.getTime() > Date.now()) {
     if (!rescheduled) {
-      await send(ctx, (await pressFor(ctx, version)).map((person) => pressAlertMessage(person, version, `${ctx.siteUrl}/desk`)));
+      await send(ctx, (await pressFor(ctx, version)).map((person) => pressAlertMessage(person, version, `${ctx.siteUrl}/desk/press`)));
     }
     await ctx.queue?.send(releaseJob, { briefId, number }, undefined, version.releaseAt);
     return;

@@ -33,6 +33,12 @@ it("admin invites a translator → the e-mail's link → a password → the tran
   await form.getByRole("button", { name: en.desk.people.send }).click();
   await admin.page.getByTestId("people").getByText(email).waitFor();
   await admin.page.getByTestId("messages").getByText(`You are invited to Fairweigh → ${email}: sent`).waitFor({ timeout: 30_000 });
+  // Roles change later too: French is added to the translator's locales.
+  const row = admin.page.getByTestId("people").locator("tr", { hasText: email });
+  await row.getByText("Change the roles of Tomás Translator").click();
+  await row.getByRole("form").getByLabel("fr", { exact: true }).check();
+  await row.getByRole("button", { name: en.desk.people.save }).click();
+  await row.getByText(`${en.desk.role.translator} (es, fr)`).waitFor();
   await keepScreenshot(admin.page, "invitation-1-admin-people");
   // The invitation is in the audit log, found with the action filter.
   await admin.page.goto(`${server.url}/desk/audit`);

@@ -189,6 +189,7 @@ describe("alerts around a release", () => {
     const newYork = new Intl.DateTimeFormat("en", { dateStyle: "long", timeStyle: "short", timeZone: "America/New_York" }).format(releaseAt);
     expect(embargo.subject).toBe(`Embargoed until ${newYork}: ${title}`);
     expect(embargo.text).toContain("(America/New_York)");
+    expect(embargo.text).toMatch(/Open the press room: https?:\/\/\S+\/desk\/press/);
     const released = await mailbox.waitFor(reporter.email, (m) => m.subject === `Released: ${title}`, 20_000);
     expect(released.text).toContain(`/briefs/${slug}/v/1`);
     expect(new Date(released.receivedAt).getTime()).toBeGreaterThanOrEqual(releaseAt.getTime());
