@@ -9,7 +9,7 @@ import { publicVersionState } from "#db/versions";
 import { siteUrl } from "../public/routes";
 import type { Database } from "#db/client";
 import type { createCsrf } from "../http/security";
-import { canonicalVersionPath, isDeskPath, parseBriefPath, parseVersionPath } from "#core/urls";
+import { canonicalVersionPath, isDeskPath, parseBriefPath, parseVersionPath, type VersionPath } from "#core/urls";
 import { admits, pageAccess } from "#core/access";
 import { encode, etagOf, PageCache, StateMemo, type CachedPage, type Encodings } from "./page-cache";
 
@@ -93,7 +93,7 @@ export async function pageRoutes(options: {
     // is sent there, so that each page is rendered and cached once.
     if (parsed && !parsed.canonical) return res.redirect(301, canonicalVersionPath(parsed) + (req.originalUrl.slice(req.path.length) || ""));
     try {
-      const memory = memoryCached(req);
+      const memory = memoryCached(req, parsed);
       if (memory) {
         const cached = cache.get(memory.key);
         if (cached) {
@@ -123,10 +123,9 @@ export async function pageRoutes(options: {
    * version's pages and a brief's latest address. Only a reader who sees what the public sees shares
    * them: the press and editors also see embargoed versions in a page's history.
    */
-  function memoryCached(req: Request): { key: string; state: () => Promise<string | null> } | null {
+  function memoryCached(req: Request, version: VersionPath | null): { key: string; state: () => Promise<string | null> } | null {
     if (mayReadEmbargoed(req.user?.roles ?? [])) return null;
     const key = PageCache.key(defaultLocale, req.path);
-    const version = parseVersionPath(req.path);
     if (version) {
       const { slug, version: number } = version.at;
       return { key, state: () => states.get(`${slug}/${number}`, () => publicVersionState(db, slug, number)) };
