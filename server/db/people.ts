@@ -53,19 +53,24 @@ export async function findActiveByEmail(db: Executor, email: string): Promise<Pe
   return row ? withRoles(db, row) : null;
 }
 
-export async function listPeople(db: Database): Promise<PersonRecord[]> {
-  const rows = await db.select().from(people).orderBy(people.email);
-  const roleRows = await db.select().from(personRoles);
+export async function listPeople(db: Executor): Promise<PersonRecord[]> {
+  return peopleRecords(db);
+}
+
+/** One person as administrators see them: reads that person's row and roles only. */
+export async function findPersonRecord(db: Executor, id: string): Promise<PersonRecord | null> {
+  return (await peopleRecords(db, id))[0] ?? null;
+}
+
+async function peopleRecords(db: Executor, id?: string): Promise<PersonRecord[]> {
+  const rows = await db.select().from(people).where(id ? eq(people.id, id) : undefined).orderBy(people.email);
+  const roleRows = await db.select().from(personRoles).where(id ? eq(personRoles.personId, id) : undefined);
   return rows.map((row) => ({
     ...personOf(row, roleRows.filter((r) => r.personId === row.id).map((r) => r.role)),
     active: row.deactivatedAt === null,
     passwordSet: row.passwordHash !== null,
     createdAt: row.createdAt.toISOString(),
   }));
-}
-
-export async function findPersonRecord(db: Database, id: string): Promise<PersonRecord | null> {
-  return (await listPeople(db)).find((person) => person.id === id) ?? null;
 }
 
 /** Creates a person with roles, or returns the existing one with that e-mail unchanged (the demo seed). */

@@ -105,7 +105,7 @@ export async function changeOwnAccount(ctx: AccountContext, person: Person, sess
 export async function changePerson(ctx: AccountContext, id: string, changes: { roles?: Role[]; translationLocales?: string[]; locale?: string; active?: boolean }, actor: Person) {
   if (id === actor.id && changes.active === false) return { ok: false as const, reason: "self" as const };
   return ctx.db.transaction(async (tx) => {
-    const before = await findPersonRecord(ctx.db, id);
+    const before = await findPersonRecord(tx, id);
     if (!before) return { ok: false as const, reason: "not-found" as const };
     const person = await updatePerson(tx, id, changes, actor.id);
     if (before.roles.includes("admin") && (await activeAdminCount(tx)) === 0) throw new LastAdministrator();
