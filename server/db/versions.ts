@@ -127,17 +127,20 @@ export interface PressRoomEntry {
   embargoed: boolean;
 }
 
+/** A version as the lists name it, from the listed columns beside its snapshot (decision record 0019). */
+const listedVersion = {
+  slug: briefs.slug,
+  title: sql<string>`${briefVersions.listedBrief}->>'title'`,
+  number: briefVersions.number,
+  releaseAt: briefVersions.releaseAt,
+  note: briefVersions.note,
+};
+
 /** Embargoed versions, soonest first, then the releases of the last 30 days, newest first. */
 export async function listPressRoom(db: Database): Promise<PressRoomEntry[]> {
   const since = new Date(Date.now() - 30 * 24 * 3600 * 1000);
   const rows = await db
-    .select({
-      slug: briefs.slug,
-      title: sql<string>`${briefVersions.listedBrief}->>'title'`,
-      number: briefVersions.number,
-      releaseAt: briefVersions.releaseAt,
-      note: briefVersions.note,
-    })
+    .select(listedVersion)
     .from(briefVersions)
     .innerJoin(briefs, eq(briefs.id, briefVersions.briefId))
     .where(and(gte(briefVersions.releaseAt, since), isNull(briefs.withdrawnAt)));
@@ -197,11 +200,7 @@ export interface ReleasedVersion {
 export async function listReleasedVersions(db: Database): Promise<ReleasedVersion[]> {
   const rows = await db
     .select({
-      slug: briefs.slug,
-      title: sql<string>`${briefVersions.listedBrief}->>'title'`,
-      number: briefVersions.number,
-      releaseAt: briefVersions.releaseAt,
-      note: briefVersions.note,
+      ...listedVersion,
       withdrawnAt: briefs.withdrawnAt,
       withdrawalReason: briefs.withdrawalReason,
     })
@@ -215,7 +214,7 @@ export async function listReleasedVersions(db: Database): Promise<ReleasedVersio
 /** What an announcement of a version says: its brief, number, release time and note. */
 export async function versionForAnnouncement(db: Database, briefId: string, number: number) {
   const [row] = await db
-    .select({ versionId: briefVersions.id, slug: briefs.slug, title: sql<string>`${briefVersions.listedBrief}->>'title'`, topic: sql<string>`${briefVersions.listedBrief}->>'topic'`, number: briefVersions.number, releaseAt: briefVersions.releaseAt, note: briefVersions.note })
+    .select({ ...listedVersion, versionId: briefVersions.id, topic: sql<string>`${briefVersions.listedBrief}->>'topic'` })
     .from(briefVersions)
     .innerJoin(briefs, eq(briefs.id, briefVersions.briefId))
     .where(and(eq(briefVersions.briefId, briefId), eq(briefVersions.number, number)));
