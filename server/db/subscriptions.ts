@@ -24,7 +24,7 @@ export async function requestSubscription(db: Database, email: string, topicSlug
       setWhere: sql`${subscriptions.confirmedAt} is null or ${subscriptions.unsubscribedAt} is not null`,
     })
     .returning({ id: subscriptions.id });
-  return row ? { token } : null;
+  return row ? { token, confirmBy } : null;
 }
 
 /** Confirms by the link's token, once and before it expires: the topic, or null. */

@@ -8,12 +8,20 @@ import { invitationUrl, passwordResetUrl } from "#core/urls";
 import { insertMessage } from "#db/messages";
 import { activeAdminCount, endSessions, findActiveByEmail, findPersonRecord, insertPerson, passwordHashOf, setPasswordHash, updatePerson, type Person } from "#db/people";
 import { consumeToken, issueToken } from "#db/tokens";
+import type { Executor } from "#db/client";
 import { deliver, type MailContext } from "./mail";
 import type { Queue } from "./queue";
 
 export type AccountContext = MailContext;
 
 const passwordResetJob = "password-reset";
+
+/** A new invitation link for the person (the earlier one stops working) and its e-mail, stored in the caller's transaction. */
+async function storeInvitation(ctx: AccountContext, tx: Executor, person: Person, inviter: Person): Promise<string> {
+  const { token, expiresAt } = await issueToken(tx, person.id, "invitation");
+  const message = invitationMessage({ recipient: person.email, name: person.displayName, inviter: inviter.displayName, roles: person.roles, link: ctx.siteUrl + invitationUrl(token), expires: expiresAt, locale: person.locale });
+  return insertMessage(tx, message);
+}
 
 export async function invitePerson(
   ctx: AccountContext,
@@ -23,9 +31,7 @@ export async function invitePerson(
   const outcome = await ctx.db.transaction(async (tx) => {
     const person = await insertPerson(tx, { ...input, passwordHash: null }, inviter.id);
     if (!person) return null;
-    const { token, expiresAt } = await issueToken(tx, person.id, "invitation");
-    const message = invitationMessage({ recipient: person.email, name: person.displayName, inviter: inviter.displayName, roles: person.roles, link: ctx.siteUrl + invitationUrl(token), expires: expiresAt, locale: person.locale });
-    return { person, messageId: await insertMessage(tx, message) };
+    return { person, messageId: await storeInvitation(ctx, tx, person, inviter) };
   });
   if (!outcome) return { ok: false as const, reason: "taken" as const };
   await deliver(ctx.queue, [outcome.messageId]);
@@ -37,11 +43,7 @@ export async function resendInvitation(ctx: AccountContext, personId: string, in
   const record = await findPersonRecord(ctx.db, personId);
   if (!record) return { ok: false as const, reason: "not-found" as const };
   if (record.passwordSet) return { ok: false as const, reason: "accepted" as const };
-  const messageId = await ctx.db.transaction(async (tx) => {
-    const { token, expiresAt } = await issueToken(tx, record.id, "invitation");
-    const message = invitationMessage({ recipient: record.email, name: record.displayName, inviter: inviter.displayName, roles: record.roles, link: ctx.siteUrl + invitationUrl(token), expires: expiresAt, locale: record.locale });
-    return insertMessage(tx, message);
-  });
+  const messageId = await ctx.db.transaction((tx) => storeInvitation(ctx, tx, record, inviter));
   await deliver(ctx.queue, [messageId]);
   return { ok: true as const };
 }

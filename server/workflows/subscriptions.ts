@@ -19,7 +19,7 @@ export async function askToSubscribe(ctx: MailContext, request: { email: string;
 async function sendConfirmation(ctx: MailContext, { email, topic, locale }: { email: string; topic: string; locale: string }): Promise<void> {
   const started = await requestSubscription(ctx.db, email, slugify(topic), locale);
   if (!started) return;
-  const message = subscriptionConfirmMessage({ recipient: email, topic, link: ctx.siteUrl + confirmSubscriptionUrl(started.token), expires: new Date(Date.now() + 7 * 24 * 3600 * 1000), locale });
+  const message = subscriptionConfirmMessage({ recipient: email, topic, link: ctx.siteUrl + confirmSubscriptionUrl(started.token), expires: started.confirmBy, locale });
   const id = await ctx.db.transaction((tx) => insertMessage(tx, message));
   await deliver(ctx.queue, [id]);
 }
