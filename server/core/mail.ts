@@ -29,6 +29,8 @@ interface Draft {
   action: { label: string; url: string };
   after?: string[];
   headers?: Record<string, string>;
+  /** Why the reader receives it: their account (the default), or a subscription without one. */
+  footer?: "footer" | "subscriptionFooter";
 }
 
 /**
@@ -38,10 +40,10 @@ interface Draft {
 function message(kind: string, recipient: string, requestedLocale: string | undefined, draft: (words: TFunction, locale: Locale) => Draft): Message {
   const locale = localeOf(requestedLocale);
   const words = t(locale);
-  const { subject, paragraphs, action, after = [], headers } = draft(words, locale);
-  const text = [...paragraphs, "", `${action.label}: ${action.url}`, "", ...after, "", "-- ", words("signature"), words("footer")].join("\n");
+  const { subject, paragraphs, action, after = [], headers, footer = "footer" } = draft(words, locale);
+  const text = [...paragraphs, "", `${action.label}: ${action.url}`, "", ...after, "", "-- ", words("signature"), words(footer)].join("\n");
   const p = (line: string) => `<p>${escapeHtml(line)}</p>`;
-  const html = `<!doctype html><html lang="${locale}"><head><meta charset="utf-8"><title>${escapeHtml(subject)}</title></head><body style="font-family: Georgia, serif; max-width: 36em">${paragraphs.map(p).join("")}<p><a href="${escapeHtml(action.url)}">${escapeHtml(action.label)}</a></p>${after.map(p).join("")}<hr><p style="color:#555">${escapeHtml(words("signature"))}<br>${escapeHtml(words("footer"))}</p></body></html>`;
+  const html = `<!doctype html><html lang="${locale}"><head><meta charset="utf-8"><title>${escapeHtml(subject)}</title></head><body style="font-family: Georgia, serif; max-width: 36em">${paragraphs.map(p).join("")}<p><a href="${escapeHtml(action.url)}">${escapeHtml(action.label)}</a></p>${after.map(p).join("")}<hr><p style="color:#555">${escapeHtml(words("signature"))}<br>${escapeHtml(words(footer))}</p></body></html>`;
   return { kind, recipient, locale, ...(headers ? { headers } : {}), subject, text, html };
 }
 
@@ -133,6 +135,7 @@ export function subscriptionConfirmMessage(input: { recipient: string; topic: st
     paragraphs: [words("subscriptionConfirm.body", { topic: input.topic })],
     action: { label: words("subscriptionConfirm.action"), url: input.link },
     after: [words("subscriptionConfirm.expiry", { expires: utc(input.expires) })],
+    footer: "subscriptionFooter",
   }));
 }
 
@@ -148,7 +151,8 @@ export function topicNoticeMessage(input: { recipient: string; topic: string; ti
       subject: words(corrected ? "topicNotice.correctedSubject" : "topicNotice.newSubject", values),
       paragraphs: [words(corrected ? "topicNotice.correctedBody" : "topicNotice.newBody", values)],
       action: { label: words("topicNotice.action"), url: input.link },
-      after: [words("topicNotice.unsubscribe", { link: input.unsubscribeUrl }), words("subscriptionFooter")],
+      after: [words("topicNotice.unsubscribe", { link: input.unsubscribeUrl })],
+      footer: "subscriptionFooter",
       headers: { "List-Unsubscribe": `<${input.unsubscribeUrl}>`, "List-Unsubscribe-Post": "List-Unsubscribe=One-Click" },
     };
   });
