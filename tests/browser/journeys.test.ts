@@ -8,10 +8,9 @@ import { readFileSync } from "node:fs";
 import type { Browser } from "playwright-core";
 import { expect, it } from "vitest";
 import en from "../../locales/en/common.json";
-import { demoPassword } from "#workflows/seed";
 import { keepScreenshot, launchChromium, signedIn as signedInAt, withServerAndBrowser } from "../support/browser";
 import { analysedBrief, approve } from "../support/briefs";
-import { ApiClient } from "../support/client";
+import { demoClient } from "../support/client";
 
 const setup = withServerAndBrowser();
 const signedIn = (browser: Browser, email: string) => signedInAt(browser, setup.server.url, email);
@@ -21,10 +20,8 @@ const run = Date.now().toString(36);
 const title = `Counselling to stop smoking, embargoed (browser journey ${run})`;
 
 it("editor schedules with an embargo → reporter reads it early, then cites a comparison → the public finds it and downloads the CSV", async () => {
-  const analystApi = new ApiClient(setup.server.url);
-  await analystApi.signIn("analyst@fairweigh.example", demoPassword);
-  const editorApi = new ApiClient(setup.server.url);
-  await editorApi.signIn("editor@fairweigh.example", demoPassword);
+  const analystApi = await demoClient(setup.server.url, "analyst");
+  const editorApi = await demoClient(setup.server.url, "editor");
   const { briefId, slug } = await analysedBrief(analystApi, title);
   await approve(analystApi, editorApi, briefId);
 

@@ -3,17 +3,15 @@
 import type { Browser } from "playwright-core";
 import { expect, it } from "vitest";
 import en from "../../locales/en/common.json";
-import { demoPassword } from "#workflows/seed";
 import { signedIn as signedInAt, withServerAndBrowser } from "../support/browser";
 import { analysedBrief } from "../support/briefs";
-import { ApiClient } from "../support/client";
+import { demoClient } from "../support/client";
 
 const setup = withServerAndBrowser();
 const signedIn = (browser: Browser, email: string) => signedInAt(browser, setup.server.url, email);
 
 it("goes from a draft through review to a public page, and a reporter sees it in the press room", async () => {
-  const api = new ApiClient(setup.server.url);
-  await api.signIn("analyst@fairweigh.example", demoPassword);
+  const api = await demoClient(setup.server.url, "analyst");
   const { briefId, slug } = await analysedBrief(api, "Released from the desk (browser test)");
 
   const analyst = await signedIn(setup.browser, "analyst@fairweigh.example");

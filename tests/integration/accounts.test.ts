@@ -5,9 +5,8 @@
 // the queue, and arrives afterwards.
 import pg from "pg";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { demoPassword } from "#workflows/seed";
 import { startMailbox, type Mailbox } from "../../scripts/lib/mailbox";
-import { ApiClient } from "../support/client";
+import { ApiClient, demoClient } from "../support/client";
 import { analysedBrief, approve } from "../support/briefs";
 import { testDatabaseUrl } from "../support/app";
 import { startProductionServer, type RunningServer } from "../support/production-server";
@@ -23,8 +22,7 @@ beforeAll(async () => {
   mailbox = await startMailbox();
   server = await startProductionServer({ env: mailEnv() });
   port = Number(new URL(server.url).port);
-  admin = new ApiClient(server.url);
-  expect((await admin.signIn("admin@fairweigh.example", demoPassword)).status).toBe(200);
+  admin = await demoClient(server.url, "admin");
 }, 60_000);
 afterAll(async () => {
   await server?.stop();
@@ -175,10 +173,8 @@ describe("alerts around a release", () => {
     const sleepReporter = await newPerson("sleep-reporter", ["press"]);
     expect((await sleepReporter.client.request("PATCH", "/api/account", { json: { alertTopics: ["sleep"] } })).status).toBe(200);
     const translator = await newPerson("spanish", ["translator"], { translationLocales: ["es"] });
-    const analyst = new ApiClient(server.url);
-    await analyst.signIn("analyst@fairweigh.example", demoPassword);
-    const editor = new ApiClient(server.url);
-    await editor.signIn("editor@fairweigh.example", demoPassword);
+    const analyst = await demoClient(server.url, "analyst");
+    const editor = await demoClient(server.url, "editor");
     const title = `Alerted brief ${run}`;
     const { briefId, slug } = await analysedBrief(analyst, title);
     await approve(analyst, editor, briefId);
@@ -204,8 +200,7 @@ describe("alerts around a release", () => {
 
 describe("the press room's contact form", () => {
   it("stores the question and e-mails every editor, with the reporter to reply to", async () => {
-    const reporter = new ApiClient(server.url);
-    await reporter.signIn("press@fairweigh.example", demoPassword);
+    const reporter = await demoClient(server.url, "press");
     const subject = `Embargo question ${run}`;
     const asked = await reporter.request("POST", "/api/press-enquiries", { json: { subject, body: "May we quote the lay summary before the release?", briefSlug: null } });
     expect(asked.status).toBe(201);
@@ -220,10 +215,8 @@ describe("the press room's contact form", () => {
 
 describe("topic alerts for readers", () => {
   it("double opt-in, a correction notice with a one-click unsubscribe (RFC 8058), then nothing more", async () => {
-    const analyst = new ApiClient(server.url);
-    await analyst.signIn("analyst@fairweigh.example", demoPassword);
-    const editor = new ApiClient(server.url);
-    await editor.signIn("editor@fairweigh.example", demoPassword);
+    const analyst = await demoClient(server.url, "analyst");
+    const editor = await demoClient(server.url, "editor");
     const title = `Subscribed brief ${run}`;
     const { briefId } = await analysedBrief(analyst, title);
     await approve(analyst, editor, briefId);
@@ -282,10 +275,8 @@ async function approveChange(analyst: ApiClient, editor: ApiClient, briefId: str
 
 describe("e-mail through an outage", () => {
   it("with the SMTP server down, an invitation, a scheduling and a release still succeed; the messages arrive once it is back, and survive a server restart", async () => {
-    const analyst = new ApiClient(server.url);
-    await analyst.signIn("analyst@fairweigh.example", demoPassword);
-    const editor = new ApiClient(server.url);
-    await editor.signIn("editor@fairweigh.example", demoPassword);
+    const analyst = await demoClient(server.url, "analyst");
+    const editor = await demoClient(server.url, "editor");
     const title = `Released during an outage ${run}`;
     const { briefId } = await analysedBrief(analyst, title);
     await approve(analyst, editor, briefId);
@@ -302,8 +293,7 @@ describe("e-mail through an outage", () => {
     await server.stop();
     server = await startProductionServer({ port, env: mailEnv() });
     const messages = await (async () => {
-      const again = new ApiClient(server.url);
-      await again.signIn("admin@fairweigh.example", demoPassword);
+      const again = await demoClient(server.url, "admin");
       admin = again;
       return (await again.request("GET", "/api/messages")).body.messages as { recipient: string; state: string; attempts: number; lastError: string | null }[];
     })();

@@ -1,9 +1,8 @@
 // The audit log for administrators: every change with who, when, what and the record before and
 // after, filtered by person, action and brief, and paged in SQL (newest first, by a cursor).
 import { afterAll, beforeAll, expect, it } from "vitest";
-import { demoPassword } from "#workflows/seed";
 import { draftBrief } from "../support/briefs";
-import { ApiClient } from "../support/client";
+import { type ApiClient, demoClient } from "../support/client";
 import { startTestApp, type TestApp } from "../support/app";
 
 let app: TestApp;
@@ -11,8 +10,7 @@ const clients: Record<string, ApiClient> = {};
 beforeAll(async () => {
   app = await startTestApp();
   for (const role of ["admin", "analyst"]) {
-    clients[role] = new ApiClient(app.url);
-    await clients[role].signIn(`${role}@fairweigh.example`, demoPassword);
+    clients[role] = await demoClient(app.url, role);
   }
 });
 afterAll(async () => {

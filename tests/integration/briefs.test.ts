@@ -2,9 +2,8 @@
 import { readFileSync } from "node:fs";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { demoPassword } from "#workflows/seed";
 import { startTestApp, type TestApp } from "../support/app";
-import { ApiClient } from "../support/client";
+import { type ApiClient, demoClient } from "../support/client";
 
 const referenceFolder = path.resolve(__dirname, "../fixtures/reference");
 const hasselbladCsv = readFileSync(path.join(referenceFolder, "hasselblad1998.csv"));
@@ -15,8 +14,7 @@ let app: TestApp;
 let analyst: ApiClient;
 beforeAll(async () => {
   app = await startTestApp();
-  analyst = new ApiClient(app.url);
-  await analyst.signIn("analyst@fairweigh.example", demoPassword);
+  analyst = await demoClient(app.url, "analyst");
 });
 afterAll(async () => {
   await app.close();
@@ -63,8 +61,7 @@ describe("briefs", () => {
 
   it("answers one of two concurrent PATCHes with 409 and the current version", async () => {
     const { briefId } = await newBriefWithOutcome("Concurrent edits");
-    const other = new ApiClient(app.url);
-    await other.signIn("editor@fairweigh.example", demoPassword);
+    const other = await demoClient(app.url, "editor");
     const [a, b] = await Promise.all([
       analyst.request("PATCH", `/api/briefs/${briefId}`, { json: { rowVersion: 1, title: "Title from the analyst" } }),
       other.request("PATCH", `/api/briefs/${briefId}`, { json: { rowVersion: 1, title: "Title from the editor" } }),
@@ -133,8 +130,7 @@ describe("data upload", () => {
 
   it("refuses an editor without the analyst role with 403", async () => {
     const { outcomeId } = await newBriefWithOutcome("Role check");
-    const editor = new ApiClient(app.url);
-    await editor.signIn("editor@fairweigh.example", demoPassword);
+    const editor = await demoClient(app.url, "editor");
     const response = await editor.upload(`/api/outcomes/${outcomeId}/dataset`, { name: "x.csv", bytes: hasselbladCsv }, { format: "arm-binary" });
     expect(response.status).toBe(403);
   });
@@ -197,8 +193,7 @@ describe("certainty judgements", () => {
 
   it("refuses an editor with 403", async () => {
     const { outcomeId } = await newBriefWithOutcome("Certainty roles");
-    const editor = new ApiClient(app.url);
-    await editor.signIn("editor@fairweigh.example", demoPassword);
+    const editor = await demoClient(app.url, "editor");
     const response = await editor.request("PUT", `/api/outcomes/${outcomeId}/certainty/a/b`, { json: {} });
     expect(response.status).toBe(403);
   });

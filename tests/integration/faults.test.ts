@@ -7,13 +7,12 @@ import path from "node:path";
 import pg from "pg";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { readSnapshot } from "#core/snapshot/upgrade";
-import { demoPassword } from "#workflows/seed";
 import { backupDatabase, restoreDatabase } from "../../scripts/lib/backup";
 import { ensureCluster, freePort, type Cluster } from "../../scripts/lib/postgres";
 import { startProductionServer as startServer } from "../../scripts/lib/production-server";
 import { migrateAndSeed } from "../../scripts/lib/steps";
 import { analysedBrief, approve } from "../support/briefs";
-import { ApiClient } from "../support/client";
+import { demoClient } from "../support/client";
 import { startTestApp, testDatabaseUrl, testSessionSecret, type TestApp } from "../support/app";
 
 const quiet = () => {};
@@ -40,8 +39,7 @@ describe("the database restarted while requests arrive", () => {
 
   it("answers 503 while it is down, and serves again once it is back, the session kept", async () => {
     app = await startTestApp(cluster.url);
-    const analyst = new ApiClient(app.url);
-    expect((await analyst.signIn("analyst@fairweigh.example", demoPassword)).status).toBe(200);
+    const analyst = await demoClient(app.url, "analyst");
     expect((await analyst.request("GET", "/api/briefs")).status).toBe(200);
 
     // Requests keep arriving while the database stops: each is answered, 200 or 503, never 500.
@@ -81,10 +79,8 @@ describe("the server killed during a publish", () => {
       // Kills from before the request reaches the database to after it has answered.
       for (const delay of [0, 5, 15, 30, 60, 90, 120]) {
         const server = await startServer({ databaseUrl: testDatabaseUrl(), sessionSecret: testSessionSecret });
-        const analyst = new ApiClient(server.url);
-        const editor = new ApiClient(server.url);
-        await analyst.signIn("analyst@fairweigh.example", demoPassword);
-        await editor.signIn("editor@fairweigh.example", demoPassword);
+        const analyst = await demoClient(server.url, "analyst");
+        const editor = await demoClient(server.url, "editor");
         const { briefId } = await analysedBrief(analyst, `Killed at ${delay} ms`);
         await approve(analyst, editor, briefId);
         await editor.request("GET", "/api/csrf");

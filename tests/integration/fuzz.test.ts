@@ -8,9 +8,8 @@ import { admits, apiAccess, fileAccess, pageAccess, readers, type AccessRule } f
 import { formats } from "#core/nma/types";
 import { slugify } from "#core/slug";
 import { demoBriefs } from "#workflows/demo-briefs";
-import { demoPassword } from "#workflows/seed";
 import { analysedBrief } from "../support/briefs";
-import { ApiClient } from "../support/client";
+import { ApiClient, demoClient } from "../support/client";
 import { startProductionServer, type RunningServer } from "../support/production-server";
 
 const seed = 20261202;
@@ -23,9 +22,7 @@ let draft: { briefId: string; outcomeId: string };
 beforeAll(async () => {
   server = await startProductionServer();
   for (const reader of readers) {
-    const client = new ApiClient(server.url);
-    if (reader.roles) expect((await client.signIn(`${reader.name}@fairweigh.example`, demoPassword)).status).toBe(200);
-    clients.set(reader.name, client);
+    clients.set(reader.name, reader.roles ? await demoClient(server.url, reader.name) : new ApiClient(server.url));
   }
   draft = await analysedBrief(clients.get("analyst")!, "Fuzzed draft");
 }, 90_000);

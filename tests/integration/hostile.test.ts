@@ -4,11 +4,10 @@
 import { readFileSync } from "node:fs";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { demoPassword } from "#workflows/seed";
 import { demoBriefs } from "#workflows/demo-briefs";
 import { slugify } from "#core/slug";
 import { analysedBrief, approve, publishedBrief, rateEveryComparison } from "../support/briefs";
-import { ApiClient } from "../support/client";
+import { type ApiClient, demoClient } from "../support/client";
 import { startProductionServer, type RunningServer } from "../support/production-server";
 
 let server: RunningServer;
@@ -16,8 +15,7 @@ const clients: Record<string, ApiClient> = {};
 beforeAll(async () => {
   server = await startProductionServer();
   for (const role of ["analyst", "editor", "press"]) {
-    clients[role] = new ApiClient(server.url);
-    await clients[role].signIn(`${role}@fairweigh.example`, demoPassword);
+    clients[role] = await demoClient(server.url, role);
   }
 }, 60_000);
 afterAll(async () => {
@@ -125,8 +123,7 @@ describe("what the public files say", () => {
 
 describe("sessions, caching of API answers, and review", () => {
   it("signing out ends the session on the server and clears its cookie", async () => {
-    const person = new ApiClient(server.url);
-    await person.signIn("analyst@fairweigh.example", demoPassword);
+    const person = await demoClient(server.url, "analyst");
     const cookie = person.cookieHeader;
     const out = await person.request("DELETE", "/api/session");
     expect(out.status).toBe(204);

@@ -8,9 +8,8 @@ import { xml2js } from "xml-js";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { slugify } from "#core/slug";
 import { demoBriefs } from "#workflows/demo-briefs";
-import { demoPassword } from "#workflows/seed";
 import { analysedBrief, approve, publishedBrief } from "../support/briefs";
-import { ApiClient } from "../support/client";
+import { type ApiClient, demoClient } from "../support/client";
 import { startProductionServer, type RunningServer } from "../support/production-server";
 
 let server: RunningServer;
@@ -18,8 +17,7 @@ const clients: Record<string, ApiClient> = {};
 beforeAll(async () => {
   server = await startProductionServer();
   for (const role of ["analyst", "editor", "press"]) {
-    clients[role] = new ApiClient(server.url);
-    await clients[role].signIn(`${role}@fairweigh.example`, demoPassword);
+    clients[role] = await demoClient(server.url, role);
   }
 }, 60_000);
 afterAll(async () => {

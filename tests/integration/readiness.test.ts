@@ -5,9 +5,8 @@
 // comparison as rated.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Certainty } from "#web/api/contract";
-import { demoPassword } from "#workflows/seed";
 import { analysedBrief, approve, draftBrief, rateEveryComparison } from "../support/briefs";
-import { ApiClient } from "../support/client";
+import { type ApiClient, demoClient } from "../support/client";
 import { startProductionServer, type RunningServer } from "../support/production-server";
 
 let server: RunningServer;
@@ -15,8 +14,7 @@ const clients: Record<string, ApiClient> = {};
 beforeAll(async () => {
   server = await startProductionServer();
   for (const role of ["analyst", "editor"]) {
-    clients[role] = new ApiClient(server.url);
-    await clients[role].signIn(`${role}@fairweigh.example`, demoPassword);
+    clients[role] = await demoClient(server.url, role);
   }
 }, 60_000);
 afterAll(async () => {

@@ -11,9 +11,8 @@ import { slugify } from "#core/slug";
 import { createApp, projectRoot } from "#web/app";
 import { connectDatabase } from "#db/client";
 import { demoBriefs } from "#workflows/demo-briefs";
-import { demoPassword } from "#workflows/seed";
 import { publishedBrief } from "../support/briefs";
-import { ApiClient } from "../support/client";
+import { ApiClient, demoClient } from "../support/client";
 import { testDatabaseUrl, testSessionSecret } from "../support/app";
 import { startProductionServer, type RunningServer } from "../support/production-server";
 
@@ -101,9 +100,7 @@ const clients = new Map<string, ApiClient>();
 
 /** A client for the reader, signed in with the reader's demo account unless the reader is anonymous. */
 async function signInAs(reader: (typeof readers)[number]) {
-  const client = new ApiClient(server.url);
-  if (reader.roles) expect((await client.signIn(`${reader.name}@fairweigh.example`, demoPassword)).status).toBe(200);
-  clients.set(reader.name, client);
+  clients.set(reader.name, reader.roles ? await demoClient(server.url, reader.name) : new ApiClient(server.url));
 }
 
 beforeAll(async () => {

@@ -2,7 +2,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { demoPassword } from "#workflows/seed";
 import { startTestApp, type TestApp } from "../support/app";
-import { ApiClient } from "../support/client";
+import { ApiClient, demoClient } from "../support/client";
 
 let app: TestApp;
 beforeAll(async () => {
@@ -58,8 +58,7 @@ describe("signing in", () => {
   });
 
   it("signs out with DELETE /api/session", async () => {
-    const client = new ApiClient(app.url);
-    await client.signIn("press@fairweigh.example", demoPassword);
+    const client = await demoClient(app.url, "press");
     expect((await client.request("DELETE", "/api/session")).status).toBe(204);
     expect((await client.request("GET", "/api/session")).status).toBe(401);
   });
@@ -101,16 +100,14 @@ describe("role checks", () => {
   });
 
   it("answers 403 to a person without the role", async () => {
-    const client = new ApiClient(app.url);
-    await client.signIn("editor@fairweigh.example", demoPassword);
+    const client = await demoClient(app.url, "editor");
     const response = await client.request("GET", "/api/people");
     expect(response.status).toBe(403);
     expect(response.body.error).toMatchObject({ key: "errors.roleRequired", details: { required: ["admin"] } });
   });
 
   it("lets an administrator list people and their roles", async () => {
-    const client = new ApiClient(app.url);
-    await client.signIn("admin@fairweigh.example", demoPassword);
+    const client = await demoClient(app.url, "admin");
     const response = await client.request("GET", "/api/people");
     expect(response.status).toBe(200);
     const people = response.body.people as { email: string; roles: string[] }[];
@@ -120,8 +117,7 @@ describe("role checks", () => {
 
 describe("sessions in PostgreSQL", () => {
   it("survive a restart of the server", async () => {
-    const client = new ApiClient(app.url);
-    await client.signIn("translator@fairweigh.example", demoPassword);
+    const client = await demoClient(app.url, "translator");
     const cookies = client.cookieHeader;
 
     const restarted = await startTestApp();

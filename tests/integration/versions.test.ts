@@ -1,9 +1,8 @@
 // Publishing: frozen versions, the database refusing changes, and the embargo.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { demoPassword } from "#workflows/seed";
 import { startTestApp, type TestApp } from "../support/app";
 import { analysedBrief as analysedBriefBy, approve as approveBy } from "../support/briefs";
-import { ApiClient } from "../support/client";
+import { ApiClient, demoClient } from "../support/client";
 
 
 let app: TestApp;
@@ -11,8 +10,7 @@ const clients: Record<string, ApiClient> = {};
 beforeAll(async () => {
   app = await startTestApp();
   for (const role of ["analyst", "editor", "press"]) {
-    clients[role] = new ApiClient(app.url);
-    await clients[role].signIn(`${role}@fairweigh.example`, demoPassword);
+    clients[role] = await demoClient(app.url, role);
   }
 });
 afterAll(async () => {

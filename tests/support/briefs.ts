@@ -5,8 +5,7 @@ import { readFileSync } from "node:fs";
 import path from "node:path";
 import { expect } from "vitest";
 import type { Certainty } from "#web/api/contract";
-import { demoPassword } from "#workflows/seed";
-import { ApiClient } from "./client";
+import { type ApiClient, demoClient } from "./client";
 
 const hasselbladCsv = readFileSync(path.resolve(__dirname, "../fixtures/reference/hasselblad1998.csv"));
 
@@ -30,8 +29,7 @@ const editors = new Map<string, ApiClient>();
 async function editorAt(baseUrl: string): Promise<ApiClient> {
   let editor = editors.get(baseUrl);
   if (!editor) {
-    editor = new ApiClient(baseUrl);
-    expect((await editor.signIn("editor@fairweigh.example", demoPassword)).status).toBe(200);
+    editor = await demoClient(baseUrl, "editor");
     editors.set(baseUrl, editor);
   }
   return editor;

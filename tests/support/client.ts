@@ -1,4 +1,6 @@
 // A small HTTP client for the tests that keeps cookies like a browser and sends the CSRF token.
+import { demoPassword } from "#workflows/seed";
+
 export class ApiClient {
   private cookies = new Map<string, string>();
   private csrfToken: string | null = null;
@@ -71,4 +73,12 @@ export class ApiClient {
     this.csrfToken = null;
     return response;
   }
+}
+
+/** A client signed in with a demo account ("editor" for editor@fairweigh.example); throws when the sign-in fails. */
+export async function demoClient(baseUrl: string, account: string): Promise<ApiClient> {
+  const client = new ApiClient(baseUrl);
+  const answer = await client.signIn(`${account}@fairweigh.example`, demoPassword);
+  if (answer.status !== 200) throw new Error(`signing in as ${account}@fairweigh.example answered ${answer.status}`);
+  return client;
 }
