@@ -8,7 +8,7 @@ import { wellFormedToken } from "#core/tokens";
 import { changeOwnAccount, requestPasswordReset, setPasswordWithToken, type AccountContext } from "#workflows/accounts";
 import { guard } from "../auth/require-role";
 import { fieldIssues, sendError, validateBody } from "../http/errors";
-import { linkLimits, resetRequestLimits } from "../http/security";
+import { linkLimits, mailRequestLimits } from "../http/security";
 import { accountBody, newPasswordBody, passwordResetBody } from "./contract";
 
 const isFormPost = (req: Request) => req.is("application/x-www-form-urlencoded") === "application/x-www-form-urlencoded";
@@ -26,7 +26,7 @@ export function accountRoutes(context: (req: Request) => AccountContext): Router
   });
 
   // The same answer whether or not the address has an account (server/workflows/accounts.ts).
-  router.post("/password-reset", ...resetRequestLimits(limited), async (req: Request, res: Response) => {
+  router.post("/password-reset", ...mailRequestLimits(limited), async (req: Request, res: Response) => {
     const parsed = passwordResetBody.safeParse(req.body ?? {});
     if (!parsed.success) {
       if (isFormPost(req)) return res.redirect(303, `${passwordResetUrl()}?error=missing`);

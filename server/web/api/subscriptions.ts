@@ -13,7 +13,7 @@ import { askToSubscribe } from "#workflows/subscriptions";
 import type { MailContext } from "#workflows/mail";
 import { guard } from "../auth/require-role";
 import { fieldIssues, sendError } from "../http/errors";
-import { resetRequestLimits } from "../http/security";
+import { linkLimits, mailRequestLimits } from "../http/security";
 
 const isFormPost = (req: Request) => req.is("application/x-www-form-urlencoded") === "application/x-www-form-urlencoded";
 const subscribeBody = z.object({ email: z.string().trim().toLowerCase().email("Enter an e-mail address.").max(320), topic: z.string().trim().min(1).max(200), locale: z.string().max(10).optional() });
@@ -24,7 +24,7 @@ export function subscriptionRoutes(context: (req: Request) => MailContext): Rout
   const limited = (req: Request, res: Response) => (isFormPost(req) ? res.redirect(303, done("too-many")) : sendError(res, 429, { key: "errors.account.tooMany", message: "Too many requests from here: wait ten minutes, then try again." }));
 
   // The same answer whether or not the address is subscribed already.
-  router.post("/subscriptions", guard("POST /api/subscriptions"), ...resetRequestLimits(limited), async (req, res) => {
+  router.post("/subscriptions", guard("POST /api/subscriptions"), ...mailRequestLimits(limited), async (req, res) => {
     const parsed = subscribeBody.safeParse(req.body ?? {});
     const topics = parsed.success ? topicsOf(await listReleasedBriefs(context(req).db)) : [];
     const topic = parsed.success ? topics.find((t) => t.name === parsed.data.topic || t.slug === parsed.data.topic) : undefined;
@@ -38,9 +38,11 @@ export function subscriptionRoutes(context: (req: Request) => MailContext): Rout
     res.status(202).json({ sent: true });
   });
 
-  router.post("/subscriptions/confirm", guard("POST /api/subscriptions/confirm"), ...resetRequestLimits(limited), async (req, res) => {
+  // Like the account links: only links that did not work count, per client address.
+  router.post("/subscriptions/confirm", guard("POST /api/subscriptions/confirm"), ...linkLimits(limited), async (req, res) => {
     const token = req.body?.token;
     const topic = wellFormedToken(token) ? await confirmSubscription(context(req).db, token) : null;
+    if (!topic) res.locals.linkRefused = true;
     if (isFormPost(req)) return res.redirect(303, done(topic ? "confirmed" : "invalid"));
     if (!topic) return sendError(res, 400, { key: "errors.subscription.invalidLink", message: "This confirmation link has been used or has expired: subscribe again.", details: [{ field: "token", message: "used or expired" }] });
     res.json({ confirmed: true });

@@ -87,14 +87,15 @@ export function tooManyAttempts(res: Response): void {
 }
 
 /**
- * Asking for reset links: twenty requests per address and five per e-mail in ten minutes, counted
- * whatever their outcome, so that nobody can flood an inbox (common practice).
+ * Requests that send an e-mail to the address in their body (a reset link, a subscription's
+ * confirmation): twenty per client address and five per e-mail in ten minutes, counted whatever their
+ * outcome, so that nobody can flood an inbox (common practice).
  */
-export function resetRequestLimits(onLimited: (req: Request, res: Response) => void): RequestHandler[] {
+export function mailRequestLimits(onLimited: (req: Request, res: Response) => void): RequestHandler[] {
   const common = { windowMs: 10 * 60_000, standardHeaders: "draft-8" as const, legacyHeaders: false, handler: (req: Request, res: Response) => onLimited(req, res) };
   return [
-    rateLimit({ ...common, limit: 20, keyGenerator: (req) => `reset:${ipKeyGenerator(req.ip ?? "unknown")}` }),
-    rateLimit({ ...common, limit: 5, keyGenerator: (req) => `reset-email:${String(req.body?.email ?? "").trim().toLowerCase()}` }),
+    rateLimit({ ...common, limit: 20, keyGenerator: (req) => `mail:${ipKeyGenerator(req.ip ?? "unknown")}` }),
+    rateLimit({ ...common, limit: 5, keyGenerator: (req) => `mail-to:${String(req.body?.email ?? "").trim().toLowerCase()}` }),
   ];
 }
 
