@@ -7,11 +7,11 @@ import { passwordResetUrl } from "#core/urls";
 import { wellFormedToken } from "#core/tokens";
 import { changeOwnAccount, requestPasswordReset, setPasswordWithToken, type AccountContext } from "#workflows/accounts";
 import { guard } from "../auth/require-role";
+import { isFormPost } from "../http/forms";
 import { fieldIssues, sendError, validateBody } from "../http/errors";
 import { linkLimits, mailRequestLimits } from "../http/security";
 import { accountBody, newPasswordBody, passwordResetBody } from "./contract";
 
-const isFormPost = (req: Request) => req.is("application/x-www-form-urlencoded") === "application/x-www-form-urlencoded";
 
 export function accountRoutes(context: (req: Request) => AccountContext): Router {
   const router = Router();

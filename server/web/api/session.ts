@@ -3,6 +3,7 @@
 import { Router, type NextFunction, type Request, type Response } from "express";
 import type { AppPassport } from "../auth/passport";
 import { guard } from "../auth/require-role";
+import { isFormPost } from "../http/forms";
 import { recordAudit } from "#db/audit";
 import type { Database } from "#db/client";
 import { fieldIssues, sendError } from "../http/errors";
@@ -11,7 +12,6 @@ import type { Person } from "#db/people";
 import { credentialsBody } from "./contract";
 
 
-const isFormPost = (req: Request) => req.is("application/x-www-form-urlencoded") === "application/x-www-form-urlencoded";
 
 /** Where a form sign-in goes next: only a path on this site, so the form cannot redirect elsewhere. */
 function safeNext(value: unknown): string {

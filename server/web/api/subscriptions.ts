@@ -12,10 +12,10 @@ import { listReleasedBriefs } from "#db/versions";
 import { askToSubscribe } from "#workflows/subscriptions";
 import type { MailContext } from "#workflows/mail";
 import { guard } from "../auth/require-role";
+import { isFormPost } from "../http/forms";
 import { fieldIssues, sendError } from "../http/errors";
 import { linkLimits, mailRequestLimits } from "../http/security";
 
-const isFormPost = (req: Request) => req.is("application/x-www-form-urlencoded") === "application/x-www-form-urlencoded";
 const subscribeBody = z.object({ email: z.string().trim().toLowerCase().email("Enter an e-mail address.").max(320), topic: z.string().trim().min(1).max(200), locale: z.string().max(10).optional() });
 const done = (what: string) => `/subscriptions/done?what=${what}`;
 
