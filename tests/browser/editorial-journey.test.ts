@@ -9,7 +9,8 @@ import en from "../../locales/en/common.json";
 import { keepScreenshot, signedIn as signedInAt, withServerAndBrowser } from "../support/browser";
 
 const hasselblad = path.resolve(__dirname, "../fixtures/reference/hasselblad1998.csv");
-const title = "Editorial journey (browser test)";
+// One title per run, so that a database reused across runs holds one brief of this name.
+const title = `Editorial journey (browser test ${Date.now().toString(36)})`;
 const setup = withServerAndBrowser();
 const signedIn = (browser: Browser, email: string) => signedInAt(browser, setup.server.url, email);
 
@@ -72,6 +73,9 @@ it("goes upload → bulk rating → approval → publication → correction with
   await analyst.page.getByTestId("release").getByRole("button", { name: en.desk.release.recall }).click();
   await analyst.page.getByTestId("release").getByRole("button", { name: en.desk.release.submit }).click();
   await analyst.page.getByTestId("release").getByTestId("review-history").getByText("Recalled by Demo analyst").waitFor();
+  // The recall shows before the new submission is saved: wait for the second submission itself.
+  const submissions = analyst.page.getByTestId("release").getByTestId("review-history").getByText("Submitted by Demo analyst");
+  await expect.poll(() => submissions.count(), { timeout: 15_000 }).toBe(2);
 
   await editor.page.reload();
   const panelOfEditor = editor.page.getByTestId("release");
@@ -92,7 +96,7 @@ it("goes upload → bulk rating → approval → publication → correction with
   await texts.getByRole("status").waitFor();
   await analyst.page.reload();
   await analyst.page.getByTestId("release").getByRole("button", { name: en.desk.release.submit }).click();
-  await analyst.page.getByTestId("release").getByTestId("review-history").getByText("Submitted by Demo analyst").first().waitFor();
+  await expect.poll(() => submissions.count(), { timeout: 15_000 }).toBe(3);
   await editor.page.reload();
   await panelOfEditor.getByLabel(en.readiness.acknowledge).check();
   await panelOfEditor.getByRole("button", { name: en.desk.release.approve }).click();
