@@ -1,20 +1,41 @@
 import { useTranslation } from "react-i18next";
+import { usePageContext } from "vike-react/usePageContext";
+import { languageNames, locales } from "#core/locales";
+import { homeUrl, languageChoiceUrl } from "#core/urls";
+import { useIntl } from "./i18n";
 
 export function SiteHeader() {
   const { t } = useTranslation();
+  const { href, locale } = useIntl();
+  const { urlPathname, urlParsed } = usePageContext();
+  const here = urlPathname + (urlParsed.searchOriginal ?? "");
   return (
     <header data-site-header className="border-b border-rule">
       <a href="#content" className="sr-only focus:not-sr-only focus:absolute focus:p-2">
         {t("site.skipToContent")}
       </a>
-      <div className="mx-auto flex max-w-5xl items-baseline justify-between gap-6 px-6 py-5">
-        <a href="/" className="no-underline">
+      <div className="mx-auto flex max-w-5xl flex-wrap items-baseline justify-between gap-x-6 gap-y-2 px-6 py-5">
+        <a href={href(homeUrl())} className="no-underline">
           <span className="text-2xl font-semibold tracking-tight text-ink">{t("site.name")}</span>
           <span className="ms-3 hidden font-sans text-sm text-muted sm:inline">{t("site.tagline")}</span>
         </a>
-        <nav aria-label="Main" className="flex gap-5 font-sans text-sm">
+        <nav aria-label={t("site.mainNav")} className="flex flex-wrap gap-5 font-sans text-sm">
           <a href="/desk">{t("site.nav.desk")}</a>
-          <a href="/sign-in">{t("site.nav.signIn")}</a>
+          <a href={href("/sign-in")}>{t("site.nav.signIn")}</a>
+        </nav>
+        {/* Each language in its own name and script; the choice is kept for the next visit. */}
+        <nav aria-label={t("site.languages")} className="flex w-full flex-wrap gap-4 font-sans text-sm sm:w-auto" data-language-switcher>
+          {locales.map((other) =>
+            other === locale ? (
+              <span key={other} lang={other} aria-current="true" className="font-semibold">
+                {languageNames[other]}
+              </span>
+            ) : (
+              <a key={other} lang={other} hrefLang={other} href={languageChoiceUrl(other, here)}>
+                {languageNames[other]}
+              </a>
+            ),
+          )}
         </nav>
       </div>
     </header>

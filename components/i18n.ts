@@ -1,28 +1,83 @@
-// i18next for the interface. Every user-facing string lives in locales/<locale>/common.json.
-import i18next, { type i18n } from "i18next";
-import { initReactI18next } from "react-i18next";
-import { defaultLocale, type Locale } from "#core/locales";
-import en from "../locales/en/common.json";
+// i18next for the interface. Every user-facing string lives in locales/<locale>/<namespace>.json:
+// "public" holds what public pages say, "desk" what only the signed-in desk says, so that a public
+// page loads only the public strings. The server holds every file; the browser fetches the one
+// locale a page is in before it renders (pages/+onBeforeRenderClient.ts).
+import i18next, { type i18n, type Resource } from "i18next";
+import { initReactI18next, useTranslation } from "react-i18next";
+import type { PageContext } from "vike/types";
+import { isDeskPath } from "#core/urls";
+import { defaultLocale, intlLocale, localeOf, localePath, type Locale } from "#core/locales";
 
-export { defaultLocale, locales, type Locale } from "#core/locales";
+export { defaultLocale, locales, textDirection, type Locale } from "#core/locales";
 
-const resources = { en: { common: en } };
+export type Namespace = "public" | "desk";
+type Strings = Record<string, unknown>;
+
+// On the server every file is bundled; in the browser each is a chunk of its own, fetched when needed.
+const bundled = import.meta.env.SSR ? import.meta.glob<Strings>("../locales/*/{public,desk}.json", { eager: true, import: "default" }) : {};
+const lazy = import.meta.env.SSR ? {} : import.meta.glob<Strings>("../locales/*/{public,desk}.json", { import: "default" });
+const fileOf = (locale: Locale, namespace: Namespace) => `../locales/${locale}/${namespace}.json`;
+
+const loaded: Resource = {};
+for (const [file, strings] of Object.entries(bundled)) {
+  const [, locale, namespace] = /\/locales\/(\w+)\/(\w+)\.json$/.exec(file)!;
+  (loaded[locale!] ??= {})[namespace!] = strings;
+}
+
+/** Makes a locale's strings (and English, the fallback for a key missing in development) available to createI18n. */
+export async function loadTranslations(locale: Locale, namespaces: Namespace[]): Promise<void> {
+  const wanted = [...new Set([locale, defaultLocale])].flatMap((l) => namespaces.map((ns) => [l, ns] as const));
+  await Promise.all(
+    wanted.map(async ([l, ns]) => {
+      if (loaded[l]?.[ns]) return;
+      const load = lazy[fileOf(l, ns)];
+      if (load) (loaded[l] ??= {})[ns] = await load();
+    }),
+  );
+}
+
+/** The namespaces a page needs: the desk and the draft preview speak the desk's words too. */
+export const namespacesFor = (path: string): Namespace[] => (isDeskPath(path) || path.startsWith("/preview/") ? ["public", "desk"] : ["public"]);
+
+/** A page's <title>: "Sign in · Fairweigh" in the page's locale; the site's name alone without a key. */
+export function pageTitle(pageContext: PageContext, key?: string, values?: Record<string, unknown>): string {
+  const { t } = createI18n(pageContext.locale);
+  return key ? t("site.pageTitle", { page: t(key, values) }) : t("site.name");
+}
+
+/** The +title of a page whose title is one string: `export default titled("signIn.title")`. */
+export const titled = (key: string) => (pageContext: PageContext) => pageTitle(pageContext, key);
 
 /** A separate instance per render, so that concurrent requests in different locales never mix. */
-export function createI18n(locale: Locale = defaultLocale): i18n {
+export function createI18n(locale: Locale = defaultLocale, namespaces: Namespace[] = ["public", "desk"]): i18n {
   const instance = i18next.createInstance();
   void instance.use(initReactI18next).init({
     lng: locale,
     fallbackLng: defaultLocale,
-    resources,
-    defaultNS: "common",
+    resources: loaded,
+    ns: namespaces,
+    defaultNS: "public",
+    fallbackNS: namespaces.filter((ns) => ns !== "public"),
     initAsync: false,
     interpolation: { escapeValue: false },
   });
   return instance;
 }
 
-/** "rtl" for right-to-left locales, so the layout can mirror itself. */
-export function textDirection(locale: Locale): "ltr" | "rtl" {
-  return i18next.dir(locale);
+/** The locale of the page being rendered. */
+export function useLocale(): Locale {
+  return localeOf(useTranslation().i18n.language);
+}
+
+/** Formats numbers and dates in the page's locale (Arabic with Latin digits: decision 0024). */
+export function useIntl() {
+  const locale = useLocale();
+  const intl = intlLocale(locale);
+  return {
+    locale,
+    /** An unprefixed address (from server/core/urls.ts) in the page's locale. */
+    href: (path: string) => localePath(locale, path),
+    date: (options: Intl.DateTimeFormatOptions) => new Intl.DateTimeFormat(intl, options),
+    number: (value: number, digits: number) => new Intl.NumberFormat(intl, { minimumFractionDigits: digits, maximumFractionDigits: digits }).format(value),
+  };
 }

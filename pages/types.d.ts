@@ -1,9 +1,12 @@
+import type { Locale } from "#core/locales";
 import type { Database } from "#db/client";
 import type { Person } from "#db/people";
 
 declare global {
   namespace Vike {
     interface PageContext {
+      /** The language the address names (pages/+onBeforeRoute.ts); the address without it is what routing sees. */
+      locale: Locale;
       /** The signed-in person, on the server only. */
       person?: Person | null;
       /** The database, for +data hooks; on the server only, never passed to the client. */

@@ -1,4 +1,4 @@
 import type { Config } from "vike/types";
 
 // The desk is a client-rendered app: its screens come from the JSON API, not from the server's HTML.
-export default { ssr: false, title: "The desk · Fairweigh" } satisfies Config;
+export default { ssr: false } satisfies Config;

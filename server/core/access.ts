@@ -63,6 +63,11 @@ export const apiAccess = {
   "POST /api/briefs/:id/versions": { who: ["editor"], does: "publish, schedule (embargo) or correct an approved draft" },
   "PUT /api/briefs/:id/versions/:number/release": { who: ["editor"], does: "move an embargoed version's release time" },
   "POST /api/briefs/:id/withdrawal": { who: ["editor"], does: "withdraw a published brief" },
+  "GET /api/translations": { who: ["translator", "editor"], does: "the translation queue: each brief's newest version and the state of each language one may translate" },
+  "GET /api/translations/:versionId/:locale": { who: ["translator", "editor"], does: "a version's texts in one language beside their source, with what changed at source", also: "Translators: only the languages assigned to them (403 otherwise)." },
+  "PUT /api/translations/:versionId/:locale": { who: ["translator", "editor"], does: "save a translation's texts (it becomes a draft again)", also: "Translators: only their languages. The version's snapshot is never written." },
+  "POST /api/translations/:versionId/:locale/ready": { who: ["translator", "editor"], does: "mark a translation ready for an editor (refused while a field is empty or its source changed)", also: "Translators: only their languages." },
+  "POST /api/translations/:versionId/:locale/publish": { who: ["editor"], does: "publish a ready translation: readers of that language see it, with its publication time; the findings do not change" },
   "GET /api/press-room": { who: ["press", "editor"], does: "the press room: embargoed and recent versions" },
   "GET /api/topics": { who: "anyone", does: "the topics of the released briefs" },
   "POST /api/press-enquiries": { who: ["press"], does: "ask the editors a question from the press room (stored, and e-mailed to each editor)" },
@@ -86,6 +91,7 @@ export const fileAccess = {
   "GET /feed.xml": { who: "anyone", does: "the Atom feed of releases, corrections and withdrawals" },
   "GET /sitemap.xml": { who: "anyone", does: "the sitemap of released pages" },
   "GET /robots.txt": { who: "anyone", does: "robots.txt" },
+  "GET /language/:locale": { who: "anyone", does: "choose the site's language (kept in a cookie), then the same page in it" },
 } as const satisfies Record<string, AccessRule>;
 
 /** The pages (the folder under pages/ is the address). */

@@ -31,3 +31,16 @@ export function renderMarkdown(source: string): string {
   const html = marked.parse(source, { async: false });
   return sanitizeHtml(html, { ...allowed, allowedAttributes: { a: ["href", "title", "rel"] } });
 }
+
+/** The words of sanitised HTML, without its tags: what a translation's source is compared by. */
+export function textOf(html: string): string {
+  const text = sanitizeHtml(html.replace(/<\/(p|li|h3|h4|blockquote|tr)>/g, "$&\n"), { allowedTags: [], allowedAttributes: {} });
+  return text
+    .replace(/&lt;/g, "<")
+    .replace(/&gt;/g, ">")
+    .replace(/&quot;/g, '"')
+    .replace(/&#39;/g, "'")
+    .replace(/&amp;/g, "&")
+    .replace(/\n{2,}/g, "\n")
+    .trim();
+}

@@ -3,6 +3,8 @@
 // segments that come from data (slugs, treatment labels) are percent-encoded, so a label holding "/"
 // or "?" still names one comparison; parsing decodes them and says whether the address was canonical.
 
+import { localePath, locales, type Locale } from "./locales";
+
 export type CitationFormat = "ris" | "bib" | "json";
 export const citationFormats: readonly CitationFormat[] = ["ris", "bib", "json"];
 
@@ -111,3 +113,11 @@ export function parseBriefPath(path: string): string | null {
 
 /** The address a version path is canonically spelled as. */
 export const canonicalVersionPath = (parsed: VersionPath) => (parsed.kind === "version" ? versionUrl(parsed.at) : comparisonUrl(parsed.at));
+
+/** The same page in every language, and x-default (the unprefixed, English one): hreflang links and the sitemap. */
+export function alternates(path: string): { hreflang: string; path: string }[] {
+  return [...locales.map((locale) => ({ hreflang: locale, path: localePath(locale, path) })), { hreflang: "x-default", path }];
+}
+
+/** Where the language switcher sends a reader: it keeps the choice (a cookie), then shows `path` in `locale`. */
+export const languageChoiceUrl = (locale: Locale, path: string) => `/language/${locale}?next=${encodeURIComponent(path)}`;

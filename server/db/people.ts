@@ -76,14 +76,14 @@ async function peopleRecords(db: Executor, id?: string): Promise<PersonRecord[]>
 /** Creates a person with roles, or returns the existing one with that e-mail unchanged (the demo seed). */
 export async function ensurePerson(
   db: Database,
-  input: { email: string; displayName: string; password: string; roles: Role[] },
+  input: { email: string; displayName: string; password: string; roles: Role[]; translationLocales?: string[] },
   actorId: string | null,
 ): Promise<Person> {
   const email = normaliseEmail(input.email);
   const existing = await db.query.people.findFirst({ where: eq(people.email, email) });
   if (existing) return withRoles(db, existing);
   const passwordHash = await hashPassword(input.password);
-  const person = await db.transaction((tx) => insertPerson(tx, { email, displayName: input.displayName, passwordHash, roles: input.roles, translationLocales: [], locale: "en" }, actorId));
+  const person = await db.transaction((tx) => insertPerson(tx, { email, displayName: input.displayName, passwordHash, roles: input.roles, translationLocales: input.translationLocales ?? [], locale: "en" }, actorId));
   if (!person) throw new Error(`${email} was created by someone else at the same moment`);
   return person;
 }

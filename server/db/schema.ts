@@ -3,6 +3,7 @@
 import { sql } from "drizzle-orm";
 import {
   bigserial,
+  check,
   boolean,
   customType,
   doublePrecision,
@@ -365,3 +366,30 @@ export const pressEnquiries = pgTable("press_enquiries", {
   body: text("body").notNull(),
   createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
 });
+
+/**
+ * A version's texts in one language (docs/decisions/0025-translations-of-frozen-versions.md): the
+ * translator's working copy (`fields`, each with the hash and text of the source it translates) and
+ * what readers see (`publishedFields`, copied when an editor publishes). The frozen snapshot is never
+ * touched: a translation is attached beside it, with its own publication time.
+ */
+export const versionTranslations = pgTable(
+  "version_translations",
+  {
+    versionId: uuid("version_id")
+      .notNull()
+      .references(() => briefVersions.id),
+    locale: text("locale").notNull(),
+    state: text("state", { enum: ["draft", "ready", "published"] }).notNull(),
+    fields: jsonb("fields").notNull(),
+    publishedFields: jsonb("published_fields"),
+    publishedAt: timestamp("published_at", { withTimezone: true }),
+    updatedBy: uuid("updated_by").references(() => people.id),
+    updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (table) => [
+    primaryKey({ columns: [table.versionId, table.locale] }),
+    check("version_translations_locale", sql`${table.locale} in ('es', 'fr', 'ar')`),
+    check("version_translations_state", sql`${table.state} in ('draft', 'ready', 'published')`),
+  ],
+);

@@ -3,7 +3,7 @@
 import { and, desc, eq, gte, isNull, lte, sql } from "drizzle-orm";
 import { mayReadEmbargoed, type Role } from "#core/roles";
 import type { Database, Executor } from "./client";
-import { briefs, briefVersions, releaseAnnouncements } from "./schema";
+import { briefs, briefVersions, releaseAnnouncements, versionTranslations } from "./schema";
 import { slugify } from "#core/slug";
 import type { VersionEntry } from "#core/brief-page";
 import type { ReleasedBrief } from "#core/search";
@@ -45,12 +45,25 @@ export interface FoundVersion {
   /** Not yet released: only an embargo reader gets here, and nothing about it may be cached. */
   embargoed: boolean;
   withdrawal: { at: string; reason: string } | null;
+  versionId: string;
+  /** When a translation of any of the brief's versions was last published: cached pages are checked against it. */
+  translatedAt: string | null;
 }
+
+/** The last publication of a translation of any version of the brief (a column of a query joining briefs). */
+const lastTranslated = sql<string | null>`(select max(${versionTranslations.publishedAt}) from ${versionTranslations} join ${briefVersions} v on v.id = ${versionTranslations.versionId} where v.brief_id = ${briefs.id})`;
 
 /** A version as frozen; null when it does not exist or is not yet released for this reader. */
 export async function readVersion(db: Database, slug: string, number: number, roles: Role[]): Promise<FoundVersion | null> {
   const [row] = await db
-    .select({ releaseAt: briefVersions.releaseAt, snapshot: briefVersions.snapshot, withdrawnAt: briefs.withdrawnAt, withdrawalReason: briefs.withdrawalReason })
+    .select({
+      versionId: briefVersions.id,
+      releaseAt: briefVersions.releaseAt,
+      snapshot: briefVersions.snapshot,
+      withdrawnAt: briefs.withdrawnAt,
+      withdrawalReason: briefs.withdrawalReason,
+      translatedAt: lastTranslated,
+    })
     .from(briefVersions)
     .innerJoin(briefs, eq(briefs.id, briefVersions.briefId))
     .where(and(eq(briefs.slug, slug), eq(briefVersions.number, number)));
@@ -61,6 +74,8 @@ export async function readVersion(db: Database, slug: string, number: number, ro
     snapshot: readSnapshot(row.snapshot),
     embargoed,
     withdrawal: row.withdrawnAt ? { at: row.withdrawnAt.toISOString(), reason: row.withdrawalReason ?? "" } : null,
+    versionId: row.versionId,
+    translatedAt: row.translatedAt === null ? null : new Date(row.translatedAt).toISOString(),
   };
 }
 
@@ -88,18 +103,20 @@ export async function publicVersionState(db: Database, slug: string, number: num
     .select({
       withdrawnAt: briefs.withdrawnAt,
       latestReleased: sql<number | null>`max(${briefVersions.number}) filter (where ${briefVersions.releaseAt} <= now())`,
+      translatedAt: sql<string | null>`max(${lastTranslated})`,
     })
     .from(briefs)
     .innerJoin(briefVersions, eq(briefVersions.briefId, briefs.id))
     .where(eq(briefs.slug, slug))
     .groupBy(briefs.id);
   if (!row || row.latestReleased === null || row.latestReleased < number) return null;
-  return cacheState({ withdrawnAt: row.withdrawnAt?.toISOString() ?? null, latestVersion: row.latestReleased });
+  const translatedAt = row.translatedAt === null ? null : new Date(row.translatedAt).toISOString();
+  return cacheState({ withdrawnAt: row.withdrawnAt?.toISOString() ?? null, latestVersion: row.latestReleased, translatedAt });
 }
 
 /** The fingerprint a cached page is checked against: the same facts, read from the page or the database. */
-export function cacheState(state: { withdrawnAt: string | null; latestVersion: number }): string {
-  return `${state.latestVersion}|${state.withdrawnAt ?? ""}`;
+export function cacheState(state: { withdrawnAt: string | null; latestVersion: number; translatedAt: string | null }): string {
+  return `${state.latestVersion}|${state.withdrawnAt ?? ""}|${state.translatedAt ?? ""}`;
 }
 
 export interface PublicVersion {

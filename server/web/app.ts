@@ -86,7 +86,7 @@ export async function createApp(options: AppOptions): Promise<express.Express> {
 
   const csrf = createCsrf(sessionSecret, secureTransport);
   app.use("/api", apiRoutes({ db, pool, passport, csrf, sessionCookie: sessionCookieName(secureTransport), queue: options.queue ?? null, publicUrl: options.publicUrl, mailFolder: production ? null : (options.mailFolder ?? null) }));
-  app.use(publicFileRoutes(db, options.publicUrl));
+  app.use(publicFileRoutes(db, options.publicUrl, secureTransport));
   if (options.pages !== false) app.use(await pageRoutes({ root: projectRoot, production, csrf, db, publicUrl: options.publicUrl }));
 
   app.use((error: unknown, req: Request, res: Response, _next: NextFunction) => {

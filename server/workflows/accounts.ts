@@ -85,15 +85,16 @@ export async function setPasswordWithToken(ctx: AccountContext, token: string, p
 }
 
 /** The person's own display name and password; a new password ends their other sessions. */
-export async function changeOwnAccount(ctx: AccountContext, person: Person, sessionId: string, changes: { displayName?: string; timeZone?: string; alertTopics?: string[]; currentPassword?: string; newPassword?: string }) {
+export async function changeOwnAccount(ctx: AccountContext, person: Person, sessionId: string, changes: { displayName?: string; timeZone?: string; locale?: string; alertTopics?: string[]; currentPassword?: string; newPassword?: string }) {
   if (changes.newPassword !== undefined) {
     const current = await passwordHashOf(ctx.db, person.id);
     if (!current || !(await verifyPassword(current, changes.currentPassword ?? ""))) return { ok: false as const, reason: "wrong-password" as const };
   }
   const passwordHash = changes.newPassword === undefined ? null : await hashPassword(changes.newPassword);
   const updated = await ctx.db.transaction(async (tx) => {
-    const { displayName, timeZone, alertTopics } = changes;
-    const after = displayName === undefined && timeZone === undefined && alertTopics === undefined ? person : await updatePerson(tx, person.id, { displayName, timeZone, alertTopics }, person.id);
+    const { displayName, timeZone, locale, alertTopics } = changes;
+    const unchanged = displayName === undefined && timeZone === undefined && locale === undefined && alertTopics === undefined;
+    const after = unchanged ? person : await updatePerson(tx, person.id, { displayName, timeZone, locale, alertTopics }, person.id);
     if (passwordHash) {
       await setPasswordHash(tx, person.id, passwordHash, person.id, "change-password");
       await endSessions(tx, person.id, sessionId);

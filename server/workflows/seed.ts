@@ -15,11 +15,11 @@ import { reviewBrief } from "./review";
 
 export const demoPassword = "fairweigh-demo";
 
-export const demoAccounts: { email: string; displayName: string; roles: Role[] }[] = [
+export const demoAccounts: { email: string; displayName: string; roles: Role[]; translationLocales?: string[] }[] = [
   { email: "admin@fairweigh.example", displayName: "Demo administrator", roles: ["admin"] },
   { email: "analyst@fairweigh.example", displayName: "Demo analyst", roles: ["analyst"] },
   { email: "editor@fairweigh.example", displayName: "Demo editor", roles: ["editor"] },
-  { email: "translator@fairweigh.example", displayName: "Demo translator", roles: ["translator"] },
+  { email: "translator@fairweigh.example", displayName: "Demo translator", roles: ["translator"], translationLocales: ["es", "fr"] },
   { email: "press@fairweigh.example", displayName: "Demo reporter", roles: ["press"] },
 ];
 

@@ -1,7 +1,7 @@
 // The analyst's path in a real browser: sign in, create a brief, add an outcome, upload a file, see the results.
 import path from "node:path";
 import { expect, it } from "vitest";
-import en from "../../locales/en/common.json";
+import { en } from "../support/words";
 import { demoPassword } from "#workflows/seed";
 import { withServerAndBrowser } from "../support/browser";
 

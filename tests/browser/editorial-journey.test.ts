@@ -5,7 +5,7 @@
 import path from "node:path";
 import type { Browser, Page } from "playwright-core";
 import { expect, it } from "vitest";
-import en from "../../locales/en/common.json";
+import { en } from "../support/words";
 import { keepScreenshot, signedIn as signedInAt, withServerAndBrowser } from "../support/browser";
 
 const hasselblad = path.resolve(__dirname, "../fixtures/reference/hasselblad1998.csv");

@@ -2,7 +2,7 @@
 // (a real SMTP conversation), the translator chooses a password on the link's page and signs in.
 import type { Browser } from "playwright-core";
 import { afterAll, beforeAll, expect, it } from "vitest";
-import en from "../../locales/en/common.json";
+import { en } from "../support/words";
 import { startMailbox, type Mailbox } from "../../scripts/lib/mailbox";
 import { keepScreenshot, launchChromium, signedIn } from "../support/browser";
 import { startProductionServer, type RunningServer } from "../support/production-server";

@@ -7,7 +7,7 @@
 import { readFileSync } from "node:fs";
 import type { Browser } from "playwright-core";
 import { expect, it } from "vitest";
-import en from "../../locales/en/common.json";
+import { en } from "../support/words";
 import { keepScreenshot, launchChromium, signedIn as signedInAt, withServerAndBrowser } from "../support/browser";
 import { analysedBrief, approve } from "../support/briefs";
 import { demoClient } from "../support/client";

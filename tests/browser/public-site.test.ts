@@ -3,7 +3,7 @@
 // widths (written to test-results/screenshots/ to be looked at).
 import AxeBuilder from "@axe-core/playwright";
 import { describe, expect, it } from "vitest";
-import en from "../../locales/en/common.json";
+import { en } from "../support/words";
 import { slugify } from "#core/slug";
 import { demoBriefs } from "#workflows/demo-briefs";
 import { keepScreenshot, withServerAndBrowser } from "../support/browser";

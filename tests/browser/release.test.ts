@@ -2,7 +2,7 @@
 // publishes; the public page exists; the press room lists the brief for a reporter.
 import type { Browser } from "playwright-core";
 import { expect, it } from "vitest";
-import en from "../../locales/en/common.json";
+import { en } from "../support/words";
 import { signedIn as signedInAt, withServerAndBrowser } from "../support/browser";
 import { analysedBrief } from "../support/briefs";
 import { demoClient } from "../support/client";

@@ -1,7 +1,7 @@
 // The shell in a real browser: server-rendered pages without JavaScript, and the sign-in form into the desk.
 import { describe, expect, it } from "vitest";
 import { demoPassword } from "#workflows/seed";
-import en from "../../locales/en/common.json";
+import { en } from "../support/words";
 import { withServerAndBrowser } from "../support/browser";
 
 const setup = withServerAndBrowser();

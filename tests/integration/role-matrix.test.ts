@@ -65,6 +65,11 @@ const apiRequests: Record<keyof typeof apiAccess, { path: string; json?: unknown
   "GET /api/outcomes/:id/certainty": { path: `/api/outcomes/${nobody}/certainty` },
   "PUT /api/outcomes/:id/certainty/:treatment/:comparator": { path: `/api/outcomes/${nobody}/certainty/a/b`, json: {} },
   "PUT /api/outcomes/:id/certainty": { path: `/api/outcomes/${nobody}/certainty`, json: {} },
+  "GET /api/translations": { path: "/api/translations" },
+  "GET /api/translations/:versionId/:locale": { path: `/api/translations/${nobody}/es` },
+  "PUT /api/translations/:versionId/:locale": { path: `/api/translations/${nobody}/es`, json: {} },
+  "POST /api/translations/:versionId/:locale/ready": { path: `/api/translations/${nobody}/es/ready` },
+  "POST /api/translations/:versionId/:locale/publish": { path: `/api/translations/${nobody}/es/publish` },
   "DELETE /api/session": { path: "/api/session" },
 };
 
@@ -77,6 +82,7 @@ const siteRequests: Record<keyof typeof fileAccess | keyof typeof pageAccess, st
   "GET /feed.xml": "/feed.xml",
   "GET /sitemap.xml": "/sitemap.xml",
   "GET /robots.txt": "/robots.txt",
+  "GET /language/:locale": `/language/es?next=${encodeURIComponent(version)}`,
   "GET /": "/",
   "GET /briefs": "/briefs?q=sleep",
   "GET /briefs/:slug": `/briefs/${demo.slug}`,

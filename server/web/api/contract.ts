@@ -12,7 +12,7 @@ import { outcomeInput, outcomePatch } from "#core/outcome";
 import type { Readiness } from "#core/readiness";
 import type { Topic } from "#core/search";
 import { reviewDecisions } from "#core/status";
-import { locales, translationLocales } from "#core/locales";
+import { locales, translationLocales, type TranslationLocale } from "#core/locales";
 import { roleNames } from "#core/roles";
 import type { briefWithOutcomes, listBriefs } from "#db/briefs";
 import type { OutcomeRow } from "#db/outcomes";
@@ -20,6 +20,8 @@ import type { Person, PersonRecord } from "#db/people";
 import type { listMessages } from "#db/messages";
 import type { listAudit } from "#db/audit";
 import type { PressRoomEntry } from "#db/versions";
+import type { QueueEntry } from "#db/translations";
+import type { TranslationView } from "#workflows/translations";
 import type { reviewHistory } from "#workflows/review";
 
 /** A value as JSON carries it: dates become ISO strings. */
@@ -60,9 +62,16 @@ export const changePersonBody = z
 const timeZone = z.string().max(60).refine((zone) => zone === "UTC" || Intl.supportedValuesOf("timeZone").includes(zone), "Choose a time zone such as Europe/Madrid or UTC.");
 
 export const accountBody = z
-  .object({ displayName: z.string().trim().min(1).max(120), timeZone, alertTopics: z.array(z.string().trim().min(1).max(200)).max(100), currentPassword: z.string().max(1024), newPassword })
+  .object({ displayName: z.string().trim().min(1).max(120), timeZone, locale: z.enum(locales), alertTopics: z.array(z.string().trim().min(1).max(200)).max(100), currentPassword: z.string().max(1024), newPassword })
   .partial()
   .refine((changes) => changes.newPassword === undefined || changes.currentPassword !== undefined, { message: "Enter your current password to choose a new one.", path: ["currentPassword"] });
+
+/** PUT /api/translations/:versionId/:locale: the targets to save, by field name (other fields keep theirs). */
+export const saveTranslationBody = z.object({
+  fields: z
+    .record(z.string().max(200), z.string().max(50_000, "A translated text is limited to 50 000 characters."))
+    .refine((fields) => Object.keys(fields).length <= 1000, "At most 1000 fields at once."),
+});
 
 const uuidParam = z.string().regex(/^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i, "not an id");
 
@@ -143,6 +152,7 @@ export type AuditQuery = z.input<typeof auditQuery>;
 export type AccountBody = z.infer<typeof accountBody>;
 export type PressEnquiryBody = z.input<typeof pressEnquiryBody>;
 export type ChangePersonBody = z.infer<typeof changePersonBody>;
+export type SaveTranslationBody = z.infer<typeof saveTranslationBody>;
 
 // Answers --------------------------------------------------------------------------------------
 
@@ -155,6 +165,8 @@ export type ReviewHistory = Json<Awaited<ReturnType<typeof reviewHistory>>>;
 export type Certainty = ComparisonCertainty;
 export type Result = AnalysisResult;
 export type PressRoomVersion = PressRoomEntry;
+export type TranslationQueueEntry = QueueEntry;
+export type Translation = TranslationView;
 
 /** PUT /api/outcomes/:id/dataset: 200 with the file's summary, or 422 with its issues (nothing stored). */
 export type UploadReport =
@@ -184,4 +196,6 @@ export interface ApiAnswers {
   topics: { topics: Topic[] };
   audit: Json<Awaited<ReturnType<typeof listAudit>>> & { actions: string[] };
   readiness: Readiness;
+  translationQueue: { locales: TranslationLocale[]; versions: TranslationQueueEntry[] };
+  translation: { translation: Translation };
 }

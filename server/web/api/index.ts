@@ -14,6 +14,7 @@ import { sessionRoutes } from "./session";
 import { accountRoutes } from "./account";
 import { subscriptionRoutes } from "./subscriptions";
 import { devRoutes } from "./dev";
+import { translationRoutes } from "./translations";
 import { siteUrl } from "../public/routes";
 import type { Queue } from "#workflows/queue";
 import type { AccountContext } from "#workflows/accounts";
@@ -73,6 +74,7 @@ export function apiRoutes({ db, pool, passport, csrf, sessionCookie, queue, publ
   api.use(briefRoutes(db));
   api.use(versionRoutes(db, accounts));
   api.use(outcomeRoutes(db));
+  api.use(translationRoutes(db));
 
   api.use((_req, res) => sendError(res, 404, { key: "errors.notFound", message: "There is no such API route." }));
   return api;

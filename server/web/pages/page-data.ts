@@ -3,7 +3,9 @@
 import { render } from "vike/abort";
 import type { PageContextServer } from "vike/types";
 import { briefContent, comparisonContent, type BriefView, type ComparisonView, type PageState } from "#core/brief-page";
-import { localeOf, locales } from "#core/locales";
+import { isTranslationLocale, localeOf, localePath, locales } from "#core/locales";
+import { translatedSnapshot } from "#core/translation";
+import { publishedTranslation } from "#db/translations";
 import { mayReadEmbargoed } from "#core/roles";
 import { admits, pageAccess } from "#core/access";
 import type { VersionSnapshot } from "#core/snapshot/schema";
@@ -33,17 +35,30 @@ function answer(pageContext: PageContextServer, page: PublicVersion, latestUrl: 
   const personal = page.found.embargoed || mayReadEmbargoed(pageContext.person?.roles ?? []);
   return {
     httpStatus: page.found.withdrawal ? 410 : undefined,
-    cacheState: cacheState({ withdrawnAt: page.found.withdrawal?.at ?? null, latestVersion: page.latestVersion }),
+    cacheState: cacheState({ withdrawnAt: page.found.withdrawal?.at ?? null, latestVersion: page.latestVersion, translatedAt: page.found.translatedAt }),
     caching: (personal ? "private" : latestUrl ? "revalidate" : "version") as "private" | "revalidate" | "version",
   };
 }
 
-/** The reference with its permalink and today's access date, for a version or one comparison in it. */
+/**
+ * The version in the reader's language: its published translation in place of the original texts,
+ * or the original with a notice when there is none yet. The generated words (statements, groups,
+ * cautions) are always in the reader's language: they come from locales/, not from the snapshot.
+ */
+async function inReadersLanguage(pageContext: PageContextServer, page: PublicVersion) {
+  const locale = pageContext.locale;
+  if (!isTranslationLocale(locale)) return { snapshot: page.found.snapshot, translation: null };
+  const published = await publishedTranslation(pageContext.db!, page.found.versionId, locale);
+  if (!published) return { snapshot: page.found.snapshot, translation: { locale, publishedAt: null } };
+  return { snapshot: translatedSnapshot(page.found.snapshot, published.fields), translation: { locale, publishedAt: published.publishedAt } };
+}
+
+/** The reference with its permalink (in the language it was read in) and today's access date, for a version or one comparison in it. */
 function citation(pageContext: PageContextServer, snapshot: VersionSnapshot, path: string, comparison?: string) {
   const accessed = new Date();
-  const permalink = `${pageContext.siteUrl ?? ""}${path}`;
+  const permalink = `${pageContext.siteUrl ?? ""}${localePath(pageContext.locale, path)}`;
   return {
-    reference: formattedReference({ title: snapshot.brief.title, author: snapshot.brief.reviewGroup, version: snapshot.version, releaseAt: snapshot.releaseAt, url: permalink, accessed, comparison }),
+    reference: formattedReference({ title: snapshot.brief.title, author: snapshot.brief.reviewGroup, version: snapshot.version, releaseAt: snapshot.releaseAt, url: permalink, accessed, comparison, language: pageContext.locale }),
     accessed: accessed.toISOString(),
     permalink,
   };
@@ -51,9 +66,10 @@ function citation(pageContext: PageContextServer, snapshot: VersionSnapshot, pat
 
 export async function briefPageData(pageContext: PageContextServer, number: number | "latest") {
   const page = await load(pageContext, number);
-  const view: BriefView = { ...briefContent(page.found.snapshot), ...pageState(page) };
+  const { snapshot, translation } = await inReadersLanguage(pageContext, page);
+  const view: BriefView = { ...briefContent(snapshot), ...pageState(page) };
   const path = versionUrl({ slug: view.slug, version: view.version });
-  return { view, path, citation: citation(pageContext, page.found.snapshot, path), siteUrl: pageContext.siteUrl ?? "", ...answer(pageContext, page, number === "latest") };
+  return { view, path, translation, citation: citation(pageContext, snapshot, path), siteUrl: pageContext.siteUrl ?? "", ...answer(pageContext, page, number === "latest") };
 }
 
 export type BriefPageData = Awaited<ReturnType<typeof briefPageData>>;
@@ -61,14 +77,16 @@ export type BriefPageData = Awaited<ReturnType<typeof briefPageData>>;
 export async function comparisonPageData(pageContext: PageContextServer) {
   const page = await load(pageContext, versionNumberOf(String(pageContext.routeParams.number)) ?? 0);
   const { a, b } = pageContext.routeParams;
-  const content = comparisonContent(page.found.snapshot, String(a), String(b));
+  const { snapshot, translation } = await inReadersLanguage(pageContext, page);
+  const content = comparisonContent(snapshot, String(a), String(b));
   if (!content) throw render(404);
   const view: ComparisonView = { ...content, ...pageState(page) };
   const path = comparisonUrl({ slug: view.slug, version: view.version, treatment: view.treatment.id, comparator: view.comparator.id });
   return {
     view,
     path,
-    citation: citation(pageContext, page.found.snapshot, path, `${view.treatment.name} vs ${view.comparator.name}`),
+    translation,
+    citation: citation(pageContext, snapshot, path, `${view.treatment.name} vs ${view.comparator.name}`),
     siteUrl: pageContext.siteUrl ?? "",
     ...answer(pageContext, page, false),
   };
@@ -102,6 +120,7 @@ export async function previewPageData(pageContext: PageContextServer) {
   const page: BriefPageData = {
     view,
     path,
+    translation: null,
     citation: citation(pageContext, snapshot, path),
     siteUrl: pageContext.siteUrl ?? "",
     httpStatus: undefined,

@@ -3,10 +3,10 @@
 import path from "node:path";
 import express, { Router, type Request, type Response } from "express";
 import { createDevMiddleware, renderPage } from "vike/server";
-import { defaultLocale } from "#core/locales";
+import { defaultLocale, isLocale, localePath, negotiateLocale, splitLocale, type Locale } from "#core/locales";
 import { mayReadEmbargoed } from "#core/roles";
 import { publicVersionState } from "#db/versions";
-import { siteUrl } from "../public/routes";
+import { localeCookie, siteUrl } from "../public/routes";
 import type { Database } from "#db/client";
 import type { createCsrf } from "../http/security";
 import { canonicalVersionPath, isDeskPath, parseBriefPath, parseVersionPath, type VersionPath } from "#core/urls";
@@ -15,6 +15,16 @@ import { encode, etagOf, PageCache, StateMemo, type CachedPage, type Encodings }
 
 /** Pages whose HTML carries a CSRF token, because they hold a form that posts without JavaScript. */
 const holdsForm = (path: string) => path === "/sign-in" || path === "/password-reset" || /^\/(password-reset|invitation)\/[^/]+$/.test(path);
+
+/** The pages that exist in every language: all but the desk and a draft's preview, which follow the person signed in. */
+const negotiates = (path: string) => !isDeskPath(path) && !path.startsWith("/preview/");
+
+/** The language a reader chose on the site, else the first of ours their browser asks for, else English. */
+function readerLocale(req: Request): Locale {
+  const chosen: unknown = req.cookies?.[localeCookie];
+  if (isLocale(chosen)) return chosen;
+  return negotiateLocale(req.get("accept-language")) ?? defaultLocale;
+}
 
 /**
  * What a page's +data may say about its HTTP answer: a status other than 200 (410 for a withdrawn
@@ -75,7 +85,7 @@ export async function pageRoutes(options: {
     // Already compressed: the compression middleware leaves an answer with a Content-Encoding alone.
     const encoding = req.acceptsEncodings("br", "gzip", "identity") || "identity";
     const body = page.encodings[encoding as keyof Encodings] ?? page.encodings.identity;
-    res.setHeader("Vary", "Accept-Encoding");
+    res.vary("Accept-Encoding");
     if (encoding !== "identity") res.setHeader("Content-Encoding", encoding);
     res.setHeader("Content-Length", body.length);
     res.end(req.method === "HEAD" ? undefined : body);
@@ -88,12 +98,21 @@ export async function pageRoutes(options: {
     if (isDeskPath(req.path) && !admits(pageAccess["GET /desk/*"].who, req.user?.roles ?? null)) {
       return res.redirect(303, `/sign-in?next=${encodeURIComponent(req.originalUrl)}`);
     }
-    const parsed = parseVersionPath(req.path);
+    const { locale, path } = splitLocale(req.path);
+    const query = req.originalUrl.slice(req.path.length);
+    // A first visit to an unprefixed address goes to the reader's language; a language chosen on the
+    // site (the cookie) wins over the browser's. The answer depends on both, and says so.
+    if (locale === defaultLocale && negotiates(path)) {
+      res.vary("Accept-Language").vary("Cookie");
+      const chosen = readerLocale(req);
+      if (chosen !== defaultLocale) return res.redirect(302, localePath(chosen, path) + query);
+    }
+    const parsed = parseVersionPath(path);
     // A version's page has one address: another spelling of it (percent-encoding, a trailing slash)
     // is sent there, so that each page is rendered and cached once.
-    if (parsed && !parsed.canonical) return res.redirect(301, canonicalVersionPath(parsed) + (req.originalUrl.slice(req.path.length) || ""));
+    if (parsed && !parsed.canonical) return res.redirect(301, localePath(locale, canonicalVersionPath(parsed)) + query);
     try {
-      const memory = memoryCached(req, parsed);
+      const memory = memoryCached(req, locale, path, parsed);
       if (memory) {
         const cached = cache.get(memory.key);
         if (cached) {
@@ -123,14 +142,14 @@ export async function pageRoutes(options: {
    * version's pages and a brief's latest address. Only a reader who sees what the public sees shares
    * them: the press and editors also see embargoed versions in a page's history.
    */
-  function memoryCached(req: Request, version: VersionPath | null): { key: string; state: () => Promise<string | null> } | null {
+  function memoryCached(req: Request, locale: Locale, path: string, version: VersionPath | null): { key: string; state: () => Promise<string | null> } | null {
     if (mayReadEmbargoed(req.user?.roles ?? [])) return null;
-    const key = PageCache.key(defaultLocale, req.path);
+    const key = PageCache.key(locale, path);
     if (version) {
       const { slug, version: number } = version.at;
       return { key, state: () => states.get(`${slug}/${number}`, () => publicVersionState(db, slug, number)) };
     }
-    const latest = parseBriefPath(req.path);
+    const latest = parseBriefPath(path);
     // The latest address shows the newest released version: the same state, read from version 1 on.
     if (latest) return { key, state: () => states.get(`${latest}/latest`, () => publicVersionState(db, latest, 1)) };
     return null;
@@ -139,7 +158,7 @@ export async function pageRoutes(options: {
   /** Renders the page; one that says how it may be cached in memory is kept under `key`. */
   async function renderAndKeep(req: Request, res: Response, key: string | null) {
     let csrfToken: string | undefined;
-    if (holdsForm(req.path)) {
+    if (holdsForm(splitLocale(req.path).path)) {
       req.session.csrfIssued = true;
       csrfToken = csrf.generateCsrfToken(req, res, { overwrite: false });
     }

@@ -5,6 +5,7 @@ import { Cite } from "@citation-js/core";
 import "@citation-js/plugin-bibtex";
 import "@citation-js/plugin-csl";
 import "@citation-js/plugin-ris";
+import { splitLocale, type Locale } from "#core/locales";
 import type { CitationFormat } from "#core/urls";
 
 export interface CitationInput {
@@ -18,6 +19,8 @@ export interface CitationInput {
   comparison?: string;
   /** The review group, the citation's author; the product's name when none is set. */
   author?: string | null;
+  /** The language the version was read in: the permalink names it, the item says it; the version cited is the same. */
+  language?: Locale;
 }
 
 const dateParts = (date: Date) => ({ "date-parts": [[date.getUTCFullYear(), date.getUTCMonth() + 1, date.getUTCDate()]] });
@@ -28,7 +31,8 @@ const oneLine = (text: string) => text.replace(/[\r\n\u2028\u2029]+/g, " ").trim
 export function cslItem(input: CitationInput) {
   const title = oneLine(input.comparison ? `${input.comparison}: ${input.title}` : input.title);
   return {
-    id: `fairweigh-${new URL(input.url).pathname.replace(/[^a-z0-9]+/gi, "-").replace(/^-|-$/g, "")}`,
+    // One id per version (or comparison) in every language: the locale prefix is not part of it.
+    id: `fairweigh-${splitLocale(new URL(input.url).pathname).path.replace(/[^a-z0-9]+/gi, "-").replace(/^-|-$/g, "")}`,
     type: "report",
     title,
     author: [{ literal: input.author?.trim() || "Fairweigh" }],
@@ -39,6 +43,7 @@ export function cslItem(input: CitationInput) {
     issued: dateParts(new Date(input.releaseAt)),
     accessed: dateParts(input.accessed),
     URL: input.url,
+    language: input.language ?? "en",
   };
 }
 

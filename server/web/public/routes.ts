@@ -3,7 +3,8 @@
 // all but the press and editors, exactly as their pages do.
 import { Router, type Request, type Response } from "express";
 import { comparisonContent } from "#core/brief-page";
-import { briefUrl, comparisonUrl, feedUrl, homeUrl, searchUrl, sitemapUrl, versionNumberOf, versionUrl } from "#core/urls";
+import { defaultLocale, isLocale, localePath, locales, splitLocale, type Locale } from "#core/locales";
+import { alternates, briefUrl, comparisonUrl, feedUrl, homeUrl, searchUrl, sitemapUrl, versionNumberOf, versionUrl } from "#core/urls";
 import { listReleasedVersions, readVersion } from "#db/versions";
 import type { Database } from "#db/client";
 import { citationFile, citationMedia, type CitationFormat, type CitationInput } from "./citations";
@@ -17,8 +18,34 @@ export function siteUrl(req: Request, configured: string | undefined): string {
 
 const notFound = "There is no such published version.";
 
-export function publicFileRoutes(db: Database, publicUrl: string | undefined): Router {
+/** The files that have words, and so an address in each language: citations, downloads and the feed. */
+const localizedFile = (path: string) => /\/cite\.\w+$|\/downloads\/[^/]+$|^\/feed\.xml$/.test(path);
+
+/** The cookie that keeps a reader's choice of language; the page router reads it on a first visit. */
+export const localeCookie = "fairweigh.locale";
+
+export function publicFileRoutes(db: Database, publicUrl: string | undefined, secureTransport: boolean): Router {
   const router = Router();
+  const localeOf = (res: Response): Locale => (res.locals.locale as Locale | undefined) ?? defaultLocale;
+
+  // /es/feed.xml is the feed in Spanish: routes below see /feed.xml and the locale beside it.
+  router.use((req, res, next) => {
+    const { locale, path } = splitLocale(req.path);
+    if (locale !== defaultLocale && localizedFile(path)) {
+      res.locals.locale = locale;
+      req.url = path + req.url.slice(req.path.length);
+    }
+    next();
+  });
+
+  // The language switcher: the reader's choice is kept for a year, then the same page in that language.
+  router.get("/language/:locale", (req, res) => {
+    const locale = String(req.params.locale);
+    if (!isLocale(locale)) return res.status(404).type("text/plain").send(`There is no language "${locale}" here: choose one of ${locales.join(", ")}.`);
+    const next = typeof req.query.next === "string" && /^\/(?![/\\])/.test(req.query.next) ? req.query.next : "/";
+    res.cookie(localeCookie, locale, { maxAge: 365 * 24 * 3600 * 1000, sameSite: "lax", httpOnly: true, secure: secureTransport, path: "/" });
+    res.set("Cache-Control", "no-store").redirect(303, localePath(locale, splitLocale(next.split("?")[0]!).path) + (next.includes("?") ? next.slice(next.indexOf("?")) : ""));
+  });
 
   // Files need the version only, not its history: one query.
   const versionOf = async (req: Request) => {
@@ -40,8 +67,9 @@ export function publicFileRoutes(db: Database, publicUrl: string | undefined): R
     const page = format ? await versionOf(req) : null;
     if (!format || !page) return res.status(404).type("text/plain").send(notFound);
     const { snapshot, embargoed } = page;
-    const url = `${siteUrl(req, publicUrl)}${versionUrl({ slug: snapshot.brief.slug, version: snapshot.version })}`;
-    sendCitation(res, format, embargoed, `${snapshot.brief.slug}-v${snapshot.version}`, { title: snapshot.brief.title, author: snapshot.brief.reviewGroup, version: snapshot.version, releaseAt: snapshot.releaseAt, url });
+    const locale = localeOf(res);
+    const url = `${siteUrl(req, publicUrl)}${localePath(locale, versionUrl({ slug: snapshot.brief.slug, version: snapshot.version }))}`;
+    sendCitation(res, format, embargoed, `${snapshot.brief.slug}-v${snapshot.version}`, { title: snapshot.brief.title, author: snapshot.brief.reviewGroup, version: snapshot.version, releaseAt: snapshot.releaseAt, url, language: locale });
   });
 
   router.get("/briefs/:slug/v/:number/compare/:a/:b/cite.:format", async (req, res) => {
@@ -49,7 +77,8 @@ export function publicFileRoutes(db: Database, publicUrl: string | undefined): R
     const page = format ? await versionOf(req) : null;
     const view = page ? comparisonContent(page.snapshot, String(req.params.a), String(req.params.b)) : null;
     if (!format || !page || !view) return res.status(404).type("text/plain").send("There is no such comparison in this version.");
-    const url = `${siteUrl(req, publicUrl)}${comparisonUrl({ slug: view.slug, version: view.version, treatment: view.treatment.id, comparator: view.comparator.id })}`;
+    const locale = localeOf(res);
+    const url = `${siteUrl(req, publicUrl)}${localePath(locale, comparisonUrl({ slug: view.slug, version: view.version, treatment: view.treatment.id, comparator: view.comparator.id }))}`;
     sendCitation(res, format, page.embargoed, `${view.slug}-v${view.version}-${view.treatment.id}-vs-${view.comparator.id}`, {
       title: view.title,
       author: page.snapshot.brief.reviewGroup,
@@ -57,6 +86,7 @@ export function publicFileRoutes(db: Database, publicUrl: string | undefined): R
       releaseAt: view.releaseAt,
       url,
       comparison: `${view.treatment.name} vs ${view.comparator.name}`,
+      language: locale,
     });
   });
 
@@ -82,7 +112,12 @@ export function publicFileRoutes(db: Database, publicUrl: string | undefined): R
     const versions = await listReleasedVersions(db);
     const latest = new Map<string, string>();
     for (const v of versions) if (!latest.has(v.slug)) latest.set(v.slug, v.releaseAt);
-    const entry = (path: string, lastmod?: string) => `  <url><loc>${escapeXml(base + path)}</loc>${lastmod ? `<lastmod>${lastmod.slice(0, 10)}</lastmod>` : ""}</url>`;
+    // Each page in every language, each naming all of them (hreflang alternates, x-default English).
+    const links = (path: string) => alternates(path).map((a) => `<xhtml:link rel="alternate" hreflang="${a.hreflang}" href="${escapeXml(base + a.path)}"/>`).join("");
+    const entry = (path: string, lastmod?: string) =>
+      locales
+        .map((locale) => `  <url><loc>${escapeXml(base + localePath(locale, path))}</loc>${lastmod ? `<lastmod>${lastmod.slice(0, 10)}</lastmod>` : ""}${links(path)}</url>`)
+        .join("\n");
     const urls = [
       entry(homeUrl()),
       entry(searchUrl()),
@@ -92,7 +127,7 @@ export function publicFileRoutes(db: Database, publicUrl: string | undefined): R
     res
       .set("Cache-Control", "public, max-age=300")
       .type("application/xml; charset=utf-8")
-      .send(`<?xml version="1.0" encoding="UTF-8"?>\n<urlset xmlns="http://www.sitemaps.org/schemas/sitemap/0.9">\n${urls.join("\n")}\n</urlset>\n`);
+      .send(`<?xml version="1.0" encoding="UTF-8"?>\n<urlset xmlns="http://www.sitemaps.org/schemas/sitemap/0.9" xmlns:xhtml="http://www.w3.org/1999/xhtml">\n${urls.join("\n")}\n</urlset>\n`);
   });
 
   router.get("/robots.txt", (req, res) => {

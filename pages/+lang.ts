@@ -1,0 +1,3 @@
+import type { PageContext } from "vike/types";
+
+export default (pageContext: PageContext) => pageContext.locale;

@@ -1,3 +1,0 @@
-import type { Config } from "vike/types";
-
-export default { title: "Sign in · Fairweigh" } satisfies Config;

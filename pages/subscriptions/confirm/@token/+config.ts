@@ -1,3 +1,0 @@
-import type { Config } from "vike/types";
-
-export default { title: "E-mail alerts · Fairweigh" } satisfies Config;

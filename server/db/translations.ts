@@ -1,0 +1,135 @@
+// Translations of released versions, one row per version and language (schema: versionTranslations).
+import { and, desc, eq, inArray, lt, lte, sql } from "drizzle-orm";
+import type { TranslationLocale } from "#core/locales";
+import type { PublishedFields, StoredFields } from "#core/translation";
+import type { VersionSnapshot } from "#core/snapshot/schema";
+import { readSnapshot } from "#core/snapshot/upgrade";
+import type { Database, Executor } from "./client";
+import { briefs, briefVersions, versionTranslations } from "./schema";
+
+export type TranslationState = "draft" | "ready" | "published";
+
+export interface StoredTranslation {
+  state: TranslationState;
+  fields: StoredFields;
+  publishedFields: PublishedFields | null;
+  publishedAt: string | null;
+  updatedAt: string;
+}
+
+export interface TranslatableVersion {
+  versionId: string;
+  briefId: string;
+  slug: string;
+  number: number;
+  releaseAt: string;
+  snapshot: VersionSnapshot;
+}
+
+/** A version to translate, with its frozen snapshot; null when there is none with that id. */
+export async function translatableVersion(db: Database, versionId: string): Promise<TranslatableVersion | null> {
+  const [row] = await db
+    .select({ versionId: briefVersions.id, briefId: briefVersions.briefId, slug: briefs.slug, number: briefVersions.number, releaseAt: briefVersions.releaseAt, snapshot: briefVersions.snapshot })
+    .from(briefVersions)
+    .innerJoin(briefs, eq(briefs.id, briefVersions.briefId))
+    .where(eq(briefVersions.id, versionId));
+  return row ? { ...row, releaseAt: row.releaseAt.toISOString(), snapshot: readSnapshot(row.snapshot) } : null;
+}
+
+const shape = (row: typeof versionTranslations.$inferSelect): StoredTranslation => ({
+  state: row.state,
+  fields: row.fields as StoredFields,
+  publishedFields: (row.publishedFields as PublishedFields | null) ?? null,
+  publishedAt: row.publishedAt?.toISOString() ?? null,
+  updatedAt: row.updatedAt.toISOString(),
+});
+
+export async function readTranslation(db: Executor, versionId: string, locale: TranslationLocale): Promise<StoredTranslation | null> {
+  const [row] = await db.select().from(versionTranslations).where(and(eq(versionTranslations.versionId, versionId), eq(versionTranslations.locale, locale)));
+  return row ? shape(row) : null;
+}
+
+/**
+ * The translation of the brief's newest earlier version in this language: a new version starts from
+ * it, so that only what changed needs translating again (its fields then show as changed at source).
+ */
+export async function earlierTranslation(db: Database, version: TranslatableVersion, locale: TranslationLocale): Promise<StoredTranslation | null> {
+  const [row] = await db
+    .select({ translation: versionTranslations })
+    .from(versionTranslations)
+    .innerJoin(briefVersions, eq(briefVersions.id, versionTranslations.versionId))
+    .where(and(eq(briefVersions.briefId, version.briefId), lt(briefVersions.number, version.number), eq(versionTranslations.locale, locale)))
+    .orderBy(desc(briefVersions.number))
+    .limit(1);
+  return row ? shape(row.translation) : null;
+}
+
+/** Saves the working copy; the state goes back to draft (what readers see changes only when it is published again). */
+export async function saveTranslation(tx: Executor, key: { versionId: string; locale: TranslationLocale }, fields: StoredFields, personId: string): Promise<void> {
+  await tx
+    .insert(versionTranslations)
+    .values({ ...key, state: "draft", fields, updatedBy: personId })
+    .onConflictDoUpdate({ target: [versionTranslations.versionId, versionTranslations.locale], set: { state: "draft", fields, updatedBy: personId, updatedAt: sql`now()` } });
+}
+
+export async function setTranslationState(tx: Executor, key: { versionId: string; locale: TranslationLocale }, state: "ready", personId: string): Promise<void> {
+  await tx
+    .update(versionTranslations)
+    .set({ state, updatedBy: personId, updatedAt: sql`now()` })
+    .where(and(eq(versionTranslations.versionId, key.versionId), eq(versionTranslations.locale, key.locale)));
+}
+
+/** What readers see from now on: the working copy's texts, with the moment they were published. */
+export async function publishTranslation(tx: Executor, key: { versionId: string; locale: TranslationLocale }, published: PublishedFields, personId: string): Promise<string> {
+  const [row] = await tx
+    .update(versionTranslations)
+    .set({ state: "published", publishedFields: published, publishedAt: sql`now()`, updatedBy: personId, updatedAt: sql`now()` })
+    .where(and(eq(versionTranslations.versionId, key.versionId), eq(versionTranslations.locale, key.locale)))
+    .returning({ publishedAt: versionTranslations.publishedAt });
+  return row!.publishedAt!.toISOString();
+}
+
+/** The published translation readers of a language see for a version, if there is one. */
+export async function publishedTranslation(db: Database, versionId: string, locale: TranslationLocale): Promise<{ fields: PublishedFields; publishedAt: string } | null> {
+  const [row] = await db
+    .select({ fields: versionTranslations.publishedFields, publishedAt: versionTranslations.publishedAt })
+    .from(versionTranslations)
+    .where(and(eq(versionTranslations.versionId, versionId), eq(versionTranslations.locale, locale)));
+  return row?.fields && row.publishedAt ? { fields: row.fields as PublishedFields, publishedAt: row.publishedAt.toISOString() } : null;
+}
+
+export interface QueueEntry {
+  versionId: string;
+  slug: string;
+  title: string;
+  number: number;
+  releaseAt: string;
+  /** Per language: its state, "missing" when nobody has started it. */
+  states: Partial<Record<TranslationLocale, TranslationState | "missing">>;
+}
+
+/** The newest version of each brief that is released or scheduled, with the state of each language asked for. */
+export async function translationQueue(db: Database, locales: TranslationLocale[]): Promise<QueueEntry[]> {
+  const newest = db
+    .select({ briefId: briefVersions.briefId, number: sql<number>`max(${briefVersions.number})`.as("number") })
+    .from(briefVersions)
+    .groupBy(briefVersions.briefId)
+    .as("newest");
+  const versions = await db
+    .select({ versionId: briefVersions.id, slug: briefs.slug, title: sql<string>`${briefVersions.listedBrief}->>'title'`, number: briefVersions.number, releaseAt: briefVersions.releaseAt })
+    .from(briefVersions)
+    .innerJoin(newest, and(eq(newest.briefId, briefVersions.briefId), eq(newest.number, briefVersions.number)))
+    .innerJoin(briefs, eq(briefs.id, briefVersions.briefId))
+    .where(and(sql`${briefs.withdrawnAt} is null`, lte(briefVersions.createdAt, sql`now()`)))
+    .orderBy(desc(briefVersions.releaseAt));
+  if (versions.length === 0 || locales.length === 0) return versions.map((v) => ({ ...v, releaseAt: v.releaseAt.toISOString(), states: {} }));
+  const rows = await db
+    .select({ versionId: versionTranslations.versionId, locale: versionTranslations.locale, state: versionTranslations.state })
+    .from(versionTranslations)
+    .where(and(inArray(versionTranslations.versionId, versions.map((v) => v.versionId)), inArray(versionTranslations.locale, locales)));
+  return versions.map((version) => ({
+    ...version,
+    releaseAt: version.releaseAt.toISOString(),
+    states: Object.fromEntries(locales.map((locale) => [locale, rows.find((r) => r.versionId === version.versionId && r.locale === locale)?.state ?? "missing"])),
+  }));
+}
