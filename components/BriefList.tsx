@@ -3,19 +3,21 @@
 import { useTranslation } from "react-i18next";
 import type { ReleasedBrief } from "#core/search";
 import { briefUrl, topicUrl } from "#core/urls";
+import { useIntl } from "./i18n";
 
 export function BriefList({ briefs, testId = "released-briefs" }: { briefs: ReleasedBrief[]; testId?: string }) {
-  const { t, i18n } = useTranslation();
-  const date = new Intl.DateTimeFormat(i18n.language, { dateStyle: "long", timeZone: "UTC" });
+  const { t } = useTranslation();
+  const intl = useIntl();
+  const date = intl.date({ dateStyle: "long", timeZone: "UTC" });
   return (
     <ul className="mt-2 divide-y divide-rule" data-testid={testId}>
       {briefs.map((brief) => (
         <li key={brief.slug} className="py-5">
           <p className="font-sans text-xs font-semibold uppercase tracking-wide text-muted">
-            <a href={topicUrl(brief.topicSlug)} className="text-muted">{brief.topic}</a>
+            <a href={intl.href(topicUrl(brief.topicSlug))} className="text-muted">{brief.topic}</a>
           </p>
           <h3 className="mt-1 text-2xl leading-snug font-semibold">
-            <a href={briefUrl(brief.slug)} className="text-ink decoration-rule hover:decoration-accent">{brief.title}</a>
+            <a href={intl.href(briefUrl(brief.slug))} className="text-ink decoration-rule hover:decoration-accent">{brief.title}</a>
           </h3>
           <p className="mt-1 font-sans text-sm text-muted">
             {t("home.version", { version: brief.version, date: date.format(new Date(brief.releasedAt)) })}

@@ -6,6 +6,7 @@ import i18next, { type i18n, type Resource } from "i18next";
 import { initReactI18next, useTranslation } from "react-i18next";
 import type { PageContext } from "vike/types";
 import { isDeskPath } from "#core/urls";
+import { formatNumber } from "#core/effects";
 import { defaultLocale, intlLocale, localeOf, localePath, type Locale } from "#core/locales";
 
 export { defaultLocale, locales, textDirection, type Locale } from "#core/locales";
@@ -78,6 +79,9 @@ export function useIntl() {
     /** An unprefixed address (from server/core/urls.ts) in the page's locale. */
     href: (path: string) => localePath(locale, path),
     date: (options: Intl.DateTimeFormatOptions) => new Intl.DateTimeFormat(intl, options),
-    number: (value: number, digits: number) => new Intl.NumberFormat(intl, { minimumFractionDigits: digits, maximumFractionDigits: digits }).format(value),
+    /** A fixed count of decimals: "0.73" in en, "0,73" in es and fr. */
+    number: (value: number, digits: number) => formatNumber(value, digits, locale),
+    /** Significant digits, for p-values: "0.031". */
+    precise: (value: number, digits: number) => new Intl.NumberFormat(intl, { minimumSignificantDigits: digits, maximumSignificantDigits: digits }).format(value),
   };
 }

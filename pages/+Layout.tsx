@@ -16,8 +16,9 @@ import { createI18n, namespacesFor } from "#components/i18n";
 
 export default function Layout({ children }: { children: ReactNode }) {
   const { locale, urlPathname } = usePageContext();
-  const namespaces = namespacesFor(urlPathname);
-  const i18n = useMemo(() => createI18n(locale, namespaces), [locale, namespaces.join()]);
+  // The desk and the preview need the desk's words too: one instance per locale and set of words.
+  const desk = namespacesFor(urlPathname).includes("desk");
+  const i18n = useMemo(() => createI18n(locale, desk ? ["public", "desk"] : ["public"]), [locale, desk]);
   return (
     <I18nextProvider i18n={i18n}>
       <div className="flex min-h-screen flex-col">

@@ -9,20 +9,24 @@ import { VersionBanners } from "./Notices";
 import { OutcomeSection } from "./OutcomeSection";
 import { VersionHistory } from "./VersionHistory";
 import { downloadUrl, topicUrl } from "#core/urls";
+import { useIntl } from "../i18n";
 
 export function BriefPage({ data }: { data: BriefPageData }) {
-  const { t, i18n } = useTranslation();
+  const { t } = useTranslation();
+  const intl = useIntl();
   const { view, citation } = data;
+  // Texts shown in the original because no translation is published yet are marked as English.
+  const original = data.translation && !data.translation.publishedAt ? "en" : undefined;
   const version = { slug: view.slug, version: view.version };
-  const date = new Intl.DateTimeFormat(i18n.language, { dateStyle: "long", timeZone: "UTC" });
+  const date = intl.date({ dateStyle: "long", timeZone: "UTC" });
   return (
     <article data-testid="brief">
-      <VersionBanners view={view} />
+      <VersionBanners view={view} translation={data.translation} />
       <header>
         <p className="font-sans text-xs font-semibold uppercase tracking-wide text-muted">
-          <a href={topicUrl(view.topicSlug)} className="text-muted">{view.topic}</a> · {view.condition}
+          <a href={intl.href(topicUrl(view.topicSlug))} className="text-muted">{view.topic}</a> · {view.condition}
         </p>
-        <h1 className="mt-2 text-4xl leading-tight font-semibold tracking-tight">{view.title}</h1>
+        <h1 lang={original} className="mt-2 text-4xl leading-tight font-semibold tracking-tight">{view.title}</h1>
         <p className="mt-3 text-lg text-muted">{t("brief.population", { population: view.population })}</p>
         <p className="mt-3 font-sans text-sm">
           {t("brief.versionLine", { version: view.version, date: date.format(new Date(view.releaseAt)) })}
@@ -39,13 +43,13 @@ export function BriefPage({ data }: { data: BriefPageData }) {
       {view.texts.keyMessagesHtml ? (
         <section aria-labelledby="key-messages" className="mt-10 bg-white p-6">
           <h2 id="key-messages" className="font-sans text-sm font-semibold uppercase tracking-wide">{t("brief.keyMessages")}</h2>
-          <div className="prose-brief mt-3" dangerouslySetInnerHTML={{ __html: view.texts.keyMessagesHtml }} />
+          <div lang={original} className="prose-brief mt-3" dangerouslySetInnerHTML={{ __html: view.texts.keyMessagesHtml }} />
         </section>
       ) : null}
       {view.texts.laySummaryHtml ? (
         <section aria-labelledby="summary" className="mt-10">
           <h2 id="summary" className="font-sans text-sm font-semibold uppercase tracking-wide">{t("brief.summary")}</h2>
-          <div className="prose-brief mt-3 text-lg leading-relaxed" dangerouslySetInnerHTML={{ __html: view.texts.laySummaryHtml }} />
+          <div lang={original} className="prose-brief mt-3 text-lg leading-relaxed" dangerouslySetInnerHTML={{ __html: view.texts.laySummaryHtml }} />
         </section>
       ) : null}
 
@@ -81,7 +85,7 @@ export function BriefPage({ data }: { data: BriefPageData }) {
         <ul className="mt-3 space-y-1 font-sans text-sm" data-testid="downloads">
           {(["inputs.csv", "inputs.json", "results.csv", "results.json"] as const).map((file) => (
             <li key={file}>
-              <a href={downloadUrl(version, file)}>{t(`brief.download.${file.replace(".", "_")}`)}</a>
+              <a href={intl.href(downloadUrl(version, file))}>{t(`brief.download.${file.replace(".", "_")}`)}</a>
             </li>
           ))}
         </ul>

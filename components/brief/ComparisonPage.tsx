@@ -10,23 +10,26 @@ import { CiteBlock } from "./CiteBlock";
 import { formatInterval } from "#core/effects";
 import { VersionBanners } from "./Notices";
 import { comparisonUrl, versionUrl } from "#core/urls";
+import { Message } from "../Message";
+import { useIntl } from "../i18n";
 
 export function ComparisonPage({ data }: { data: ComparisonPageData }) {
-  const { t, i18n } = useTranslation();
+  const { t } = useTranslation();
+  const intl = useIntl();
   const { view, citation } = data;
   const at = { slug: view.slug, version: view.version, treatment: view.treatment.id, comparator: view.comparator.id };
-  const date = new Intl.DateTimeFormat(i18n.language, { dateStyle: "long", timeZone: "UTC" });
+  const date = intl.date({ dateStyle: "long", timeZone: "UTC" });
   const versus = t("brief.versus", { treatment: view.treatment.name, comparator: view.comparator.name });
   return (
     <article data-testid="comparison">
-      <VersionBanners view={view} />
+      <VersionBanners view={view} translation={data.translation} />
       <p className="font-sans text-sm">
-        <a href={versionUrl(at)}>{t("compare.back", { title: view.title })}</a>
+        <a href={intl.href(versionUrl(at))}>{t("compare.back", { title: view.title })}</a>
       </p>
       <h1 className="mt-3 text-4xl leading-tight font-semibold tracking-tight">{versus}</h1>
       <p className="mt-3 font-sans text-sm text-muted">
         {t("compare.inVersion", { version: view.version, date: date.format(new Date(view.releaseAt)) })} ·{" "}
-        <a href={comparisonUrl({ ...at, treatment: at.comparator, comparator: at.treatment })}>{t("compare.reverse")}</a>
+        <a href={intl.href(comparisonUrl({ ...at, treatment: at.comparator, comparator: at.treatment }))}>{t("compare.reverse")}</a>
       </p>
       {view.outcomes.map((outcome) => (
         <OutcomeComparison key={outcome.index} outcome={outcome} />
@@ -41,6 +44,7 @@ export function ComparisonPage({ data }: { data: ComparisonPageData }) {
 
 function OutcomeComparison({ outcome }: { outcome: ComparisonOutcomeView }) {
   const { t } = useTranslation();
+  const intl = useIntl();
   const to = t("brief.to");
   const id = `outcome-${outcome.index + 1}`;
   const unit = outcome.unit ? ` ${outcome.unit}` : "";
@@ -49,19 +53,19 @@ function OutcomeComparison({ outcome }: { outcome: ComparisonOutcomeView }) {
     <section aria-labelledby={id} className="mt-12 border-t-2 border-ink pt-6" data-testid="comparison-outcome">
       <h2 id={id} className="text-2xl font-semibold">{outcome.name}</h2>
       <p className="mt-4 text-xl leading-relaxed" data-testid="statement">
-        {outcome.statement ? t(outcome.statement.key, outcome.statement.values) : t("compare.noStatement")}
+        {outcome.statement ? <Message message={outcome.statement} /> : t("compare.noStatement")}
       </p>
       <dl className="mt-6 grid gap-x-8 gap-y-3 sm:grid-cols-[max-content_1fr]">
         <dt className="font-sans text-sm font-semibold">{t("compare.relative", { measure: t(`brief.measure.${outcome.measure}`) })}</dt>
         <dd className="tabular-nums">
-          {formatInterval(outcome.measure, outcome.network, to)}
+          {formatInterval(outcome.measure, outcome.network, to, intl.locale)}
           {unit}
         </dd>
         {outcome.absolute ? (
           <>
             <dt className="font-sans text-sm font-semibold">{t("compare.absolute")}</dt>
             <dd>
-              {t(outcome.absolute.statement.key, outcome.absolute.statement.values)}
+              <Message message={outcome.absolute.statement} />
               <span className="block font-sans text-sm text-muted">
                 {t("compare.risks", {
                   comparator: Math.round(outcome.absolute.baselinePer1000),
@@ -96,19 +100,19 @@ function OutcomeComparison({ outcome }: { outcome: ComparisonOutcomeView }) {
           <tbody>
             <tr className="border-b border-rule">
               <th scope="row" className="py-2 pe-4 text-start font-normal">{t("compare.direct")}</th>
-              <td className="py-2 pe-4 tabular-nums">{outcome.direct ? formatInterval(outcome.measure, outcome.direct, to) : t("compare.noDirect")}</td>
+              <td className="py-2 pe-4 tabular-nums">{outcome.direct ? formatInterval(outcome.measure, outcome.direct, to, intl.locale) : t("compare.noDirect")}</td>
               <td className="py-2 pe-4 text-end tabular-nums">{outcome.direct?.studies ?? 0}</td>
               <td className="py-2 text-end tabular-nums">{outcome.direct?.participants ?? "—"}</td>
             </tr>
             <tr className="border-b border-rule">
               <th scope="row" className="py-2 pe-4 text-start font-normal">{t("compare.indirect")}</th>
-              <td className="py-2 pe-4 tabular-nums">{outcome.indirect ? formatInterval(outcome.measure, outcome.indirect, to) : t("compare.noIndirect")}</td>
+              <td className="py-2 pe-4 tabular-nums">{outcome.indirect ? formatInterval(outcome.measure, outcome.indirect, to, intl.locale) : t("compare.noIndirect")}</td>
               <td className="py-2 pe-4 text-end">—</td>
               <td className="py-2 text-end">—</td>
             </tr>
             <tr className="border-b border-rule font-semibold">
               <th scope="row" className="py-2 pe-4 text-start">{t("compare.network")}</th>
-              <td className="py-2 pe-4 tabular-nums">{formatInterval(outcome.measure, outcome.network, to)}</td>
+              <td className="py-2 pe-4 tabular-nums">{formatInterval(outcome.measure, outcome.network, to, intl.locale)}</td>
               <td className="py-2 pe-4 text-end">—</td>
               <td className="py-2 text-end">—</td>
             </tr>
@@ -121,7 +125,7 @@ function OutcomeComparison({ outcome }: { outcome: ComparisonOutcomeView }) {
           {outcome.footnotes.map((note, i) => (
             <li key={i} id={`${notePrefix}${i + 1}`}>
               {note.levels > 0 ? t("compare.downgraded", { domain: t(note.domainKey), count: note.levels }) : `${t(note.domainKey)}.`}
-              {note.reason ? ` ${note.reason}` : note.because ? ` ${t(note.because.key, note.because.values)}` : null}
+              {note.reason ? ` ${note.reason}` : note.because ? <> <Message message={note.because} /></> : null}
             </li>
           ))}
         </ol>

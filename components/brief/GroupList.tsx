@@ -2,6 +2,7 @@
 // Never a ranking: treatments within a group are listed alphabetically.
 import { useTranslation } from "react-i18next";
 import type { OutcomeView } from "#core/brief-page";
+import { Message } from "../Message";
 
 export function GroupList({ outcome }: { outcome: OutcomeView }) {
   const { t } = useTranslation();
@@ -26,7 +27,7 @@ export function GroupList({ outcome }: { outcome: OutcomeView }) {
             key={`${group.level}-${group.firmness}`}
             className={`border-s-4 bg-white p-4 ${group.firmness === "firm" ? "border-accent" : group.firmness === "may" ? "border-accent/50 border-dashed" : group.firmness === "not-assessed" ? "border-rule border-dotted" : "border-rule"}`}
           >
-            <h4 className="text-lg font-semibold">{t(group.label.key, group.label.values)}</h4>
+            <h4 className="text-lg font-semibold"><Message message={group.label} /></h4>
             {group.label.key === "groups.referenceOnly" ? null : (
               <p className="font-sans text-xs uppercase tracking-wide text-muted">{t(`brief.firmness.${group.firmness}`)}</p>
             )}

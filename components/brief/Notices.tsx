@@ -1,13 +1,16 @@
-// The notices above a version's content: fictional data, withdrawal, embargo, a newer version.
+// The notices above a version's content: fictional data, the language of its texts, withdrawal,
+// embargo, a newer version.
 import { useTranslation } from "react-i18next";
 import type { BriefHeader, PageState } from "#core/brief-page";
 import { briefUrl } from "#core/urls";
+import { useIntl } from "../i18n";
 
 /** Everything shown above a version's content, for its brief page and its comparison pages. */
-export function VersionBanners({ view }: { view: BriefHeader & PageState }) {
+export function VersionBanners({ view, translation }: { view: BriefHeader & PageState; translation: TranslationState }) {
   return (
     <>
       {view.demo ? <DemoBanner /> : null}
+      {translation ? <TranslationNotice translation={translation} /> : null}
       <VersionNotices
         withdrawal={view.withdrawal}
         embargoed={view.embargoed}
@@ -17,6 +20,25 @@ export function VersionBanners({ view }: { view: BriefHeader & PageState }) {
         latestHref={briefUrl(view.slug)}
       />
     </>
+  );
+}
+
+/** null on English pages; otherwise when the version's texts were published in the reader's language, if they were. */
+export type TranslationState = { locale: string; publishedAt: string | null } | null;
+
+/**
+ * A translated page says when its translation was published; a page whose texts are not translated
+ * yet says so in the reader's language, before the original texts (the generated sentences, groups and
+ * cautions are always in the reader's language).
+ */
+function TranslationNotice({ translation }: { translation: NonNullable<TranslationState> }) {
+  const { t } = useTranslation();
+  const intl = useIntl();
+  const date = intl.date({ dateStyle: "long", timeZone: "UTC" });
+  return (
+    <p role="note" className="mb-8 border-s-4 border-rule bg-white p-4 font-sans text-sm" data-testid="translation-notice">
+      {translation.publishedAt ? t("brief.translation.published", { date: date.format(new Date(translation.publishedAt)) }) : t("brief.translation.none")}
+    </p>
   );
 }
 
@@ -44,8 +66,9 @@ function VersionNotices({
   latestVersion: number;
   latestHref: string;
 }) {
-  const { t, i18n } = useTranslation();
-  const when = new Intl.DateTimeFormat(i18n.language, { dateStyle: "long", timeStyle: "short", timeZone: "UTC" });
+  const { t } = useTranslation();
+  const intl = useIntl();
+  const when = intl.date({ dateStyle: "long", timeStyle: "short", timeZone: "UTC" });
   return (
     <>
       {withdrawal ? (
@@ -64,7 +87,7 @@ function VersionNotices({
       ) : null}
       {version < latestVersion ? (
         <p role="note" className="mb-8 border-s-4 border-rule bg-white p-4 font-sans text-sm">
-          {t("brief.olderVersion", { version, latest: latestVersion })} <a href={latestHref}>{t("brief.readLatest")}</a>
+          {t("brief.olderVersion", { version, latest: latestVersion })} <a href={intl.href(latestHref)}>{t("brief.readLatest")}</a>
         </p>
       ) : null}
     </>

@@ -12,12 +12,15 @@ import { GroupList } from "./GroupList";
 import { RankScores } from "./RankScores";
 import { flipInterval, pairFinder } from "#core/pairs";
 import { comparisonUrl, type VersionAddress } from "#core/urls";
+import { Message } from "../Message";
+import { useIntl } from "../i18n";
 
 export function OutcomeSection({ outcome, version }: { outcome: OutcomeView; version: VersionAddress }) {
   const { t } = useTranslation();
+  const intl = useIntl();
   const id = `outcome-${outcome.index + 1}`;
   const to = t("brief.to");
-  const compareHref = (treatment: string, comparator: string) => comparisonUrl({ ...version, treatment, comparator });
+  const compareHref = (treatment: string, comparator: string) => intl.href(comparisonUrl({ ...version, treatment, comparator }));
   const findPair = pairFinder(outcome.pairs);
   const leagueCell = (row: string, column: string) => {
     const found = findPair(row, column);
@@ -51,8 +54,8 @@ export function OutcomeSection({ outcome, version }: { outcome: OutcomeView; ver
         {outcome.effects.map((effect) => (
           <li key={effect.id} className="border-b border-rule pb-3">
             <p className="font-semibold">{effect.name}</p>
-            <p className="tabular-nums">{`${outcome.measure} ${formatInterval(outcome.measure, effect.network, to)}`}</p>
-            {effect.absolute ? <p>{t(effect.absolute.statement.key, effect.absolute.statement.values)}</p> : null}
+            <p className="tabular-nums">{`${outcome.measure} ${formatInterval(outcome.measure, effect.network, to, intl.locale)}`}</p>
+            {effect.absolute ? <p><Message message={effect.absolute.statement} /></p> : null}
             <p className="flex justify-between gap-4">
               <CertaintyMark rating={effect.certainty} />
               <a href={compareHref(effect.id, outcome.reference.id)} aria-label={t("brief.compareLabel", { treatment: effect.name, comparator: outcome.reference.name })}>
@@ -78,10 +81,10 @@ export function OutcomeSection({ outcome, version }: { outcome: OutcomeView; ver
             {outcome.effects.map((effect) => (
               <tr key={effect.id} className="border-b border-rule align-top">
                 <th scope="row" className="py-2 pe-4 text-start font-semibold">{effect.name}</th>
-                <td className="py-2 pe-4 tabular-nums">{formatInterval(outcome.measure, effect.network, to)}</td>
+                <td className="py-2 pe-4 tabular-nums">{formatInterval(outcome.measure, effect.network, to, intl.locale)}</td>
                 {binary ? (
                   <td className="py-2 pe-4">
-                    {effect.absolute ? t(effect.absolute.statement.key, effect.absolute.statement.values) : "—"}
+                    {effect.absolute ? <Message message={effect.absolute.statement} /> : "—"}
                   </td>
                 ) : null}
                 <td className="py-2 pe-4"><CertaintyMark rating={effect.certainty} /></td>
@@ -103,7 +106,7 @@ export function OutcomeSection({ outcome, version }: { outcome: OutcomeView; ver
         // Heterogeneity and incoherence in words where readers look, not only as numbers in the methods.
         <div className="mt-6 border-s-4 border-rule ps-4" data-testid="evidence-cautions">
           {outcome.methods.I2 >= 0.5 ? <p>{t("brief.plainWarnings.heterogeneity", { I2: Math.round(outcome.methods.I2 * 100) })}</p> : null}
-          {outcome.methods.pBetween !== null && outcome.methods.pBetween < 0.05 ? <p className="mt-2">{t("brief.plainWarnings.inconsistency", { p: outcome.methods.pBetween.toPrecision(2) })}</p> : null}
+          {outcome.methods.pBetween !== null && outcome.methods.pBetween < 0.05 ? <p className="mt-2">{t("brief.plainWarnings.inconsistency", { p: intl.precise(outcome.methods.pBetween, 2) })}</p> : null}
           {outcome.incoherentPairs > 0 ? <p className="mt-2">{t("brief.plainWarnings.incoherence", { count: outcome.incoherentPairs })}</p> : null}
         </div>
       ) : null}
@@ -163,11 +166,11 @@ export function OutcomeSection({ outcome, version }: { outcome: OutcomeView; ver
             </>
           ) : null}
           <dt className="text-muted">{t("brief.methodsList.model")}</dt>
-          <dd>{t(`desk.model.${outcome.model}`)}</dd>
+          <dd>{t(`brief.model.${outcome.model}`)}</dd>
           <dt className="text-muted">{t("brief.methodsList.heterogeneity")}</dt>
-          <dd>{`τ² = ${outcome.methods.tau2.toFixed(3)}; I² = ${(outcome.methods.I2 * 100).toFixed(0)}%; Q = ${outcome.methods.Q.toFixed(2)} (df ${outcome.methods.df})`}</dd>
+          <dd>{`τ² = ${intl.number(outcome.methods.tau2, 3)}; I² = ${intl.number(outcome.methods.I2 * 100, 0)}%; Q = ${intl.number(outcome.methods.Q, 2)} (df ${outcome.methods.df})`}</dd>
           <dt className="text-muted">{t("brief.methodsList.incoherence")}</dt>
-          <dd>{`Q = ${outcome.methods.Qbetween.toFixed(2)} (df ${outcome.methods.dfBetween})${outcome.methods.pBetween === null ? "" : `; p = ${outcome.methods.pBetween.toPrecision(2)}`}`}</dd>
+          <dd>{`Q = ${intl.number(outcome.methods.Qbetween, 2)} (df ${outcome.methods.dfBetween})${outcome.methods.pBetween === null ? "" : `; p = ${intl.precise(outcome.methods.pBetween, 2)}`}`}</dd>
           <dt className="text-muted">{t("brief.methodsList.data")}</dt>
           <dd className="break-all">{`${outcome.methods.fileName} · SHA-256 ${outcome.methods.sha256}`}</dd>
           <dt className="text-muted">{t("brief.methodsList.engine")}</dt>

@@ -2,6 +2,7 @@
 // Open Graph and Twitter cards, and schema.org JSON-LD. Title and description come from +title and
 // +description (vike-react also writes them as og:title and og:description).
 import { feedUrl } from "#core/urls";
+import { useIntl } from "../i18n";
 export interface HeadFacts {
   title: string;
   siteUrl: string;
@@ -17,7 +18,9 @@ export interface HeadFacts {
 const citationDate = (iso: string) => iso.slice(0, 10).replaceAll("-", "/");
 
 export function PageHead({ facts }: { facts: HeadFacts }) {
-  const url = `${facts.siteUrl}${facts.path}`;
+  // The permalink in the language read: each language's page is its own canonical address (hreflang names the others).
+  const { href, locale } = useIntl();
+  const url = `${facts.siteUrl}${href(facts.path)}`;
   const jsonLd = {
     "@context": "https://schema.org",
     "@type": "Report",
@@ -27,7 +30,7 @@ export function PageHead({ facts }: { facts: HeadFacts }) {
     url,
     version: String(facts.version),
     datePublished: facts.releaseAt,
-    inLanguage: "en",
+    inLanguage: locale,
     isAccessibleForFree: true,
     about: { "@type": "MedicalCondition", name: facts.condition },
     author: { "@type": "Organization", name: "Fairweigh" },
@@ -37,7 +40,7 @@ export function PageHead({ facts }: { facts: HeadFacts }) {
   return (
     <>
       <link rel="canonical" href={url} />
-      <link rel="alternate" type="application/atom+xml" title="Fairweigh" href={feedUrl()} />
+      <link rel="alternate" type="application/atom+xml" title="Fairweigh" href={href(feedUrl())} />
       <meta name="citation_title" content={facts.title} />
       <meta name="citation_author" content="Fairweigh" />
       <meta name="citation_publisher" content="Fairweigh" />
@@ -45,7 +48,7 @@ export function PageHead({ facts }: { facts: HeadFacts }) {
       <meta name="citation_online_date" content={citationDate(facts.releaseAt)} />
       <meta name="citation_technical_report_number" content={`Version ${facts.version}`} />
       <meta name="citation_abstract_html_url" content={url} />
-      <meta name="citation_language" content="en" />
+      <meta name="citation_language" content={locale} />
       <meta property="og:type" content="article" />
       <meta property="og:url" content={url} />
       <meta property="og:site_name" content="Fairweigh" />

@@ -3,9 +3,11 @@
 import { useTranslation } from "react-i18next";
 import type { OutcomeView } from "#core/brief-page";
 import { rankCautionKeys } from "#core/grade/rank-explainer";
+import { useIntl } from "../i18n";
 
 export function RankScores({ scores }: { scores: OutcomeView["rankScores"] }) {
   const { t } = useTranslation();
+  const intl = useIntl();
   return (
     <details className="mt-6 border-t border-rule pt-4" data-testid="rank-scores">
       <summary className="cursor-pointer font-sans font-semibold">{t("rankScores.title")}</summary>
@@ -28,8 +30,8 @@ export function RankScores({ scores }: { scores: OutcomeView["rankScores"] }) {
           {scores.rows.map((row) => (
             <tr key={row.id} className="border-t border-rule">
               <th scope="row" className="py-1 pe-6 text-start font-normal">{row.name}</th>
-              <td className="py-1 pe-6 text-end tabular-nums">{row.pScore.toFixed(2)}</td>
-              <td className="py-1 text-end tabular-nums">{row.sucra.toFixed(2)}</td>
+              <td className="py-1 pe-6 text-end tabular-nums">{intl.number(row.pScore, 2)}</td>
+              <td className="py-1 text-end tabular-nums">{intl.number(row.sucra, 2)}</td>
             </tr>
           ))}
         </tbody>

@@ -2,10 +2,12 @@
 import { useTranslation } from "react-i18next";
 import type { VersionEntry } from "#core/brief-page";
 import { versionUrl } from "#core/urls";
+import { useIntl } from "../i18n";
 
 export function VersionHistory({ slug, history, current }: { slug: string; history: VersionEntry[]; current: number }) {
-  const { t, i18n } = useTranslation();
-  const date = new Intl.DateTimeFormat(i18n.language, { dateStyle: "long", timeZone: "UTC" });
+  const { t } = useTranslation();
+  const intl = useIntl();
+  const date = intl.date({ dateStyle: "long", timeZone: "UTC" });
   return (
     <section aria-labelledby="history-title" className="mt-16 border-t border-rule pt-6" data-testid="history">
       <h2 id="history-title" className="text-xl font-semibold">{t("brief.history")}</h2>
@@ -15,7 +17,7 @@ export function VersionHistory({ slug, history, current }: { slug: string; histo
             {entry.number === current ? (
               <strong aria-current="page">{t("brief.versionLine", { version: entry.number, date: date.format(new Date(entry.releaseAt)) })}</strong>
             ) : (
-              <a href={versionUrl({ slug, version: entry.number })}>{t("brief.versionLine", { version: entry.number, date: date.format(new Date(entry.releaseAt)) })}</a>
+              <a href={intl.href(versionUrl({ slug, version: entry.number }))}>{t("brief.versionLine", { version: entry.number, date: date.format(new Date(entry.releaseAt)) })}</a>
             )}
             {entry.embargoed ? <span className="ms-2 font-sans text-xs text-accent">{t("brief.embargoedShort")}</span> : null}
             {entry.note ? <p className="mt-1 text-muted">{t("brief.correctionNote", { note: entry.note })}</p> : null}

@@ -7,6 +7,7 @@ import { useTranslation } from "react-i18next";
 import { formatEffect, formatInterval } from "#core/effects";
 import type { Measure } from "#core/nma/types";
 import { axisTicks } from "./scale";
+import { textDirection, useIntl } from "../i18n";
 
 export interface ForestRow {
   label: string;
@@ -20,8 +21,13 @@ const plotWidth = 460;
 
 export function ForestPlot({ rows, measure, title }: { rows: ForestRow[]; measure: Measure; title: string }) {
   const { t } = useTranslation();
-  // Room on the left for the longest label at 13 px (about 7 px a character).
-  const margin = { top: 8, right: 24, bottom: 40, left: 24 + 7 * Math.max(8, ...rows.map((r) => r.label.length)) };
+  const intl = useIntl();
+  // Room beside the plot for the longest label at 13 px (about 7 px a character): on the left, or in
+  // right-to-left languages on the right, where reading starts. The axis keeps its mathematical
+  // direction (smaller values on the left) in every language.
+  const rtl = textDirection(intl.locale) === "rtl";
+  const labelWidth = 7 * Math.max(8, ...rows.map((r) => r.label.length));
+  const margin = { top: 8, right: 24 + (rtl ? labelWidth : 0), bottom: 40, left: 24 + (rtl ? 0 : labelWidth) };
   const width = margin.left + plotWidth + margin.right;
   const height = margin.top + margin.bottom + rows.length * rowHeight;
   const lowest = Math.min(0, ...rows.map((r) => r.lower));
@@ -33,7 +39,7 @@ export function ForestPlot({ rows, measure, title }: { rows: ForestRow[]; measur
     <figure className="my-6 overflow-x-auto">
       {/* On a phone the plot is wider than the screen: say so, rather than leave points out of sight. */}
       <p className="mb-2 font-sans text-xs text-muted sm:hidden" aria-hidden="true">{t("brief.scrollCue")}</p>
-      <svg viewBox={`0 0 ${width} ${height}`} role="img" aria-label={title} className="w-full min-w-[34rem] max-w-2xl font-sans" data-testid="forest-plot">
+      <svg viewBox={`0 0 ${width} ${height}`} direction="ltr" role="img" aria-label={title} className="w-full min-w-[34rem] max-w-2xl font-sans" data-testid="forest-plot">
         <title>{title}</title>
         <Group left={margin.left} top={margin.top}>
           <Line from={{ x: x(0), y: 0 }} to={{ x: x(0), y: rows.length * rowHeight }} stroke="#5b554d" strokeDasharray="4 3" />
@@ -41,7 +47,7 @@ export function ForestPlot({ rows, measure, title }: { rows: ForestRow[]; measur
             const y = i * rowHeight + rowHeight / 2;
             return (
               <g key={row.label}>
-                <text x={-12} y={y} dy="0.35em" textAnchor="end" fontSize={13} fill="#1d1a17">
+                <text x={rtl ? plotWidth + 12 : -12} y={y} dy="0.35em" textAnchor={rtl ? "start" : "end"} direction={rtl ? "rtl" : "ltr"} fontSize={13} fill="#1d1a17">
                   {row.label}
                 </text>
                 <Line from={{ x: x(row.lower), y }} to={{ x: x(row.upper), y }} stroke="#6d1f35" strokeWidth={2} />
@@ -55,14 +61,14 @@ export function ForestPlot({ rows, measure, title }: { rows: ForestRow[]; measur
             {axisTicks(measure, x.domain() as [number, number], x.ticks(6)).map((tick) => (
               <g key={tick} transform={`translate(${x(tick)} 0)`}>
                 <line y2={6} stroke="#d9d1c5" />
-                <text y={20}>{formatEffect(measure, tick)}</text>
+                <text y={20}>{formatEffect(measure, tick, intl.locale)}</text>
               </g>
             ))}
           </g>
         </Group>
       </svg>
       <figcaption className="sr-only">
-        {rows.map((r) => `${r.label}: ${formatInterval(measure, r, t("brief.to"))}`).join("; ")}
+        {rows.map((r) => `${r.label}: ${formatInterval(measure, r, t("brief.to"), intl.locale)}`).join("; ")}
       </figcaption>
     </figure>
   );

@@ -2,6 +2,7 @@
 import { useTranslation } from "react-i18next";
 import { formatInterval } from "#core/effects";
 import type { Measure } from "#core/nma/types";
+import { useIntl } from "../i18n";
 
 export interface LeagueCell {
   estimate: number;
@@ -24,6 +25,7 @@ export function LeagueTable({
   caption: string;
 }) {
   const { t } = useTranslation();
+  const intl = useIntl();
   return (
     // Scrolls inside its own box, with the row and column headers kept in view (sticky).
     <div className="max-h-[80vh] overflow-auto">
@@ -50,11 +52,11 @@ export function LeagueTable({
                 return (
                   <td key={column.id} className="border border-rule px-2 py-1 text-center whitespace-nowrap">
                     {value && href ? (
-                      <a href={href(row.id, column.id)} aria-label={t("brief.leagueCellLabel", { treatment: row.label, comparator: column.label, value: formatInterval(measure, value, t("brief.to")) })}>
-                        {formatInterval(measure, value, t("brief.to"))}
+                      <a href={href(row.id, column.id)} aria-label={t("brief.leagueCellLabel", { treatment: row.label, comparator: column.label, value: formatInterval(measure, value, t("brief.to"), intl.locale) })}>
+                        {formatInterval(measure, value, t("brief.to"), intl.locale)}
                       </a>
                     ) : value ? (
-                      formatInterval(measure, value, t("brief.to"))
+                      formatInterval(measure, value, t("brief.to"), intl.locale)
                     ) : (
                       "—"
                     )}

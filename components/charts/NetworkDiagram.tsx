@@ -30,7 +30,7 @@ export function NetworkDiagram({ nodes, edges, title }: { nodes: NetworkNode[]; 
   const mostStudies = Math.max(1, ...edges.map((e) => e.studies));
   const nodeRadius = (n: NetworkNode) => (n.participants === null ? 8 : 5 + 14 * Math.sqrt(n.participants / largest));
   return (
-    <svg viewBox={`0 0 ${width} ${height}`} role="img" aria-label={title} className="w-full min-w-[32rem] max-w-2xl font-sans" data-testid="network-diagram">
+    <svg viewBox={`0 0 ${width} ${height}`} direction="ltr" role="img" aria-label={title} className="w-full min-w-[32rem] max-w-2xl font-sans" data-testid="network-diagram">
       <title>{title}</title>
       <Group left={width / 2} top={height / 2}>
         {edges.map((edge) => {

@@ -4,6 +4,7 @@ import { useTranslation } from "react-i18next";
 import type { SignedInPerson } from "./api";
 import { Field, formValues, inputClass, SubmitRow } from "./forms";
 import { useTopics, useUpdateAccount } from "./queries";
+import { languageNames, localeOf, locales } from "#core/locales";
 
 export function AccountScreen({ person }: { person: SignedInPerson }) {
   const { t } = useTranslation();
@@ -16,9 +17,9 @@ export function AccountScreen({ person }: { person: SignedInPerson }) {
   function onDetails(event: FormEvent<HTMLFormElement>) {
     event.preventDefault();
     const form = event.currentTarget;
-    const { displayName, timeZone } = formValues(form);
+    const { displayName, timeZone, locale } = formValues(form);
     const alertTopics = press ? new FormData(form).getAll("alertTopics").map(String) : undefined;
-    details.mutate({ displayName, timeZone, alertTopics });
+    details.mutate({ displayName, timeZone, locale: localeOf(locale), alertTopics });
   }
   function onPassword(event: FormEvent<HTMLFormElement>) {
     event.preventDefault();
@@ -38,6 +39,15 @@ export function AccountScreen({ person }: { person: SignedInPerson }) {
           <select name="timeZone" defaultValue={person.timeZone} className={inputClass}>
             {zones.map((zone) => (
               <option key={zone}>{zone}</option>
+            ))}
+          </select>
+        </Field>
+        <Field label={t("desk.account.language")}>
+          <select name="locale" defaultValue={person.locale} className={inputClass}>
+            {locales.map((locale) => (
+              <option key={locale} value={locale} lang={locale}>
+                {languageNames[locale]}
+              </option>
             ))}
           </select>
         </Field>

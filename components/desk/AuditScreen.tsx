@@ -4,16 +4,18 @@ import { useState } from "react";
 import { useTranslation } from "react-i18next";
 import { Field, inputClass } from "./forms";
 import { useAudit, useBriefs, usePeople } from "./queries";
+import { useIntl } from "../i18n";
 
 export function AuditScreen() {
-  const { t, i18n } = useTranslation();
+  const { t } = useTranslation();
+  const intl = useIntl();
   const [filter, setFilter] = useState({ person: "", brief: "", action: "" });
   const audit = useAudit(filter);
   const people = usePeople();
   const briefs = useBriefs();
   const entries = audit.data?.pages.flatMap((page) => page.entries) ?? [];
   const actions = audit.data?.pages[0]?.actions ?? [];
-  const when = new Intl.DateTimeFormat(i18n.language, { dateStyle: "medium", timeStyle: "medium", timeZone: "UTC" });
+  const when = intl.date({ dateStyle: "medium", timeStyle: "medium", timeZone: "UTC" });
   const choose = (name: keyof typeof filter) => (event: React.ChangeEvent<HTMLSelectElement>) => setFilter({ ...filter, [name]: event.target.value });
 
   return (

@@ -12,6 +12,10 @@ import { DevMailScreen } from "./DevMailScreen";
 import { PressRoom } from "./PressRoom";
 import { ResultsScreen } from "./ResultsScreen";
 import { useSignedInPerson, useSignOut } from "./queries";
+import { TranslationEditor, TranslationQueue } from "./TranslationsScreen";
+import { loadTranslations } from "../i18n";
+import { setErrorWords } from "./api";
+import { localeOf, textDirection } from "#core/locales";
 
 export function DeskApp() {
   const [queryClient] = useState(() => new QueryClient({ defaultOptions: { queries: { retry: 1 } } }));
@@ -26,10 +30,20 @@ export function DeskApp() {
 
 /** Sends anonymous visitors to the sign-in page and back here afterwards. */
 function SignedInDesk() {
-  const { t } = useTranslation();
+  const { t, i18n } = useTranslation();
   const session = useSignedInPerson();
   const signOut = useSignOut();
   const person = session.data;
+
+  setErrorWords((key) => (i18n.exists(`desk.${key}`) ? i18n.t(`desk.${key}`) : null));
+  // The desk speaks the signed-in person's language (chosen on their account screen).
+  const deskLocale = localeOf(person?.locale);
+  useEffect(() => {
+    if (!person || i18n.language === deskLocale) return;
+    void loadTranslations(deskLocale, ["public", "desk"]).then(() => i18n.changeLanguage(deskLocale));
+    document.documentElement.lang = deskLocale;
+    document.documentElement.dir = textDirection(deskLocale);
+  }, [person, deskLocale, i18n]);
 
   useEffect(() => {
     if (session.isSuccess && person === null) {
@@ -71,6 +85,10 @@ function DeskRoutes({ person }: { person: NonNullable<ReturnType<typeof useSigne
       {person.roles.includes("admin") ? <Route path="audit" element={<AuditScreen />} /> : null}
       <Route path="account" element={<AccountScreen person={person} />} />
       <Route path="dev/mail" element={<DevMailScreen />} />
+      {person.roles.includes("translator") || person.roles.includes("editor") ? <Route path="translations" element={<TranslationQueue />} /> : null}
+      {person.roles.includes("translator") || person.roles.includes("editor") ? (
+        <Route path="translations/:versionId/:locale" element={<TranslationEditor canPublish={person.roles.includes("editor")} />} />
+      ) : null}
       {person.roles.includes("press") || person.roles.includes("editor") ? <Route path="press" element={<PressRoom canAsk={person.roles.includes("press")} />} /> : null}
       <Route path="*" element={<p>{t("desk.notFound")}</p>} />
     </Routes>

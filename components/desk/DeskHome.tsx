@@ -35,6 +35,11 @@ export function DeskHome({ person }: { person: SignedInPerson }) {
           <Link to="/people">{t("desk.people.link")}</Link> · <Link to="/audit">{t("desk.audit.link")}</Link>
         </p>
       ) : null}
+      {person.roles.includes("translator") || person.roles.includes("editor") ? (
+        <p className="mt-8 font-sans">
+          <Link to="/translations">{t("desk.translations.link")}</Link>
+        </p>
+      ) : null}
       {person.roles.includes("press") || person.roles.includes("editor") ? <PressRoom canAsk={person.roles.includes("press")} /> : null}
       {person.roles.includes("analyst") ? (
         <section className="mt-10 border-t border-rule pt-6">

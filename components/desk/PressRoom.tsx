@@ -4,6 +4,7 @@ import { useTranslation } from "react-i18next";
 import { useAskEditors, usePressRoom } from "./queries";
 import { Field, formValues, inputClass, SubmitRow } from "./forms";
 import { versionUrl } from "#core/urls";
+import { useIntl } from "../i18n";
 
 /** The press room's contact form: a question to the editors, who answer by e-mail. */
 function AskEditors({ briefs }: { briefs: { slug: string; title: string }[] }) {
@@ -48,9 +49,10 @@ function AskEditors({ briefs }: { briefs: { slug: string; title: string }[] }) {
 }
 
 export function PressRoom({ canAsk = false }: { canAsk?: boolean }) {
-  const { t, i18n } = useTranslation();
+  const { t } = useTranslation();
+  const intl = useIntl();
   const versions = usePressRoom();
-  const date = new Intl.DateTimeFormat(i18n.language, { dateStyle: "long", timeStyle: "short", timeZone: "UTC" });
+  const date = intl.date({ dateStyle: "long", timeStyle: "short", timeZone: "UTC" });
   return (
     <section className="mt-10" aria-labelledby="press-room-title" data-testid="press-room">
       <h2 id="press-room-title" className="text-xl font-semibold">{t("desk.pressRoom.title")}</h2>

@@ -7,9 +7,11 @@ import { buttonClass, Field, formValues, inputClass } from "./forms";
 import { usePublish, useReadiness, useReschedule, useReviews, useReviewStep, useWithdraw } from "./queries";
 import type { BriefDetail, ReviewBody } from "#web/api/contract";
 import { previewUrl } from "#core/urls";
+import { useIntl } from "../i18n";
 
 export function ReleasePanel({ brief, personId, canEdit, canSubmit }: { brief: BriefDetail; personId: string; canEdit: boolean; canSubmit: boolean }) {
-  const { t, i18n } = useTranslation();
+  const { t } = useTranslation();
+  const intl = useIntl();
   const reviews = useReviews(brief.id);
   const readiness = useReadiness(brief.id);
   const review = useReviewStep(brief.id);
@@ -17,8 +19,8 @@ export function ReleasePanel({ brief, personId, canEdit, canSubmit }: { brief: B
   const withdraw = useWithdraw(brief.id);
   const reschedule = useReschedule(brief.id, brief.latestVersion);
   const [schedule, setSchedule] = useState(false);
-  const date = new Intl.DateTimeFormat(i18n.language, { dateStyle: "medium", timeStyle: "short" });
-  const zoned = new Intl.DateTimeFormat(i18n.language, { dateStyle: "full", timeStyle: "long" });
+  const date = intl.date({ dateStyle: "medium", timeStyle: "short" });
+  const zoned = intl.date({ dateStyle: "full", timeStyle: "long" });
   const withdrawn = brief.status === "withdrawn";
   // A brief with a version is released, whatever step its next version is at: a correction needs its note.
   const published = brief.latestVersion > 0;

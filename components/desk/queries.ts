@@ -20,6 +20,7 @@ import type {
   ReviewHistory,
   UploadReport,
   WithdrawalBody,
+  SaveTranslationBody,
 } from "#web/api/contract";
 import { ApiError, callApi, forgetCsrfToken } from "./api";
 
@@ -296,5 +297,33 @@ export function useDevMail() {
     queryFn: async () => (await callApi<{ messages: { to: string; subject: string; text: string; receivedAt: string }[] }>("GET", "/api/dev/mail")).messages,
     refetchInterval: 3000,
     retry: false,
+  });
+}
+
+/** The translation desk's queue: each brief's newest version and the state of each language this person may translate. */
+export function useTranslationQueue() {
+  return useQuery({ queryKey: ["translations"], queryFn: () => callApi<ApiAnswers["translationQueue"]>("GET", "/api/translations") });
+}
+
+export function useTranslation(versionId: string, locale: string) {
+  return useQuery({
+    queryKey: ["translation", versionId, locale],
+    queryFn: async () => (await callApi<ApiAnswers["translation"]>("GET", `/api/translations/${versionId}/${locale}`)).translation,
+  });
+}
+
+/** Save, mark ready or publish: each answers with the translation as it now stands. */
+export function useTranslationStep(versionId: string, locale: string) {
+  const queryClient = useQueryClient();
+  const path = `/api/translations/${versionId}/${locale}`;
+  return useMutation({
+    mutationFn: (step: { save: SaveTranslationBody } | { ready: true } | { publish: true }) =>
+      "save" in step
+        ? callApi<ApiAnswers["translation"]>("PUT", path, step.save)
+        : callApi<ApiAnswers["translation"]>("POST", `${path}/${"ready" in step ? "ready" : "publish"}`),
+    onSuccess: ({ translation }) => {
+      queryClient.setQueryData(["translation", versionId, locale], translation);
+      void queryClient.invalidateQueries({ queryKey: ["translations"] });
+    },
   });
 }

@@ -3,15 +3,17 @@ import { useData } from "vike-react/useData";
 import { BriefList } from "#components/BriefList";
 import type { Data } from "./+data";
 import { searchUrl } from "#core/urls";
+import { useIntl } from "#components/i18n";
 
 export default function Page() {
   const { t } = useTranslation();
+  const { href } = useIntl();
   const { briefs, topics, q, topic } = useData<Data>();
   const filtered = q !== "" || topic !== "";
   return (
     <>
       <h1 className="text-4xl leading-tight font-semibold tracking-tight">{t("search.title")}</h1>
-      <form action={searchUrl()} method="get" role="search" className="mt-8 grid gap-4 font-sans sm:grid-cols-[1fr_auto_auto] sm:items-end">
+      <form action={href(searchUrl())} method="get" role="search" className="mt-8 grid gap-4 font-sans sm:grid-cols-[1fr_auto_auto] sm:items-end">
         <div>
           <label htmlFor="q" className="block text-sm font-semibold">{t("search.label")}</label>
           <input id="q" name="q" type="search" defaultValue={q} placeholder={t("search.placeholder")} className="mt-1 w-full border border-ink bg-white px-3 py-2" />

@@ -3,15 +3,17 @@ import { useData } from "vike-react/useData";
 import { BriefList } from "#components/BriefList";
 import type { Data } from "./+data";
 import { searchUrl, topicUrl } from "#core/urls";
+import { useIntl } from "#components/i18n";
 
 export default function Page() {
   const { t } = useTranslation();
+  const { href } = useIntl();
   const { briefs, topics } = useData<Data>();
   return (
     <>
       <h1 className="text-4xl leading-tight font-semibold tracking-tight">{t("home.title")}</h1>
       <p className="mt-6 text-xl leading-relaxed text-muted">{t("home.lead")}</p>
-      <form action={searchUrl()} method="get" role="search" className="mt-10 flex flex-wrap gap-3 font-sans">
+      <form action={href(searchUrl())} method="get" role="search" className="mt-10 flex flex-wrap gap-3 font-sans">
         <label htmlFor="home-search" className="sr-only">{t("search.label")}</label>
         <input id="home-search" name="q" type="search" placeholder={t("search.placeholder")} className="min-w-0 flex-1 border border-ink bg-white px-3 py-2" />
         <button type="submit" className="bg-accent px-4 py-2 font-semibold text-white">{t("search.submit")}</button>
@@ -23,7 +25,7 @@ export default function Page() {
         {briefs.length === 0 ? <p className="mt-6 text-lg text-muted">{t("home.empty")}</p> : <BriefList briefs={briefs} />}
         {briefs.length > 0 ? (
           <p className="mt-4 font-sans text-sm">
-            <a href={searchUrl()}>{t("home.allBriefs")}</a>
+            <a href={href(searchUrl())}>{t("home.allBriefs")}</a>
           </p>
         ) : null}
       </section>
@@ -33,7 +35,7 @@ export default function Page() {
           <ul className="mt-4 flex flex-wrap gap-3 font-sans" data-testid="topics">
             {topics.map((topic) => (
               <li key={topic.slug}>
-                <a href={topicUrl(topic.slug)} className="inline-block border border-rule bg-white px-3 py-1 no-underline">
+                <a href={href(topicUrl(topic.slug))} className="inline-block border border-rule bg-white px-3 py-1 no-underline">
                   {t("home.topic", { name: topic.name, count: topic.count })}
                 </a>
               </li>

@@ -1,8 +1,8 @@
 // The e-mails the product sends, composed from locales/<locale>/mail.json: a plain-text part and an
 // HTML part of the same words, in the recipient's language. Pure: the queue sends what this returns.
-import i18next, { type TFunction } from "i18next";
-import en from "../../locales/en/mail.json";
+import type { TFunction } from "i18next";
 import { localeOf, type Locale } from "./locales";
+import { wordsOf } from "./words";
 import type { Role } from "./roles";
 
 export interface Message {
@@ -15,10 +15,7 @@ export interface Message {
   headers?: Record<string, string>;
 }
 
-const translator = i18next.createInstance();
-void translator.init({ resources: { en: { mail: en } }, ns: ["mail"], defaultNS: "mail", fallbackLng: "en", initAsync: false, interpolation: { escapeValue: false } });
-
-const t = (locale: Locale): TFunction => translator.getFixedT(locale, "mail");
+const t = (locale: Locale): TFunction => wordsOf(locale, "mail");
 
 const escapeHtml = (text: string) => text.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`);
 

@@ -1,11 +1,13 @@
 import { useTranslation } from "react-i18next";
 import { usePageContext } from "vike-react/usePageContext";
+import { useIntl } from "#components/i18n";
 
 const outcomes = new Set(["sent", "confirmed", "unsubscribed", "invalid", "too-many"]);
 
 /** Where each alerts form lands: what became of the request, in words. */
 export default function Page() {
   const { t } = useTranslation();
+  const { href } = useIntl();
   const what = String(usePageContext().urlParsed.search.what ?? "");
   return (
     <div className="max-w-md">
@@ -14,7 +16,7 @@ export default function Page() {
         {t(`subscriptions.done.${outcomes.has(what) ? what : "invalid"}`)}
       </p>
       <p className="mt-6 font-sans">
-        <a href="/briefs">{t("subscriptions.home")}</a>
+        <a href={href("/briefs")}>{t("subscriptions.home")}</a>
       </p>
     </div>
   );

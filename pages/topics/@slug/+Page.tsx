@@ -4,14 +4,16 @@ import { useData } from "vike-react/useData";
 import { BriefList } from "#components/BriefList";
 import type { Data } from "./+data";
 import { searchUrl } from "#core/urls";
+import { useIntl } from "#components/i18n";
 
 export default function Page() {
   const { t } = useTranslation();
+  const { href } = useIntl();
   const { topic, briefs } = useData<Data>();
   return (
     <>
       <p className="font-sans text-sm">
-        <a href={searchUrl()}>{t("search.title")}</a>
+        <a href={href(searchUrl())}>{t("search.title")}</a>
       </p>
       <h1 className="mt-2 text-4xl leading-tight font-semibold tracking-tight">{t("topic.title", { name: topic.name })}</h1>
       <BriefList briefs={briefs} />

@@ -1,6 +1,8 @@
 // The Atom feed of new, corrected and withdrawn briefs (RFC 4287). Written here rather than by a
 // feed package because titles and summaries must be plain text (type="text"): a brief's title is
 // the editor's words, and as HTML a feed reader would run whatever markup it held.
+import type { TFunction } from "i18next";
+import { localePath, type Locale } from "#core/locales";
 import { versionUrl } from "#core/urls";
 import type { ReleasedVersion } from "#db/versions";
 
@@ -17,27 +19,29 @@ interface Entry {
 }
 
 /** One entry per release (a new brief or a correction), and one per withdrawn brief, newest first. */
-export function feedEntries(versions: ReleasedVersion[], base: string): Entry[] {
+export function feedEntries(versions: ReleasedVersion[], base: string, locale: Locale, t: TFunction): Entry[] {
+  // An entry's id names the version, the same in every language's feed; its link is the reader's language.
+  const address = (version: ReleasedVersion) => versionUrl({ slug: version.slug, version: version.number });
   const entries: Entry[] = versions.map((version) => {
-    const url = `${base}${versionUrl({ slug: version.slug, version: version.number })}`;
+    const url = `${base}${localePath(locale, address(version))}`;
     return {
-      id: url,
+      id: `${base}${address(version)}`,
       url,
-      title: version.number === 1 ? version.title : `Corrected (version ${version.number}): ${version.title}`,
-      summary: version.number === 1 ? `New brief: ${version.title}` : `Correction note: ${version.note ?? ""}`,
+      title: version.number === 1 ? version.title : t("feed.corrected", { version: version.number, title: version.title }),
+      summary: version.number === 1 ? t("feed.new", { title: version.title }) : t("feed.correctionNote", { note: version.note ?? "" }),
       updated: version.releaseAt,
     };
   });
   const withdrawn = new Map<string, ReleasedVersion>();
   for (const version of versions) if (version.withdrawnAt && !withdrawn.has(version.slug)) withdrawn.set(version.slug, version);
   for (const version of withdrawn.values()) {
-    const url = `${base}${versionUrl({ slug: version.slug, version: version.number })}`;
-    entries.push({ id: `${url}#withdrawn`, url, title: `Withdrawn: ${version.title}`, summary: `Withdrawn: ${version.withdrawalReason ?? ""}`, updated: version.withdrawnAt! });
+    const url = `${base}${localePath(locale, address(version))}`;
+    entries.push({ id: `${base}${address(version)}#withdrawn`, url, title: t("feed.withdrawn", { title: version.title }), summary: t("feed.withdrawnReason", { reason: version.withdrawalReason ?? "" }), updated: version.withdrawnAt! });
   }
   return entries.sort((a, b) => b.updated.localeCompare(a.updated)).slice(0, 50);
 }
 
-export function atomFeed(feed: { base: string; selfUrl: string; entries: Entry[] }): string {
+export function atomFeed(feed: { base: string; selfUrl: string; entries: Entry[]; locale: Locale; t: TFunction }): string {
   const text = (name: string, value: string) => `<${name} type="text">${escapeXml(value.replace(/[\r\n]+/g, " "))}</${name}>`;
   const entries = feed.entries.map(
     (entry) =>
@@ -45,11 +49,11 @@ export function atomFeed(feed: { base: string; selfUrl: string; entries: Entry[]
   );
   return [
     `<?xml version="1.0" encoding="utf-8"?>`,
-    `<feed xmlns="http://www.w3.org/2005/Atom">`,
+    `<feed xmlns="http://www.w3.org/2005/Atom" xml:lang="${feed.locale}">`,
     `  <id>${escapeXml(feed.base)}/</id>`,
-    `  ${text("title", "Fairweigh: new, corrected and withdrawn briefs")}`,
-    `  ${text("subtitle", "Network meta-analyses published so that readers can see what the evidence supports.")}`,
-    `  <link href="${escapeXml(feed.base)}/"/>`,
+    `  ${text("title", feed.t("feed.title"))}`,
+    `  ${text("subtitle", feed.t("feed.subtitle"))}`,
+    `  <link href="${escapeXml(feed.base + localePath(feed.locale, "/"))}"/>`,
     `  <link rel="self" type="application/atom+xml" href="${escapeXml(feed.selfUrl)}"/>`,
     `  <updated>${feed.entries[0]?.updated ?? new Date(0).toISOString()}</updated>`,
     `  <author><name>Fairweigh</name></author>`,

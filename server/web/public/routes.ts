@@ -6,6 +6,7 @@ import { comparisonContent } from "#core/brief-page";
 import { defaultLocale, isLocale, localePath, locales, splitLocale, type Locale } from "#core/locales";
 import { alternates, briefUrl, comparisonUrl, feedUrl, homeUrl, searchUrl, sitemapUrl, versionNumberOf, versionUrl } from "#core/urls";
 import { listReleasedVersions, readVersion } from "#db/versions";
+import { wordsOf } from "#core/words";
 import type { Database } from "#db/client";
 import { citationFile, citationMedia, type CitationFormat, type CitationInput } from "./citations";
 import { downloads } from "./downloads";
@@ -103,8 +104,10 @@ export function publicFileRoutes(db: Database, publicUrl: string | undefined, se
 
   router.get("/feed.xml", async (req, res) => {
     const base = siteUrl(req, publicUrl);
-    const entries = feedEntries(await listReleasedVersions(db), base);
-    res.set("Cache-Control", "public, max-age=300").type("application/atom+xml; charset=utf-8").send(atomFeed({ base, selfUrl: `${base}${feedUrl()}`, entries }));
+    const locale = localeOf(res);
+    const t = wordsOf(locale, "public");
+    const entries = feedEntries(await listReleasedVersions(db), base, locale, t);
+    res.set("Cache-Control", "public, max-age=300").type("application/atom+xml; charset=utf-8").send(atomFeed({ base, selfUrl: `${base}${localePath(locale, feedUrl())}`, entries, locale, t }));
   });
 
   router.get("/sitemap.xml", async (req, res) => {
