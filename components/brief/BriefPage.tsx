@@ -77,7 +77,7 @@ export function BriefPage({ data }: { data: BriefPageData }) {
       ))}
 
       <CiteBlock heading={t("cite.brief")} reference={citation.reference} accessed={citation.accessed} permalink={citation.permalink} citing={version} />
-      <SubscribeForm topic={view.topic} />
+      <SubscribeForm topic={view.topic} topicSlug={view.topicSlug} />
 
       <section aria-labelledby="data-title" className="mt-16 border-t border-rule pt-6 print:hidden">
         <h2 id="data-title" className="text-xl font-semibold">{t("brief.data")}</h2>

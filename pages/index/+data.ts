@@ -4,7 +4,7 @@ import { topicsOf } from "#core/search";
 import { listReleasedBriefs } from "#db/versions";
 
 export async function data(pageContext: PageContextServer) {
-  const briefs = await listReleasedBriefs(pageContext.db!);
+  const briefs = await listReleasedBriefs(pageContext.db!, pageContext.locale);
   return { briefs: briefs.slice(0, 10), topics: topicsOf(briefs), caching: "revalidate" as const };
 }
 

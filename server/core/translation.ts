@@ -39,6 +39,7 @@ export function sourceFields(snapshot: VersionSnapshot): SourceField[] {
   const markdown = (name: string, html: string): SourceField => ({ name, kind: "markdown", text: textOf(html), html });
   return [
     line("title", snapshot.brief.title),
+    line("topic", snapshot.brief.topic),
     line("condition", snapshot.brief.condition),
     line("population", snapshot.brief.population),
     markdown("keyMessages", snapshot.texts.keyMessagesHtml),
@@ -99,6 +100,9 @@ export function storedAfterSave(sources: SourceField[], previous: StoredFields, 
   }
   return next;
 }
+
+/** The topic's name in the reader's language; its address (the slug) stays that of the original. */
+export const translatedTopic = (snapshot: VersionSnapshot, published: PublishedFields) => published.topic?.trim() || snapshot.brief.topic;
 
 /**
  * The version as readers of a language see it: the published texts in place of the originals, the

@@ -133,3 +133,9 @@ export async function translationQueue(db: Database, locales: TranslationLocale[
     states: Object.fromEntries(locales.map((locale) => [locale, rows.find((r) => r.versionId === version.versionId && r.locale === locale)?.state ?? "missing"])),
   }));
 }
+
+/** The id of a brief's newest version, released or scheduled; null before its first. */
+export async function newestVersionId(db: Database, briefId: string): Promise<string | null> {
+  const [row] = await db.select({ id: briefVersions.id }).from(briefVersions).where(eq(briefVersions.briefId, briefId)).orderBy(desc(briefVersions.number)).limit(1);
+  return row?.id ?? null;
+}

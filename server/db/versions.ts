@@ -2,6 +2,7 @@
 // written once and never changed (the database refuses it too). Reading them for their readers.
 import { and, desc, eq, gte, isNull, lte, sql } from "drizzle-orm";
 import { mayReadEmbargoed, type Role } from "#core/roles";
+import { defaultLocale, type Locale } from "#core/locales";
 import type { Database, Executor } from "./client";
 import { briefs, briefVersions, releaseAnnouncements, versionTranslations } from "./schema";
 import { slugify } from "#core/slug";
@@ -169,7 +170,12 @@ export async function listPressRoom(db: Database): Promise<PressRoomEntry[]> {
 }
 
 /** The latest released version of every brief, newest first: what the public may see now. */
-export async function listReleasedBriefs(db: Database): Promise<ReleasedBrief[]> {
+/**
+ * The newest released version of each brief, newest first, in a reader's language: a published
+ * translation's title, topic name, condition, population and treatment names replace the originals
+ * (the topic's address stays that of the original; search also finds the original names).
+ */
+export async function listReleasedBriefs(db: Database, locale: Locale = defaultLocale): Promise<ReleasedBrief[]> {
   // One row per brief: its newest released version (DISTINCT ON keeps the first of each brief).
   const rows = await db
     .selectDistinctOn([briefVersions.briefId], {
@@ -178,6 +184,7 @@ export async function listReleasedBriefs(db: Database): Promise<ReleasedBrief[]>
       // The listed columns, not the snapshot: a few hundred bytes instead of megabytes per brief.
       brief: sql<VersionSnapshot["brief"]>`${briefVersions.listedBrief}`,
       treatments: sql<VersionSnapshot["treatments"]>`${briefVersions.listedTreatments}`,
+      translated: sql<Record<string, string> | null>`(select ${versionTranslations.publishedFields} from ${versionTranslations} where ${versionTranslations.versionId} = ${briefVersions.id} and ${versionTranslations.locale} = ${locale})`,
       withdrawnAt: briefs.withdrawnAt,
       version: briefVersions.number,
       releaseAt: briefVersions.releaseAt,
@@ -188,19 +195,23 @@ export async function listReleasedBriefs(db: Database): Promise<ReleasedBrief[]>
     .orderBy(briefVersions.briefId, desc(briefVersions.releaseAt), desc(briefVersions.number));
   return rows
     .sort((a, b) => b.releaseAt.getTime() - a.releaseAt.getTime())
-    .map(({ brief, treatments, ...row }) => ({
-      slug: row.slug,
-      title: brief.title,
-      topic: brief.topic,
-      topicSlug: slugify(brief.topic),
-      condition: brief.condition,
-      population: brief.population,
-      treatments: treatments.map((t) => t.displayName),
-      demo: brief.demo,
-      withdrawn: row.withdrawnAt !== null,
-      version: row.version,
-      releasedAt: row.releaseAt.toISOString(),
-    }));
+    .map(({ brief, treatments, translated, ...row }) => {
+      const said = (field: string, original: string) => translated?.[field]?.trim() || original;
+      const names = treatments.map((t) => said(`treatment:${t.label}`, t.displayName));
+      return {
+        slug: row.slug,
+        title: said("title", brief.title),
+        topic: said("topic", brief.topic),
+        topicSlug: slugify(brief.topic),
+        condition: said("condition", brief.condition),
+        population: said("population", brief.population),
+        treatments: [...new Set([...names, ...treatments.map((t) => t.displayName)])],
+        demo: brief.demo,
+        withdrawn: row.withdrawnAt !== null,
+        version: row.version,
+        releasedAt: row.releaseAt.toISOString(),
+      };
+    });
 }
 
 export interface ReleasedVersion {

@@ -12,6 +12,10 @@ import { storeDataset } from "./analysis";
 import { demoBriefs } from "./demo-briefs";
 import { publishVersion } from "./publish";
 import { reviewBrief } from "./review";
+import { demoTranslations } from "./demo-translations";
+import { markTranslationReady, publishTranslationOf, saveTranslationDraft } from "./translations";
+import { translationLocales } from "#core/locales";
+import { newestVersionId, readTranslation } from "#db/translations";
 
 export const demoPassword = "fairweigh-demo";
 
@@ -29,9 +33,25 @@ export async function seedDemo(db: Database): Promise<void> {
   for (const account of demoAccounts) people.push(await ensurePerson(db, { ...account, password: demoPassword }, null));
   const analyst = people.find((p) => p.roles.includes("analyst"))!;
   const editor = people.find((p) => p.roles.includes("editor"))!;
-  for (const demo of demoBriefs()) {
-    if (await findBriefByTitle(db, demo.title)) continue;
-    await publishDemoBrief(db, demo, analyst.id, editor.id);
+  for (const [index, demo] of demoBriefs().entries()) {
+    const brief = (await findBriefByTitle(db, demo.title)) ?? (await publishDemoBrief(db, demo, analyst.id, editor.id));
+    await translateDemoBrief(db, brief.id, demoTranslations[index]!, editor);
+  }
+}
+
+/** Each language of a demonstration brief not yet translated goes the translator's way: saved, ready, published. */
+async function translateDemoBrief(db: Database, briefId: string, texts: (typeof demoTranslations)[number], editor: Person) {
+  const versionId = await newestVersionId(db, briefId);
+  if (!versionId) return;
+  for (const locale of translationLocales) {
+    if (await readTranslation(db, versionId, locale)) continue;
+    const steps = [
+      await saveTranslationDraft(db, editor, versionId, locale, texts[locale]),
+      await markTranslationReady(db, editor, versionId, locale),
+      await publishTranslationOf(db, editor, versionId, locale),
+    ];
+    const refused = steps.find((step) => !step.ok);
+    if (refused && !refused.ok) throw new Error(`the demo translation into ${locale} could not be published: ${JSON.stringify(refused)}`);
   }
 }
 
@@ -88,4 +108,5 @@ async function publishDemoBrief(db: Database, demo: ReturnType<typeof demoBriefs
   ];
   const refused = steps.find((step) => !step.ok);
   if (refused && !refused.ok) throw new Error(`the demo brief "${demo.title}" could not be published: ${refused.detail}`);
+  return brief;
 }

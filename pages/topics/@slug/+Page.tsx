@@ -17,7 +17,7 @@ export default function Page() {
       </p>
       <h1 className="mt-2 text-4xl leading-tight font-semibold tracking-tight">{t("topic.title", { name: topic.name })}</h1>
       <BriefList briefs={briefs} />
-      <SubscribeForm topic={topic.name} />
+      <SubscribeForm topic={topic.name} topicSlug={topic.slug} />
     </>
   );
 }

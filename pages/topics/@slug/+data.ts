@@ -5,7 +5,7 @@ import { searchBriefs, topicsOf } from "#core/search";
 import { listReleasedBriefs } from "#db/versions";
 
 export async function data(pageContext: PageContextServer) {
-  const all = await listReleasedBriefs(pageContext.db!);
+  const all = await listReleasedBriefs(pageContext.db!, pageContext.locale);
   const topic = topicsOf(all).find((t) => t.slug === pageContext.routeParams.slug);
   if (!topic) throw render(404);
   return { topic, briefs: searchBriefs(all, { topic: topic.slug }), caching: "revalidate" as const };

@@ -4,7 +4,7 @@
 // subscription only sends a confirmation link (double opt-in), and the tokens authorise the rest.
 import { Router, type Request, type Response } from "express";
 import { z } from "zod";
-import { localeOf } from "#core/locales";
+import { localeOf, localePath } from "#core/locales";
 import { topicsOf } from "#core/search";
 import { wellFormedToken } from "#core/tokens";
 import { confirmSubscription, unsubscribe } from "#db/subscriptions";
@@ -34,7 +34,7 @@ export function subscriptionRoutes(context: (req: Request) => MailContext): Rout
       return sendError(res, 400, { key: "errors.invalidRequest", message: `Send an e-mail address and the topic of a released brief: ${details.map((d) => `${d.field}: ${d.message}`).join("; ")}`, details });
     }
     await askToSubscribe(context(req), { email: parsed.data.email, topic: topic.name, locale: localeOf(parsed.data.locale) });
-    if (isFormPost(req)) return res.redirect(303, done("sent"));
+    if (isFormPost(req)) return res.redirect(303, localePath(localeOf(parsed.data.locale), done("sent")));
     res.status(202).json({ sent: true });
   });
 

@@ -4,7 +4,7 @@ import { render } from "vike/abort";
 import type { PageContextServer } from "vike/types";
 import { briefContent, comparisonContent, type BriefView, type ComparisonView, type PageState } from "#core/brief-page";
 import { isTranslationLocale, localeOf, localePath, locales } from "#core/locales";
-import { translatedSnapshot } from "#core/translation";
+import { translatedSnapshot, translatedTopic } from "#core/translation";
 import { publishedTranslation } from "#db/translations";
 import { mayReadEmbargoed } from "#core/roles";
 import { admits, pageAccess } from "#core/access";
@@ -47,10 +47,11 @@ function answer(pageContext: PageContextServer, page: PublicVersion, latestUrl: 
  */
 async function inReadersLanguage(pageContext: PageContextServer, page: PublicVersion) {
   const locale = pageContext.locale;
-  if (!isTranslationLocale(locale)) return { snapshot: page.found.snapshot, translation: null };
+  const original = page.found.snapshot;
+  if (!isTranslationLocale(locale)) return { snapshot: original, topic: original.brief.topic, translation: null };
   const published = await publishedTranslation(pageContext.db!, page.found.versionId, locale);
-  if (!published) return { snapshot: page.found.snapshot, translation: { locale, publishedAt: null } };
-  return { snapshot: translatedSnapshot(page.found.snapshot, published.fields), translation: { locale, publishedAt: published.publishedAt } };
+  if (!published) return { snapshot: original, topic: original.brief.topic, translation: { locale, publishedAt: null } };
+  return { snapshot: translatedSnapshot(original, published.fields), topic: translatedTopic(original, published.fields), translation: { locale, publishedAt: published.publishedAt } };
 }
 
 /** The reference with its permalink (in the language it was read in) and today's access date, for a version or one comparison in it. */
@@ -66,8 +67,8 @@ function citation(pageContext: PageContextServer, snapshot: VersionSnapshot, pat
 
 export async function briefPageData(pageContext: PageContextServer, number: number | "latest") {
   const page = await load(pageContext, number);
-  const { snapshot, translation } = await inReadersLanguage(pageContext, page);
-  const view: BriefView = { ...briefContent(snapshot), ...pageState(page) };
+  const { snapshot, topic, translation } = await inReadersLanguage(pageContext, page);
+  const view: BriefView = { ...briefContent(snapshot), topic, ...pageState(page) };
   const path = versionUrl({ slug: view.slug, version: view.version });
   return { view, path, translation, citation: citation(pageContext, snapshot, path), siteUrl: pageContext.siteUrl ?? "", ...answer(pageContext, page, number === "latest") };
 }
