@@ -7,35 +7,33 @@ import { initReactI18next, useTranslation } from "react-i18next";
 import type { PageContext } from "vike/types";
 import { isDeskPath } from "#core/urls";
 import { formatNumber } from "#core/effects";
-import { defaultLocale, intlLocale, localeOf, localePath, type Locale } from "#core/locales";
+import { defaultLocale, intlLocale, localeOf, localePath, locales, type Locale } from "#core/locales";
 
 export { defaultLocale, locales, textDirection, type Locale } from "#core/locales";
 
 export type Namespace = "public" | "desk";
 type Strings = Record<string, unknown>;
 
-// On the server every file is bundled; in the browser each is a chunk of its own, fetched when needed.
-const bundled = import.meta.env.SSR ? import.meta.glob<Strings>("../locales/*/{public,desk}.json", { eager: true, import: "default" }) : {};
-const lazy = import.meta.env.SSR ? {} : import.meta.glob<Strings>("../locales/*/{public,desk}.json", { import: "default" });
+// Each file is a chunk of its own: the browser fetches only the locale a page is in. (An eager glob
+// on the server would pull every file into the browser's main chunk as well.)
+const files = import.meta.glob<Strings>("../locales/*/{public,desk}.json", { import: "default" });
 const fileOf = (locale: Locale, namespace: Namespace) => `../locales/${locale}/${namespace}.json`;
 
 const loaded: Resource = {};
-for (const [file, strings] of Object.entries(bundled)) {
-  const [, locale, namespace] = /\/locales\/(\w+)\/(\w+)\.json$/.exec(file)!;
-  (loaded[locale!] ??= {})[namespace!] = strings;
+
+async function load(locale: Locale, namespace: Namespace): Promise<void> {
+  if (loaded[locale]?.[namespace]) return;
+  const file = files[fileOf(locale, namespace)];
+  if (file) (loaded[locale] ??= {})[namespace] = await file();
 }
 
 /** Makes a locale's strings (and English, the fallback for a key missing in development) available to createI18n. */
 export async function loadTranslations(locale: Locale, namespaces: Namespace[]): Promise<void> {
-  const wanted = [...new Set([locale, defaultLocale])].flatMap((l) => namespaces.map((ns) => [l, ns] as const));
-  await Promise.all(
-    wanted.map(async ([l, ns]) => {
-      if (loaded[l]?.[ns]) return;
-      const load = lazy[fileOf(l, ns)];
-      if (load) (loaded[l] ??= {})[ns] = await load();
-    }),
-  );
+  await Promise.all([...new Set([locale, defaultLocale])].flatMap((l) => namespaces.map((ns) => load(l, ns))));
 }
+
+// The server holds every language from the start, so that any page renders without waiting.
+if (import.meta.env.SSR) await Promise.all(locales.map((locale) => loadTranslations(locale, ["public", "desk"])));
 
 /** The namespaces a page needs: the desk and the draft preview speak the desk's words too. */
 export const namespacesFor = (path: string): Namespace[] => (isDeskPath(path) || path.startsWith("/preview/") ? ["public", "desk"] : ["public"]);

@@ -2,7 +2,8 @@
 // Open Graph and Twitter cards, and schema.org JSON-LD. Title and description come from +title and
 // +description (vike-react also writes them as og:title and og:description).
 import { feedUrl } from "#core/urls";
-import { useIntl } from "../i18n";
+import { usePageContext } from "vike-react/usePageContext";
+import { localePath } from "#core/locales";
 export interface HeadFacts {
   title: string;
   siteUrl: string;
@@ -19,7 +20,9 @@ const citationDate = (iso: string) => iso.slice(0, 10).replaceAll("-", "/");
 
 export function PageHead({ facts }: { facts: HeadFacts }) {
   // The permalink in the language read: each language's page is its own canonical address (hreflang names the others).
-  const { href, locale } = useIntl();
+  // A <Head> renders outside the page's layout, so the locale comes from the page context, not from i18next.
+  const { locale } = usePageContext();
+  const href = (path: string) => localePath(locale, path);
   const url = `${facts.siteUrl}${href(facts.path)}`;
   const jsonLd = {
     "@context": "https://schema.org",

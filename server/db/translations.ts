@@ -1,5 +1,5 @@
 // Translations of released versions, one row per version and language (schema: versionTranslations).
-import { and, desc, eq, inArray, lt, lte, sql } from "drizzle-orm";
+import { and, desc, eq, inArray, isNull, lt, sql } from "drizzle-orm";
 import type { TranslationLocale } from "#core/locales";
 import type { PublishedFields, StoredFields } from "#core/translation";
 import type { VersionSnapshot } from "#core/snapshot/schema";
@@ -108,29 +108,29 @@ export interface QueueEntry {
   states: Partial<Record<TranslationLocale, TranslationState | "missing">>;
 }
 
-/** The newest version of each brief that is released or scheduled, with the state of each language asked for. */
-export async function translationQueue(db: Database, locales: TranslationLocale[]): Promise<QueueEntry[]> {
-  const newest = db
-    .select({ briefId: briefVersions.briefId, number: sql<number>`max(${briefVersions.number})`.as("number") })
-    .from(briefVersions)
-    .groupBy(briefVersions.briefId)
-    .as("newest");
-  const versions = await db
-    .select({ versionId: briefVersions.id, slug: briefs.slug, title: sql<string>`${briefVersions.listedBrief}->>'title'`, number: briefVersions.number, releaseAt: briefVersions.releaseAt })
-    .from(briefVersions)
-    .innerJoin(newest, and(eq(newest.briefId, briefVersions.briefId), eq(newest.number, briefVersions.number)))
-    .innerJoin(briefs, eq(briefs.id, briefVersions.briefId))
-    .where(and(sql`${briefs.withdrawnAt} is null`, lte(briefVersions.createdAt, sql`now()`)))
-    .orderBy(desc(briefVersions.releaseAt));
-  if (versions.length === 0 || locales.length === 0) return versions.map((v) => ({ ...v, releaseAt: v.releaseAt.toISOString(), states: {} }));
+/**
+ * The newest version of each brief, with the state of each language asked for; a version still under
+ * embargo only for those who may read it (the press and editors), like everything else about it.
+ */
+export async function translationQueue(db: Database, locales: TranslationLocale[], seesEmbargoed: boolean): Promise<QueueEntry[]> {
+  // One row per brief: its newest version (DISTINCT ON keeps the first of each brief), newest release first.
   const rows = await db
+    .selectDistinctOn([briefVersions.briefId], { versionId: briefVersions.id, slug: briefs.slug, title: sql<string>`${briefVersions.listedBrief}->>'title'`, number: briefVersions.number, releaseAt: briefVersions.releaseAt })
+    .from(briefVersions)
+    .innerJoin(briefs, eq(briefs.id, briefVersions.briefId))
+    .where(isNull(briefs.withdrawnAt))
+    .orderBy(briefVersions.briefId, desc(briefVersions.number));
+  const now = Date.now();
+  const versions = rows.filter((row) => seesEmbargoed || row.releaseAt.getTime() <= now).sort((a, b) => b.releaseAt.getTime() - a.releaseAt.getTime());
+  if (versions.length === 0 || locales.length === 0) return versions.map((v) => ({ ...v, releaseAt: v.releaseAt.toISOString(), states: {} }));
+  const translated = await db
     .select({ versionId: versionTranslations.versionId, locale: versionTranslations.locale, state: versionTranslations.state })
     .from(versionTranslations)
     .where(and(inArray(versionTranslations.versionId, versions.map((v) => v.versionId)), inArray(versionTranslations.locale, locales)));
   return versions.map((version) => ({
     ...version,
     releaseAt: version.releaseAt.toISOString(),
-    states: Object.fromEntries(locales.map((locale) => [locale, rows.find((r) => r.versionId === version.versionId && r.locale === locale)?.state ?? "missing"])),
+    states: Object.fromEntries(locales.map((locale) => [locale, translated.find((r) => r.versionId === version.versionId && r.locale === locale)?.state ?? "missing"])),
   }));
 }
 

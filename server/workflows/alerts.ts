@@ -50,7 +50,7 @@ async function announce(ctx: MailContext, version: Version): Promise<void> {
   const translators = (await activePeopleWithRole(ctx.db, "translator")).filter((person) => person.translationLocales.length > 0);
   await send(ctx, [
     ...press.map((person) => releaseAlertMessage(person, version, link)),
-    ...translators.map((person) => translationRequestMessage(person, version, `${ctx.siteUrl}/desk`)),
+    ...translators.map((person) => translationRequestMessage(person, version, `${ctx.siteUrl}/desk/translations`)),
     ...(await noticesFor(ctx, version)),
   ]);
 }

@@ -7,7 +7,7 @@ import { createBrief, findBriefByTitle, nameTreatments, updateBrief } from "#db/
 import type { Database } from "#db/client";
 import { saveJudgement } from "#db/judgements";
 import { createOutcome } from "#db/outcomes";
-import { ensurePerson, type Person } from "#db/people";
+import { ensurePerson, updatePerson, type Person } from "#db/people";
 import { storeDataset } from "./analysis";
 import { demoBriefs } from "./demo-briefs";
 import { publishVersion } from "./publish";
@@ -30,7 +30,14 @@ export const demoAccounts: { email: string; displayName: string; roles: Role[]; 
 /** Idempotent: accounts and briefs that exist already are left as they are. */
 export async function seedDemo(db: Database): Promise<void> {
   const people: Person[] = [];
-  for (const account of demoAccounts) people.push(await ensurePerson(db, { ...account, password: demoPassword }, null));
+  for (const account of demoAccounts) {
+    let person = await ensurePerson(db, { ...account, password: demoPassword }, null);
+    // A demo translator made before translators had languages gets theirs.
+    if (account.translationLocales && person.translationLocales.length === 0) {
+      person = (await db.transaction((tx) => updatePerson(tx, person.id, { translationLocales: account.translationLocales }, person.id))) ?? person;
+    }
+    people.push(person);
+  }
   const analyst = people.find((p) => p.roles.includes("analyst"))!;
   const editor = people.find((p) => p.roles.includes("editor"))!;
   for (const [index, demo] of demoBriefs().entries()) {

@@ -3,6 +3,7 @@
 // version's frozen snapshot is only ever read.
 import type { TranslationLocale } from "#core/locales";
 import { fieldViews, sourceFields, storedAfterSave, unfinished, type FieldView, type PublishedFields, type StoredFields } from "#core/translation";
+import { mayReadEmbargoed } from "#core/roles";
 import { recordAudit } from "#db/audit";
 import type { Database } from "#db/client";
 import type { Person } from "#db/people";
@@ -39,8 +40,15 @@ async function working(db: Database, version: TranslatableVersion, locale: Trans
   return { stored: earlier?.fields ?? {}, state: (earlier ? "draft" : "missing") as TranslationState | "missing", publishedAt: null, carriedFrom: earlier !== null };
 }
 
-export async function readTranslationView(db: Database, versionId: string, locale: TranslationLocale): Promise<TranslationView | null> {
+/** A version this person may translate: released, or under embargo for those who may read it. */
+async function visibleVersion(db: Database, versionId: string, person: Person): Promise<TranslatableVersion | null> {
   const version = await translatableVersion(db, versionId);
+  if (!version) return null;
+  return Date.parse(version.releaseAt) <= Date.now() || mayReadEmbargoed(person.roles) ? version : null;
+}
+
+export async function readTranslationView(db: Database, person: Person, versionId: string, locale: TranslationLocale): Promise<TranslationView | null> {
+  const version = await visibleVersion(db, versionId, person);
   if (!version) return null;
   const { stored, state, publishedAt, carriedFrom } = await working(db, version, locale);
   return {
@@ -58,7 +66,7 @@ export async function readTranslationView(db: Database, versionId: string, local
 
 /** Saves the targets given (other fields keep theirs); the translation is a draft again. */
 export async function saveTranslationDraft(db: Database, person: Person, versionId: string, locale: TranslationLocale, targets: Record<string, string>): Promise<{ ok: true; view: TranslationView } | Refusal> {
-  const version = await translatableVersion(db, versionId);
+  const version = await visibleVersion(db, versionId, person);
   if (!version) return { ok: false, reason: "not-found" };
   const { stored } = await working(db, version, locale);
   const fields: StoredFields = storedAfterSave(sourceFields(version.snapshot), stored, targets);
@@ -66,12 +74,12 @@ export async function saveTranslationDraft(db: Database, person: Person, version
     await saveTranslation(tx, { versionId, locale }, fields, person.id);
     await recordAudit(tx, { actorId: person.id, action: "translation.save", entity: "version", entityId: versionId, before: null, after: { locale, fields: Object.keys(targets) } });
   });
-  return { ok: true, view: (await readTranslationView(db, versionId, locale))! };
+  return { ok: true, view: (await readTranslationView(db, person, versionId, locale))! };
 }
 
 /** A draft whose every field is translated against today's source becomes ready for an editor. */
 export async function markTranslationReady(db: Database, person: Person, versionId: string, locale: TranslationLocale): Promise<{ ok: true; view: TranslationView } | Refusal> {
-  const view = await readTranslationView(db, versionId, locale);
+  const view = await readTranslationView(db, person, versionId, locale);
   if (!view) return { ok: false, reason: "not-found" };
   const gaps = unfinished(view.fields);
   if (view.state === "missing" || view.carriedFrom || gaps.empty.length > 0 || gaps.stale.length > 0) return { ok: false, reason: "unfinished", ...gaps };
@@ -79,12 +87,12 @@ export async function markTranslationReady(db: Database, person: Person, version
     await setTranslationState(tx, { versionId, locale }, "ready", person.id);
     await recordAudit(tx, { actorId: person.id, action: "translation.ready", entity: "version", entityId: versionId, before: { state: view.state }, after: { locale, state: "ready" } });
   });
-  return { ok: true, view: (await readTranslationView(db, versionId, locale))! };
+  return { ok: true, view: (await readTranslationView(db, person, versionId, locale))! };
 }
 
 /** An editor publishes a ready translation: readers of that language see it from now on. */
 export async function publishTranslationOf(db: Database, person: Person, versionId: string, locale: TranslationLocale): Promise<{ ok: true; view: TranslationView } | Refusal> {
-  const view = await readTranslationView(db, versionId, locale);
+  const view = await readTranslationView(db, person, versionId, locale);
   if (!view) return { ok: false, reason: "not-found" };
   if (view.state !== "ready") return { ok: false, reason: "not-ready" };
   const published: PublishedFields = Object.fromEntries(view.fields.map((field) => [field.name, field.target]));
@@ -92,5 +100,5 @@ export async function publishTranslationOf(db: Database, person: Person, version
     const at = await publishTranslation(tx, { versionId, locale }, published, person.id);
     await recordAudit(tx, { actorId: person.id, action: "translation.publish", entity: "version", entityId: versionId, before: { state: "ready" }, after: { locale, state: "published", publishedAt: at } });
   });
-  return { ok: true, view: (await readTranslationView(db, versionId, locale))! };
+  return { ok: true, view: (await readTranslationView(db, person, versionId, locale))! };
 }

@@ -48,7 +48,7 @@ describe("a released version's page", () => {
     const html = await (await get(`/briefs/${small}/v/1`)).text();
     expect(html).toContain("Fictional demonstration data.");
     expect(html).toContain("What the evidence supports");
-    expect(html).toContain("A large benefit compared with Usual care");
+    expect(html).toContain("A large benefit compared with <bdi>Usual care</bdi>");
     expect(html).toContain("Rank scores, and why they are not proof");
     expect(html).toContain("It is not medical advice");
     expect(html).toMatch(/Fairweigh\. \(\d{4}\)\. Sleeping well after night shifts \(fictional demonstration\) \(Version 1\)\./);

@@ -82,7 +82,7 @@ const siteRequests: Record<keyof typeof fileAccess | keyof typeof pageAccess, st
   "GET /feed.xml": "/feed.xml",
   "GET /sitemap.xml": "/sitemap.xml",
   "GET /robots.txt": "/robots.txt",
-  "GET /language/:locale": `/language/es?next=${encodeURIComponent(version)}`,
+  "GET /language/:locale": `/language/en?next=${encodeURIComponent(version)}`,
   "GET /": "/",
   "GET /briefs": "/briefs?q=sleep",
   "GET /briefs/:slug": `/briefs/${demo.slug}`,

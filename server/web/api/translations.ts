@@ -4,6 +4,7 @@
 import { Router, type Request, type Response } from "express";
 import type { z } from "zod";
 import { isTranslationLocale, translationLocales, type TranslationLocale } from "#core/locales";
+import { mayReadEmbargoed } from "#core/roles";
 import type { Database } from "#db/client";
 import { translationQueue } from "#db/translations";
 import { markTranslationReady, publishTranslationOf, readTranslationView, saveTranslationDraft } from "#workflows/translations";
@@ -37,13 +38,13 @@ export function translationRoutes(db: Database): Router {
 
   router.get("/translations", guard("GET /api/translations"), async (req, res) => {
     const locales = translatableLocales(req.user!);
-    res.json({ locales, versions: await translationQueue(db, locales) });
+    res.json({ locales, versions: await translationQueue(db, locales, mayReadEmbargoed(req.user!.roles)) });
   });
 
   router.get("/translations/:versionId/:locale", guard("GET /api/translations/:versionId/:locale"), async (req, res) => {
     const locale = allowedLocale(req, res);
     if (!locale) return;
-    const view = await readTranslationView(db, String(req.params.versionId), locale);
+    const view = await readTranslationView(db, req.user!, String(req.params.versionId), locale);
     if (!view) return sendError(res, 404, { key: "errors.notFound", message: "There is no such version." });
     res.json({ translation: view });
   });

@@ -1,10 +1,12 @@
-import { useTranslation } from "react-i18next";
+import { usePageContext } from "vike-react/usePageContext";
 import { useData } from "vike-react/useData";
 import { PageHead } from "#components/brief/PageHead";
+import { createI18n } from "#components/i18n";
 import type { BriefPageData } from "#web/pages/page-data";
 
 export default function Head() {
-  const { t } = useTranslation();
+  // Outside the layout: the words of the page's locale, not of whichever i18next instance was made last.
+  const { t } = createI18n(usePageContext().locale);
   const { view, path, siteUrl } = useData<BriefPageData>();
   return (
     <PageHead

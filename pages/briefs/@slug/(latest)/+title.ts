@@ -4,5 +4,5 @@ import type { BriefPageData } from "#web/pages/page-data";
 
 export default (pageContext: PageContext) => {
   const { view } = pageContext.data as BriefPageData;
-  return createI18n().t("brief.pageTitle", { title: view.title, version: view.version });
+  return createI18n(pageContext.locale).t("brief.pageTitle", { title: view.title, version: view.version });
 };

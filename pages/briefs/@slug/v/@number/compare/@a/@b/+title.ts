@@ -4,5 +4,5 @@ import type { ComparisonPageData } from "#web/pages/page-data";
 
 export default (pageContext: PageContext) => {
   const { view } = pageContext.data as ComparisonPageData;
-  return createI18n().t("compare.pageTitle", { treatment: view.treatment.name, comparator: view.comparator.name, title: view.title, version: view.version });
+  return createI18n(pageContext.locale).t("compare.pageTitle", { treatment: view.treatment.name, comparator: view.comparator.name, title: view.title, version: view.version });
 };

@@ -1,0 +1,229 @@
+// The four languages against the production build and the test cluster: addresses and negotiation,
+// right-to-left pages, every public page type free of English interface words in es, fr and ar, the
+// translation desk's rules (assigned languages, stale sources, publication that leaves the findings
+// alone), and citations, the feed and the sitemap naming the language.
+import { readFileSync } from "node:fs";
+import path from "node:path";
+import pg from "pg";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { slugify } from "#core/slug";
+import { demoBriefs } from "#workflows/demo-briefs";
+import { testDatabaseUrl } from "../support/app";
+import { approve, publishedBrief } from "../support/briefs";
+import { ApiClient, demoClient } from "../support/client";
+import { startProductionServer, type RunningServer } from "../support/production-server";
+import type { Translation } from "#web/api/contract";
+
+let server: RunningServer;
+let pool: pg.Pool;
+const clients: Record<string, ApiClient> = {};
+beforeAll(async () => {
+  server = await startProductionServer();
+  pool = new pg.Pool({ connectionString: testDatabaseUrl(), max: 2 });
+  for (const role of ["analyst", "editor", "translator"]) clients[role] = await demoClient(server.url, role);
+}, 60_000);
+afterAll(async () => {
+  await pool.end();
+  await server.stop();
+});
+
+const get = (address: string, headers: Record<string, string> = {}) => fetch(`${server.url}${address}`, { headers, redirect: "manual" });
+const small = slugify(demoBriefs()[0]!.title);
+const large = slugify(demoBriefs()[1]!.title);
+
+/** What a reader reads: the page's text without its tags, scripts and styles. */
+function textOf(html: string): string {
+  return html
+    .replace(/<(script|style)\b[\s\S]*?<\/\1>/g, " ")
+    .replace(/<[^>]+>/g, " ")
+    .replace(/&amp;/g, "&")
+    .replace(/&quot;/g, '"')
+    .replace(/&#x27;|&#39;/g, "'")
+    .replace(/&lt;/g, "<")
+    .replace(/&gt;/g, ">")
+    .replace(/\s+/g, " ");
+}
+
+describe("addresses and negotiation", () => {
+  it("sends a first visit to / in the browser's language, and says the answer depends on it", async () => {
+    const spanish = await get("/", { "accept-language": "es-ES,es;q=0.9,en;q=0.5" });
+    expect(spanish.status).toBe(302);
+    expect(spanish.headers.get("location")).toBe("/es");
+    expect(spanish.headers.get("vary")).toMatch(/Accept-Language/);
+    const english = await get("/", { "accept-language": "de-DE,en;q=0.8" });
+    expect(english.status).toBe(200);
+    expect(english.headers.get("vary")).toMatch(/Accept-Language/);
+  });
+
+  it("keeps the language a reader chose over the browser's, and never redirects a prefixed address", async () => {
+    const choose = await get(`/language/en?next=${encodeURIComponent(`/briefs/${small}`)}`);
+    expect(choose.status).toBe(303);
+    expect(choose.headers.get("location")).toBe(`/briefs/${small}`);
+    const cookie = choose.headers.get("set-cookie")!.split(";")[0]!;
+    expect((await get(`/briefs/${small}`, { "accept-language": "fr", cookie })).status).toBe(200);
+    expect((await get(`/fr/briefs/${small}`, { "accept-language": "ar" })).status).toBe(200);
+    const arabic = await get(`/language/ar?next=${encodeURIComponent(`/briefs/${small}?x=1`)}`);
+    expect(arabic.headers.get("location")).toBe(`/ar/briefs/${small}?x=1`);
+    // Only addresses of this site: anything else goes home.
+    expect((await get(`/language/es?next=${encodeURIComponent("//elsewhere.example/")}`)).headers.get("location")).toBe("/es");
+    expect((await get("/language/de?next=/")).status).toBe(404);
+  });
+
+  it("serves the Arabic brief right to left, with Arabic statements and every language as an alternate", async () => {
+    const response = await get(`/ar/briefs/${small}/v/1`);
+    expect(response.status).toBe(200);
+    const html = await response.text();
+    expect(html).toMatch(/<html[^>]*\bdir="rtl"/);
+    expect(html).toMatch(/<html[^>]*\blang="ar"/);
+    // A generated statement in Arabic with the treatment's (translated) name isolated.
+    expect(html).toMatch(/(يُرجَّح أن يؤدي|يُحتمل أن|قد )[^<]*<bdi>[^<]+<\/bdi>/);
+    expect(html).toContain("مقارنةً بـ");
+    for (const [lang, href] of [["en", `/briefs/${small}/v/1`], ["es", `/es/briefs/${small}/v/1`], ["fr", `/fr/briefs/${small}/v/1`], ["ar", `/ar/briefs/${small}/v/1`], ["x-default", `/briefs/${small}/v/1`]]) {
+      expect(html).toMatch(new RegExp(`<link rel="alternate" hrefLang="${lang}" href="${server.url}${href!.replace(/[/.]/g, "\\$&")}"`, "i"));
+    }
+    // The canonical permalink is the Arabic one; the numbers keep Latin digits (docs/decisions/0024-arabic-digits.md).
+    expect(html).toContain(`<link rel="canonical" href="${server.url}/ar/briefs/${small}/v/1"`);
+    expect(textOf(html)).toMatch(/\d\.\d\d \(\d\.\d\d إلى \d\.\d\d\)/);
+  });
+
+  it("writes numbers with a decimal comma in Spanish and French", async () => {
+    for (const [locale, to] of [["es", "a"], ["fr", "à"]]) {
+      const text = textOf(await (await get(`/${locale}/briefs/${small}/v/1`)).text());
+      expect(text).toMatch(new RegExp(`\\d,\\d\\d \\(\\d,\\d\\d ${to} \\d,\\d\\d\\)`));
+      expect(text).not.toMatch(/\d\.\d\d \(\d\.\d\d/);
+    }
+  });
+});
+
+describe("every public page type in every language", () => {
+  const english = JSON.parse(readFileSync(path.resolve(__dirname, "../../locales/en/public.json"), "utf8"));
+  const strings = (value: unknown): string[] => (typeof value === "string" ? [value] : Object.values(value as object).flatMap(strings));
+  // The English interface's phrases: each string's words between placeholders, where there are at least three.
+  const phrases = [...new Set(strings(english).flatMap((text) => text.split(/\{\{[^}]+\}\}/)))]
+    .map((part) => part.trim().replace(/[.:;,]$/, ""))
+    .filter((part) => part.split(/\s+/).length >= 3);
+
+  it.each(["es", "fr", "ar"])("%s: no English interface phrase on any page", async (locale) => {
+    const theirs = strings(JSON.parse(readFileSync(path.resolve(__dirname, `../../locales/${locale}/public.json`), "utf8"))).join("\n");
+    const english = phrases.filter((phrase) => !theirs.includes(phrase));
+    const pages = [
+      "",
+      "/briefs",
+      "/briefs?q=sleep",
+      `/topics/${slugify(demoBriefs()[0]!.topic)}`,
+      `/briefs/${small}`,
+      `/briefs/${large}/v/1`,
+      `/briefs/${small}/v/1/compare/combined/usual_care`,
+      "/sign-in",
+      "/password-reset",
+      "/subscriptions/done?what=sent",
+      "/no-such-page",
+    ];
+    for (const page of pages) {
+      const response = await get(`/${locale}${page}`);
+      expect([200, 404], page).toContain(response.status);
+      const text = textOf(await response.text());
+      expect(english.filter((phrase) => text.includes(phrase)), `${locale}${page}`).toEqual([]);
+    }
+  });
+});
+
+describe("the translation desk", () => {
+  it("lets a translator work only in the languages assigned to them, and never publish", async () => {
+    const { slug } = await publishedBrief(clients.analyst!, clients.editor!, "Translated brief");
+    const { rows } = await pool.query("select v.id from brief_versions v join briefs b on b.id = v.brief_id where b.slug = $1", [slug]);
+    const versionId = rows[0].id as string;
+    const translator = clients.translator!;
+    expect((await translator.request("GET", `/api/translations/${versionId}/ar`)).status).toBe(403);
+    expect((await translator.request("PUT", `/api/translations/${versionId}/ar`, { json: { fields: { title: "عنوان" } } })).status).toBe(403);
+    const view = await translator.request("GET", `/api/translations/${versionId}/es`);
+    expect(view.status).toBe(200);
+    expect((view.body.translation as Translation).state).toBe("missing");
+    // Nor the findings, nor publishing: those belong to analysts and editors.
+    expect((await translator.request("POST", `/api/translations/${versionId}/es/publish`)).status).toBe(403);
+    const brief = await clients.editor!.request("GET", "/api/briefs");
+    const id = (brief.body.briefs as { id: string; slug: string }[]).find((b) => b.slug === slug)!.id;
+    expect((await translator.request("PATCH", `/api/briefs/${id}`, { json: { rowVersion: 1, title: "x" } })).status).toBe(403);
+    const queue = await translator.request("GET", "/api/translations");
+    expect(queue.body.locales).toEqual(["es", "fr"]);
+  });
+
+  it("publishes a translation beside the version, leaving its snapshot byte for byte; a changed source shows what changed", async () => {
+    const analyst = clients.analyst!;
+    const editor = clients.editor!;
+    const translator = clients.translator!;
+    const { briefId, slug } = await publishedBrief(analyst, editor, "Brief to translate twice");
+    const versionOf = async (number: number) =>
+      (await pool.query("select v.id, md5(v.snapshot::text) as hash from brief_versions v where v.brief_id = $1 and v.number = $2", [briefId, number])).rows[0] as { id: string; hash: string };
+    const v1 = await versionOf(1);
+    const audited = async () => Number((await pool.query("select count(*) from audit_log where entity_id = $1 and action like 'translation.%'", [v1.id])).rows[0].count);
+
+    const source = ((await translator.request("GET", `/api/translations/${v1.id}/es`)).body.translation as Translation).fields;
+    const targets = Object.fromEntries(source.map((field) => [field.name, field.name === "summary" ? "Resumen de prueba: el asesoramiento **podría** ayudar a dejar de fumar." : `ES ${field.text}`]));
+    expect((await translator.request("PUT", `/api/translations/${v1.id}/es`, { json: { fields: targets } })).status).toBe(200);
+    const ready = await translator.request("POST", `/api/translations/${v1.id}/es/ready`);
+    expect(ready.status).toBe(200);
+    expect((ready.body.translation as Translation).state).toBe("ready");
+    const published = await editor.request("POST", `/api/translations/${v1.id}/es/publish`);
+    expect(published.status).toBe(200);
+    expect((published.body.translation as Translation).publishedAt).toBeTruthy();
+    expect(await audited()).toBe(3);
+    expect((await versionOf(1)).hash).toBe(v1.hash);
+
+    const page = await (await get(`/es/briefs/${slug}/v/1`)).text();
+    expect(page).toContain("el asesoramiento <strong>podría</strong> ayudar");
+    expect(page).toContain("ES Brief to translate twice");
+    expect(textOf(page)).toMatch(/Esta traducción se publicó el \d+ de \w+ de \d{4}/);
+    // French has no translation yet: the original texts, a notice in French, generated words in French.
+    const french = textOf(await (await get(`/fr/briefs/${slug}/v/1`)).text());
+    expect(french).toContain("ne sont pas encore traduits en français");
+    expect(french).toContain("Test summary: counselling may help people stop smoking.");
+    expect(french).toContain("Ce que soutiennent les données probantes");
+
+    // A correction changes the summary: version 2's Spanish starts from version 1's, flagged where the source changed.
+    const current = await editor.request("GET", `/api/briefs/${briefId}`);
+    const rowVersion = (current.body.brief as { rowVersion: number }).rowVersion;
+    expect((await editor.request("PATCH", `/api/briefs/${briefId}`, { json: { rowVersion, laySummary: "Test summary: group counselling may help people stop smoking." } })).status).toBe(200);
+    await approve(analyst, editor, briefId);
+    expect((await editor.request("POST", `/api/briefs/${briefId}/versions`, { json: { note: "The summary names group counselling." } })).status).toBe(201);
+    const v2 = await versionOf(2);
+    const carried = (await translator.request("GET", `/api/translations/${v2.id}/es`)).body.translation as Translation;
+    expect(carried.state).toBe("draft");
+    expect(carried.carriedFrom).toBe(true);
+    const summary = carried.fields.find((field) => field.name === "summary")!;
+    expect(summary.stale).toBe(true);
+    expect(summary.target).toContain("Resumen de prueba");
+    expect(summary.diff?.filter((part) => part.change === "added").map((part) => part.text.trim())).toEqual(["group"]);
+    expect(carried.fields.find((field) => field.name === "title")!.stale).toBe(false);
+    // The correction note is new: nothing translated yet.
+    expect(carried.fields.find((field) => field.name === "note")).toMatchObject({ target: "", stale: false });
+    const refused = await translator.request("POST", `/api/translations/${v2.id}/es/ready`);
+    expect(refused.status).toBe(409);
+    expect(refused.body.error?.key).toBe("errors.translation.unfinished");
+    // Version 1's Spanish page is untouched by all this.
+    expect(await (await get(`/es/briefs/${slug}/v/1`)).text()).toContain("el asesoramiento <strong>podría</strong> ayudar");
+  });
+});
+
+describe("files that name the language", () => {
+  it("cites the same version from every language, naming the one it was read in", async () => {
+    const english = await (await get(`/briefs/${small}/v/1/cite.ris`)).text();
+    const spanish = await (await get(`/es/briefs/${small}/v/1/cite.ris`)).text();
+    expect(spanish).toContain(`UR  - ${server.url}/es/briefs/${small}/v/1`);
+    expect(spanish).toMatch(/^LA {2}- es$/m);
+    const id = (ris: string) => /^ID {2}- (.*)$/m.exec(ris)![1];
+    expect(id(spanish)).toBe(id(english));
+  });
+
+  it("has a feed per language and a sitemap with every language's alternates", async () => {
+    const feed = await (await get("/fr/feed.xml")).text();
+    expect(feed).toContain('xml:lang="fr"');
+    expect(feed).toContain("Fairweigh : synthèses nouvelles, corrigées et retirées");
+    // Links lead to the French pages; an entry's id names the version, the same in every language.
+    expect(feed).toMatch(new RegExp(`<link href="${server.url}/fr/briefs/[^"]+/v/\\d+"/>`));
+    expect(feed).not.toMatch(/<id>[^<]*\/fr\//);
+    const sitemap = await (await get("/sitemap.xml")).text();
+    expect(sitemap).toContain(`<loc>${server.url}/ar/briefs/${small}</loc>`);
+    expect(sitemap).toContain(`<xhtml:link rel="alternate" hreflang="x-default" href="${server.url}/briefs/${small}"/>`);
+  });
+});
