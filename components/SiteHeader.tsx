@@ -1,14 +1,15 @@
 import { useTranslation } from "react-i18next";
 import { usePageContext } from "vike-react/usePageContext";
 import { languageNames, locales } from "#core/locales";
-import { homeUrl, languageChoiceUrl } from "#core/urls";
+import { homeUrl, isDeskPath, languageChoiceUrl } from "#core/urls";
 import { useIntl } from "./i18n";
 
 export function SiteHeader() {
   const { t } = useTranslation();
-  const { href, locale } = useIntl();
+  const { href } = useIntl();
   const { urlPathname, urlParsed } = usePageContext();
   const here = urlPathname + (urlParsed.searchOriginal ?? "");
+  const personal = isDeskPath(urlPathname) || urlPathname.startsWith("/preview/");
   return (
     <header data-site-header className="border-b border-rule">
       <a href="#content" className="sr-only focus:not-sr-only focus:absolute focus:p-2">
@@ -23,21 +24,30 @@ export function SiteHeader() {
           <a href="/desk">{t("site.nav.desk")}</a>
           <a href={href("/sign-in")}>{t("site.nav.signIn")}</a>
         </nav>
-        {/* Each language in its own name and script; the choice is kept for the next visit. */}
-        <nav aria-label={t("site.languages")} className="flex w-full flex-wrap gap-4 font-sans text-sm sm:w-auto" data-language-switcher>
-          {locales.map((other) =>
-            other === locale ? (
-              <span key={other} lang={other} aria-current="true" className="font-semibold">
-                {languageNames[other]}
-              </span>
-            ) : (
-              <a key={other} lang={other} hrefLang={other} href={languageChoiceUrl(other, here)}>
-                {languageNames[other]}
-              </a>
-            ),
-          )}
-        </nav>
+        {/* The desk speaks the language its person chose on their account screen instead. */}
+        {personal ? null : <LanguageSwitcher here={here} />}
       </div>
     </header>
+  );
+}
+
+/** Each language in its own name and script, for the page being read; the choice is kept for the next visit. */
+function LanguageSwitcher({ here }: { here: string }) {
+  const { t } = useTranslation();
+  const { locale } = useIntl();
+  return (
+    <nav aria-label={t("site.languages")} className="flex w-full flex-wrap gap-4 font-sans text-sm sm:w-auto" data-language-switcher>
+      {locales.map((other) =>
+        other === locale ? (
+          <span key={other} lang={other} aria-current="true" className="font-semibold">
+            {languageNames[other]}
+          </span>
+        ) : (
+          <a key={other} lang={other} hrefLang={other} href={languageChoiceUrl(other, here)}>
+            {languageNames[other]}
+          </a>
+        ),
+      )}
+    </nav>
   );
 }

@@ -47,7 +47,7 @@ export function ForestPlot({ rows, measure, title }: { rows: ForestRow[]; measur
             const y = i * rowHeight + rowHeight / 2;
             return (
               <g key={row.label}>
-                <text x={rtl ? plotWidth + 12 : -12} y={y} dy="0.35em" textAnchor={rtl ? "start" : "end"} direction={rtl ? "rtl" : "ltr"} fontSize={13} fill="#1d1a17">
+                <text x={rtl ? plotWidth + labelWidth + 12 : -12} y={y} dy="0.35em" textAnchor={rtl ? "start" : "end"} direction={rtl ? "rtl" : "ltr"} fontSize={13} fill="#1d1a17">
                   {row.label}
                 </text>
                 <Line from={{ x: x(row.lower), y }} to={{ x: x(row.upper), y }} stroke="#6d1f35" strokeWidth={2} />
