@@ -1,7 +1,16 @@
+import type { i18n, TFunction } from "i18next";
 import { useTranslation } from "react-i18next";
 import { buttonClass, Field, inputClass } from "./forms";
-import type { Format } from "#core/nma/types";
+import type { DatasetIssue, Format } from "#core/nma/types";
 import type { UploadReport } from "#web/api/contract";
+
+/** A problem of an upload in the reader's language, from its rule and facts; the engine's English for a rule without words. */
+function issueText(t: TFunction, i18n: i18n, issue: DatasetIssue): string {
+  const key = `desk.rule.${issue.rule}`;
+  const context = typeof issue.facts?.reason === "string" ? issue.facts.reason : undefined;
+  if (!i18n.exists(context ? `${key}_${context}` : key)) return issue.message;
+  return t(key, { ...issue, ...issue.facts, context });
+}
 
 export function UploadForm({
   kind,
@@ -16,7 +25,7 @@ export function UploadForm({
   report: UploadReport | undefined;
   error: string | null;
 }) {
-  const { t } = useTranslation();
+  const { t, i18n } = useTranslation();
   const formats: Format[] = kind === "binary" ? ["arm-binary", "contrast"] : ["arm-continuous", "contrast"];
   return (
     <div className="font-sans">
@@ -60,7 +69,7 @@ export function UploadForm({
             {report.issues?.map((issue, i) => (
               <li key={i}>
                 {issue.row !== undefined ? `${issue.column ? t("desk.issueWhere", { row: issue.row, column: issue.column }) : t("desk.issueWhereRow", { row: issue.row })}: ` : ""}
-                {issue.message}
+                {issueText(t, i18n, issue)}
               </li>
             ))}
           </ul>

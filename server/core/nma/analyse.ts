@@ -72,7 +72,7 @@ export function analyse(dataset: ParsedDataset, options: AnalysisOptions): Analy
   assertConnected(studies);
   const treatments = treatmentsOf(studies);
   if (!treatments.includes(reference)) {
-    throw new DatasetError([{ rule: "unknown-reference", value: reference, message: `the reference "${reference}" is not a treatment in the data (${treatments.join(", ")})` }]);
+    throw new DatasetError([{ rule: "unknown-reference", value: reference, facts: { treatments: treatments.join(", ") }, message: `the reference "${reference}" is not a treatment in the data (${treatments.join(", ")})` }]);
   }
 
   const others = treatments.filter((t) => t !== reference);

@@ -127,6 +127,7 @@ function contrastStudyEffects(study: Extract<ParsedStudy, { format: "contrast" }
         row: rows[0]!.row,
         column: "study",
         value: study.study,
+        facts: worst > reconstructionTolerance ? { reason: "estimates", worst: Number(worst.toPrecision(3)), allowed: reconstructionTolerance } : { reason: "variance" },
         message:
           worst > reconstructionTolerance
             ? `the comparisons of study ${study.study} do not fit together: reconstructed estimates differ by up to ${worst.toPrecision(3)} (allowed ${reconstructionTolerance})`

@@ -30,6 +30,7 @@ export function assertConnected(studies: ArmEffects[]): void {
     throw new DatasetError([
       {
         rule: "disconnected-network",
+        facts: { parts: parts.map((p) => `{${p.join(", ")}}`).join(" · ") },
         message: `the network is not connected; its sub-networks are ${parts.map((p) => `{${p.join(", ")}}`).join(" and ")}`,
       },
     ]);

@@ -56,7 +56,7 @@ export function parseDataset(input: Uint8Array | string, format: Format): Parsed
   } catch (error) {
     const line = (error as { lines?: number }).lines;
     throw new DatasetError([
-      { rule: "malformed-csv", row: line, message: `the file is not valid CSV (${(error as Error).message})` },
+      { rule: "malformed-csv", row: line, facts: { detail: (error as Error).message }, message: `the file is not valid CSV (${(error as Error).message})` },
     ]);
   }
 
@@ -70,6 +70,7 @@ export function parseDataset(input: Uint8Array | string, format: Format): Parsed
       {
         rule: "wrong-header",
         row: 1,
+        facts: { expected: expected.join(","), format, missing: missing.join(", ") || "—", unknown: unknown.join(", ") || "—" },
         message:
           `the header must be ${expected.join(",")} for the ${format} format` +
           (missing.length ? `; missing: ${missing.join(", ")}` : "") +
@@ -88,6 +89,7 @@ export function parseDataset(input: Uint8Array | string, format: Format): Parsed
       issues.add({
         rule: "field-count",
         row: line,
+        facts: { found: record.length, expected: expected.length },
         message: `the row has ${record.length} fields, the header has ${expected.length} (a stray comma?)`,
       });
       // The study is already at fault; its other rules would only repeat this row's problem.
@@ -164,7 +166,7 @@ function readStudy(
     const treatment = readTreatment(cell, "treatment", issues);
     if (treatment === null) continue;
     if (seen.has(treatment)) {
-      issues.add({ rule: "duplicate-treatment", row, column: "treatment", value: treatment, message: `treatment "${treatment}" appears twice in study ${study}` });
+      issues.add({ rule: "duplicate-treatment", row, column: "treatment", value: treatment, facts: { study }, message: `treatment "${treatment}" appears twice in study ${study}` });
       continue;
     }
     seen.add(treatment);
@@ -173,7 +175,7 @@ function readStudy(
       const events = readNumber(cell, "events", issues, { test: (v) => Number.isInteger(v) && v >= 0, rule: "events-invalid", message: "events must be a whole number of at least 0" });
       if (total === null || events === null) continue;
       if (events > total) {
-        issues.add({ rule: "events-exceed-total", row, column: "events", value: String(events), message: `events (${events}) exceed total (${total})` });
+        issues.add({ rule: "events-exceed-total", row, column: "events", value: String(events), facts: { events, total }, message: `events (${events}) exceed total (${total})` });
         continue;
       }
       arms.push({ treatment, events, total, row });
@@ -207,12 +209,12 @@ function readContrastStudy(study: string, cells: Record<string, string | number>
     const se = readNumber(cell, "se", issues, positive("se"));
     if (treatment1 === null || treatment2 === null || estimate === null || se === null) continue;
     if (treatment1 === treatment2) {
-      issues.add({ rule: "same-treatment", row, column: "treatment2", value: treatment2, message: `a comparison of "${treatment1}" with itself` });
+      issues.add({ rule: "same-treatment", row, column: "treatment2", value: treatment2, facts: { treatment: treatment1 }, message: `a comparison of "${treatment1}" with itself` });
       continue;
     }
     const pair = pairKey(treatment1, treatment2);
     if (pairs.has(pair)) {
-      issues.add({ rule: "duplicate-comparison", row, column: "treatment1", message: `the comparison ${treatment1} vs ${treatment2} appears twice in study ${study}` });
+      issues.add({ rule: "duplicate-comparison", row, column: "treatment1", facts: { treatment1, treatment2, study }, message: `the comparison ${treatment1} vs ${treatment2} appears twice in study ${study}` });
       continue;
     }
     pairs.add(pair);
@@ -227,6 +229,7 @@ function readContrastStudy(study: string, cells: Record<string, string | number>
       row: Number(cells[0]!.row),
       column: "study",
       value: study,
+      facts: { treatments: k, pairs: (k * (k - 1)) / 2, listed: contrasts.length },
       message: `study ${study} has ${k} treatments, so it must list all ${(k * (k - 1)) / 2} pairs; it lists ${contrasts.length}`,
     });
     return null;

@@ -17,6 +17,8 @@ export interface DatasetIssue {
   row?: number;
   column?: string;
   value?: string;
+  /** What else the message says (counts, names), for the interface to say in the reader's language. */
+  facts?: Record<string, string | number>;
 }
 
 export class DatasetError extends Error {
