@@ -1,6 +1,7 @@
 // Readers' topic alerts: a request queues a job (so the answer reveals nothing about who subscribed),
 // the job sends a confirmation link unless the address is already subscribed; releases in the topic
 // are announced to confirmed subscribers (server/workflows/alerts.ts calls `noticesFor`).
+import { localeOf, localePath } from "#core/locales";
 import { slugify } from "#core/slug";
 import { subscriptionConfirmMessage, topicNoticeMessage, type Message } from "#core/mail";
 import { confirmSubscriptionUrl, oneClickUnsubscribeUrl, versionUrl } from "#core/urls";
@@ -19,7 +20,7 @@ export async function askToSubscribe(ctx: MailContext, request: { email: string;
 async function sendConfirmation(ctx: MailContext, { email, topic, locale }: { email: string; topic: string; locale: string }): Promise<void> {
   const started = await requestSubscription(ctx.db, email, slugify(topic), locale);
   if (!started) return;
-  const message = subscriptionConfirmMessage({ recipient: email, topic, link: ctx.siteUrl + confirmSubscriptionUrl(started.token), expires: started.confirmBy, locale });
+  const message = subscriptionConfirmMessage({ recipient: email, topic, link: ctx.siteUrl + localePath(localeOf(locale), confirmSubscriptionUrl(started.token)), expires: started.confirmBy, locale });
   const id = await ctx.db.transaction((tx) => insertMessage(tx, message));
   await deliver(ctx.queue, [id]);
 }
@@ -30,9 +31,10 @@ export async function startSubscriptionWorker(ctx: MailContext & { queue: Queue 
 
 /** The notices of a release to its topic's subscribers, each with its own unsubscribe link. */
 export async function noticesFor(ctx: MailContext, version: { slug: string; title: string; topic: string; number: number; note: string | null }): Promise<Message[]> {
-  const link = ctx.siteUrl + versionUrl({ slug: version.slug, version: version.number });
+  // Each subscriber's link opens the version in the language they subscribed in.
+  const link = (locale: string) => ctx.siteUrl + localePath(localeOf(locale), versionUrl({ slug: version.slug, version: version.number }));
   const subscribers = await subscribersOf(ctx.db, slugify(version.topic));
   return subscribers.map((subscriber) =>
-    topicNoticeMessage({ recipient: subscriber.email, topic: version.topic, title: version.title, version: version.number, note: version.note, link, unsubscribeUrl: ctx.siteUrl + oneClickUnsubscribeUrl(subscriber.unsubscribeToken), locale: subscriber.locale }),
+    topicNoticeMessage({ recipient: subscriber.email, topic: version.topic, title: version.title, version: version.number, note: version.note, link: link(subscriber.locale), unsubscribeUrl: ctx.siteUrl + oneClickUnsubscribeUrl(subscriber.unsubscribeToken), locale: subscriber.locale }),
   );
 }
