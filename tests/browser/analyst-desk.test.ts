@@ -38,7 +38,7 @@ it("goes from a CSV file to a forest plot and a certainty judgement, with a vali
   const broken = { name: "broken.csv", mimeType: "text/csv", buffer: Buffer.from("study,treatment,events,total\nS1,a,12,10\nS1,b,1,10\n") };
   await panel.locator("input[type=file]").setInputFiles(broken);
   await panel.getByRole("button", { name: en.desk.uploadSubmit }).click();
-  await expect(panel.getByTestId("validation-report").textContent()).resolves.toContain("Line 2, column events: events (12) exceed total (10)");
+  await expect(panel.getByTestId("validation-report").textContent()).resolves.toContain("Line 2, column events: The events (12) exceed the total (10).");
 
   await panel.locator("input[type=file]").setInputFiles(hasselblad);
   await panel.getByRole("button", { name: en.desk.uploadSubmit }).click();
