@@ -2,6 +2,8 @@
 // decomposition, 10 000-draw ranking) on seeded synthetic networks of invented data, each size in a
 // fresh process so that its peak memory is its own. Prints a table; asserts nothing.
 import { spawnSync } from "node:child_process";
+import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
+import { tmpdir } from "node:os";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
 import normal from "@stdlib/random-base-normal";
@@ -76,4 +78,37 @@ if (one >= 0) {
       `| ${size.treatments} × ${size.studies} | ${m.medianMs.toFixed(0)} ms | ${m.minMs.toFixed(0)} ms | ${size.runs} | ${m.peakRssMiB.toFixed(0)} MiB | ${m.heapMiB.toFixed(0)} MiB | ${size.target} |`,
     );
   }
+  commandLine();
+}
+
+/**
+ * The whole command-line process (METHODS.md §11) on the same networks written as CSV: start-up,
+ * reading, analysis and printing, as a script calling `npm run nma` would see it (without npm's own
+ * start-up). The prebuilt bundle is built first, so no run pays for it.
+ */
+function commandLine() {
+  const folder = mkdtempSync(path.join(tmpdir(), "fairweigh-bench-"));
+  const cli = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "nma.mjs");
+  console.log("\nThe command line, whole process (node scripts/nma.mjs, default 10 000 draws); median of 3 runs\n");
+  console.log("| network (treatments × studies) | median | peak RSS | target |");
+  console.log("|---|---|---|---|");
+  for (const size of sizes.slice(0, 2)) {
+    const file = path.join(folder, `${size.treatments}x${size.studies}.csv`);
+    const rows = syntheticNetwork(size.treatments, size.studies, 20261201).studies.flatMap((study) =>
+      ("arms" in study ? (study.arms as ContinuousArm[]) : []).map((arm) => `${study.study},${arm.treatment},${arm.mean},${arm.sd},${arm.n}`),
+    );
+    writeFileSync(file, `study,treatment,mean,sd,n\n${rows.join("\n")}\n`);
+    const args = [cli, "--input", file, "--format", "arm-continuous", "--measure", "MD", "--model", "random", "--reference", "t000", "--better", "lower"];
+    spawnSync(process.execPath, args); // builds the bundle if it is missing or stale
+    const runs = [0, 1, 2].map(() => {
+      const start = performance.now();
+      const child = spawnSync("/usr/bin/time", ["-f", "%M", process.execPath, ...args], { encoding: "utf8" });
+      if (child.status !== 0) throw new Error(child.stderr);
+      return { ms: performance.now() - start, rssKiB: Number(child.stderr.trim().split("\n").at(-1)) };
+    });
+    runs.sort((a, b) => a.ms - b.ms);
+    const target = size.treatments === 60 ? "< 1 s whole" : "";
+    console.log(`| ${size.treatments} × ${size.studies} | ${runs[1]!.ms.toFixed(0)} ms | ${(runs[1]!.rssKiB / 1024).toFixed(0)} MiB | ${target} |`);
+  }
+  rmSync(folder, { recursive: true, force: true });
 }

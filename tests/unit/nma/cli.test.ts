@@ -8,8 +8,9 @@ import { describe, expect, it } from "vitest";
 const root = path.resolve(__dirname, "../../..");
 const hasselblad = path.resolve(root, "tests/fixtures/reference/hasselblad1998.csv");
 
+/** As `npm run nma` runs it: the prebuilt bundle, built first when missing or stale. */
 function nma(args: string[]) {
-  const result = spawnSync(path.join(root, "node_modules/.bin/tsx"), [path.join(root, "scripts/nma.ts"), ...args], { encoding: "utf8" });
+  const result = spawnSync(process.execPath, [path.join(root, "scripts/nma.mjs"), ...args], { encoding: "utf8" });
   return { code: result.status, stdout: result.stdout, stderr: result.stderr };
 }
 
