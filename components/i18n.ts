@@ -47,21 +47,32 @@ export function pageTitle(pageContext: PageContext, key?: string, values?: Recor
 /** The +title of a page whose title is one string: `export default titled("signIn.title")`. */
 export const titled = (key: string) => (pageContext: PageContext) => pageTitle(pageContext, key);
 
-/** A separate instance per render, so that concurrent requests in different locales never mix. */
+/**
+ * An i18next instance for one locale. On the server one per locale and set of namespaces, shared by
+ * every render: its language never changes there, so concurrent requests in different locales never
+ * mix. In the browser a new one each time (the desk changes its language after sign-in).
+ */
 export function createI18n(locale: Locale = defaultLocale, namespaces: Namespace[] = ["public", "desk"]): i18n {
+  const key = `${locale}|${namespaces.join()}`;
+  const shared = import.meta.env.SSR ? instances.get(key) : undefined;
+  if (shared) return shared;
   const instance = i18next.createInstance();
   void instance.use(initReactI18next).init({
     lng: locale,
     fallbackLng: defaultLocale,
-    resources: loaded,
+    // Only this locale and the fallback: the instance need not hold every language.
+    resources: { [locale]: loaded[locale] ?? {}, [defaultLocale]: loaded[defaultLocale] ?? {} },
     ns: namespaces,
     defaultNS: "public",
     fallbackNS: namespaces.filter((ns) => ns !== "public"),
     initAsync: false,
     interpolation: { escapeValue: false },
   });
+  if (import.meta.env.SSR) instances.set(key, instance);
   return instance;
 }
+
+const instances = new Map<string, i18n>();
 
 /** The locale of the page being rendered. */
 export function useLocale(): Locale {

@@ -1,6 +1,6 @@
 // Versions of briefs: a version is a frozen snapshot of a brief — data, results, certainty, groups —
 // written once and never changed (the database refuses it too). Reading them for their readers.
-import { and, desc, eq, gte, isNull, lte, sql } from "drizzle-orm";
+import { and, desc, eq, gte, inArray, isNull, lte, sql } from "drizzle-orm";
 import { mayReadEmbargoed, type Role } from "#core/roles";
 import { defaultLocale, type Locale } from "#core/locales";
 import type { Database, Executor } from "./client";
@@ -184,7 +184,7 @@ export async function listReleasedBriefs(db: Database, locale: Locale = defaultL
       // The listed columns, not the snapshot: a few hundred bytes instead of megabytes per brief.
       brief: sql<VersionSnapshot["brief"]>`${briefVersions.listedBrief}`,
       treatments: sql<VersionSnapshot["treatments"]>`${briefVersions.listedTreatments}`,
-      translated: sql<Record<string, string> | null>`(select ${versionTranslations.publishedFields} from ${versionTranslations} where ${versionTranslations.versionId} = ${briefVersions.id} and ${versionTranslations.locale} = ${locale})`,
+      versionId: briefVersions.id,
       withdrawnAt: briefs.withdrawnAt,
       version: briefVersions.number,
       releaseAt: briefVersions.releaseAt,
@@ -193,9 +193,19 @@ export async function listReleasedBriefs(db: Database, locale: Locale = defaultL
     .innerJoin(briefs, eq(briefs.id, briefVersions.briefId))
     .where(lte(briefVersions.releaseAt, new Date()))
     .orderBy(briefVersions.briefId, desc(briefVersions.releaseAt), desc(briefVersions.number));
+  // The published translations of just these versions, in a second small query (none for English).
+  const translations = new Map<string, Record<string, string>>();
+  if (locale !== defaultLocale && rows.length > 0) {
+    const found = await db
+      .select({ versionId: versionTranslations.versionId, fields: versionTranslations.publishedFields })
+      .from(versionTranslations)
+      .where(and(eq(versionTranslations.locale, locale), inArray(versionTranslations.versionId, rows.map((row) => row.versionId))));
+    for (const { versionId, fields } of found) if (fields) translations.set(versionId, fields as Record<string, string>);
+  }
   return rows
     .sort((a, b) => b.releaseAt.getTime() - a.releaseAt.getTime())
-    .map(({ brief, treatments, translated, ...row }) => {
+    .map(({ brief, treatments, versionId, ...row }) => {
+      const translated = translations.get(versionId);
       const said = (field: string, original: string) => translated?.[field]?.trim() || original;
       const names = treatments.map((t) => said(`treatment:${t.label}`, t.displayName));
       return {

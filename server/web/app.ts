@@ -3,6 +3,7 @@ import path from "node:path";
 import { fileURLToPath } from "node:url";
 import compression from "compression";
 import connectPgSimple from "connect-pg-simple";
+import { createServer, type IncomingMessage, type Server, type ServerResponse } from "node:http";
 import cookieParser from "cookie-parser";
 import express, { type NextFunction, type Request, type Response } from "express";
 import session from "express-session";
@@ -45,7 +46,28 @@ export async function createApp(options: AppOptions): Promise<express.Express> {
   // Behind a proxy in production the client's address comes from X-Forwarded-For; locally there is none.
   app.set("trust proxy", secureTransport ? 1 : false);
 
-  const logger = pino({ level: logLevel });
+  // Written asynchronously (a buffered stream, flushed on exit): a request does not wait for its log line.
+  const logger = pino({ level: logLevel }, pino.destination({ sync: false, minLength: logLevel === "silent" ? 0 : 4096 }));
+  const csrf = createCsrf(sessionSecret, secureTransport);
+  const pages =
+    options.pages === false
+      ? null
+      : await pageRoutes({
+          root: projectRoot,
+          production,
+          csrf,
+          db,
+          publicUrl: options.publicUrl,
+          sessionCookie: sessionCookieName(secureTransport),
+          // The same short line as every other request's.
+          onFastAnswer: (req, res) => logger.info({ req: { method: req.method, url: req.url }, res: { status: res.statusCode } }, "request completed"),
+        });
+  // Released pages in memory go to anonymous readers before Express runs at all (render.ts).
+  if (pages) {
+    const { fastAnswer } = pages;
+    const handle = (req: IncomingMessage, res: ServerResponse) => void fastAnswer(req, res).then((answered) => answered || app(req, res), () => app(req, res));
+    app.listen = ((...args: Parameters<Server["listen"]>) => createServer(handle).listen(...args)) as typeof app.listen;
+  }
   app.use(
     pinoHttp({
       logger,
@@ -84,10 +106,9 @@ export async function createApp(options: AppOptions): Promise<express.Express> {
     sendError(res, 404, { key: "errors.notFound", message: "There is nothing at this address." });
   });
 
-  const csrf = createCsrf(sessionSecret, secureTransport);
   app.use("/api", apiRoutes({ db, pool, passport, csrf, sessionCookie: sessionCookieName(secureTransport), queue: options.queue ?? null, publicUrl: options.publicUrl, mailFolder: production ? null : (options.mailFolder ?? null) }));
   app.use(publicFileRoutes(db, options.publicUrl, secureTransport));
-  if (options.pages !== false) app.use(await pageRoutes({ root: projectRoot, production, csrf, db, publicUrl: options.publicUrl }));
+  if (pages) app.use(pages.router);
 
   app.use((error: unknown, req: Request, res: Response, _next: NextFunction) => {
     const answer = errorAnswer(error);

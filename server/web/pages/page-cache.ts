@@ -32,6 +32,11 @@ export interface CachedPage {
   state: string;
   /** "version" for a released version's pages (cached by browsers for an hour), "revalidate" for a brief's latest address. */
   caching: "version" | "revalidate";
+  /**
+   * The headers of an answer from memory (security headers, type, caching, ETag), taken from the
+   * first such answer the full way gave: later ones are written from here (render.ts, fastPath).
+   */
+  ready?: Record<string, string | number | string[]>;
 }
 
 export function etagOf(html: string): string {

@@ -1,6 +1,7 @@
 // Server-side rendering of the pages/ folder by Vike, the built assets, and the HTTP caching of
 // public pages: released versions from memory with an ETag, other public pages revalidated.
 import path from "node:path";
+import type { IncomingMessage, ServerResponse } from "node:http";
 import express, { Router, type Request, type Response } from "express";
 import { createDevMiddleware, renderPage } from "vike/server";
 import { defaultLocale, isLocale, localePath, negotiateLocale, splitLocale, type Locale } from "#core/locales";
@@ -19,11 +20,39 @@ const holdsForm = (path: string) => path === "/sign-in" || path === "/password-r
 /** The pages that exist in every language: all but the desk and a draft's preview, which follow the person signed in. */
 const negotiates = (path: string) => !isDeskPath(path) && !path.startsWith("/preview/");
 
-/** The language a reader chose on the site, else the first of ours their browser asks for, else English. */
-function readerLocale(req: Request): Locale {
-  const chosen: unknown = req.cookies?.[localeCookie];
+/** The language a reader chose on the site (the cookie), else the first of ours their browser asks for, else English. */
+function readerLocale(chosen: unknown, acceptLanguage: string | undefined): Locale {
   if (isLocale(chosen)) return chosen;
-  return negotiateLocale(req.get("accept-language")) ?? defaultLocale;
+  return negotiateLocale(acceptLanguage) ?? defaultLocale;
+}
+
+/** Whether If-None-Match names this (weak) ETag, as RFC 9110 §13.1.2 compares them for GET. */
+function matchesEtag(header: string | undefined, etag: string): boolean {
+  if (!header) return false;
+  if (header.trim() === "*") return true;
+  const opaque = (tag: string) => tag.trim().replace(/^W\//, "");
+  return header.split(",").some((tag) => opaque(tag) === opaque(etag));
+}
+
+/** brotli, else gzip, else none, as the Accept-Encoding header allows (a q of 0 refuses one). */
+function preferredEncoding(header: string | undefined): keyof Encodings {
+  const allowed = new Map<string, number>();
+  for (const part of (header ?? "").split(",")) {
+    const [name = "", ...params] = part.trim().toLowerCase().split(";");
+    const q = params.map((p) => /^\s*q=([0-9.]+)/.exec(p)).find(Boolean);
+    allowed.set(name.trim(), q ? Number(q[1]) : 1);
+  }
+  const accepts = (name: string) => (allowed.get(name) ?? allowed.get("*") ?? 0) > 0;
+  return accepts("br") ? "br" : accepts("gzip") ? "gzip" : "identity";
+}
+
+/** One cookie's value from a Cookie header, read before cookie-parser runs (the fast path). */
+function cookieValue(header: string, name: string): string | undefined {
+  for (const pair of header.split(";")) {
+    const at = pair.indexOf("=");
+    if (at > 0 && pair.slice(0, at).trim() === name) return pair.slice(at + 1).trim();
+  }
+  return undefined;
 }
 
 /**
@@ -50,8 +79,12 @@ export async function pageRoutes(options: {
   csrf: ReturnType<typeof createCsrf>;
   db: Database;
   publicUrl?: string;
-}): Promise<Router> {
-  const { root, production, csrf, db, publicUrl } = options;
+  /** The session cookie's name: a request without it is anonymous, and may take the fast path. */
+  sessionCookie: string;
+  /** Called for each answer of the fast path, which runs before the request logger: it logs them. */
+  onFastAnswer?: (req: IncomingMessage, res: ServerResponse) => void;
+}): Promise<{ router: Router; fastAnswer: (req: IncomingMessage, res: ServerResponse) => Promise<boolean> }> {
+  const { root, production, csrf, db, publicUrl, sessionCookie, onFastAnswer } = options;
   const router = Router();
   const cache = new PageCache();
   const states = new StateMemo<string | null>();
@@ -78,6 +111,11 @@ export async function pageRoutes(options: {
     if (typeof policy === "string" && page.nonce !== nonce) res.setHeader("content-security-policy", policy.replace(` 'nonce-${nonce}'`, ""));
     res.setHeader("Cache-Control", cacheControl[caching]);
     if (caching !== "private") res.setHeader("ETag", page.etag);
+    if ("state" in page && page.nonce !== nonce && !page.ready && !req.user) {
+      // What every anonymous answer of this page from memory says; per-answer headers are left out.
+      const perAnswer = new Set(["date", "vary", "set-cookie", "content-length", "content-encoding"]);
+      (page as CachedPage).ready = Object.fromEntries(Object.entries(res.getHeaders()).filter(([name]) => !perAnswer.has(name))) as CachedPage["ready"];
+    }
     if (caching !== "private" && page.status === 200 && req.fresh) return res.status(304).end();
     // The type is among Vike's headers: HTML for pages, JSON for client navigation's pageContext.
     res.status(page.status);
@@ -104,7 +142,7 @@ export async function pageRoutes(options: {
     // site (the cookie) wins over the browser's. The answer depends on both, and says so.
     if (locale === defaultLocale && negotiates(path)) {
       res.vary("Accept-Language").vary("Cookie");
-      const chosen = readerLocale(req);
+      const chosen = readerLocale(req.cookies?.[localeCookie], req.get("accept-language"));
       if (chosen !== defaultLocale) return res.redirect(302, localePath(chosen, path) + query);
     }
     const parsed = parseVersionPath(path);
@@ -112,7 +150,7 @@ export async function pageRoutes(options: {
     // is sent there, so that each page is rendered and cached once.
     if (parsed && !parsed.canonical) return res.redirect(301, localePath(locale, canonicalVersionPath(parsed)) + query);
     try {
-      const memory = memoryCached(req, locale, path, parsed);
+      const memory = memoryCached(req.user, locale, path, parsed);
       if (memory) {
         const cached = cache.get(memory.key);
         if (cached) {
@@ -138,12 +176,50 @@ export async function pageRoutes(options: {
   });
 
   /**
+   * Released versions and latest addresses kept in memory, answered to anonymous readers by the HTTP
+   * server itself, before Express and everything in it (no session, passport, cookie parsing, nonce,
+   * helmet, compression or routing, which such an answer does not need). Its headers are those the
+   * full way wrote the first time it answered the page from memory (`ready`), so both ways answer
+   * alike. Anything else — a reader with a session (who may see embargoed versions), a query string,
+   * a page not in memory, out of date or not yet answered once, an address to redirect — resolves to
+   * false and goes the full way. docs/decisions/0010-public-pages-and-caching.md.
+   */
+  async function fastAnswer(req: IncomingMessage, res: ServerResponse): Promise<boolean> {
+    if (req.method !== "GET" && req.method !== "HEAD") return false;
+    const url = req.url ?? "/";
+    if (url.includes("?") || !url.startsWith("/")) return false;
+    const cookies = req.headers.cookie ?? "";
+    if (cookieValue(cookies, sessionCookie) !== undefined) return false;
+    const { locale, path } = splitLocale(url);
+    const negotiated = locale === defaultLocale && negotiates(path);
+    if (negotiated && readerLocale(cookieValue(cookies, localeCookie), req.headers["accept-language"]) !== defaultLocale) return false;
+    const parsed = parseVersionPath(path);
+    if (parsed && !parsed.canonical) return false;
+    const memory = memoryCached(undefined, locale, path, parsed);
+    const cached = memory ? cache.get(memory.key) : undefined;
+    if (!memory || !cached?.ready || (await memory.state()) !== cached.state) return false;
+    const vary = negotiated ? "Accept-Language, Cookie, Accept-Encoding" : "Accept-Encoding";
+    const fresh = cached.status === 200 && matchesEtag(req.headers["if-none-match"], cached.etag) && !/no-cache/.test(req.headers["cache-control"] ?? "");
+    if (fresh) {
+      res.writeHead(304, { ...cached.ready, vary });
+      res.end();
+    } else {
+      const encoding = preferredEncoding(req.headers["accept-encoding"]);
+      const body = cached.encodings[encoding];
+      res.writeHead(cached.status, { ...cached.ready, vary, ...(encoding === "identity" ? {} : { "content-encoding": encoding }), "content-length": body.length });
+      res.end(req.method === "HEAD" ? undefined : body);
+    }
+    onFastAnswer?.(req, res);
+    return true;
+  }
+
+  /**
    * The public pages kept in memory, with the state each is checked against on every hit: a released
    * version's pages and a brief's latest address. Only a reader who sees what the public sees shares
    * them: the press and editors also see embargoed versions in a page's history.
    */
-  function memoryCached(req: Request, locale: Locale, path: string, version: VersionPath | null): { key: string; state: () => Promise<string | null> } | null {
-    if (mayReadEmbargoed(req.user?.roles ?? [])) return null;
+  function memoryCached(reader: Request["user"], locale: Locale, path: string, version: VersionPath | null): { key: string; state: () => Promise<string | null> } | null {
+    if (mayReadEmbargoed(reader?.roles ?? [])) return null;
     const key = PageCache.key(locale, path);
     if (version) {
       const { slug, version: number } = version.at;
@@ -187,5 +263,5 @@ export async function pageRoutes(options: {
     return { page, caching, entry: null };
   }
 
-  return router;
+  return { router, fastAnswer };
 }
