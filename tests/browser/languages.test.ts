@@ -1,11 +1,10 @@
 // The languages in Debian's Chromium: the Arabic brief mirrored at phone and desktop widths (with
 // screenshots in test-results/screenshots/ to look at), axe-core on the Arabic and Spanish pages, the
 // language switcher, and a translator's whole path from the queue to a published Spanish summary.
-import AxeBuilder from "@axe-core/playwright";
 import { describe, expect, it } from "vitest";
 import { slugify } from "#core/slug";
 import { demoBriefs } from "#workflows/demo-briefs";
-import { keepScreenshot, signedIn, withServerAndBrowser } from "../support/browser";
+import { keepScreenshot, seriousViolations, signedIn, withServerAndBrowser } from "../support/browser";
 import { publishedBrief } from "../support/briefs";
 import { demoClient } from "../support/client";
 
@@ -54,13 +53,7 @@ describe("accessibility in other languages", () => {
     ["Arabic comparison", `/ar/briefs/${small}/v/1/compare/combined/usual_care`],
     ["Spanish brief", `/es/briefs/${small}`],
   ])("axe-core finds no serious or critical violation on the %s", async (_kind, url) => {
-    const context = await setup.browser.newContext();
-    const page = await context.newPage();
-    await page.goto(setup.server.url + url);
-    const results = await new AxeBuilder({ page }).withTags(["wcag2a", "wcag2aa", "wcag21a", "wcag21aa"]).analyze();
-    const serious = results.violations.filter((v) => v.impact === "serious" || v.impact === "critical");
-    expect(serious.map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(" ")).join(", ")}`)).toEqual([]);
-    await context.close();
+    expect(await seriousViolations(setup.browser, setup.server.url + url)).toEqual([]);
   });
 });
 

@@ -1,12 +1,11 @@
 // The public site in Debian's Chromium: every page type without JavaScript, no serious or critical
 // accessibility violation (axe-core), keyboard use, and screenshots of a brief at phone and desktop
 // widths (written to test-results/screenshots/ to be looked at).
-import AxeBuilder from "@axe-core/playwright";
 import { describe, expect, it } from "vitest";
 import { en } from "../support/words";
 import { slugify } from "#core/slug";
 import { demoBriefs } from "#workflows/demo-briefs";
-import { keepScreenshot, withServerAndBrowser } from "../support/browser";
+import { keepScreenshot, seriousViolations, withServerAndBrowser } from "../support/browser";
 
 const setup = withServerAndBrowser();
 const small = slugify(demoBriefs()[0]!.title);
@@ -51,13 +50,7 @@ describe("accessibility", () => {
     ["large brief", pages.version],
     ["comparison", pages.comparison],
   ])("axe-core finds no serious or critical violation on the %s page", async (_kind, url) => {
-    const context = await setup.browser.newContext();
-    const page = await context.newPage();
-    await page.goto(setup.server.url + url);
-    const results = await new AxeBuilder({ page }).withTags(["wcag2a", "wcag2aa", "wcag21a", "wcag21aa"]).analyze();
-    const serious = results.violations.filter((v) => v.impact === "serious" || v.impact === "critical");
-    expect(serious.map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(" ")).join(", ")}`)).toEqual([]);
-    await context.close();
+    expect(await seriousViolations(setup.browser, setup.server.url + url)).toEqual([]);
   });
 
   it("the keyboard alone reaches and opens the rank-score explainer", async () => {

@@ -2,6 +2,7 @@
 // network (background services, updates, sync) and let it run as root in a container.
 import { mkdirSync } from "node:fs";
 import path from "node:path";
+import AxeBuilder from "@axe-core/playwright";
 import { chromium, type Browser, type Page } from "playwright-core";
 import { afterAll, beforeAll } from "vitest";
 import { demoPassword } from "#workflows/seed";
@@ -16,6 +17,16 @@ const screenshots = path.resolve(__dirname, "../../test-results/screenshots");
 export async function keepScreenshot(page: Page, name: string): Promise<void> {
   mkdirSync(screenshots, { recursive: true });
   await page.screenshot({ path: path.join(screenshots, `${name}.png`), fullPage: true });
+}
+
+/** The serious and critical WCAG 2.1 A/AA violations axe-core finds on a page, one line each (none is the goal). */
+export async function seriousViolations(browser: Browser, url: string): Promise<string[]> {
+  const context = await browser.newContext();
+  const page = await context.newPage();
+  await page.goto(url);
+  const results = await new AxeBuilder({ page }).withTags(["wcag2a", "wcag2aa", "wcag21a", "wcag21aa"]).analyze();
+  await context.close();
+  return results.violations.filter((v) => v.impact === "serious" || v.impact === "critical").map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(" ")).join(", ")}`);
 }
 
 export function launchChromium(): Promise<Browser> {
