@@ -2,7 +2,9 @@
 // public pages: released versions from memory with an ETag, other public pages revalidated.
 import path from "node:path";
 import type { IncomingMessage, ServerResponse } from "node:http";
+import accepts from "accepts";
 import express, { Router, type Request, type Response } from "express";
+import fresh from "fresh";
 import { createDevMiddleware, renderPage } from "vike/server";
 import { defaultLocale, isLocale, localePath, negotiateLocale, splitLocale, type Locale } from "#core/locales";
 import { mayReadEmbargoed } from "#core/roles";
@@ -24,26 +26,6 @@ const negotiates = (path: string) => !isDeskPath(path) && !path.startsWith("/pre
 function readerLocale(chosen: unknown, acceptLanguage: string | undefined): Locale {
   if (isLocale(chosen)) return chosen;
   return negotiateLocale(acceptLanguage) ?? defaultLocale;
-}
-
-/** Whether If-None-Match names this (weak) ETag, as RFC 9110 §13.1.2 compares them for GET. */
-function matchesEtag(header: string | undefined, etag: string): boolean {
-  if (!header) return false;
-  if (header.trim() === "*") return true;
-  const opaque = (tag: string) => tag.trim().replace(/^W\//, "");
-  return header.split(",").some((tag) => opaque(tag) === opaque(etag));
-}
-
-/** brotli, else gzip, else none, as the Accept-Encoding header allows (a q of 0 refuses one). */
-function preferredEncoding(header: string | undefined): keyof Encodings {
-  const allowed = new Map<string, number>();
-  for (const part of (header ?? "").split(",")) {
-    const [name = "", ...params] = part.trim().toLowerCase().split(";");
-    const q = params.map((p) => /^\s*q=([0-9.]+)/.exec(p)).find(Boolean);
-    allowed.set(name.trim(), q ? Number(q[1]) : 1);
-  }
-  const accepts = (name: string) => (allowed.get(name) ?? allowed.get("*") ?? 0) > 0;
-  return accepts("br") ? "br" : accepts("gzip") ? "gzip" : "identity";
 }
 
 /** One cookie's value from a Cookie header, read before cookie-parser runs (the fast path). */
@@ -165,7 +147,7 @@ export async function pageRoutes(options: {
           if (entry) return send(req, res, entry, entry.caching);
         }
       }
-      const rendered = renderAndKeep(req, res, memory?.key ?? null);
+      const rendered = renderAndKeep(req, res, path, memory?.key ?? null);
       if (memory) rendering.set(memory.key, rendered.then((result) => result?.entry ?? null));
       const result = await rendered.finally(() => memory && rendering.delete(memory.key));
       if (!result) return next();
@@ -199,12 +181,12 @@ export async function pageRoutes(options: {
     const cached = memory ? cache.get(memory.key) : undefined;
     if (!memory || !cached?.ready || (await memory.state()) !== cached.state) return false;
     const vary = negotiated ? "Accept-Language, Cookie, Accept-Encoding" : "Accept-Encoding";
-    const fresh = cached.status === 200 && matchesEtag(req.headers["if-none-match"], cached.etag) && !/no-cache/.test(req.headers["cache-control"] ?? "");
-    if (fresh) {
+    // The same freshness and encoding rules as the full way's req.fresh and req.acceptsEncodings (Express's own packages).
+    if (cached.status === 200 && fresh(req.headers, { etag: cached.etag })) {
       res.writeHead(304, { ...cached.ready, vary });
       res.end();
     } else {
-      const encoding = preferredEncoding(req.headers["accept-encoding"]);
+      const encoding = (accepts(req).encodings("br", "gzip", "identity") || "identity") as keyof Encodings;
       const body = cached.encodings[encoding];
       res.writeHead(cached.status, { ...cached.ready, vary, ...(encoding === "identity" ? {} : { "content-encoding": encoding }), "content-length": body.length });
       res.end(req.method === "HEAD" ? undefined : body);
@@ -232,9 +214,9 @@ export async function pageRoutes(options: {
   }
 
   /** Renders the page; one that says how it may be cached in memory is kept under `key`. */
-  async function renderAndKeep(req: Request, res: Response, key: string | null) {
+  async function renderAndKeep(req: Request, res: Response, path: string, key: string | null) {
     let csrfToken: string | undefined;
-    if (holdsForm(splitLocale(req.path).path)) {
+    if (holdsForm(path)) {
       req.session.csrfIssued = true;
       csrfToken = csrf.generateCsrfToken(req, res, { overwrite: false });
     }
