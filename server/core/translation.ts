@@ -92,11 +92,9 @@ export function unfinished(views: FieldView[]): { empty: string[]; stale: string
 export function storedAfterSave(sources: SourceField[], previous: StoredFields, targets: Record<string, string>): StoredFields {
   const next: StoredFields = {};
   for (const source of sources) {
-    const target = Object.hasOwn(targets, source.name) ? targets[source.name]! : previous[source.name]?.text;
-    if (target === undefined) continue;
-    const touched = Object.hasOwn(targets, source.name);
     // A field saved now translates today's source; one left alone keeps the source it was written for.
-    next[source.name] = touched ? { text: target, sourceHash: sourceHash(source.text), sourceText: source.text } : previous[source.name]!;
+    if (Object.hasOwn(targets, source.name)) next[source.name] = { text: targets[source.name]!, sourceHash: sourceHash(source.text), sourceText: source.text };
+    else if (Object.hasOwn(previous, source.name)) next[source.name] = previous[source.name]!;
   }
   return next;
 }

@@ -33,11 +33,13 @@ export interface TranslationView {
 
 type Refusal = { ok: false; reason: "not-found" } | { ok: false; reason: "unfinished"; empty: string[]; stale: string[] } | { ok: false; reason: "not-ready" };
 
-async function working(db: Database, version: TranslatableVersion, locale: TranslationLocale) {
+type Working = { stored: StoredFields; state: TranslationState | "missing"; publishedAt: string | null; carriedFrom: boolean };
+
+async function working(db: Database, version: TranslatableVersion, locale: TranslationLocale): Promise<Working> {
   const own = await readTranslation(db, version.versionId, locale);
-  if (own) return { stored: own.fields, state: own.state as TranslationState | "missing", publishedAt: own.publishedAt, carriedFrom: false };
+  if (own) return { stored: own.fields, state: own.state, publishedAt: own.publishedAt, carriedFrom: false };
   const earlier = await earlierTranslation(db, version, locale);
-  return { stored: earlier?.fields ?? {}, state: (earlier ? "draft" : "missing") as TranslationState | "missing", publishedAt: null, carriedFrom: earlier !== null };
+  return { stored: earlier?.fields ?? {}, state: earlier ? "draft" : "missing", publishedAt: null, carriedFrom: earlier !== null };
 }
 
 /** A version this person may translate: released, or under embargo for those who may read it. */
@@ -47,12 +49,10 @@ async function visibleVersion(db: Database, versionId: string, person: Person): 
   return Date.parse(version.releaseAt) <= Date.now() || mayReadEmbargoed(person.roles) ? version : null;
 }
 
-export async function readTranslationView(db: Database, person: Person, versionId: string, locale: TranslationLocale): Promise<TranslationView | null> {
-  const version = await visibleVersion(db, versionId, person);
-  if (!version) return null;
-  const { stored, state, publishedAt, carriedFrom } = await working(db, version, locale);
+/** The translation as the desk shows it, from the version and its working copy: each step answers with it, read once. */
+function viewOf(version: TranslatableVersion, locale: TranslationLocale, { stored, state, publishedAt, carriedFrom }: Working): TranslationView {
   return {
-    versionId,
+    versionId: version.versionId,
     slug: version.slug,
     number: version.number,
     title: version.snapshot.brief.title,
@@ -64,41 +64,56 @@ export async function readTranslationView(db: Database, person: Person, versionI
   };
 }
 
+/** The version and its translation's working copy, or null when this person may not see the version. */
+async function load(db: Database, person: Person, versionId: string, locale: TranslationLocale) {
+  const version = await visibleVersion(db, versionId, person);
+  return version ? { version, working: await working(db, version, locale) } : null;
+}
+
+export async function readTranslationView(db: Database, person: Person, versionId: string, locale: TranslationLocale): Promise<TranslationView | null> {
+  const found = await load(db, person, versionId, locale);
+  return found ? viewOf(found.version, locale, found.working) : null;
+}
+
 /** Saves the targets given (other fields keep theirs); the translation is a draft again. */
 export async function saveTranslationDraft(db: Database, person: Person, versionId: string, locale: TranslationLocale, targets: Record<string, string>): Promise<{ ok: true; view: TranslationView } | Refusal> {
-  const version = await visibleVersion(db, versionId, person);
-  if (!version) return { ok: false, reason: "not-found" };
-  const { stored } = await working(db, version, locale);
-  const fields: StoredFields = storedAfterSave(sourceFields(version.snapshot), stored, targets);
+  const found = await load(db, person, versionId, locale);
+  if (!found) return { ok: false, reason: "not-found" };
+  const fields: StoredFields = storedAfterSave(sourceFields(found.version.snapshot), found.working.stored, targets);
   await db.transaction(async (tx) => {
     await saveTranslation(tx, { versionId, locale }, fields, person.id);
     await recordAudit(tx, { actorId: person.id, action: "translation.save", entity: "version", entityId: versionId, before: null, after: { locale, fields: Object.keys(targets) } });
   });
-  return { ok: true, view: (await readTranslationView(db, person, versionId, locale))! };
+  // A carried-over copy becomes this version's own; a published one keeps its publication time.
+  const publishedAt = found.working.carriedFrom ? null : found.working.publishedAt;
+  return { ok: true, view: viewOf(found.version, locale, { stored: fields, state: "draft", publishedAt, carriedFrom: false }) };
 }
 
 /** A draft whose every field is translated against today's source becomes ready for an editor. */
 export async function markTranslationReady(db: Database, person: Person, versionId: string, locale: TranslationLocale): Promise<{ ok: true; view: TranslationView } | Refusal> {
-  const view = await readTranslationView(db, person, versionId, locale);
-  if (!view) return { ok: false, reason: "not-found" };
+  const found = await load(db, person, versionId, locale);
+  if (!found) return { ok: false, reason: "not-found" };
+  const view = viewOf(found.version, locale, found.working);
   const gaps = unfinished(view.fields);
   if (view.state === "missing" || view.carriedFrom || gaps.empty.length > 0 || gaps.stale.length > 0) return { ok: false, reason: "unfinished", ...gaps };
   await db.transaction(async (tx) => {
     await setTranslationState(tx, { versionId, locale }, "ready", person.id);
     await recordAudit(tx, { actorId: person.id, action: "translation.ready", entity: "version", entityId: versionId, before: { state: view.state }, after: { locale, state: "ready" } });
   });
-  return { ok: true, view: (await readTranslationView(db, person, versionId, locale))! };
+  return { ok: true, view: { ...view, state: "ready" } };
 }
 
 /** An editor publishes a ready translation: readers of that language see it from now on. */
 export async function publishTranslationOf(db: Database, person: Person, versionId: string, locale: TranslationLocale): Promise<{ ok: true; view: TranslationView } | Refusal> {
-  const view = await readTranslationView(db, person, versionId, locale);
-  if (!view) return { ok: false, reason: "not-found" };
+  const found = await load(db, person, versionId, locale);
+  if (!found) return { ok: false, reason: "not-found" };
+  const view = viewOf(found.version, locale, found.working);
   if (view.state !== "ready") return { ok: false, reason: "not-ready" };
   const published: PublishedFields = Object.fromEntries(view.fields.map((field) => [field.name, field.target]));
-  await db.transaction(async (tx) => {
+  const publishedAt = await db.transaction(async (tx) => {
     const at = await publishTranslation(tx, { versionId, locale }, published, person.id);
     await recordAudit(tx, { actorId: person.id, action: "translation.publish", entity: "version", entityId: versionId, before: { state: "ready" }, after: { locale, state: "published", publishedAt: at } });
+    return at;
   });
-  return { ok: true, view: (await readTranslationView(db, person, versionId, locale))! };
+  return { ok: true, view: { ...view, state: "published", publishedAt } };
 }
