@@ -35,7 +35,7 @@ function SignedInDesk() {
   const signOut = useSignOut();
   const person = session.data;
 
-  setErrorWords((key) => (i18n.exists(`desk.${key}`) ? i18n.t(`desk.${key}`) : null));
+  useEffect(() => setErrorWords((key) => (i18n.exists(`desk.${key}`) ? i18n.t(`desk.${key}`) : null)), [i18n]);
   // The desk speaks the signed-in person's language (chosen on their account screen).
   const deskLocale = localeOf(person?.locale);
   useEffect(() => {

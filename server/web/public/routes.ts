@@ -45,7 +45,9 @@ export function publicFileRoutes(db: Database, publicUrl: string | undefined, se
     if (!isLocale(locale)) return res.status(404).type("text/plain").send(`There is no language "${locale}" here: choose one of ${locales.join(", ")}.`);
     const next = typeof req.query.next === "string" && /^\/(?![/\\])/.test(req.query.next) ? req.query.next : "/";
     res.cookie(localeCookie, locale, { maxAge: 365 * 24 * 3600 * 1000, sameSite: "lax", httpOnly: true, secure: secureTransport, path: "/" });
-    res.set("Cache-Control", "no-store").redirect(303, localePath(locale, splitLocale(next.split("?")[0]!).path) + (next.includes("?") ? next.slice(next.indexOf("?")) : ""));
+    // The page without its own language prefix, in the chosen one; its query string kept.
+    const query = next.indexOf("?") < 0 ? next.length : next.indexOf("?");
+    res.set("Cache-Control", "no-store").redirect(303, localePath(locale, splitLocale(next.slice(0, query)).path) + next.slice(query));
   });
 
   // Files need the version only, not its history: one query.
