@@ -1,5 +1,5 @@
 // npm run bench: the full analysis (random effects with REML, every pair split, the design
-// decomposition, 10 000-draw ranking) on seeded synthetic networks of invented data, each size in a
+// decomposition, study importances and risk-of-bias shares of §13, 10 000-draw ranking) on seeded synthetic networks of invented data, each size in a
 // fresh process so that its peak memory is its own. Prints a table; asserts nothing.
 import { spawnSync } from "node:child_process";
 import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
@@ -24,7 +24,8 @@ export function syntheticNetwork(treatments: number, studies: number, seed: numb
   const pick = () => Math.min(treatments - 1, Math.floor(uniform() * treatments));
   const trueEffect = Array.from({ length: treatments }, () => 0.5 * gaussian());
   const names = Array.from({ length: treatments }, (_, i) => `t${String(i).padStart(3, "0")}`);
-  const result: ParsedDataset = { format: "arm-continuous", studies: [] };
+  const result: ParsedDataset = { format: "arm-continuous", studies: [], riskOfBiasColumn: true };
+  const judgements = ["low", "some-concerns", "high", null] as const;
   for (let s = 0; s < studies; s++) {
     const arms = new Set<number>(s < treatments - 1 ? [s, s + 1] : []);
     const size = s >= treatments - 1 && uniform() < threeArmShare ? 3 : 2;
@@ -35,7 +36,7 @@ export function syntheticNetwork(treatments: number, studies: number, seed: numb
       const sd = 1 + uniform();
       return { treatment: names[t]!, mean: trueEffect[t]! + (i > 0 ? studyEffect : 0) + (sd / Math.sqrt(n)) * gaussian(), sd, n, row: 0 };
     });
-    result.studies.push({ format: "arm-continuous", study: `S${s}`, arms: list });
+    result.studies.push({ format: "arm-continuous", study: `S${s}`, arms: list, riskOfBias: judgements[Math.min(3, Math.floor(uniform() * 4))] ?? null });
   }
   return result;
 }
@@ -67,7 +68,7 @@ if (one >= 0) {
 } else {
   const self = fileURLToPath(import.meta.url);
   const tsx = path.resolve(path.dirname(self), "../node_modules/.bin/tsx");
-  console.log("Full analysis: random effects (REML), all pairs split, design decomposition, 10 000 draws; median of runs\n");
+  console.log("Full analysis: random effects (REML), all pairs split, design decomposition, study importances and risk-of-bias shares (§13), 10 000 draws; median of runs\n");
   console.log("| network (treatments × studies) | median | fastest | runs | peak RSS | heap after | target |");
   console.log("|---|---|---|---|---|---|---|");
   for (const size of sizes) {
@@ -95,14 +96,14 @@ function commandLine() {
   for (const size of sizes.slice(0, 2)) {
     const file = path.join(folder, `${size.treatments}x${size.studies}.csv`);
     const rows = syntheticNetwork(size.treatments, size.studies, 20261201).studies.flatMap((study) =>
-      ("arms" in study ? (study.arms as ContinuousArm[]) : []).map((arm) => `${study.study},${arm.treatment},${arm.mean},${arm.sd},${arm.n}`),
+      ("arms" in study ? (study.arms as ContinuousArm[]) : []).map((arm) => `${study.study},${arm.treatment},${arm.mean},${arm.sd},${arm.n},${study.riskOfBias?.replace("-", " ") ?? ""}`),
     );
-    writeFileSync(file, `study,treatment,mean,sd,n\n${rows.join("\n")}\n`);
+    writeFileSync(file, `study,treatment,mean,sd,n,risk_of_bias\n${rows.join("\n")}\n`);
     const args = [cli, "--input", file, "--format", "arm-continuous", "--measure", "MD", "--model", "random", "--reference", "t000", "--better", "lower"];
     spawnSync(process.execPath, args); // builds the bundle if it is missing or stale
     const runs = [0, 1, 2].map(() => {
       const start = performance.now();
-      const child = spawnSync("/usr/bin/time", ["-f", "%M", process.execPath, ...args], { encoding: "utf8" });
+      const child = spawnSync("/usr/bin/time", ["-f", "%M", process.execPath, ...args], { encoding: "utf8", maxBuffer: 2 ** 28 });
       if (child.status !== 0) throw new Error(child.stderr);
       return { ms: performance.now() - start, rssKiB: Number(child.stderr.trim().split("\n").at(-1)) };
     });

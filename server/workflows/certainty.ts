@@ -2,7 +2,7 @@
 // its latest result and the judgements recorded so far, and recording a judgement, where a departure
 // from a computed suggestion needs a reason. The desk and publishing read certainty from here alone.
 import { assessCertainty, type ComparisonCertainty } from "#core/grade/assess";
-import { unexplainedDepartures, type JudgementInput } from "#core/grade/judgement";
+import { unexplainedDepartures, type Departure, type JudgementInput } from "#core/grade/judgement";
 import type { AnalysisResult } from "#core/nma/analyse";
 import { latestResult } from "#db/analyses";
 import type { Database } from "#db/client";
@@ -24,7 +24,7 @@ export type JudgementOutcome =
   | { ok: true; comparisons: ComparisonCertainty[] }
   | { ok: false; reason: "no-result" }
   | { ok: false; reason: "no-comparison"; pair: Pair }
-  | { ok: false; reason: "unexplained"; pair: Pair; domains: ("incoherence" | "imprecision")[] };
+  | { ok: false; reason: "unexplained"; pair: Pair; domains: Departure[] };
 
 /**
  * Records the analyst's judgements of one or many comparisons, each named in the order the result

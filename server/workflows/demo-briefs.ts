@@ -30,6 +30,12 @@ export interface DemoBrief {
 
 type Design = string[];
 
+/**
+ * Invented risk-of-bias judgements (METHODS.md §13), one per study in turn: mostly low, some with
+ * concerns, a few high and one in eight not assessed. They describe no real trial.
+ */
+const judgements = ["low", "low", "some concerns", "low", "high", "low", "some concerns", ""];
+
 /** Arm-level rows around true effects: log odds for binary outcomes, means for continuous ones. */
 function generate(kind: "binary" | "continuous", designs: Design[], truth: Record<string, number>, seed: number): string {
   const gaussian = normal.factory(0, 1, { seed });
@@ -40,14 +46,14 @@ function generate(kind: "binary" | "continuous", designs: Design[], truth: Recor
       if (kind === "binary") {
         const logit = truth[treatment]! + studyShift + 0.1 * gaussian();
         const events = Math.max(1, Math.min(n - 1, Math.round(n / (1 + Math.exp(-logit)))));
-        return `D${String(s + 1).padStart(3, "0")},${treatment},${events},${n}`;
+        return `D${String(s + 1).padStart(3, "0")},${treatment},${events},${n},${judgements[s % judgements.length]}`;
       }
       const sd = 9 + Math.abs(gaussian()) * 2;
       const mean = truth[treatment]! + 2 * studyShift + (sd / Math.sqrt(n)) * gaussian();
-      return `D${String(s + 1).padStart(3, "0")},${treatment},${mean.toFixed(2)},${sd.toFixed(2)},${n}`;
+      return `D${String(s + 1).padStart(3, "0")},${treatment},${mean.toFixed(2)},${sd.toFixed(2)},${n},${judgements[s % judgements.length]}`;
     });
   });
-  const header = kind === "binary" ? "study,treatment,events,total" : "study,treatment,mean,sd,n";
+  const header = kind === "binary" ? "study,treatment,events,total,risk_of_bias" : "study,treatment,mean,sd,n,risk_of_bias";
   return `${header}\n${rows.join("\n")}\n`;
 }
 

@@ -10,6 +10,7 @@ import {
   incoherenceSuggestion,
   indirectCertainty,
   networkCertainty,
+  riskOfBiasSuggestion,
   type DirectJudgement,
   type Downgrade,
   type Rating,
@@ -37,7 +38,8 @@ export interface ComparisonCertainty {
   indirect: Rating | null;
   indirectVia: string | null;
   network: Rating | null;
-  suggestions: { incoherence: Suggestion; imprecision: Suggestion };
+  /** riskOfBias: for the direct estimate's risk-of-bias domain, where the data carry judgements (§13). */
+  suggestions: { incoherence: Suggestion; imprecision: Suggestion; riskOfBias: Suggestion | null };
   judgement: ComparisonJudgement;
   /** The parts that still need the analyst: the desk lists these comparisons first. */
   pending: Pending[];
@@ -54,6 +56,17 @@ function standing(decision: SuggestionDecision | undefined, suggestion: Suggesti
   return decision && (decision.levels === suggestion.levels || decision.reason.trim() !== "") ? decision : undefined;
 }
 
+/**
+ * The direct evidence's judgement stands when its risk-of-bias domain follows the suggestion as it is
+ * now or departs from it with a reason; without a suggestion, a rating down needs its reason.
+ */
+function directStanding(judgement: ComparisonJudgement["direct"], suggestion: Suggestion | null): DirectJudgement | undefined {
+  if (!judgement) return undefined;
+  const { levels, reason } = judgement.riskOfBias;
+  const explained = reason.trim() !== "" || (suggestion ? levels === suggestion.levels : levels === 0);
+  return explained ? judgement : undefined;
+}
+
 /** Thresholds are read on the outcome's decision scale (METHODS.md §9): per 1000 at `baselineRisk` for binary outcomes. */
 export function assessCertainty(result: AnalysisResult, judgements: Map<string, ComparisonJudgement>, thresholds: Thresholds, baselineRisk: number | null = null): ComparisonCertainty[] {
   const scale = decisionScale(result, thresholds, baselineRisk);
@@ -64,8 +77,9 @@ export function assessCertainty(result: AnalysisResult, judgements: Map<string, 
     return direct ? direct.se ** 2 : null;
   };
   const directRating = (a: string, b: string): Rating | null => {
-    const judgement = judgements.get(pairKey(a, b))?.direct;
-    return byPair.get(pairKey(a, b))?.direct && judgement ? directCertainty(judgement) : null;
+    const comparison = byPair.get(pairKey(a, b));
+    const judgement = directStanding(judgements.get(pairKey(a, b))?.direct, riskOfBiasSuggestion(comparison?.riskOfBias));
+    return comparison?.direct && judgement ? directCertainty(judgement) : null;
   };
 
   return result.comparisons.map((comparison) => {
@@ -94,6 +108,7 @@ export function assessCertainty(result: AnalysisResult, judgements: Map<string, 
     const suggestions = {
       incoherence: incoherenceSuggestion(comparison.incoherence),
       imprecision: imprecisionSuggestion(scale.effect(a, b), scale.thresholds ?? none),
+      riskOfBias: comparison.direct ? riskOfBiasSuggestion(comparison.riskOfBias) : null,
     };
     const incoherence = standing(judgement.incoherence, suggestions.incoherence);
     const imprecision = standing(judgement.imprecision, suggestions.imprecision);

@@ -2,6 +2,7 @@
 // Puhan et al., BMJ 2014;349:g5630, and Brignardello-Petersen et al., J Clin Epidemiol 2018;93:36–44;
 // imprecision against decision thresholds: Brignardello-Petersen et al., J Clin Epidemiol 2021;139:49–56.
 // Pure functions: the analyst's judgements and the engine's result in, ratings and suggestions out.
+import type { RiskOfBiasShares } from "../nma/risk-of-bias";
 
 export const ratings = ["very_low", "low", "moderate", "high"] as const;
 export type Rating = (typeof ratings)[number];
@@ -70,6 +71,17 @@ export interface Suggestion {
   levels: number;
   /** A message key (locales/…/common.json) and the facts it needs, for the analyst and the footnote. */
   because: { key: string; values: Record<string, number> };
+}
+
+/**
+ * Step 1, risk of bias (METHODS.md §13, common practice with no single source): the levels of the
+ * risk-of-bias level that carries the largest share of the direct estimate's weight. Null where the
+ * data say nothing (no direct evidence, no risk-of-bias column, or more than half not assessed).
+ */
+export function riskOfBiasSuggestion(shares: RiskOfBiasShares | null | undefined): Suggestion | null {
+  if (!shares || shares.suggestedLevels === null) return null;
+  const level = (["low", "someConcerns", "high"] as const)[shares.suggestedLevels];
+  return { levels: shares.suggestedLevels, because: { key: `certainty.riskOfBias.${level}`, values: { share: Math.round(100 * shares[level]) } } };
 }
 
 /** Step 3: suggest one level down for incoherence when the direct and indirect estimates differ with p < 0.05. */

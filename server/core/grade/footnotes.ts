@@ -9,7 +9,10 @@ export function certaintyFootnotes(certainty: ComparisonCertainty): Footnote[] {
   const notes: Footnote[] = [];
   if (judgement.direct) {
     for (const [domain, downgrade] of Object.entries(judgement.direct)) {
-      if (downgrade.levels > 0) notes.push({ domainKey: `desk.domain.${domain}`, levels: downgrade.levels, reason: downgrade.reason, because: null });
+      if (downgrade.levels === 0) continue;
+      // A confirmed risk-of-bias suggestion (§13) is explained by what it was computed from.
+      const because = domain === "riskOfBias" && !downgrade.reason ? (suggestions.riskOfBias?.because ?? null) : null;
+      notes.push({ domainKey: `desk.domain.${domain}`, levels: downgrade.levels, reason: downgrade.reason || null, because });
     }
   }
   if (judgement.intransitivity && judgement.intransitivity.levels > 0) {

@@ -2,15 +2,17 @@
 // of §11. Pure: no I/O. docs/methods.md describes each step in words.
 import { armEffects, type Exclusion } from "./contrasts";
 import { degreesOfFreedom, heterogeneity, inconsistency, type Heterogeneity, type Inconsistency } from "./heterogeneity";
+import { studyImportances, type StudyImportance } from "./importance";
 import { fitAt, studyBlocks, type Fit } from "./model";
 import { assertConnected, treatmentsOf } from "./network";
 import { defaultDraws, defaultSeed, pScores, rankProbabilities } from "./ranking";
 import { estimateTau2 } from "./reml";
+import { directRiskOfBias, type RiskOfBiasShares } from "./risk-of-bias";
 import { directEstimates, incoherence, indirectEstimate } from "./split";
 import { DatasetError, type AnalysisOptions, type Estimate, type Measure, type Model, type ParsedDataset } from "./types";
 
 /** Bumped whenever a change to the engine could change a number; stored with every result. */
-export const engineVersion = "1.0.0";
+export const engineVersion = "1.1.0";
 
 /** The 97.5% point of the standard normal, as METHODS.md §3 fixes it. */
 export const z975 = 1.959964;
@@ -32,6 +34,10 @@ export interface Comparison {
   incoherence: { z: number; p: number } | null;
   /** v_N / v_D: the share of the network estimate's information that is direct. */
   directShare: number | null;
+  /** §13: the studies that matter most for this pair (importance ≥ 0.001, largest first, at most 10). */
+  importance: StudyImportance[];
+  /** §13: the risk of bias of the direct estimate; null without direct evidence or without the column. */
+  riskOfBias: RiskOfBiasShares | null;
 }
 
 export interface AnalysisResult {
@@ -95,11 +101,14 @@ export function analyse(dataset: ParsedDataset, options: AnalysisOptions): Analy
     return { estimate: da - db, se: Math.sqrt(cov(ia, ia) + cov(ib, ib) - 2 * cov(ia, ib)) };
   };
   const direct = directEstimates(studies, tau2);
+  const importance = studyImportances(blocks, fit.covariance, tau2, treatments, columnOf);
+  const riskOfBias = directRiskOfBias(studies, tau2, dataset.riskOfBiasColumn === true);
 
   const comparisons: Comparison[] = [];
   const edges: AnalysisResult["network"]["edges"] = [];
   treatments.forEach((a, i) => {
-    for (const b of treatments.slice(i + 1)) {
+    treatments.forEach((b, j) => {
+      if (j <= i) return;
       const n = network(a, b);
       const d = direct(a, b);
       const indirect = indirectEstimate(n, d);
@@ -118,9 +127,11 @@ export function analyse(dataset: ParsedDataset, options: AnalysisOptions): Analy
         indirect,
         incoherence: incoherence(d, indirect),
         directShare: d ? n.se ** 2 / d.se ** 2 : null,
+        importance: importance(i, j),
+        riskOfBias: riskOfBias(a, b),
       });
       if (d) edges.push({ treatment: a, comparator: b, studies: d.studies });
-    }
+    });
   });
 
   const ranks = rankProbabilities(treatments, reference, fit.beta, fit.covariance, better, options.draws ?? defaultDraws, options.seed ?? defaultSeed);

@@ -23,5 +23,8 @@ export function comparisonOf(result: AnalysisResult, a: string, b: string): Comp
     indirect: listed.indirect ? flip(listed.indirect) : null,
     incoherence: listed.incoherence ? { z: -listed.incoherence.z, p: listed.incoherence.p } : null,
     directShare: listed.directShare,
+    // Both read the same either way round.
+    importance: listed.importance,
+    riskOfBias: listed.riskOfBias,
   };
 }

@@ -22,26 +22,31 @@ export function armEffects(parsed: ParsedStudy[], measure: Measure): ArmEffectsR
   const excluded: Exclusion[] = [];
   const issues: DatasetIssue[] = [];
   for (const study of parsed) {
-    if (study.format === "arm-binary") {
-      const exclusion = doubleZero(study.arms, measure);
-      if (exclusion) excluded.push({ study: study.study, reason: exclusion });
-      else studies.push(binaryEffects(study.study, study.arms, measure));
-    } else if (study.format === "arm-continuous") {
-      studies.push({
-        study: study.study,
-        treatments: study.arms.map((a) => a.treatment),
-        effects: study.arms.map((a) => a.mean),
-        variances: study.arms.map((a) => (a.sd * a.sd) / a.n),
-        participants: study.arms.map((a) => a.n),
-      });
-    } else {
-      const effects = contrastStudyEffects(study);
-      if ("issue" in effects) issues.push(effects.issue);
-      else studies.push(effects);
-    }
+    const effects = studyEffects(study, measure);
+    if ("issue" in effects) issues.push(effects.issue);
+    else if ("reason" in effects) excluded.push(effects);
+    // The judgement travels with the study; without the column there is none to carry.
+    else studies.push(study.riskOfBias === undefined ? effects : { ...effects, riskOfBias: study.riskOfBias });
   }
   if (issues.length > 0) throw new DatasetError(issues);
   return { studies, excluded };
+}
+
+function studyEffects(study: ParsedStudy, measure: Measure): ArmEffects | Exclusion | { issue: DatasetIssue } {
+  if (study.format === "arm-binary") {
+    const exclusion = doubleZero(study.arms, measure);
+    return exclusion ? { study: study.study, reason: exclusion } : binaryEffects(study.study, study.arms, measure);
+  }
+  if (study.format === "arm-continuous") {
+    return {
+      study: study.study,
+      treatments: study.arms.map((a) => a.treatment),
+      effects: study.arms.map((a) => a.mean),
+      variances: study.arms.map((a) => (a.sd * a.sd) / a.n),
+      participants: study.arms.map((a) => a.n),
+    };
+  }
+  return contrastStudyEffects(study);
 }
 
 /** For OR and RR a study with no events in any arm, or events in every participant of every arm, carries no information. */

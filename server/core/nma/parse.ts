@@ -11,6 +11,7 @@ import {
   type Format,
   type ParsedDataset,
   type ParsedStudy,
+  type RiskOfBias,
 } from "./types";
 
 export const issueCap = 50;
@@ -20,6 +21,9 @@ const columnsByFormat: Record<Format, string[]> = {
   "arm-continuous": ["study", "treatment", "mean", "sd", "n"],
   contrast: ["study", "treatment1", "treatment2", "estimate", "se"],
 };
+
+/** The optional last column of every format (§1, §13). */
+const riskOfBiasColumn = "risk_of_bias";
 
 class IssueList {
   readonly issues: DatasetIssue[] = [];
@@ -60,19 +64,21 @@ export function parseDataset(input: Uint8Array | string, format: Format): Parsed
     ]);
   }
 
-  const expected = columnsByFormat[format];
+  const required = columnsByFormat[format];
   const [headerRecord, ...rows] = records;
   const header = headerRecord!.record.map((name) => name.toLowerCase());
-  const missing = expected.filter((name) => !header.includes(name));
+  const judged = header.includes(riskOfBiasColumn);
+  const expected = judged ? [...required, riskOfBiasColumn] : required;
+  const missing = required.filter((name) => !header.includes(name));
   const unknown = header.filter((name) => !expected.includes(name));
   if (missing.length > 0 || unknown.length > 0 || header.length !== expected.length) {
     throw new DatasetError([
       {
         rule: "wrong-header",
         row: 1,
-        facts: { expected: expected.join(","), format, missing: missing.join(", ") || "—", unknown: unknown.join(", ") || "—" },
+        facts: { expected: required.join(","), format, missing: missing.join(", ") || "—", unknown: unknown.join(", ") || "—" },
         message:
-          `the header must be ${expected.join(",")} for the ${format} format` +
+          `the header must be ${required.join(",")} (and optionally ${riskOfBiasColumn}) for the ${format} format` +
           (missing.length ? `; missing: ${missing.join(", ")}` : "") +
           (unknown.length ? `; not expected: ${unknown.join(", ")}` : ""),
       },
@@ -111,10 +117,49 @@ export function parseDataset(input: Uint8Array | string, format: Format): Parsed
   for (const [study, cells] of byStudy) {
     if (faultyStudies.has(study)) continue;
     const parsed = readStudy(format, study, cells, issues);
-    if (parsed) studies.push(parsed);
+    if (!judged) {
+      if (parsed) studies.push(parsed);
+      continue;
+    }
+    const riskOfBias = readRiskOfBias(study, cells, issues);
+    if (parsed && riskOfBias !== undefined) studies.push({ ...parsed, riskOfBias });
   }
   issues.throwIfAny();
-  return { format, studies };
+  return judged ? { format, studies, riskOfBiasColumn: true } : { format, studies };
+}
+
+/** "low", "some concerns" or "high" in any case and spacing; empty is "not assessed" (null). */
+const riskOfBiasWords: Record<string, RiskOfBias | null> = { "": null, low: "low", "some concerns": "some-concerns", high: "high" };
+
+/**
+ * One study's risk of bias (§1): a valid value, the same on every row of the study. Undefined when a
+ * row breaks the rule (the issue is recorded), so that the study is not kept.
+ */
+function readRiskOfBias(study: string, cells: Record<string, string | number>[], issues: IssueList): RiskOfBias | null | undefined {
+  let found: { value: RiskOfBias | null; raw: string } | undefined;
+  for (const cell of cells) {
+    const raw = String(cell[riskOfBiasColumn] ?? "");
+    const normalised = raw.toLowerCase().replace(/[\s_-]+/g, " ").trim();
+    const row = Number(cell.row);
+    if (!(normalised in riskOfBiasWords)) {
+      issues.add({ rule: "risk-of-bias-invalid", row, column: riskOfBiasColumn, value: raw, message: `"${raw}" is not a risk of bias: write low, some concerns or high, or leave it empty for not assessed` });
+      return undefined;
+    }
+    const value = riskOfBiasWords[normalised]!;
+    if (found && found.value !== value) {
+      issues.add({
+        rule: "risk-of-bias-differs",
+        row,
+        column: riskOfBiasColumn,
+        value: raw,
+        facts: { study, first: found.raw || "—" },
+        message: `study ${study} has one risk of bias for the whole study, but this row says "${raw}" where an earlier row says "${found.raw}"`,
+      });
+      return undefined;
+    }
+    found ??= { value, raw };
+  }
+  return found?.value ?? null;
 }
 
 function readNumber(

@@ -7,6 +7,10 @@ export const measures = ["OR", "RR", "RD", "MD"] as const;
 export type Measure = (typeof measures)[number];
 
 export type Model = "fixed" | "random";
+
+/** The overall judgements of RoB 2 (Sterne et al., BMJ 2019;366:l4898), as the optional `risk_of_bias` column gives them (§1). */
+export const riskOfBiasLevels = ["low", "some-concerns", "high"] as const;
+export type RiskOfBias = (typeof riskOfBiasLevels)[number];
 export type Better = "higher" | "lower";
 
 /** One problem with the input, naming the line of the file (the header is line 1) and the column. */
@@ -58,14 +62,21 @@ export interface ContrastRow {
   row: number;
 }
 
+/** Where the file has a `risk_of_bias` column, each study's judgement (null: not assessed); absent without the column. */
+interface Judged {
+  riskOfBias?: RiskOfBias | null;
+}
+
 export type ParsedStudy =
-  | { format: "arm-binary"; study: string; arms: BinaryArm[] }
-  | { format: "arm-continuous"; study: string; arms: ContinuousArm[] }
-  | { format: "contrast"; study: string; contrasts: ContrastRow[] };
+  | ({ format: "arm-binary"; study: string; arms: BinaryArm[] } & Judged)
+  | ({ format: "arm-continuous"; study: string; arms: ContinuousArm[] } & Judged)
+  | ({ format: "contrast"; study: string; contrasts: ContrastRow[] } & Judged);
 
 export interface ParsedDataset {
   format: Format;
   studies: ParsedStudy[];
+  /** Whether the file had the `risk_of_bias` column (absent in data sets stored before it existed). */
+  riskOfBiasColumn?: boolean;
 }
 
 /** A study reduced to arm effects θ and variances v (METHODS.md §2), in the order of the file. */
@@ -76,6 +87,8 @@ export interface ArmEffects {
   variances: number[];
   /** Participants per arm, where the format has them (for the network diagram). */
   participants: (number | null)[];
+  /** The study's risk of bias (null: not assessed), where the file has the column. */
+  riskOfBias?: RiskOfBias | null;
 }
 
 export interface Estimate {

@@ -5,7 +5,7 @@
 // `snapshotSchemaVersion` and adds a numbered upgrade in ./upgrade.ts.
 import { z } from "zod";
 
-export const snapshotSchemaVersion = 3;
+export const snapshotSchemaVersion = 4;
 
 const finite = z.number();
 const text = z.string();
@@ -19,6 +19,10 @@ export const messageSchema = z.object({ key: text, values: z.record(text, z.unio
 /** One reason a comparison was rated down, for its footnote: the analyst's words, or the computed reason. */
 const footnote = z.object({ domainKey: text, levels: finite, reason: text.nullable(), because: messageSchema.nullable() });
 
+/** A study's overall risk of bias (RoB 2: low, some concerns, high); null: not assessed. */
+const riskOfBiasLevel = z.enum(["low", "some-concerns", "high"]).nullable();
+const perLevel = <T extends z.ZodType>(value: T) => z.object({ low: value, someConcerns: value, high: value, notAssessed: value });
+
 /** Every fact a page shows about one pair, computed when the version is published (never when it is read). */
 const pairFacts = z.object({
   treatment: text,
@@ -29,6 +33,10 @@ const pairFacts = z.object({
   incoherenceP: finite.nullable(),
   certainty: rating.nullable(),
   footnotes: z.array(footnote),
+  /** METHODS.md §13: the studies that matter most, largest first; null in versions frozen before importances were computed. */
+  importance: z.array(z.object({ study: text, value: finite, riskOfBias: riskOfBiasLevel })).nullable(),
+  /** §13: shares of the direct estimate's weight by risk of bias; null without direct evidence or judgements. */
+  riskOfBias: perLevel(finite).extend({ suggestedLevels: z.number().int().nullable() }).nullable(),
 });
 
 /** "treatment vs comparator", one direction of one comparison, read in words. */
@@ -89,6 +97,11 @@ const outcomeSnapshot = z.object({
   }),
   /** Every pair once, in the engine's order. */
   pairs: z.array(pairFacts),
+  /**
+   * How much of the outcome's evidence comes from studies at each risk of bias: studies counted, and
+   * their participants where the format has arm sizes. Null when the data carry no judgements.
+   */
+  riskOfBias: z.object({ studies: perLevel(z.number().int()), participants: perLevel(z.number().int()).nullable() }).nullable(),
   network: z.object({
     nodes: z.array(z.object({ treatment: text, participants: z.number().int().nullable() })),
     edges: z.array(z.object({ treatment: text, comparator: text, studies: z.number().int() })),

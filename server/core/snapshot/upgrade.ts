@@ -58,8 +58,22 @@ function upgrade2to3(snapshot: Stored): Stored {
   return { ...snapshot, schemaVersion: 3, outcomes } as unknown as Stored;
 }
 
+/**
+ * 3 → 4: study importances and risk of bias (METHODS.md §13) were not computed when these versions
+ * were frozen; they read as not known (null), and the pages say so, rather than being computed now.
+ */
+function upgrade3to4(snapshot: Stored): Stored {
+  type Outcome = { pairs: Record<string, unknown>[] };
+  const outcomes = (snapshot.outcomes as unknown as Outcome[]).map((outcome) => ({
+    riskOfBias: null,
+    ...outcome,
+    pairs: outcome.pairs.map((pair) => ({ importance: null, riskOfBias: null, ...pair })),
+  }));
+  return { ...snapshot, schemaVersion: 4, outcomes } as unknown as Stored;
+}
+
 /** upgrades[n] brings shape n + 1 to shape n + 2. */
-export const upgrades: ((snapshot: Stored) => Stored)[] = [upgrade1to2, upgrade2to3];
+export const upgrades: ((snapshot: Stored) => Stored)[] = [upgrade1to2, upgrade2to3, upgrade3to4];
 
 export class SnapshotError extends Error {
   constructor(message: string) {

@@ -90,6 +90,7 @@ describe("certainty footnotes", () => {
       suggestions: {
         incoherence: { levels: 0, because: { key: "certainty.incoherence.notTestable", values: {} } },
         imprecision: { levels: 1, because: { key: "certainty.imprecision.null", values: { count: 1 } } },
+        riskOfBias: null,
       },
       judgement: {
         direct: { riskOfBias: { levels: 1, reason: "Allocation was not concealed." }, inconsistency: none, indirectness: none, publicationBias: none },

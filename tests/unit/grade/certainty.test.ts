@@ -8,7 +8,10 @@ import {
   indirectCertainty,
   networkCertainty,
   rateDown,
+  riskOfBiasSuggestion,
 } from "#core/grade/certainty";
+import { unexplainedDepartures } from "#core/grade/judgement";
+import { suggestedLevels } from "#core/nma/risk-of-bias";
 
 const none = { levels: 0 as const, reason: "" };
 
@@ -120,5 +123,40 @@ describe("assessing every comparison of an outcome (METHODS.md §8)", async () =
     expect(ab.indirect).toBe("moderate"); // the lower of A–C (high) and C–B (moderate)
     expect(ab.network).toBe("high"); // the higher of direct and indirect, nothing confirmed against it
     expect(ab.pending).toEqual([]);
+  });
+});
+
+describe("the risk-of-bias suggestion (METHODS.md §13, common practice)", () => {
+  const shares = (low: number, someConcerns: number, high: number, notAssessed: number) => {
+    const s = { low, someConcerns, high, notAssessed };
+    return { ...s, suggestedLevels: suggestedLevels(s) };
+  };
+
+  it("rates down by the level carrying the largest share of the weight", () => {
+    expect(riskOfBiasSuggestion(shares(0.6, 0.3, 0.1, 0))).toEqual({ levels: 0, because: { key: "certainty.riskOfBias.low", values: { share: 60 } } });
+    expect(riskOfBiasSuggestion(shares(0.2, 0.5, 0.3, 0))?.levels).toBe(1);
+    expect(riskOfBiasSuggestion(shares(0.1, 0.2, 0.4, 0.3))).toEqual({ levels: 2, because: { key: "certainty.riskOfBias.high", values: { share: 40 } } });
+  });
+
+  it("gives a tie to the worse level", () => {
+    expect(riskOfBiasSuggestion(shares(0.5, 0.5, 0, 0))?.levels).toBe(1);
+    expect(riskOfBiasSuggestion(shares(0.4, 0.2, 0.4, 0))?.levels).toBe(2);
+  });
+
+  it("suggests nothing when more than half of the weight is not assessed, or there are no shares", () => {
+    expect(riskOfBiasSuggestion(shares(0.2, 0.1, 0.1, 0.6))).toBeNull();
+    expect(riskOfBiasSuggestion(shares(0.5, 0, 0, 0.5))?.levels).toBe(0);
+    expect(riskOfBiasSuggestion(null)).toBeNull();
+  });
+
+  it("lets a confirmed suggestion stand without a reason, and asks for one to depart from it", () => {
+    const suggestion = riskOfBiasSuggestion(shares(0.1, 0.2, 0.7, 0));
+    const current = { suggestions: { incoherence: { levels: 0, because: { key: "", values: {} } }, imprecision: { levels: 0, because: { key: "", values: {} } }, riskOfBias: suggestion } };
+    const direct = (levels: 0 | 1 | 2, reason: string) => ({ direct: { riskOfBias: { levels, reason }, inconsistency: none, indirectness: none, publicationBias: none } });
+    expect(unexplainedDepartures(direct(2, ""), current)).toEqual([]);
+    expect(unexplainedDepartures(direct(1, ""), current)).toEqual(["riskOfBias"]);
+    expect(unexplainedDepartures(direct(1, "Blinded outcome assessment in the largest trial"), current)).toEqual([]);
+    // Without a suggestion, rating down needs its reason as in every direct domain.
+    expect(unexplainedDepartures(direct(1, ""), { suggestions: { ...current.suggestions, riskOfBias: null } })).toEqual(["riskOfBias"]);
   });
 });

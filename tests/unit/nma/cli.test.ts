@@ -1,6 +1,6 @@
 // The command line of METHODS.md §11: JSON on stdout and exit 0; bad input exit 1 with one line; bad arguments exit 2.
 import { spawnSync } from "node:child_process";
-import { mkdtempSync, writeFileSync } from "node:fs";
+import { mkdtempSync, readFileSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import { describe, expect, it } from "vitest";
@@ -27,6 +27,23 @@ describe("npm run nma", () => {
     expect(result.ranking).toMatchObject({ draws: 500, seed: 3 });
     expect(Object.keys(result.comparisons[0])).toEqual(expect.arrayContaining(["treatment", "comparator", "network", "direct", "indirect", "incoherence"]));
     expect(Object.keys(result.inconsistency)).toEqual(expect.arrayContaining(["Qwithin", "dfWithin", "Qbetween", "dfBetween", "pBetween"]));
+  }, 30_000);
+
+  it("matches the §13 reference values on the file with a risk-of-bias column (metafor 3.8-1 + base R)", () => {
+    const file = path.resolve(root, "tests/fixtures/reference/hasselblad1998-rob.csv");
+    const expected = JSON.parse(readFileSync(path.resolve(root, "tests/fixtures/reference/hasselblad1998-rob.expected.json"), "utf8"));
+    for (const model of ["fixed", "random"] as const) {
+      const { code, stdout } = nma(["--input", file, ...base.slice(0, 5), model, ...base.slice(6), "--draws", "200"]);
+      expect(code).toBe(0);
+      const result = JSON.parse(stdout);
+      for (const pair of expected[model].comparisons) {
+        const actual = result.comparisons.find((c: { treatment: string; comparator: string }) => c.treatment === pair.treatment && c.comparator === pair.comparator);
+        expect(actual.importance.map((s: { study: string }) => s.study)).toEqual(pair.importance.map((s: { study: string }) => s.study));
+        pair.importance.forEach((s: { value: number }, i: number) => expect(Math.abs(actual.importance[i].value - s.value) / s.value).toBeLessThan(model === "fixed" ? 1e-6 : 1e-4));
+        expect(Object.keys(actual.riskOfBias).sort()).toEqual(["high", "low", "notAssessed", "someConcerns", "suggestedLevels"]);
+        expect(actual.riskOfBias.suggestedLevels).toBe(pair.riskOfBias.suggestedLevels);
+      }
+    }
   }, 30_000);
 
   it("exits 1 with a one-line reason for bad input", () => {

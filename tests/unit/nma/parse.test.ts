@@ -160,3 +160,40 @@ describe("network rules", () => {
     expect(issue).toMatchObject({ rule: "unknown-reference", value: "placebo" });
   });
 });
+
+describe("the optional risk_of_bias column (METHODS.md §1, §13)", () => {
+  const header = "study,treatment,events,total,risk_of_bias\n";
+
+  it("reads low, some concerns and high in any case, and empty as not assessed", () => {
+    const dataset = parseDataset(`${header}S1,a,1,10,Low\nS1,b,2,10,LOW\nS2,a,1,10,Some Concerns\nS2,b,2,10,some concerns\nS3,a,1,10,high\nS3,b,2,10,High\nS4,a,1,10,\nS4,b,2,10,\n`, "arm-binary");
+    expect(dataset.riskOfBiasColumn).toBe(true);
+    expect(dataset.studies.map((s) => s.riskOfBias)).toEqual(["low", "some-concerns", "high", null]);
+  });
+
+  it("is optional in every format, and absent without the column", () => {
+    expect(parseDataset("study,treatment,mean,sd,n,risk_of_bias\nS1,a,1,1,10,high\nS1,b,2,1,10,high\n", "arm-continuous").studies[0]?.riskOfBias).toBe("high");
+    expect(parseDataset("study,treatment1,treatment2,estimate,se,risk_of_bias\nS1,a,b,0.2,0.1,low\n", "contrast").studies[0]?.riskOfBias).toBe("low");
+    const plain = parseDataset(`${binaryHeader}S1,a,1,10\nS1,b,2,10\n`, "arm-binary");
+    expect(plain.riskOfBiasColumn).toBeUndefined();
+    expect(plain.studies[0]).not.toHaveProperty("riskOfBias");
+  });
+
+  it("names the row of a value that is not a risk of bias", () => {
+    expect(parseIssues(`${header}S1,a,1,10,low\nS1,b,2,10,unclear\n`)).toEqual([
+      expect.objectContaining({ rule: "risk-of-bias-invalid", row: 3, column: "risk_of_bias", value: "unclear" }),
+    ]);
+  });
+
+  it("refuses a study whose rows disagree, naming the row and the study", () => {
+    const [issue] = parseIssues(`${header}S1,a,1,10,low\nS1,b,2,10,high\n`);
+    expect(issue).toMatchObject({ rule: "risk-of-bias-differs", row: 3, column: "risk_of_bias", value: "high", facts: { study: "S1", first: "low" } });
+    expect(issue?.message).toContain("study S1");
+  });
+
+  it("keeps the judgement through the engine: studies left out carry none", () => {
+    const dataset = parseDataset(`${header}S1,a,1,10,low\nS1,b,2,10,low\nS2,a,0,10,high\nS2,b,0,10,high\n`, "arm-binary");
+    const { studies, excluded } = armEffects(dataset.studies, "OR");
+    expect(studies.map((s) => [s.study, s.riskOfBias])).toEqual([["S1", "low"]]);
+    expect(excluded).toEqual([{ study: "S2", reason: "no-events" }]);
+  });
+});

@@ -29,8 +29,8 @@ const networks = fc.integer({ min: 3, max: 6 }).chain((T) => {
   return fc.tuple(fc.tuple(...chain), extra).map(([a, b]) => [...a, ...b] as Study[]);
 });
 
-function toCsv(studies: Study[], rename: (t: string) => string = (t) => t): string {
-  const rows = studies.flatMap((arms, s) => arms.map((a) => `S${s},${rename(a.treatment)},${a.events},${a.total}`));
+function toCsv(studies: Study[], rename: (t: string) => string = (t) => t, label: (s: number) => string = (s) => `S${s}`): string {
+  const rows = studies.flatMap((arms, s) => arms.map((a) => `${label(s)},${rename(a.treatment)},${a.events},${a.total}`));
   return `study,treatment,events,total\n${rows.join("\n")}\n`;
 }
 
@@ -86,6 +86,85 @@ describe("invariance", () => {
       }),
       { numRuns: 15 },
     );
+  });
+});
+
+/** The same studies with the same importances, to 6 decimals (METHODS.md §13), for every pair. */
+function expectSameImportances(a: AnalysisResult, b: AnalysisResult, mapName: (t: string) => string = (t) => t) {
+  for (const pair of a.comparisons) {
+    const other = comparisonOf(b, mapName(pair.treatment), mapName(pair.comparator))!;
+    const values = new Map(other.importance.map((s) => [s.study, s.value]));
+    // The tenth place may hold a different study of (nearly) the same importance; the first nine may not.
+    for (const study of pair.importance.slice(0, 9)) expect(values.get(study.study), `${pair.treatment} vs ${pair.comparator}, ${study.study}`).toBeCloseTo(study.value, 6);
+  }
+}
+
+describe("study importance (METHODS.md §13)", () => {
+  it("does not depend on the order of the studies or the treatments' names", () => {
+    const rename = (t: string) => `z${9 - Number(t.slice(1))}`;
+    fc.assert(
+      fc.property(networks, (studies) => {
+        const label = (s: number) => `S${s}`;
+        const base = run(toCsv(studies));
+        const reversed = run(toCsv([...studies].reverse(), undefined, (s) => label(studies.length - 1 - s)));
+        expectSameImportances(base, reversed);
+        expectSameImportances(base, run(toCsv(studies, rename), { reference: rename("t0") }), rename);
+      }),
+      { numRuns: 20 },
+    );
+  });
+
+  it("in a network of two treatments equals each study's share of the inverse-variance weight", () => {
+    const twoArm = fc.array(
+      fc.tuple(fc.integer({ min: 20, max: 300 }), fc.integer({ min: 20, max: 300 })).chain(([n1, n2]) =>
+        fc.tuple(fc.integer({ min: 1, max: n1 - 1 }), fc.integer({ min: 1, max: n2 - 1 })).map(([e1, e2]) => [
+          { treatment: "t0", events: e1, total: n1 },
+          { treatment: "t1", events: e2, total: n2 },
+        ]),
+      ),
+      { minLength: 1, maxLength: 14 },
+    );
+    fc.assert(
+      fc.property(twoArm, fc.constantFrom("fixed" as const, "random" as const), (studies, model) => {
+        const result = run(toCsv(studies), { model });
+        const weights = studies.map(([a, b]) => 1 / (1 / a!.events + 1 / (a!.total - a!.events) + 1 / b!.events + 1 / (b!.total - b!.events) + result.tau2));
+        const total = weights.reduce((x, y) => x + y, 0);
+        const expected = weights
+          .map((w, s) => ({ study: `S${s}`, value: w / total }))
+          .filter((s) => s.value >= 0.001)
+          .sort((x, y) => y.value - x.value || (x.study < y.study ? -1 : 1))
+          .slice(0, 10);
+        const actual = comparisonOf(result, "t1", "t0")!.importance;
+        expect(actual.map((s) => s.study)).toEqual(expected.map((s) => s.study));
+        actual.forEach((s, i) => expect(s.value).toBeCloseTo(expected[i]!.value, 10));
+      }),
+      { numRuns: 60 },
+    );
+  });
+
+  it("is 1 for a study that is the only link to a treatment, and absent where that treatment is not in the pair", () => {
+    // t0 appears in the first study of the chain alone: the extra studies avoid it.
+    const avoiding = networks.filter((studies) => studies.slice(1).every((arms) => arms.every((a) => a.treatment !== "t0")));
+    fc.assert(
+      fc.property(avoiding, fc.constantFrom("fixed" as const, "random" as const), (studies, model) => {
+        const result = run(toCsv(studies), { model });
+        for (const pair of result.comparisons) {
+          const only = pair.importance.find((s) => s.study === "S0");
+          if (pair.treatment === "t0" || pair.comparator === "t0") expect(only?.value).toBe(1);
+          else expect(only).toBeUndefined();
+        }
+      }),
+      { numRuns: 30 },
+    );
+  });
+
+  it("is 1 for a bridge: the only study between two parts of the network", () => {
+    // t0–t1 and t2–t3 are joined by one study of t1 and t2.
+    const csv = "study,treatment,events,total\nA1,t0,10,50\nA1,t1,15,50\nA2,t0,12,60\nA2,t1,20,60\nB,t1,14,55\nB,t2,9,55\nC1,t2,8,40\nC1,t3,13,40\nC2,t2,11,45\nC2,t3,16,45\n";
+    const result = run(csv, { model: "fixed" });
+    expect(comparisonOf(result, "t0", "t3")!.importance[0]).toEqual({ study: "B", value: 1 });
+    expect(comparisonOf(result, "t1", "t2")!.importance[0]).toEqual({ study: "B", value: 1 });
+    expect(comparisonOf(result, "t0", "t1")!.importance.map((s) => s.study).sort()).toEqual(["A1", "A2"]);
   });
 });
 

@@ -127,3 +127,52 @@ describe("published figures for the HbA1c network (second check, recalled from m
     expect(result.inconsistency.dfBetween).toBe(7);
   });
 });
+
+// METHODS.md §13 against tests/fixtures/reference/hasselblad1998-rob.expected.json: the same open data
+// with an invented risk-of-bias column (labelled as invented in that folder's README), importances
+// and direct risk-of-bias shares computed with metafor 3.8-1 and base R (leave-one-out fits with a
+// generalised inverse). Tolerances: 1e-6 under fixed effect, 1e-4 under random effects.
+describe("hasselblad1998-rob: study importance and risk of bias of direct estimates (§13, metafor 3.8-1 + base R)", () => {
+  interface RobExpected {
+    riskOfBias: { low: number; someConcerns: number; high: number; notAssessed: number; suggestedLevels: number | null } | null;
+    importance: { study: string; value: number }[];
+  }
+  const expected = JSON.parse(readFileSync(path.join(referenceFolder, "hasselblad1998-rob.expected.json"), "utf8")) as Record<"fixed" | "random", { tau2: number; comparisons: (RobExpected & { treatment: string; comparator: string })[] }>;
+  const dataset = parseDataset(readFileSync(path.join(referenceFolder, "hasselblad1998-rob.csv")), "arm-binary");
+
+  for (const [model, tolerance] of [["fixed", 1e-6], ["random", 1e-4]] as const) {
+    const result = analyse(dataset, { measure: "OR", model, reference: "no_contact", better: "higher" });
+
+    it(`${model}: the ten most important studies of every pair, in order, with their importances`, () => {
+      expect(result.comparisons).toHaveLength(expected[model].comparisons.length);
+      for (const pair of expected[model].comparisons) {
+        const label = `${pair.treatment} vs ${pair.comparator}`;
+        const actual = comparisonOf(result, pair.treatment, pair.comparator)!;
+        expect(actual.importance.map((s) => s.study), `${label} studies`).toEqual(pair.importance.map((s) => s.study));
+        pair.importance.forEach((s, i) => closeTo(actual.importance[i]?.value, s.value, tolerance, `${label} importance of ${s.study}`));
+      }
+    });
+
+    it(`${model}: the risk-of-bias shares of every direct estimate and the suggested levels`, () => {
+      for (const pair of expected[model].comparisons) {
+        const label = `${pair.treatment} vs ${pair.comparator}`;
+        const actual = comparisonOf(result, pair.treatment, pair.comparator)!.riskOfBias;
+        if (!pair.riskOfBias) {
+          expect(actual, label).toBeNull();
+          continue;
+        }
+        for (const level of ["low", "someConcerns", "high", "notAssessed"] as const) {
+          expect(Math.abs(actual![level] - pair.riskOfBias[level]), `${label} ${level}`).toBeLessThanOrEqual(tolerance);
+        }
+        expect(actual!.suggestedLevels, `${label} suggestion`).toBe(pair.riskOfBias.suggestedLevels);
+      }
+    });
+  }
+
+  it("without the column, no direct estimate has risk-of-bias shares", () => {
+    const plain = parseDataset(readFileSync(path.join(referenceFolder, "hasselblad1998.csv")), "arm-binary");
+    const result = analyse(plain, { measure: "OR", model: "fixed", reference: "no_contact", better: "higher" });
+    expect(result.comparisons.map((c) => c.riskOfBias)).toEqual(result.comparisons.map(() => null));
+    expect(result.comparisons.every((c) => c.importance.length > 0)).toBe(true);
+  });
+});

@@ -17,8 +17,8 @@ describe("a snapshot of shape 1 (frozen before schemaVersion)", () => {
   const snapshot = readSnapshot(stored);
 
   it("is brought to the current shape and passes the declared schema", () => {
-    expect(snapshotSchemaVersion).toBe(3);
-    expect(snapshot.schemaVersion).toBe(3);
+    expect(snapshotSchemaVersion).toBe(4);
+    expect(snapshot.schemaVersion).toBe(4);
     expect(snapshot.outcomes[0]!.pairs).toHaveLength(3); // three treatments: three pairs
   });
 
@@ -63,7 +63,7 @@ describe("a snapshot of shape 1 from before conclusions were frozen", () => {
 
 describe("a snapshot that cannot be read", () => {
   it("of an unknown shape is refused with the shape named", () => {
-    expect(() => readSnapshot({ ...fixture("shape-1.json"), schemaVersion: 99 })).toThrow(new SnapshotError("a snapshot of shape 99 cannot be read (known: 1 to 3)"));
+    expect(() => readSnapshot({ ...fixture("shape-1.json"), schemaVersion: 99 })).toThrow(new SnapshotError("a snapshot of shape 99 cannot be read (known: 1 to 4)"));
   });
 
   it("that breaks the schema is refused with the path of what is wrong", () => {
@@ -81,5 +81,12 @@ describe("shape 2 → 3: thresholds of binary outcomes per 1000 people (METHODS.
   it("converts as migration 0008 does: OR 2 at 0.3 is 161.5 more per 1000, RR 1.5 at 0.2 is 100, RD 0.05 is 50 (worked by hand)", () => {
     expect(upgraded.schemaVersion).toBe(3);
     expect((upgraded.outcomes as { thresholds: { small: number | null } }[]).map((o) => o.thresholds.small)).toEqual([161.5, 100, 50, null, 3]);
+  });
+});
+
+describe("shape 3 → 4: study importances and risk of bias (METHODS.md §13)", () => {
+  it("reads them as not known in versions frozen before they were computed, and keeps what is there", () => {
+    const upgraded = upgrades[2]!({ schemaVersion: 3, outcomes: [{ pairs: [{ treatment: "a", comparator: "b" }] }] });
+    expect(upgraded).toEqual({ schemaVersion: 4, outcomes: [{ riskOfBias: null, pairs: [{ treatment: "a", comparator: "b", importance: null, riskOfBias: null }] }] });
   });
 });

@@ -1,0 +1,163 @@
+// Study importance (METHODS.md §13; Rücker, Nikolakopoulou, Papakonstantinou, Salanti, Riley &
+// Schwarzer, BMC Med Res Methodol 2020;20:190): for the pair A, B and study s,
+//   I_s(A,B) = 1 − v_N(A,B) / v_N⁽⁻ˢ⁾(A,B),
+// the loss of precision of the network estimate when s is left out, with τ² held at the full-data
+// estimate. Rather than refitting the model once per study, the information matrix without s is
+// reached by a rank-k update (Woodbury): with H = (XᵀWX)⁻¹, Xₛ the study's design rows and
+// Σₛ = Vₛ + τ²Pₛ its covariance (k contrasts),
+//   (XᵀWX − XₛᵀΣₛ⁻¹Xₛ)⁻¹ = H + HXₛᵀ(Σₛ − XₛHXₛᵀ)⁻¹XₛH.
+// Written with Σₛ = LLᵀ and the eigen-decomposition QΛQᵀ of N = I − L⁻¹XₛHXₛᵀL⁻ᵀ (eigenvalues in
+// [0, 1]), the variance of c = e_A − e_B becomes v_N + Σᵢ hᵢ²/λᵢ with h = QᵀL⁻¹XₛHc. A zero λᵢ is a
+// direction the network loses with s: if c has a part in it (hᵢ ≠ 0), A and B are no longer
+// connected (or s holds the only data on one of them) and I = 1; if not, the direction does not
+// touch A vs B, as with a generalised inverse.
+import { CholeskyDecomposition, EigenvalueDecomposition, Matrix } from "ml-matrix";
+import type { StudyBlock } from "./model";
+
+export interface StudyImportance {
+  study: string;
+  value: number;
+}
+
+/** Report per pair the studies with I ≥ 0.001, largest first, at most 10 (§13). */
+export const importanceFloor = 0.001;
+export const importanceListLength = 10;
+
+/** Below this, an eigenvalue of N is a direction the network loses entirely without the study. */
+const lostDirection = 1e-9;
+
+/** Largest first; equal importances by study label (code-point order). */
+function before(x: StudyImportance, y: StudyImportance): boolean {
+  return x.value > y.value || (x.value === y.value && x.study < y.study);
+}
+
+/** Keeps `list` sorted and at most `importanceListLength` long. */
+function insert(list: StudyImportance[], entry: StudyImportance): void {
+  if (list.length === importanceListLength && !before(entry, list[list.length - 1]!)) return;
+  let i = list.length;
+  while (i > 0 && before(entry, list[i - 1]!)) i--;
+  list.splice(i, 0, entry);
+  if (list.length > importanceListLength) list.pop();
+}
+
+/**
+ * One study's rows of R = QᵀL⁻¹XₛH (over the parameters) and the eigenvalues λ of N: what the pair
+ * loop needs. `columns` is p, the number of basic parameters.
+ */
+function studyUpdate(block: StudyBlock, H: number[][], tau2: number, columns: number): { rows: Float64Array[]; lambda: number[] } {
+  const m = block.y.length;
+  const row = (column: number) => (column >= 0 ? H[column]! : null);
+  // K = XₛH: contrast j's row is H[plus_j] − H[minus_j] (the reference has no row).
+  const K = Array.from({ length: m }, (_, j) => {
+    const k = new Float64Array(columns);
+    const plus = row(block.plus[j]!);
+    const minus = row(block.minus[j]!);
+    for (let q = 0; q < columns; q++) k[q] = (plus ? plus[q]! : 0) - (minus ? minus[q]! : 0);
+    return k;
+  });
+  const at = (k: Float64Array, column: number) => (column >= 0 ? k[column]! : 0);
+  // G = XₛHXₛᵀ.
+  const G = K.map((k) => block.plus.map((plus, l) => at(k, plus) - at(k, block.minus[l]!)));
+  const sigma = block.V.map((r, j) => r.map((v, l) => v + tau2 * (j === l ? 1 : 0.5)));
+
+  if (m === 1) {
+    const scale = 1 / Math.sqrt(sigma[0]![0]!);
+    const rowOut = K[0]!.map((v) => v * scale);
+    return { rows: [rowOut], lambda: [1 - G[0]![0]! / sigma[0]![0]!] };
+  }
+  const L = new CholeskyDecomposition(sigma).lowerTriangularMatrix;
+  const lower = inverseLower(L.to2DArray());
+  const LG = multiply(multiply(lower, G), transpose(lower));
+  const N = LG.map((r, j) => r.map((v, l) => (j === l ? 1 : 0) - v));
+  const symmetric = N.map((r, j) => r.map((v, l) => (v + N[l]![j]!) / 2));
+  const eigen = new EigenvalueDecomposition(new Matrix(symmetric), { assumeSymmetric: true });
+  const Q = eigen.eigenvectorMatrix.to2DArray();
+  const lambda = eigen.realEigenvalues;
+  // R = Qᵀ L⁻¹ K.
+  const LK = lower.map((r) => {
+    const out = new Float64Array(columns);
+    r.forEach((w, l) => {
+      if (w !== 0) for (let q = 0; q < columns; q++) out[q]! += w * K[l]![q]!;
+    });
+    return out;
+  });
+  const rows = lambda.map((_, i) => {
+    const out = new Float64Array(columns);
+    for (let j = 0; j < m; j++) {
+      const w = Q[j]![i]!;
+      for (let q = 0; q < columns; q++) out[q]! += w * LK[j]![q]!;
+    }
+    return out;
+  });
+  return { rows, lambda };
+}
+
+function inverseLower(L: number[][]): number[][] {
+  const m = L.length;
+  const inverse = Array.from({ length: m }, () => new Array<number>(m).fill(0));
+  for (let col = 0; col < m; col++) {
+    for (let i = col; i < m; i++) {
+      let sum = i === col ? 1 : 0;
+      for (let k = col; k < i; k++) sum -= L[i]![k]! * inverse[k]![col]!;
+      inverse[i]![col] = sum / L[i]![i]!;
+    }
+  }
+  return inverse;
+}
+
+function multiply(a: number[][], b: number[][]): number[][] {
+  return a.map((r) => b[0]!.map((_, j) => r.reduce((sum, v, k) => sum + v * b[k]![j]!, 0)));
+}
+
+function transpose(a: number[][]): number[][] {
+  return a[0]!.map((_, j) => a.map((r) => r[j]!));
+}
+
+/**
+ * The most important studies of every pair of `treatments` (in the engine's order: i < j), keyed
+ * "i,j" by the treatments' indices. `columnOf` maps a treatment to its parameter (−1: reference).
+ */
+export function studyImportances(
+  blocks: readonly StudyBlock[],
+  H: number[][],
+  tau2: number,
+  treatments: readonly string[],
+  columnOf: (treatment: string) => number,
+): (a: number, b: number) => StudyImportance[] {
+  const T = treatments.length;
+  const columns = H.length;
+  const column = treatments.map(columnOf);
+  const entry = (i: number, q: number) => (i >= 0 && q >= 0 ? H[i]![q]! : 0);
+  // v_N of every pair, once.
+  const variance = new Float64Array(T * T);
+  const lists: StudyImportance[][] = Array.from({ length: T * T }, () => []);
+  for (let i = 0; i < T; i++) {
+    for (let j = i + 1; j < T; j++) {
+      const a = column[i]!, b = column[j]!;
+      variance[i * T + j] = entry(a, a) + entry(b, b) - 2 * entry(a, b);
+    }
+  }
+
+  for (const block of blocks) {
+    const { rows, lambda } = studyUpdate(block, H, tau2, columns);
+    // h for a pair is R[·][a] − R[·][b]: read each treatment's column once.
+    const values = column.map((c) => rows.map((r) => (c >= 0 ? r[c]! : 0)));
+    for (let i = 0; i < T; i++) {
+      const hi = values[i]!;
+      for (let j = i + 1; j < T; j++) {
+        const hj = values[j]!;
+        const vN = variance[i * T + j]!;
+        let extra = 0;
+        let lost = false;
+        for (let k = 0; k < lambda.length; k++) {
+          const h = hi[k]! - hj[k]!;
+          if (lambda[k]! > lostDirection) extra += (h * h) / lambda[k]!;
+          else if (Math.abs(h) > 1e-6 * Math.sqrt(vN)) lost = true;
+        }
+        const value = lost ? 1 : extra / (vN + extra);
+        if (value >= importanceFloor) insert(lists[i * T + j]!, { study: block.study, value });
+      }
+    }
+  }
+  return (a, b) => (a < b ? lists[a * T + b]! : lists[b * T + a]!);
+}
