@@ -7,6 +7,7 @@ import type { ComparisonPageData } from "#web/pages/page-data";
 import { HealthCaution } from "../HealthCaution";
 import { CertaintyMark } from "./CertaintyMark";
 import { CiteBlock } from "./CiteBlock";
+import { ImportantStudies } from "./ImportantStudies";
 import { formatInterval } from "#core/effects";
 import { VersionBanners } from "./Notices";
 import { comparisonUrl, versionUrl } from "#core/urls";
@@ -130,6 +131,8 @@ function OutcomeComparison({ outcome }: { outcome: ComparisonOutcomeView }) {
           ))}
         </ol>
       ) : null}
+
+      <ImportantStudies outcome={outcome} />
     </section>
   );
 }

@@ -10,6 +10,7 @@ import { CertaintyMark } from "./CertaintyMark";
 import { formatInterval } from "#core/effects";
 import { GroupList } from "./GroupList";
 import { RankScores } from "./RankScores";
+import { RiskOfBiasEvidence } from "./RiskOfBiasEvidence";
 import { flipInterval, pairFinder } from "#core/pairs";
 import { comparisonUrl, type VersionAddress } from "#core/urls";
 import { Message } from "../Message";
@@ -138,6 +139,8 @@ export function OutcomeSection({ outcome, version }: { outcome: OutcomeView; ver
           </tbody>
         </table>
       </details>
+
+      <RiskOfBiasEvidence outcome={outcome} />
 
       <details className="mt-6 border-t border-rule pt-4" data-testid="league">
         <summary className="cursor-pointer font-sans font-semibold">{t("brief.leagueTable")}</summary>

@@ -3,13 +3,16 @@ import { useState } from "react";
 import { useTranslation } from "react-i18next";
 import { Link, useParams } from "react-router";
 import type { ComparisonCertainty, ComparisonJudgement } from "#core/grade/assess";
-import { ratings, type Downgrade, type Rating } from "#core/grade/certainty";
+import { ratings, type Downgrade, type Rating, type Suggestion } from "#core/grade/certainty";
+import type { RiskOfBiasShares } from "#core/nma/risk-of-bias";
 import { formatInterval } from "#core/effects";
 import { comparisonOf } from "#core/nma/comparison";
 import { buttonClass, inputClass } from "./forms";
 import { useCertainty, useResult, useSaveJudgement, useSaveJudgements } from "./queries";
 
 const domains = ["riskOfBias", "inconsistency", "indirectness", "publicationBias"] as const;
+/** The bulk form's value for "each pair's own risk-of-bias suggestion". */
+const suggested = "suggested";
 
 export function CertaintyScreen({ canJudge }: { canJudge: boolean }) {
   const { t } = useTranslation();
@@ -40,7 +43,13 @@ export function CertaintyScreen({ canJudge }: { canJudge: boolean }) {
       chosen.map((c) => ({
         treatment: c.treatment,
         comparator: c.comparator,
-        judgement: { ...c.judgement, incoherence: { levels: c.suggestions.incoherence.levels, reason: "" }, imprecision: { levels: c.suggestions.imprecision.levels, reason: "" } },
+        judgement: {
+          ...c.judgement,
+          // The risk-of-bias suggestion (METHODS.md §13) where the pair's direct evidence is already judged; the other domains stay the analyst's.
+          ...(c.judgement.direct && c.suggestions.riskOfBias ? { direct: { ...c.judgement.direct, riskOfBias: { levels: c.suggestions.riskOfBias.levels as Downgrade["levels"], reason: "" } } } : {}),
+          incoherence: { levels: c.suggestions.incoherence.levels, reason: "" },
+          imprecision: { levels: c.suggestions.imprecision.levels, reason: "" },
+        },
       })),
     );
   return (
@@ -123,7 +132,7 @@ export function CertaintyScreen({ canJudge }: { canJudge: boolean }) {
       {comparisons
         .filter((c) => open === keyOf(c))
         .map((c) => (
-          <JudgementForm key={keyOf(c)} outcomeId={outcomeId} comparison={c} />
+          <JudgementForm key={keyOf(c)} outcomeId={outcomeId} comparison={c} shares={comparisonOf(analysed, c.treatment, c.comparator)?.riskOfBias ?? null} />
         ))}
     </>
   );
@@ -133,6 +142,7 @@ export function CertaintyScreen({ canJudge }: { canJudge: boolean }) {
 function DirectBulkForm({ chosen, busy, onApply }: { chosen: ComparisonCertainty[]; busy: boolean; onApply: (items: { treatment: string; comparator: string; judgement: ComparisonJudgement }[]) => void }) {
   const { t } = useTranslation();
   const withDirect = chosen.filter((c) => c.direct !== null || c.pending.includes("direct"));
+  const anySuggestion = withDirect.some((c) => c.suggestions.riskOfBias !== null);
   return (
     <form
       className="grid gap-2"
@@ -146,7 +156,10 @@ function DirectBulkForm({ chosen, busy, onApply }: { chosen: ComparisonCertainty
           return { levels, reason: levels > 0 ? reason : "" };
         };
         const direct = { riskOfBias: domain("riskOfBias"), inconsistency: domain("inconsistency"), indirectness: domain("indirectness"), publicationBias: domain("publicationBias") };
-        onApply(withDirect.map((c) => ({ treatment: c.treatment, comparator: c.comparator, judgement: { ...c.judgement, direct } })));
+        // "As suggested": each pair takes its own computed risk-of-bias suggestion, without a reason (none to depart from).
+        const riskOfBias = (c: ComparisonCertainty): Downgrade =>
+          data.get("riskOfBias") === suggested ? { levels: (c.suggestions.riskOfBias?.levels ?? 0) as Downgrade["levels"], reason: "" } : direct.riskOfBias;
+        onApply(withDirect.map((c) => ({ treatment: c.treatment, comparator: c.comparator, judgement: { ...c.judgement, direct: { ...direct, riskOfBias: riskOfBias(c) } } })));
       }}
     >
       <p className="font-semibold">{t("desk.bulk.directTitle", { count: withDirect.length })}</p>
@@ -154,7 +167,8 @@ function DirectBulkForm({ chosen, busy, onApply }: { chosen: ComparisonCertainty
         {domains.map((d) => (
           <label key={d} className="grid gap-1">
             <span>{t(`desk.domain.${d}`)}</span>
-            <select name={d} defaultValue="0" className={inputClass}>
+            <select key={String(anySuggestion)} name={d} defaultValue={d === "riskOfBias" && anySuggestion ? suggested : "0"} className={inputClass}>
+              {d === "riskOfBias" && anySuggestion ? <option value={suggested}>{t("desk.riskOfBias.asSuggested")}</option> : null}
               {[0, 1, 2].map((level) => (
                 <option key={level} value={level}>{t(`desk.levels.${level}`)}</option>
               ))}
@@ -167,6 +181,19 @@ function DirectBulkForm({ chosen, busy, onApply }: { chosen: ComparisonCertainty
         <button type="submit" className="border border-ink px-5 py-2 font-semibold" disabled={withDirect.length === 0 || busy}>{t("desk.bulk.applyDirect", { count: withDirect.length })}</button>
       </div>
     </form>
+  );
+}
+
+/** The direct evidence's shares by risk of bias (METHODS.md §13) and what they suggest: advice beside the domain, never a rule. */
+function RiskOfBiasAdvice({ shares, suggestion }: { shares: RiskOfBiasShares | null; suggestion: Suggestion | null }) {
+  const { t } = useTranslation();
+  if (!shares) return <p className="mt-1 text-muted">{t("desk.riskOfBias.noColumn")}</p>;
+  const percent = (x: number) => Math.round(100 * x);
+  return (
+    <p className="mt-1 text-muted" data-testid="risk-of-bias-advice">
+      {t("desk.riskOfBias.shares", { low: percent(shares.low), someConcerns: percent(shares.someConcerns), high: percent(shares.high), notAssessed: percent(shares.notAssessed) })}{" "}
+      {suggestion ? `${t("desk.suggested", { levels: suggestion.levels })} ${t(suggestion.because.key, suggestion.because.values)}` : t("desk.riskOfBias.noSuggestion")}
+    </p>
   );
 }
 
@@ -188,8 +215,9 @@ function DowngradeField({ name, label, value }: { name: string; label: string; v
   );
 }
 
-function JudgementForm({ outcomeId, comparison }: { outcomeId: string; comparison: ComparisonCertainty }) {
+function JudgementForm({ outcomeId, comparison, shares }: { outcomeId: string; comparison: ComparisonCertainty; shares: RiskOfBiasShares | null }) {
   const { t } = useTranslation();
+  const robSuggestion = comparison.suggestions.riskOfBias;
   const save = useSaveJudgement(outcomeId);
   const j = comparison.judgement;
   const hasDirect = comparison.direct !== null || comparison.pending.includes("direct");
@@ -220,7 +248,18 @@ function JudgementForm({ outcomeId, comparison }: { outcomeId: string; compariso
       <h2 className="text-lg font-semibold">
         {comparison.treatment} vs {comparison.comparator}
       </h2>
-      {hasDirect ? domains.map((d) => <DowngradeField key={d} name={d} label={t(`desk.domain.${d}`)} value={j.direct?.[d]} />) : null}
+      {hasDirect
+        ? domains.map((d) =>
+            d === "riskOfBias" ? (
+              <div key={d}>
+                <DowngradeField name={d} label={t(`desk.domain.${d}`)} value={j.direct?.riskOfBias ?? (robSuggestion ? { levels: robSuggestion.levels as Downgrade["levels"], reason: "" } : undefined)} />
+                <RiskOfBiasAdvice shares={shares} suggestion={robSuggestion} />
+              </div>
+            ) : (
+              <DowngradeField key={d} name={d} label={t(`desk.domain.${d}`)} value={j.direct?.[d]} />
+            ),
+          )
+        : null}
       {hasLoop && hasIndirect ? <DowngradeField name="intransitivity" label={t("desk.domain.intransitivity", { via: comparison.indirectVia })} value={j.intransitivity} /> : null}
       {hasIndirect && !hasLoop ? (
         <fieldset className="grid gap-2 sm:grid-cols-[14rem_12rem_1fr] sm:items-center">

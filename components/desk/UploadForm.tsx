@@ -60,6 +60,7 @@ export function UploadForm({
         <p role="status" className="mt-3">
           {t("desk.uploadValid", { studies: report.studies, treatments: report.treatments?.length })}
           {report.excludedStudies?.length ? ` ${t("desk.excluded", { studies: report.excludedStudies.join(", ") })}` : null}
+          {report.riskOfBias ? <span className="block" data-testid="risk-of-bias-counts">{t("desk.riskOfBias.counts", report.riskOfBias)}</span> : null}
         </p>
       ) : null}
       {report && !report.valid ? (

@@ -46,6 +46,8 @@ export interface OutcomeView {
   methods: OutcomeSnapshot["methods"] & { fileName: string; sha256: string; baselineRisk: number | null };
   /** Pairs whose direct and indirect estimates disagree (p < 0.05, METHODS.md §5): said in words on the page. */
   incoherentPairs: number;
+  /** How much of the evidence comes from studies at each risk of bias (METHODS.md §13); null without judgements. */
+  riskOfBias: OutcomeSnapshot["riskOfBias"];
 }
 
 export interface BriefHeader {
@@ -159,6 +161,7 @@ function outcomeView(outcome: OutcomeSnapshot, index: number, named: (id: string
     },
     methods: { ...methods, fileName: outcome.dataset.fileName, sha256: outcome.dataset.sha256, baselineRisk: outcome.baselineRisk },
     incoherentPairs: outcome.pairs.filter((p) => p.incoherenceP !== null && p.incoherenceP < 0.05).length,
+    riskOfBias: outcome.riskOfBias,
   };
 }
 
@@ -185,6 +188,10 @@ export interface ComparisonOutcomeView {
   direct: (Interval & { studies: number; participants: number | null }) | null;
   indirect: Interval | null;
   footnotes: Footnote[];
+  /** The studies that matter most (METHODS.md §13), largest first; null in versions frozen before they were computed. */
+  importance: PairFacts["importance"];
+  /** Whether the data carry risk-of-bias judgements at all (else every study reads "not assessed" without meaning it). */
+  judged: boolean;
 }
 
 /** What a version holds about one comparison; the page adds the reader's PageState. */
@@ -217,6 +224,8 @@ export function comparisonContent(snapshot: VersionSnapshot, a: string, b: strin
       direct: pair.direct ? { ...oriented(pair.direct, flipped), studies: pair.direct.studies, participants: pair.direct.participants } : null,
       indirect: pair.indirect ? oriented(pair.indirect, flipped) : null,
       footnotes: pair.footnotes,
+      importance: pair.importance,
+      judged: outcome.riskOfBias !== null,
     });
   });
   if (outcomes.length === 0) return null;

@@ -34,7 +34,7 @@ export async function storeDataset(db: Database, outcome: OutcomeRow, file: { na
       before: null,
       after: { datasetId: dataset.id, fileName: file.name, sha256, format, resultId: stored.id },
     });
-    return { dataset, resultId: stored.id, result };
+    return { dataset, resultId: stored.id, result, parsed };
   });
 }
 

@@ -64,7 +64,7 @@ async function translateDemoBrief(db: Database, briefId: string, texts: (typeof 
 
 /**
  * Goes the way a real brief goes: an analyst creates it, uploads the data and records certainty
- * (no domain rated down, every computed suggestion confirmed: a demonstration, not an appraisal);
+ * (every computed suggestion confirmed, the invented risk of bias included, and no other domain rated down: a demonstration, not an appraisal);
  * an editor writes its texts; the analyst submits it for review; the editor approves and publishes it.
  */
 async function publishDemoBrief(db: Database, demo: ReturnType<typeof demoBriefs>[number], analystId: string, editorId: string) {
@@ -96,7 +96,9 @@ async function publishDemoBrief(db: Database, demo: ReturnType<typeof demoBriefs
         db,
         { outcomeId: outcome.id, treatment: comparison.treatment, comparator: comparison.comparator },
         {
-          ...(comparison.pending.includes("direct") ? { direct: { riskOfBias: none, inconsistency: none, indirectness: none, publicationBias: none } } : {}),
+          ...(comparison.pending.includes("direct")
+            ? { direct: { riskOfBias: { levels: (comparison.suggestions.riskOfBias?.levels ?? 0) as 0 | 1 | 2, reason: "" }, inconsistency: none, indirectness: none, publicationBias: none } }
+            : {}),
           ...(comparison.pending.includes("indirect") && !comparison.indirectVia ? { indirectRating: { rating: "low" as const, reason: "Fictional demonstration: no first-order loop." } } : {}),
           incoherence: { levels: comparison.suggestions.incoherence.levels, reason: "" },
           imprecision: { levels: comparison.suggestions.imprecision.levels, reason: "" },

@@ -100,7 +100,7 @@ describe("data upload", () => {
 
     const brief = await analyst.request("GET", `/api/briefs/${briefId}`);
     const outcome = (brief.body.brief as { outcomes: { analysis: { state: string; engineVersion: string } }[] }).outcomes[0]!;
-    expect(outcome.analysis).toMatchObject({ state: "current", engineVersion: "1.0.0" });
+    expect(outcome.analysis).toMatchObject({ state: "current", engineVersion: "1.1.0" });
   });
 
   it("answers a broken file with 422 and row-level errors, and keeps the data stored before", async () => {

@@ -1,6 +1,7 @@
 // The public site against the production build (as `npm start` serves it) and the test cluster:
 // caching of released versions, the embargo, withdrawal, citations, downloads, feed and sitemap.
 import { gzipSync } from "node:zlib";
+import { parse } from "csv-parse/sync";
 import { Cite } from "@citation-js/core";
 import "@citation-js/plugin-bibtex";
 import "@citation-js/plugin-ris";
@@ -258,11 +259,23 @@ describe("downloads", () => {
     expect(results.headers.get("content-type")).toContain("text/csv");
     const lines = (await results.text()).trim().split("\n");
     // Each estimate column states its scale, and reader names stand beside the labels of the data.
-    expect(lines[0]).toBe("outcome,treatment,treatment_name,comparator,comparator_name,measure,scale,model,estimate,se,lower,upper,direct_estimate,direct_se,direct_studies,indirect_estimate,indirect_se,incoherence_p,certainty");
+    expect(lines[0]).toBe(
+      "outcome,treatment,treatment_name,comparator,comparator_name,measure,scale,model,estimate,se,lower,upper,direct_estimate,direct_se,direct_studies,indirect_estimate,indirect_se,incoherence_p,certainty," +
+        "direct_weight_low_risk_of_bias,direct_weight_some_concerns,direct_weight_high_risk_of_bias,direct_weight_not_assessed,important_studies",
+    );
+    // The studies that matter most (METHODS.md §13), "label:importance" largest first, and the direct weight by risk of bias.
+    const combinedVsLight = (parse(lines.join("\n"), { columns: true }) as Record<string, string>[]).find((row) => row.treatment === "combined" && row.comparator === "light")!;
+    expect(combinedVsLight.important_studies).toMatch(/^D\d{3}:0\.\d+(; D\d{3}:[\d.e-]+)*$/);
+    const shares = ["direct_weight_low_risk_of_bias", "direct_weight_some_concerns", "direct_weight_high_risk_of_bias", "direct_weight_not_assessed"].map((c) => Number(combinedVsLight[c]));
+    expect(shares.reduce((a, b) => a + b, 0)).toBeCloseTo(1, 12);
     expect(lines[1]).toMatch(/^Good sleep on most days at 4 weeks,combined,Light sessions with nap schedule,drug_k,Sleep aid K \(fictional\),OR,log odds ratio,random,/);
     expect(lines).toHaveLength(1 + 2 * 15); // two outcomes, 15 pairs of 6 treatments each
     const inputs = (await (await get(`${base}/inputs.json`)).json()) as { outcomes: { studies: unknown[] }[] };
     expect(inputs.outcomes[0]!.studies).toHaveLength(15);
+    // The invented risk-of-bias column travels with the inputs, in the words of the input format.
+    const inputRows = (await (await get(`${base}/inputs.csv`)).text()).trim().split("\n");
+    expect(inputRows[0]!.endsWith(",risk_of_bias")).toBe(true);
+    expect(inputRows.filter((row) => row.endsWith(",some concerns")).length).toBeGreaterThan(0);
     expect((await get(`${base}/nothing.csv`)).status).toBe(404);
   });
 });

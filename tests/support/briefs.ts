@@ -10,7 +10,7 @@ import { type ApiClient, demoClient } from "./client";
 const hasselbladCsv = readFileSync(path.resolve(__dirname, "../fixtures/reference/hasselblad1998.csv"));
 
 /** Created, with its outcome and data analysed, and nothing else: not ready to approve. */
-export async function draftBrief(analyst: ApiClient, title: string) {
+export async function draftBrief(analyst: ApiClient, title: string, csv: Buffer = hasselbladCsv) {
   const created = await analyst.request("POST", "/api/briefs", { json: { title, topic: "Smoking", condition: "Tobacco dependence", population: "Adults who smoke" } });
   expect(created.status).toBe(201);
   const briefId = String(created.body.id);
@@ -18,7 +18,7 @@ export async function draftBrief(analyst: ApiClient, title: string) {
     json: { name: "Quit smoking", kind: "binary", measure: "OR", model: "random", referenceTreatment: "no_contact", direction: "higher", baselineRisk: 0.07 },
   });
   const outcomeId = String((outcome.body.outcome as { id: string }).id);
-  const upload = await analyst.upload(`/api/outcomes/${outcomeId}/dataset`, { name: "h.csv", bytes: hasselbladCsv }, { format: "arm-binary" });
+  const upload = await analyst.upload(`/api/outcomes/${outcomeId}/dataset`, { name: "h.csv", bytes: csv }, { format: "arm-binary" });
   expect(upload.status).toBe(200);
   return { briefId, slug: String(created.body.slug), outcomeId };
 }
@@ -35,7 +35,7 @@ async function editorAt(baseUrl: string): Promise<ApiClient> {
   return editor;
 }
 
-/** Every comparison rated as the analyst would confirm the suggestions, nothing rated down (invented judgements). */
+/** Every comparison rated as the analyst would confirm the suggestions (risk of bias where the data carry it), nothing else rated down (invented judgements). */
 export async function rateEveryComparison(analyst: ApiClient, outcomeId: string, which: (c: Certainty) => boolean = () => true) {
   const { body } = await analyst.request("GET", `/api/outcomes/${outcomeId}/certainty`);
   const none = { levels: 0, reason: "" };
@@ -43,7 +43,7 @@ export async function rateEveryComparison(analyst: ApiClient, outcomeId: string,
     // A judgement is saved whole: what was recorded before is kept, the pending parts are added.
     const judgement = {
       ...c.judgement,
-      ...(c.pending.includes("direct") ? { direct: { riskOfBias: none, inconsistency: none, indirectness: none, publicationBias: none } } : {}),
+      ...(c.pending.includes("direct") ? { direct: { riskOfBias: { levels: c.suggestions.riskOfBias?.levels ?? 0, reason: "" }, inconsistency: none, indirectness: none, publicationBias: none } } : {}),
       ...(c.pending.includes("indirect") && !c.indirectVia ? { indirectRating: { rating: "moderate", reason: "Test data: no first-order loop." } } : {}),
       incoherence: { levels: c.suggestions.incoherence.levels, reason: "" },
       imprecision: { levels: c.suggestions.imprecision.levels, reason: "" },
@@ -54,8 +54,8 @@ export async function rateEveryComparison(analyst: ApiClient, outcomeId: string,
 }
 
 /** A draft ready to approve: names for readers, every comparison rated (or those `which` picks), the editor's two texts. */
-export async function analysedBrief(analyst: ApiClient, title: string, which?: (c: Certainty) => boolean) {
-  const brief = await draftBrief(analyst, title);
+export async function analysedBrief(analyst: ApiClient, title: string, which?: (c: Certainty) => boolean, csv?: Buffer) {
+  const brief = await draftBrief(analyst, title, csv);
   const names = { no_contact: "No contact", self_help: "Self-help material", ind_counseling: "Individual counselling", grp_counseling: "Group counselling" };
   expect((await analyst.request("PUT", `/api/briefs/${brief.briefId}/treatments`, { json: { names } })).status).toBe(200);
   await rateEveryComparison(analyst, brief.outcomeId, which);

@@ -53,9 +53,9 @@ const reading = z.object({
 
 /** A study as the upload's parser read it (METHODS.md §1), with the line of the file of each row. */
 const parsedStudy = z.discriminatedUnion("format", [
-  z.looseObject({ format: z.literal("arm-binary"), study: text, arms: z.array(z.looseObject({ treatment: text, events: finite, total: finite, row: finite })) }),
-  z.looseObject({ format: z.literal("arm-continuous"), study: text, arms: z.array(z.looseObject({ treatment: text, mean: finite, sd: finite, n: finite, row: finite })) }),
-  z.looseObject({ format: z.literal("contrast"), study: text, contrasts: z.array(z.looseObject({ treatment1: text, treatment2: text, estimate: finite, se: finite, row: finite })) }),
+  z.looseObject({ format: z.literal("arm-binary"), study: text, riskOfBias: riskOfBiasLevel.optional(), arms: z.array(z.looseObject({ treatment: text, events: finite, total: finite, row: finite })) }),
+  z.looseObject({ format: z.literal("arm-continuous"), study: text, riskOfBias: riskOfBiasLevel.optional(), arms: z.array(z.looseObject({ treatment: text, mean: finite, sd: finite, n: finite, row: finite })) }),
+  z.looseObject({ format: z.literal("contrast"), study: text, riskOfBias: riskOfBiasLevel.optional(), contrasts: z.array(z.looseObject({ treatment1: text, treatment2: text, estimate: finite, se: finite, row: finite })) }),
 ]);
 
 const outcomeSnapshot = z.object({

@@ -170,7 +170,17 @@ export type Translation = TranslationView;
 
 /** PUT /api/outcomes/:id/dataset: 200 with the file's summary, or 422 with its issues (nothing stored). */
 export type UploadReport =
-  | { valid: true; datasetId: string; sha256: string; studies: number; treatments: string[]; excludedStudies: string[]; resultId: string }
+  | {
+      valid: true;
+      datasetId: string;
+      sha256: string;
+      studies: number;
+      treatments: string[];
+      excludedStudies: string[];
+      /** Studies in the file per risk of bias (METHODS.md §13); null when the file has no risk_of_bias column. */
+      riskOfBias: { low: number; someConcerns: number; high: number; notAssessed: number } | null;
+      resultId: string;
+    }
   | { valid: false; error: { key: string; message: string }; issues: DatasetIssue[] };
 
 export interface ApiAnswers {

@@ -2,6 +2,7 @@
 import { Router, type Response } from "express";
 import multer from "multer";
 import { z } from "zod";
+import { evidenceByRiskOfBias } from "#core/snapshot/facts";
 import { DatasetError, formats } from "#core/nma/types";
 import { latestResult } from "#db/analyses";
 import type { Database } from "#db/client";
@@ -84,6 +85,7 @@ export function outcomeRoutes(db: Database): Router {
         studies: stored.result.studies,
         treatments: stored.result.treatments,
         excludedStudies: stored.result.excludedStudies,
+        riskOfBias: evidenceByRiskOfBias(stored.parsed.studies, [])?.studies ?? null,
         resultId: stored.resultId,
       });
     } catch (error) {

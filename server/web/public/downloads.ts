@@ -14,19 +14,23 @@ function csv(header: string[], rows: (string | number | null)[][]): string {
   return stringify([header, ...rows.map((row) => row.map(neutralise))], { cast: { number: (value) => String(value) } });
 }
 
+/** A study's risk of bias as the input format writes it (METHODS.md §1); empty when not assessed or not given. */
+const riskOfBiasWords = { low: "low", "some-concerns": "some concerns", high: "high" } as const;
+
 export function inputsCsv(snapshot: VersionSnapshot): string {
   const rows = snapshot.outcomes.flatMap((outcome) =>
     outcome.dataset.parsed.studies.flatMap((study) => {
+      const rob = study.riskOfBias ? riskOfBiasWords[study.riskOfBias] : null;
       if (study.format === "contrast") {
-        return study.contrasts.map((c) => [outcome.name, study.study, c.treatment1, c.treatment2, null, null, null, null, null, c.estimate, c.se]);
+        return study.contrasts.map((c) => [outcome.name, study.study, c.treatment1, c.treatment2, null, null, null, null, null, c.estimate, c.se, rob]);
       }
       if (study.format === "arm-binary") {
-        return study.arms.map((a) => [outcome.name, study.study, a.treatment, null, a.events, a.total, null, null, null, null, null]);
+        return study.arms.map((a) => [outcome.name, study.study, a.treatment, null, a.events, a.total, null, null, null, null, null, rob]);
       }
-      return study.arms.map((a) => [outcome.name, study.study, a.treatment, null, null, null, a.mean, a.sd, a.n, null, null]);
+      return study.arms.map((a) => [outcome.name, study.study, a.treatment, null, null, null, a.mean, a.sd, a.n, null, null, rob]);
     }),
   );
-  return csv(["outcome", "study", "treatment", "comparator", "events", "total", "mean", "sd", "n", "estimate", "se"], rows);
+  return csv(["outcome", "study", "treatment", "comparator", "events", "total", "mean", "sd", "n", "estimate", "se", "risk_of_bias"], rows);
 }
 
 /** What the estimate columns of results.csv are on: the analysis scale (ratios are exponentiated only for display). */
@@ -55,12 +59,19 @@ export function resultsCsv(snapshot: VersionSnapshot): string {
       pair.indirect?.se ?? null,
       pair.incoherenceP,
       pair.certainty ?? "not assessed",
+      pair.riskOfBias?.low ?? null,
+      pair.riskOfBias?.someConcerns ?? null,
+      pair.riskOfBias?.high ?? null,
+      pair.riskOfBias?.notAssessed ?? null,
+      // The studies that matter most (§13), "label:importance" largest first; empty in versions frozen before they were computed.
+      pair.importance?.map((s) => `${s.study}:${Number(s.value.toPrecision(6))}`).join("; ") ?? null,
     ]),
   );
   return csv(
     [
       "outcome", "treatment", "treatment_name", "comparator", "comparator_name", "measure", "scale", "model", "estimate", "se", "lower", "upper",
       "direct_estimate", "direct_se", "direct_studies", "indirect_estimate", "indirect_se", "incoherence_p", "certainty",
+      "direct_weight_low_risk_of_bias", "direct_weight_some_concerns", "direct_weight_high_risk_of_bias", "direct_weight_not_assessed", "important_studies",
     ],
     rows,
   );
