@@ -114,6 +114,7 @@ export function CertaintyScreen({ canJudge }: { canJudge: boolean }) {
                   <td className="py-2 pe-3 font-semibold">{c.network ? t(`certainty.rating.${c.network}`) : t("desk.notRated")}</td>
                   <td className="py-2 pe-3 text-xs">
                     {t("desk.suggestedShort", { incoherence: c.suggestions.incoherence.levels, imprecision: c.suggestions.imprecision.levels })}
+                    {c.suggestions.riskOfBias ? <span className="block">{t("desk.riskOfBias.suggestedShort", { levels: c.suggestions.riskOfBias.levels })}</span> : null}
                   </td>
                   <td className="py-2 pe-3">{c.pending.map((p) => t(`desk.pending.${p}`)).join(", ")}</td>
                   <td className="py-2">

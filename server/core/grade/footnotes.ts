@@ -12,7 +12,7 @@ export function certaintyFootnotes(certainty: ComparisonCertainty): Footnote[] {
       if (downgrade.levels === 0) continue;
       // A confirmed risk-of-bias suggestion (§13) is explained by what it was computed from.
       const because = domain === "riskOfBias" && !downgrade.reason ? (suggestions.riskOfBias?.because ?? null) : null;
-      notes.push({ domainKey: `desk.domain.${domain}`, levels: downgrade.levels, reason: downgrade.reason || null, because });
+      notes.push({ domainKey: `certainty.domain.${domain}`, levels: downgrade.levels, reason: downgrade.reason || null, because });
     }
   }
   if (judgement.intransitivity && judgement.intransitivity.levels > 0) {
@@ -24,7 +24,7 @@ export function certaintyFootnotes(certainty: ComparisonCertainty): Footnote[] {
   for (const domain of ["incoherence", "imprecision"] as const) {
     const decision = judgement[domain];
     if (decision && decision.levels > 0) {
-      notes.push({ domainKey: `desk.domain.${domain}`, levels: decision.levels, reason: decision.reason || null, because: decision.reason ? null : suggestions[domain].because });
+      notes.push({ domainKey: `certainty.domain.${domain}`, levels: decision.levels, reason: decision.reason || null, because: decision.reason ? null : suggestions[domain].because });
     }
   }
   return notes;

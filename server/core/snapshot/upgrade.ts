@@ -61,13 +61,20 @@ function upgrade2to3(snapshot: Stored): Stored {
 /**
  * 3 → 4: study importances and risk of bias (METHODS.md §13) were not computed when these versions
  * were frozen; they read as not known (null), and the pages say so, rather than being computed now.
+ * Footnotes name their domain by a key of the public pages' strings.
  */
 function upgrade3to4(snapshot: Stored): Stored {
   type Outcome = { pairs: Record<string, unknown>[] };
   const outcomes = (snapshot.outcomes as unknown as Outcome[]).map((outcome) => ({
     riskOfBias: null,
     ...outcome,
-    pairs: outcome.pairs.map((pair) => ({ importance: null, riskOfBias: null, ...pair })),
+    pairs: outcome.pairs.map((pair) => ({
+      importance: null,
+      riskOfBias: null,
+      ...pair,
+      // The domains' words moved to the public pages' own strings (certainty.domain.*): the desk's are not loaded there.
+      footnotes: (pair.footnotes as { domainKey: string }[]).map((note) => ({ ...note, domainKey: note.domainKey.replace(/^desk\.domain\./, "certainty.domain.") })),
+    })),
   }));
   return { ...snapshot, schemaVersion: 4, outcomes } as unknown as Stored;
 }

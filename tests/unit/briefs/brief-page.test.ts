@@ -100,8 +100,8 @@ describe("certainty footnotes", () => {
       pending: [],
     });
     expect(notes).toEqual([
-      { domainKey: "desk.domain.riskOfBias", levels: 1, reason: "Allocation was not concealed.", because: null },
-      { domainKey: "desk.domain.imprecision", levels: 1, reason: null, because: { key: "certainty.imprecision.null", values: { count: 1 } } },
+      { domainKey: "certainty.domain.riskOfBias", levels: 1, reason: "Allocation was not concealed.", because: null },
+      { domainKey: "certainty.domain.imprecision", levels: 1, reason: null, because: { key: "certainty.imprecision.null", values: { count: 1 } } },
     ]);
   });
 });

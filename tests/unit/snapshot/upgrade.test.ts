@@ -33,7 +33,7 @@ describe("a snapshot of shape 1 (frozen before schemaVersion)", () => {
     expect(comparison.direct!.estimate).toBeCloseTo(sign * pair.direct.estimate, 12);
     expect(comparison.direct!.upper - comparison.direct!.estimate).toBeCloseTo(z975 * pair.direct.se, 12);
     // The analyst's reason for rating down, as its footnote.
-    expect(comparison.footnotes).toContainEqual({ domainKey: "desk.domain.riskOfBias", levels: 1, reason: "Allocation was not concealed in s1.", because: null });
+    expect(comparison.footnotes).toContainEqual({ domainKey: "certainty.domain.riskOfBias", levels: 1, reason: "Allocation was not concealed in s1.", because: null });
   });
 
   it("keeps the conclusions it froze", () => {
@@ -85,8 +85,13 @@ describe("shape 2 → 3: thresholds of binary outcomes per 1000 people (METHODS.
 });
 
 describe("shape 3 → 4: study importances and risk of bias (METHODS.md §13)", () => {
+  it("names the footnotes' domains by the public pages' own keys", () => {
+    const upgraded = upgrades[2]!({ schemaVersion: 3, outcomes: [{ pairs: [{ footnotes: [{ domainKey: "desk.domain.imprecision" }, { domainKey: "certainty.footnote.intransitivity" }] }] }] });
+    expect((upgraded.outcomes[0]!.pairs as { footnotes: unknown[] }[])[0]!.footnotes).toEqual([{ domainKey: "certainty.domain.imprecision" }, { domainKey: "certainty.footnote.intransitivity" }]);
+  });
+
   it("reads them as not known in versions frozen before they were computed, and keeps what is there", () => {
-    const upgraded = upgrades[2]!({ schemaVersion: 3, outcomes: [{ pairs: [{ treatment: "a", comparator: "b" }] }] });
-    expect(upgraded).toEqual({ schemaVersion: 4, outcomes: [{ riskOfBias: null, pairs: [{ treatment: "a", comparator: "b", importance: null, riskOfBias: null }] }] });
+    const upgraded = upgrades[2]!({ schemaVersion: 3, outcomes: [{ pairs: [{ treatment: "a", comparator: "b", footnotes: [] }] }] });
+    expect(upgraded).toEqual({ schemaVersion: 4, outcomes: [{ riskOfBias: null, pairs: [{ treatment: "a", comparator: "b", importance: null, riskOfBias: null, footnotes: [] }] }] });
   });
 });
