@@ -3,7 +3,7 @@ import { Link, useParams } from "react-router";
 import { OutcomeForm } from "./OutcomeForm";
 import { TreatmentNamesForm } from "./TreatmentNamesForm";
 import { ApiError } from "./api";
-import { previewMarkdown, useBrief, useCreateOutcome, useDeleteOutcome, useNameTreatments, useSaveTexts, useUpdateOutcome, useUploadDataset } from "./queries";
+import { previewMarkdown, useAnalyseAgain, useBrief, useCreateOutcome, useDeleteOutcome, useNameTreatments, useSaveTexts, useUpdateOutcome, useUploadDataset } from "./queries";
 import { ReleasePanel } from "./ReleasePanel";
 import { TextsForm } from "./TextsForm";
 import type { OutcomeSummary } from "#web/api/contract";
@@ -68,6 +68,7 @@ function OutcomePanel({ briefId, outcome, canAnalyse }: { briefId: string; outco
   const upload = useUploadDataset(briefId, outcome.id);
   const update = useUpdateOutcome(briefId, outcome.id);
   const remove = useDeleteOutcome(briefId, outcome.id);
+  const analyseAgain = useAnalyseAgain(briefId, outcome.id);
   return (
     <section className="mt-4 border border-rule bg-white p-5" aria-label={outcome.name}>
       <h3 className="text-xl font-semibold">{outcome.name}</h3>
@@ -82,7 +83,17 @@ function OutcomePanel({ briefId, outcome, canAnalyse }: { briefId: string; outco
             <Link to={`/briefs/${briefId}/outcomes/${outcome.id}`}>{t("desk.results")}</Link>
           </>
         ) : null}
+        {canAnalyse && outcome.analysis.state === "stale" ? (
+          <>
+            {" · "}
+            <button type="button" className="text-accent underline" disabled={analyseAgain.isPending} onClick={() => analyseAgain.mutate()}>
+              {analyseAgain.isPending ? t("desk.saving") : t("desk.analysis.runAgain")}
+            </button>
+          </>
+        ) : null}
       </p>
+      {analyseAgain.isSuccess ? <p role="status" className="mt-1 font-sans text-sm">{t("desk.analysis.ranAgain")}</p> : null}
+      {analyseAgain.error ? <p role="alert" className="mt-1 font-sans text-sm text-accent">{t("desk.error", { message: analyseAgain.error.message })}</p> : null}
       {canAnalyse ? (
         <details className="mt-4 font-sans">
           <summary className="cursor-pointer font-semibold">{t("desk.editOutcome")}</summary>

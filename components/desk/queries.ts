@@ -109,6 +109,19 @@ export function useDeleteOutcome(briefId: string, outcomeId: string) {
   });
 }
 
+/** Analyses the stored data again (a result of an earlier engine or settings is stale). */
+export function useAnalyseAgain(briefId: string, outcomeId: string) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: () => callApi<{ resultId: string }>("POST", `/api/outcomes/${outcomeId}/analysis`),
+    onSuccess: () => {
+      void queryClient.invalidateQueries({ queryKey: queryKeys.brief(briefId) });
+      void queryClient.invalidateQueries({ queryKey: queryKeys.certainty(outcomeId) });
+      void queryClient.invalidateQueries({ queryKey: queryKeys.result(outcomeId) });
+    },
+  });
+}
+
 /** A rejected file is an answer, not a failure: its report comes back either way. */
 export function useUploadDataset(briefId: string, outcomeId: string) {
   const queryClient = useQueryClient();

@@ -75,6 +75,7 @@ export const apiAccess = {
   "PATCH /api/outcomes/:id": { who: ["analyst"], does: "change an outcome's settings" },
   "DELETE /api/outcomes/:id": { who: ["analyst"], does: "remove an outcome" },
   "PUT /api/outcomes/:id/dataset": { who: ["analyst"], does: "upload an outcome's data (CSV)" },
+  "POST /api/outcomes/:id/analysis": { who: ["analyst"], does: "analyse an outcome's data again with the current engine" },
   "GET /api/outcomes/:id/result": { who: desk, does: "the outcome's analysis" },
   "GET /api/outcomes/:id/certainty": { who: desk, does: "the outcome's certainty judgements and suggestions" },
   "PUT /api/outcomes/:id/certainty/:treatment/:comparator": { who: ["analyst"], does: "record certainty for one comparison" },

@@ -39,9 +39,23 @@ export async function storeDataset(db: Database, outcome: OutcomeRow, file: { na
 }
 
 /** Analyses the outcome's current data again with its current settings (after the settings changed). */
-export async function rerunLatest(db: Executor, outcome: OutcomeRow): Promise<void> {
+export async function rerunLatest(db: Executor, outcome: OutcomeRow): Promise<{ resultId: string } | null> {
   const dataset = await latestDataset(db, outcome.id);
-  if (!dataset) return;
+  if (!dataset) return null;
   const settings = analysisSettings(outcome);
-  await recordResult(db, outcome.id, dataset, settings, await analyseParsed(dataset.parsed as ParsedDataset, settings));
+  const stored = await recordResult(db, outcome.id, dataset, settings, await analyseParsed(dataset.parsed as ParsedDataset, settings));
+  return { resultId: stored.id };
+}
+
+/**
+ * The analyst's "run again": the stored data analysed by the engine as it is now (a result of an
+ * earlier engine version shows as stale, docs/decisions/0006). Judgements are kept by pair, so they
+ * stay. Throws DatasetError, changing nothing, when the engine now refuses the data.
+ */
+export async function analyseAgain(db: Database, outcome: OutcomeRow, actorId: string): Promise<{ resultId: string } | null> {
+  return db.transaction(async (tx) => {
+    const rerun = await rerunLatest(tx, outcome);
+    if (rerun) await recordAudit(tx, { actorId, action: "analyse-again", entity: "outcome", entityId: outcome.id, before: null, after: rerun });
+    return rerun;
+  });
 }

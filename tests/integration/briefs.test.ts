@@ -128,6 +128,31 @@ describe("data upload", () => {
     expect(rows.map((r) => r.file_name)).toEqual(["first.csv", "second.csv"]);
   });
 
+  it("analyses the stored data again when the result is stale (an earlier engine), keeping the judgements", async () => {
+    const { briefId, outcomeId } = await newBriefWithOutcome("Analysed again");
+    expect((await analyst.request("POST", `/api/outcomes/${outcomeId}/analysis`)).status).toBe(409);
+    await analyst.upload(`/api/outcomes/${outcomeId}/dataset`, { name: "h.csv", bytes: hasselbladCsv }, { format: "arm-binary" });
+    const clean = { levels: 0, reason: "" };
+    const judged = await analyst.request("PUT", `/api/outcomes/${outcomeId}/certainty/grp_counseling/ind_counseling`, {
+      json: { direct: { riskOfBias: clean, inconsistency: clean, indirectness: clean, publicationBias: clean } },
+    });
+    expect(judged.status).toBe(200);
+    // As a result computed by an earlier engine version reads: its checksum no longer matches.
+    await app.connection.pool.query("update analysis_results set input_checksum = 'from an earlier engine', engine_version = '1.0.0' where outcome_id = $1", [outcomeId]);
+    const state = async () => ((await analyst.request("GET", `/api/briefs/${briefId}`)).body.brief as { outcomes: { analysis: { state: string } }[] }).outcomes[0]!.analysis.state;
+    expect(await state()).toBe("stale");
+    const editor = await demoClient(app.url, "editor");
+    expect((await editor.request("POST", `/api/outcomes/${outcomeId}/analysis`)).status).toBe(403);
+    const again = await analyst.request("POST", `/api/outcomes/${outcomeId}/analysis`);
+    expect(again.status).toBe(200);
+    expect(await state()).toBe("current");
+    const certainty = await analyst.request("GET", `/api/outcomes/${outcomeId}/certainty`);
+    const pair = (certainty.body.comparisons as { treatment: string; comparator: string; direct: string | null }[]).find((c) => c.treatment === "grp_counseling" && c.comparator === "ind_counseling");
+    expect(pair?.direct).toBe("high");
+    const { rows } = await app.connection.pool.query("select action from audit_log where entity_id = $1 order by id desc limit 1", [outcomeId]);
+    expect(rows[0].action).toBe("analyse-again");
+  });
+
   it("refuses an editor without the analyst role with 403", async () => {
     const { outcomeId } = await newBriefWithOutcome("Role check");
     const editor = await demoClient(app.url, "editor");

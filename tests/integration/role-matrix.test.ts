@@ -61,6 +61,7 @@ const apiRequests: Record<keyof typeof apiAccess, { path: string; json?: unknown
   "PATCH /api/outcomes/:id": { path: `/api/outcomes/${nobody}`, json: {} },
   "DELETE /api/outcomes/:id": { path: `/api/outcomes/${nobody}` },
   "PUT /api/outcomes/:id/dataset": { path: `/api/outcomes/${nobody}/dataset`, json: {} },
+  "POST /api/outcomes/:id/analysis": { path: `/api/outcomes/${nobody}/analysis` },
   "GET /api/outcomes/:id/result": { path: `/api/outcomes/${nobody}/result` },
   "GET /api/outcomes/:id/certainty": { path: `/api/outcomes/${nobody}/certainty` },
   "PUT /api/outcomes/:id/certainty/:treatment/:comparator": { path: `/api/outcomes/${nobody}/certainty/a/b`, json: {} },

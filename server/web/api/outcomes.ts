@@ -7,7 +7,7 @@ import { DatasetError, formats } from "#core/nma/types";
 import { latestResult } from "#db/analyses";
 import type { Database } from "#db/client";
 import { deleteOutcome, findOutcome } from "#db/outcomes";
-import { formatFitsOutcome, storeDataset } from "#workflows/analysis";
+import { analyseAgain, formatFitsOutcome, storeDataset } from "#workflows/analysis";
 import { judgeComparisons, outcomeCertainty, type JudgementOutcome } from "#workflows/certainty";
 import { changeOutcomeSettings } from "#workflows/outcome-settings";
 import { guard } from "../auth/require-role";
@@ -95,6 +95,19 @@ export function outcomeRoutes(db: Database): Router {
         error: { key: "errors.upload.invalidData", message: "The file was not stored: correct the problems listed and upload it again." },
         issues: error.issues,
       });
+    }
+  });
+
+  router.post("/outcomes/:id/analysis", guard("POST /api/outcomes/:id/analysis"), async (req, res) => {
+    const outcome = await findOutcome(db, String(req.params.id));
+    if (!outcome) return sendError(res, 404, { key: "errors.notFound", message: "There is no such outcome." });
+    try {
+      const rerun = await analyseAgain(db, outcome, req.user!.id);
+      if (!rerun) return sendError(res, 409, { key: "errors.upload.noData", message: "The outcome has no data to analyse: upload a file first." });
+      res.json(rerun);
+    } catch (error) {
+      if (!(error instanceof DatasetError)) throw error;
+      res.status(422).json({ valid: false, error: { key: "errors.upload.invalidData", message: "The stored data cannot be analysed as they are: upload a corrected file." }, issues: error.issues });
     }
   });
 
