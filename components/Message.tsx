@@ -4,8 +4,9 @@
 import { Fragment, type ReactNode } from "react";
 import { useTranslation } from "react-i18next";
 import type { TFunction } from "i18next";
+import { localisedValues, type MessageValues as Values } from "#core/message";
 
-type Values = Record<string, string | number>;
+export { messageText } from "#core/message";
 
 const mark = (index: number) => `\u2063${index}\u2063`;
 const marked = /\u2063(\d+)\u2063/;
@@ -22,19 +23,3 @@ export function Message({ message }: { message: { key: string; values: Values } 
   const { t } = useTranslation();
   return <>{isolated(t, message.key, localisedValues(t, message.values))}</>;
 }
-
-/**
- * Versions frozen before the counts were words of their own hold "12 fewer" as a value of the
- * per-1000 statement: the count and its side are read back and said in the reader's language.
- */
-export function localisedValues(t: TFunction, values: Values): Values {
-  return Object.fromEntries(
-    Object.entries(values).map(([name, value]) => {
-      const side = typeof value === "string" ? /^(\d+) (fewer|more|same)$/.exec(value) : null;
-      return [name, side ? t(`statement.side.${side[2]}`, { count: Number(side[1]) }) : value];
-    }),
-  );
-}
-
-/** The same message as plain text (an aria-label, a title), its values said in the reader's language. */
-export const messageText = (t: TFunction, message: { key: string; values: Values }) => String(t(message.key, localisedValues(t, message.values)));

@@ -2,14 +2,12 @@
 // the rating is high. The mark repeats the words for the eye and is hidden from screen readers;
 // colour never carries the meaning alone.
 import { useTranslation } from "react-i18next";
-import type { Rating } from "#core/grade/certainty";
-
-const steps: Record<Rating, number> = { very_low: 1, low: 2, moderate: 3, high: 4 };
+import { certaintySteps, type Rating } from "#core/grade/certainty";
 
 export function CertaintyMark({ rating }: { rating: Rating | null }) {
   const { t } = useTranslation();
   if (rating === null) return <span className="text-muted">{t("certainty.notAssessed")}</span>;
-  const filled = steps[rating];
+  const filled = certaintySteps(rating);
   return (
     <span className="inline-flex items-baseline gap-2 whitespace-nowrap" data-certainty={rating}>
       <span>{t(`certainty.rating.${rating}`)}</span>

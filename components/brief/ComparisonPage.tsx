@@ -7,6 +7,7 @@ import type { ComparisonPageData } from "#web/pages/page-data";
 import { HealthCaution } from "../HealthCaution";
 import { CertaintyMark } from "./CertaintyMark";
 import { CiteBlock } from "./CiteBlock";
+import { EmbedCode } from "./EmbedCode";
 import { ImportantStudies } from "./ImportantStudies";
 import { formatInterval } from "#core/effects";
 import { VersionBanners } from "./Notices";
@@ -38,6 +39,7 @@ export function ComparisonPage({ data }: { data: ComparisonPageData }) {
       <div className="mt-12">
         <HealthCaution />
       </div>
+      {view.withdrawal ? null : <EmbedCode at={at} permalink={citation.permalink} title={versus} outcomes={view.outcomes.length} />}
       <CiteBlock heading={t("cite.comparison")} reference={citation.reference} accessed={citation.accessed} permalink={citation.permalink} citing={at} />
     </article>
   );

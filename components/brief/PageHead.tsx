@@ -1,7 +1,7 @@
 // The head of a version's pages: canonical permalink, citation meta tags for reference managers,
 // Open Graph and Twitter cards, and schema.org JSON-LD. Title and description come from +title and
 // +description (vike-react also writes them as og:title and og:description).
-import { feedUrl } from "#core/urls";
+import { feedUrl, oembedUrl } from "#core/urls";
 import { usePageContext } from "vike-react/usePageContext";
 import { localePath } from "#core/locales";
 export interface HeadFacts {
@@ -14,6 +14,8 @@ export interface HeadFacts {
   condition: string;
   description: string;
   withdrawn: boolean;
+  /** What the share image shows, in words (og:image:alt). */
+  imageAlt: string;
 }
 
 const citationDate = (iso: string) => iso.slice(0, 10).replaceAll("-", "/");
@@ -56,7 +58,20 @@ export function PageHead({ facts }: { facts: HeadFacts }) {
       <meta property="og:url" content={url} />
       <meta property="og:site_name" content="Fairweigh" />
       <meta property="article:published_time" content={facts.releaseAt} />
-      <meta name="twitter:card" content="summary" />
+      {/* A withdrawn brief offers neither its image nor its card to other sites (server/web/public/reach.ts). */}
+      {facts.withdrawn ? null : (
+        <>
+          <meta property="og:image" content={`${url}/share.png`} />
+          <meta property="og:image:type" content="image/png" />
+          <meta property="og:image:width" content="1200" />
+          <meta property="og:image:height" content="630" />
+          <meta property="og:image:alt" content={facts.imageAlt} />
+          <meta name="twitter:image" content={`${url}/share.png`} />
+          <meta name="twitter:image:alt" content={facts.imageAlt} />
+          <link rel="alternate" type="application/json+oembed" href={`${facts.siteUrl}${oembedUrl(url)}`} title={facts.title} />
+        </>
+      )}
+      <meta name="twitter:card" content={facts.withdrawn ? "summary" : "summary_large_image"} />
       <meta name="twitter:title" content={facts.title} />
       <meta name="twitter:description" content={facts.description} />
       {/* JSON.stringify escapes quotes; "<" is escaped too so that no text can close the script element. */}

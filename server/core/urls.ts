@@ -48,10 +48,21 @@ export function searchUrl(query: { q?: string; topic?: string } = {}): string {
 }
 
 /** The citation file of a version, or of one comparison in it. */
-export const citationUrl = (at: VersionAddress | ComparisonAddress, format: CitationFormat) =>
-  `${"treatment" in at ? comparisonUrl(at) : versionUrl(at)}/cite.${format}`;
+export const citationUrl = (at: VersionAddress | ComparisonAddress, format: CitationFormat) => `${pageUrl(at)}/cite.${format}`;
 
 export const downloadUrl = (at: VersionAddress, file: string) => `${versionUrl(at)}/downloads/${segment(file)}`;
+
+/** The page of a version, or of one comparison in it. */
+export const pageUrl = (at: VersionAddress | ComparisonAddress) => ("treatment" in at ? comparisonUrl(at) : versionUrl(at));
+
+/** The card other sites frame (the only address that may be framed), and the share image of a page. */
+export const embedUrl = (at: VersionAddress | ComparisonAddress) => `/embed${pageUrl(at)}`;
+/** The message type the card posts to the page framing it, with its height (for auto-sizing). */
+export const embedHeightMessage = "fairweigh:embed-height";
+export const shareImageUrl = (at: VersionAddress | ComparisonAddress) => `${pageUrl(at)}/share.png`;
+
+/** The oEmbed answer for an absolute page address (oEmbed 1.0, §2.2). */
+export const oembedUrl = (pageAddress: string) => `/oembed?url=${encodeURIComponent(pageAddress)}&format=json`;
 
 /** What a public address of a released version names; `canonical` is false when it was spelled another way. */
 export type VersionPath =

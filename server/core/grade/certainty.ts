@@ -22,6 +22,9 @@ export interface DirectJudgement {
 
 const rank = (rating: Rating) => ratings.indexOf(rating);
 
+/** Fairweigh's certainty mark: four rising steps, as many filled as the rating is high (pages, cards, share images). */
+export const certaintySteps = (rating: Rating) => rank(rating) + 1;
+
 /** Down by `levels` from `start`, never below very low. */
 export function rateDown(start: Rating, levels: number): Rating {
   return ratings[Math.max(0, rank(start) - levels)]!;

@@ -15,7 +15,7 @@ import { accountRoutes } from "./account";
 import { subscriptionRoutes } from "./subscriptions";
 import { devRoutes } from "./dev";
 import { translationRoutes } from "./translations";
-import { siteUrl } from "../public/routes";
+import { siteUrl } from "../http/site-url";
 import type { Queue } from "#workflows/queue";
 import type { AccountContext } from "#workflows/accounts";
 

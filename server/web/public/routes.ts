@@ -11,16 +11,13 @@ import type { Database } from "#db/client";
 import { citationFile, citationMedia, type CitationFormat, type CitationInput } from "./citations";
 import { downloads } from "./downloads";
 import { atomFeed, escapeXml, feedEntries } from "./feed";
-
-/** The address readers use: the configured one, or the one this request came to. */
-export function siteUrl(req: Request, configured: string | undefined): string {
-  return (configured ?? `${req.protocol}://${req.get("host")}`).replace(/\/$/, "");
-}
+import { reachRoutes } from "./reach";
+import { siteUrl } from "../http/site-url";
 
 const notFound = "There is no such published version.";
 
-/** The files that have words, and so an address in each language: citations, downloads and the feed. */
-const localizedFile = (path: string) => /\/cite\.\w+$|\/downloads\/[^/]+$|^\/feed\.xml$/.test(path);
+/** The files that have words, and so an address in each language: citations, downloads, the feed, embedded cards and share images. */
+const localizedFile = (path: string) => /\/cite\.\w+$|\/downloads\/[^/]+$|^\/feed\.xml$|^\/embed\/|\/share\.png$/.test(path);
 
 /** The cookie that keeps a reader's choice of language; the page router reads it on a first visit. */
 export const localeCookie = "fairweigh.locale";
@@ -134,6 +131,8 @@ export function publicFileRoutes(db: Database, publicUrl: string | undefined, se
       .type("application/xml; charset=utf-8")
       .send(`<?xml version="1.0" encoding="UTF-8"?>\n<urlset xmlns="http://www.sitemaps.org/schemas/sitemap/0.9" xmlns:xhtml="http://www.w3.org/1999/xhtml">\n${urls.join("\n")}\n</urlset>\n`);
   });
+
+  router.use(reachRoutes(db, publicUrl));
 
   router.get("/robots.txt", (req, res) => {
     res.type("text/plain").send(`User-agent: *\nDisallow: /desk\nDisallow: /api/\nDisallow: /sign-in\nDisallow: /preview/\nSitemap: ${siteUrl(req, publicUrl)}${sitemapUrl()}\n`);

@@ -19,6 +19,7 @@ export default function Head() {
         condition: view.condition,
         description: t("brief.pageDescription", { population: view.population.toLowerCase(), condition: view.condition.toLowerCase() }),
         withdrawn: view.withdrawal !== null,
+        imageAlt: `${view.title}. ${t("share.versionStatement", { condition: view.condition, population: view.population })}`,
       }}
     />
   );

@@ -1,0 +1,120 @@
+// The card other sites frame: one comparison (or one version) of a released brief in a small,
+// self-contained HTML page — what the evidence says in words, the effect with its 95% CI, the
+// certainty in words with the product's mark, the health caution in one line, the fictional-data
+// label, and a link back to the exact version. Its styles are inline and it needs no script; one
+// small script only tells the framing page its height (postMessage) for auto-sizing.
+import type { TFunction } from "i18next";
+import { briefContent, comparisonContent } from "#core/brief-page";
+import { formatInterval } from "#core/effects";
+import { certaintySteps, type Rating } from "#core/grade/certainty";
+import { intlLocale, textDirection, type Locale } from "#core/locales";
+import { messageText } from "#core/message";
+import type { VersionSnapshot } from "#core/snapshot/schema";
+import { embedHeightMessage } from "#core/urls";
+
+/** Card widths the layout is made for (the issue's 320–720 px); oEmbed answers clamp to them. */
+export const cardWidth = { min: 320, max: 720, default: 560 } as const;
+
+const escapeHtml = (text: string) => text.replace(/[&<>"']/g, (c) => ({ "&": "&amp;", "<": "&lt;", ">": "&gt;", '"': "&quot;", "'": "&#39;" })[c]!);
+
+function mark(rating: Rating | null, t: TFunction): string {
+  if (rating === null) return `<span class="muted">${escapeHtml(t("certainty.notAssessed"))}</span>`;
+  const filled = certaintySteps(rating);
+  const steps = [0, 1, 2, 3].map((i) => `<rect x="${i * 7}" y="${9 - i * 3}" width="5" height="${3 + i * 3}" fill="${i < filled ? "#6d1f35" : "none"}" stroke="#6d1f35"/>`).join("");
+  return `<span class="certainty">${escapeHtml(t(`certainty.rating.${rating}`))} <svg viewBox="0 0 26 12" width="26" height="12" aria-hidden="true">${steps}</svg></span>`;
+}
+
+const styles = `
+:root{color-scheme:light}
+*{box-sizing:border-box}
+body{margin:0;font:16px/1.45 "Source Serif 4",Georgia,"Noto Naskh Arabic",serif;color:#1d1a17;background:#fbf8f3}
+.card{max-width:${cardWidth.max}px;border:1px solid #d9d1c5;border-block-start:4px solid #6d1f35;padding:16px 18px;background:#fbf8f3}
+.brand{font:600 13px/1.2 system-ui,sans-serif;letter-spacing:.04em;text-transform:uppercase;color:#6d1f35;margin:0}
+h1{font-size:22px;line-height:1.2;margin:6px 0 2px}
+.from,.muted{color:#5b554d;font:13px/1.4 system-ui,sans-serif}
+.fictional{display:inline-block;margin:8px 0 0;padding:2px 8px;border:1px solid #6d1f35;color:#6d1f35;font:600 12px/1.4 system-ui,sans-serif}
+section{border-block-start:1px solid #d9d1c5;margin-block-start:12px;padding-block-start:10px}
+h2{font:600 15px/1.3 system-ui,sans-serif;margin:0 0 4px}
+.statement{font-size:17px;margin:0 0 6px}
+dl{display:grid;grid-template-columns:minmax(6em,38%) minmax(0,1fr);gap:2px 12px;margin:0;font:14px/1.4 system-ui,sans-serif}
+dt{color:#5b554d}dd{margin:0;font-variant-numeric:tabular-nums;overflow-wrap:anywhere}
+.certainty{white-space:nowrap}.certainty svg{vertical-align:middle}
+.caution{margin:12px 0 0;font:13px/1.4 system-ui,sans-serif;border-inline-start:3px solid #6d1f35;padding-inline-start:8px}
+.withdrawn{margin:12px 0 0;padding:8px 10px;border:2px solid #6d1f35;font:14px/1.4 system-ui,sans-serif}
+a{color:#6d1f35}.link{display:block;margin-block-start:10px;font:600 14px/1.4 system-ui,sans-serif}
+ul{margin:4px 0 0;padding-inline-start:18px;font-size:15px}
+`;
+
+export interface CardInput {
+  snapshot: VersionSnapshot;
+  /** The comparison's two labels, or null for the version's card. */
+  pair: { a: string; b: string } | null;
+  locale: Locale;
+  t: TFunction;
+  /** The absolute address of the page the card stands for. */
+  permalink: string;
+  withdrawal: { at: string; reason: string } | null;
+  nonce: string;
+}
+
+/** The card's HTML page; null when the version has no such comparison. */
+export function embedCard(input: CardInput): string | null {
+  const { snapshot, pair, locale, t, permalink, withdrawal } = input;
+  const date = (iso: string) => new Intl.DateTimeFormat(intlLocale(locale), { dateStyle: "long", timeZone: "UTC" }).format(new Date(iso));
+  const from = t("embed.inBrief", { title: snapshot.brief.title, version: snapshot.version, date: date(snapshot.releaseAt) });
+  let heading: string;
+  let body: string;
+  if (pair) {
+    const view = comparisonContent(snapshot, pair.a, pair.b);
+    if (!view) return null;
+    heading = t("brief.versus", { treatment: view.treatment.name, comparator: view.comparator.name });
+    body = view.outcomes
+      .map((outcome) => {
+        const rows = [
+          `<dt>${escapeHtml(t("compare.relative", { measure: t(`brief.measure.${outcome.measure}`) }))}</dt><dd>${escapeHtml(formatInterval(outcome.measure, outcome.network, t("brief.to"), locale))}${outcome.unit ? ` ${escapeHtml(outcome.unit)}` : ""}</dd>`,
+          outcome.absolute ? `<dt>${escapeHtml(t("compare.absolute"))}</dt><dd>${escapeHtml(messageText(t, outcome.absolute.statement))}</dd>` : "",
+          `<dt>${escapeHtml(t("brief.certainty"))}</dt><dd>${mark(outcome.certainty, t)}</dd>`,
+        ].join("");
+        const statement = outcome.statement ? messageText(t, outcome.statement) : t("compare.noStatement");
+        return `<section><h2>${escapeHtml(outcome.name)}</h2><p class="statement">${escapeHtml(statement)}</p><dl>${rows}</dl></section>`;
+      })
+      .join("");
+  } else {
+    const view = briefContent(snapshot);
+    heading = view.title;
+    body = view.outcomes
+      .map((outcome) => {
+        const groups = outcome.groups.map((g) => `<li>${escapeHtml(messageText(t, g.label))}: ${escapeHtml(g.treatments.map((x) => x.name).join(", "))}</li>`).join("");
+        return `<section><h2>${escapeHtml(outcome.name)}</h2><ul>${groups}</ul></section>`;
+      })
+      .join("");
+  }
+  const link = t(pair ? "embed.readComparison" : "embed.readBrief", { version: snapshot.version });
+  // A withdrawn brief's card keeps saying what it was, and that it was withdrawn and why, without its findings.
+  const main = withdrawal ? `<p class="withdrawn" role="alert">${escapeHtml(t("embed.withdrawn", { date: date(withdrawal.at), reason: withdrawal.reason }))}</p>` : body;
+  const height = `(function(){function send(){parent.postMessage({type:"${embedHeightMessage}",height:Math.ceil(document.documentElement.getBoundingClientRect().height)},"*")}addEventListener("load",send);if(window.ResizeObserver)new ResizeObserver(send).observe(document.documentElement)})();`;
+  return `<!doctype html>
+<html lang="${locale}" dir="${textDirection(locale)}">
+<head>
+<meta charset="utf-8">
+<meta name="viewport" content="width=device-width, initial-scale=1">
+<meta name="robots" content="noindex">
+<title>${escapeHtml(`${heading} · Fairweigh`)}</title>
+<link rel="canonical" href="${escapeHtml(permalink)}">
+<style>${styles}</style>
+</head>
+<body>
+<article class="card" data-testid="embed-card">
+<p class="brand">Fairweigh</p>
+<h1>${escapeHtml(heading)}</h1>
+<p class="from">${escapeHtml(from)}</p>
+${snapshot.brief.demo ? `<p class="fictional">${escapeHtml(t("embed.fictional"))}</p>` : ""}
+${main}
+<p class="caution">${escapeHtml(t("embed.caution"))}</p>
+<a class="link" href="${escapeHtml(permalink)}" target="_blank" rel="noopener">${escapeHtml(link)}</a>
+</article>
+<script nonce="${escapeHtml(input.nonce)}">${height}</script>
+</body>
+</html>
+`;
+}
