@@ -3,6 +3,7 @@
 import { useState } from "react";
 import { useTranslation } from "react-i18next";
 import { buttonClass, inputClass } from "./forms";
+import { ReadabilityAdvice } from "./ReadabilityAdvice";
 
 export function TextsForm({
   initial,
@@ -38,16 +39,20 @@ export function TextsForm({
         }}
       >
         {(["laySummary", "keyMessages"] as const).map((name) => (
-          <label key={name} className="block">
-            <span className="block text-sm font-semibold">{t(`desk.${name}`)}</span>
-            <textarea
-              name={name}
-              rows={6}
-              value={texts[name]}
-              onChange={(event) => setTexts({ ...texts, [name]: event.target.value })}
-              className={`${inputClass} mt-1 font-mono text-sm`}
-            />
-          </label>
+          <div key={name}>
+            <label className="block">
+              <span className="block text-sm font-semibold">{t(`desk.${name}`)}</span>
+              <textarea
+                name={name}
+                rows={6}
+                value={texts[name]}
+                onChange={(event) => setTexts({ ...texts, [name]: event.target.value })}
+                className={`${inputClass} mt-1 font-mono text-sm`}
+              />
+            </label>
+            {/* The texts are written in English; translators get the same check in their language. */}
+            <ReadabilityAdvice text={texts[name]} locale="en" />
+          </div>
         ))}
         <div className="flex gap-4">
           <button

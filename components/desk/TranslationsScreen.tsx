@@ -6,6 +6,7 @@ import { useTranslation as useWords } from "react-i18next";
 import { Link, useParams } from "react-router";
 import { languageNames, textDirection, type Locale } from "#core/locales";
 import type { Translation } from "#web/api/contract";
+import { ReadabilityAdvice } from "./ReadabilityAdvice";
 import { buttonClass, inputClass } from "./forms";
 import { previewMarkdown, useTranslation, useTranslationQueue, useTranslationStep } from "./queries";
 import { useIntl } from "../i18n";
@@ -54,6 +55,8 @@ function EditorForm({ translation, canPublish }: { translation: Translation; can
   const intl = useIntl();
   const step = useTranslationStep(translation.versionId, translation.locale);
   const [previews, setPreviews] = useState<Record<string, string>>({});
+  // What the translator has typed so far, for the plain-language check (the fields themselves stay uncontrolled).
+  const [drafts, setDrafts] = useState<Record<string, string>>({});
   const locale = translation.locale as Locale;
   const fieldLabel = (name: string) => {
     const [kind, which] = name.split(":");
@@ -105,13 +108,25 @@ function EditorForm({ translation, canPublish }: { translation: Translation; can
               <label className="block">
                 <span className="font-sans text-xs uppercase tracking-wide text-muted">{t("desk.translations.target", { language: languageNames[locale] })}</span>
                 {field.kind === "markdown" ? (
-                  <textarea name={field.name} lang={locale} dir={textDirection(locale)} defaultValue={field.target} rows={8} className={`${inputClass} mt-1`} />
+                  <textarea
+                    name={field.name}
+                    lang={locale}
+                    dir={textDirection(locale)}
+                    defaultValue={field.target}
+                    rows={8}
+                    className={`${inputClass} mt-1`}
+                    onInput={(event) => {
+                      const value = event.currentTarget.value;
+                      setDrafts((all) => ({ ...all, [field.name]: value }));
+                    }}
+                  />
                 ) : (
                   <input name={field.name} lang={locale} dir={textDirection(locale)} defaultValue={field.target} className={`${inputClass} mt-1`} />
                 )}
               </label>
               {field.kind === "markdown" ? (
                 <>
+                  <ReadabilityAdvice text={drafts[field.name] ?? field.target} locale={locale} />
                   <button
                     type="button"
                     className="mt-2 font-sans text-sm underline"

@@ -93,6 +93,11 @@ export const fileAccess = {
   "GET /sitemap.xml": { who: "anyone", does: "the sitemap of released pages" },
   "GET /robots.txt": { who: "anyone", does: "robots.txt" },
   "GET /language/:locale": { who: "anyone", does: "choose the site's language (kept in a cookie), then the same page in it" },
+  "GET /embed/briefs/:slug/v/:number": { who: "anyone", does: "the card of a released version, for other sites to frame" },
+  "GET /embed/briefs/:slug/v/:number/compare/:a/:b": { who: "anyone", does: "the card of one comparison of a released version, for other sites to frame" },
+  "GET /briefs/:slug/v/:number/share.png": { who: "anyone", does: "the share image of a released version (1200 × 630 PNG)" },
+  "GET /briefs/:slug/v/:number/compare/:a/:b/share.png": { who: "anyone", does: "the share image of one comparison of a released version" },
+  "GET /oembed": { who: "anyone", does: "oEmbed 1.0: the card's <iframe> for a released brief, version or comparison address" },
 } as const satisfies Record<string, AccessRule>;
 
 /** The pages (the folder under pages/ is the address). */
