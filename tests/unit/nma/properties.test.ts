@@ -34,6 +34,17 @@ function toCsv(studies: Study[], rename: (t: string) => string = (t) => t, label
   return `study,treatment,events,total\n${rows.join("\n")}\n`;
 }
 
+/** Networks of two treatments only: one to fourteen two-arm studies of t0 and t1. */
+const twoArm = fc.array(
+  fc.tuple(fc.integer({ min: 20, max: 300 }), fc.integer({ min: 20, max: 300 })).chain(([n1, n2]) =>
+    fc.tuple(fc.integer({ min: 1, max: n1 - 1 }), fc.integer({ min: 1, max: n2 - 1 })).map(([e1, e2]) => [
+      { treatment: "t0", events: e1, total: n1 },
+      { treatment: "t1", events: e2, total: n2 },
+    ]),
+  ),
+  { minLength: 1, maxLength: 14 },
+);
+
 const options: AnalysisOptions = { measure: "OR", model: "random", reference: "t0", better: "higher", draws: 200 };
 const run = (csv: string, overrides: Partial<AnalysisOptions> = {}) => analyse(parseDataset(csv, "arm-binary"), { ...options, ...overrides });
 
@@ -115,15 +126,6 @@ describe("study importance (METHODS.md §13)", () => {
   });
 
   it("in a network of two treatments equals each study's share of the inverse-variance weight", () => {
-    const twoArm = fc.array(
-      fc.tuple(fc.integer({ min: 20, max: 300 }), fc.integer({ min: 20, max: 300 })).chain(([n1, n2]) =>
-        fc.tuple(fc.integer({ min: 1, max: n1 - 1 }), fc.integer({ min: 1, max: n2 - 1 })).map(([e1, e2]) => [
-          { treatment: "t0", events: e1, total: n1 },
-          { treatment: "t1", events: e2, total: n2 },
-        ]),
-      ),
-      { minLength: 1, maxLength: 14 },
-    );
     fc.assert(
       fc.property(twoArm, fc.constantFrom("fixed" as const, "random" as const), (studies, model) => {
         const result = run(toCsv(studies), { model });
@@ -187,15 +189,6 @@ describe("antisymmetry", () => {
 
 describe("two treatments", () => {
   it("the network estimate is the inverse-variance pooled estimate of the studies", () => {
-    const twoArm = fc.array(
-      fc.tuple(fc.integer({ min: 20, max: 300 }), fc.integer({ min: 20, max: 300 })).chain(([n1, n2]) =>
-        fc.tuple(fc.integer({ min: 1, max: n1 - 1 }), fc.integer({ min: 1, max: n2 - 1 })).map(([e1, e2]) => [
-          { treatment: "t0", events: e1, total: n1 },
-          { treatment: "t1", events: e2, total: n2 },
-        ]),
-      ),
-      { minLength: 1, maxLength: 10 },
-    );
     fc.assert(
       fc.property(twoArm, fc.constantFrom("fixed" as const, "random" as const), (studies, model) => {
         const result = run(toCsv(studies), { model });
