@@ -16,6 +16,8 @@ const environment = z.object({
   MAIL_RETRY_DELAY_SECONDS: z.coerce.number().int().min(1).max(3600).default(10),
   /** Development only: the fake SMTP server's folder, shown at /desk/dev/mail. */
   MAIL_FOLDER: z.string().optional(),
+  /** Tests only: a namespace of the shared rate-limit counters, so that a test's server counts from zero. */
+  RATE_LIMIT_NAMESPACE: z.string().max(64).optional(),
 });
 
 export type ServerConfig = {
@@ -31,6 +33,7 @@ export type ServerConfig = {
   smtpUrl: string | null;
   mailRetryDelaySeconds: number;
   mailFolder: string | null;
+  rateLimitNamespace: string;
 };
 
 export function readConfig(env: NodeJS.ProcessEnv = process.env): ServerConfig {
@@ -53,5 +56,6 @@ export function readConfig(env: NodeJS.ProcessEnv = process.env): ServerConfig {
     smtpUrl: value.SMTP_URL ?? null,
     mailRetryDelaySeconds: value.MAIL_RETRY_DELAY_SECONDS,
     mailFolder: value.MAIL_FOLDER ?? null,
+    rateLimitNamespace: value.RATE_LIMIT_NAMESPACE ?? "",
   };
 }

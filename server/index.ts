@@ -32,6 +32,7 @@ export async function startServer(config: ServerConfig): Promise<{ url: string; 
     logLevel: config.logLevel,
     publicUrl: config.publicUrl,
     mailFolder: config.mailFolder,
+    rateLimitNamespace: config.rateLimitNamespace,
   });
   const server: Server = await new Promise((resolve) => {
     const listening = app.listen(config.port, config.host, () => resolve(listening));
@@ -49,6 +50,7 @@ export async function startServer(config: ServerConfig): Promise<{ url: string; 
       await closed;
       clearTimeout(cut);
       await queue.stop();
+      await (app.locals.stopListening as (() => Promise<void>) | undefined)?.();
       await connection.close();
     },
   };

@@ -393,3 +393,17 @@ export const versionTranslations = pgTable(
     check("version_translations_state", sql`${table.state} in ('draft', 'ready', 'published')`),
   ],
 );
+
+/**
+ * The rate limits' counters, shared by every server process on the database (express-rate-limit's
+ * store: server/db/rate-limits.ts). A row lives until its window resets.
+ */
+export const rateLimits = pgTable(
+  "rate_limits",
+  {
+    key: text("key").primaryKey(),
+    hits: integer("hits").notNull(),
+    resetAt: timestamp("reset_at", { withTimezone: true }).notNull(),
+  },
+  (table) => [index("rate_limits_reset_idx").on(table.resetAt)],
+);

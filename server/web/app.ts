@@ -15,6 +15,8 @@ import { apiRoutes } from "./api";
 import { createPassport } from "./auth/passport";
 import { addressable } from "#core/urls";
 import type { Database } from "#db/client";
+import { listenForVersionChanges } from "#db/notices";
+import { PostgresRateLimitStore } from "#db/rate-limits";
 import { errorAnswer, sendError } from "./http/errors";
 import { createCsrf, cspNonce, securityHeaders, sessionCookieName } from "./http/security";
 import { pageRoutes } from "./pages/render";
@@ -37,6 +39,11 @@ export interface AppOptions {
   queue?: Queue | null;
   /** The development mailbox's folder, for /desk/dev/mail; never used in production. */
   mailFolder?: string | null;
+  /**
+   * Where the rate limits' keys live in the shared table: every process of one deployment uses the
+   * same (the default, ""); a test's own server takes one of its own so that its counts start at zero.
+   */
+  rateLimitNamespace?: string;
 }
 
 export async function createApp(options: AppOptions): Promise<express.Express> {
@@ -62,8 +69,11 @@ export async function createApp(options: AppOptions): Promise<express.Express> {
           // The same short line as every other request's.
           onFastAnswer: (req, res) => logger.info({ req: { method: req.method, url: req.url }, res: { status: res.statusCode } }, "request completed"),
         });
-  // Released pages in memory go to anonymous readers before Express runs at all (render.ts).
+  // Released pages in memory go to anonymous readers before Express runs at all (render.ts); every
+  // process forgets a brief's remembered state as soon as the database announces a change to it.
   if (pages) {
+    const listener = listenForVersionChanges(options.pool, pages.forget, (error) => logger.warn({ err: error }, "listening for version changes"));
+    app.locals.stopListening = () => listener.stop();
     const { fastAnswer } = pages;
     const handle = (req: IncomingMessage, res: ServerResponse) => void fastAnswer(req, res).then((answered) => answered || app(req, res), () => app(req, res));
     app.listen = ((...args: Parameters<Server["listen"]>) => createServer(handle).listen(...args)) as typeof app.listen;
@@ -106,7 +116,8 @@ export async function createApp(options: AppOptions): Promise<express.Express> {
     sendError(res, 404, { key: "errors.notFound", message: "There is nothing at this address." });
   });
 
-  app.use("/api", apiRoutes({ db, pool, passport, csrf, sessionCookie: sessionCookieName(secureTransport), queue: options.queue ?? null, publicUrl: options.publicUrl, mailFolder: production ? null : (options.mailFolder ?? null) }));
+  const limitStore = (prefix: string) => new PostgresRateLimitStore(db, `${options.rateLimitNamespace ?? ""}${prefix}`);
+  app.use("/api", apiRoutes({ db, pool, passport, csrf, limitStore, sessionCookie: sessionCookieName(secureTransport), queue: options.queue ?? null, publicUrl: options.publicUrl, mailFolder: production ? null : (options.mailFolder ?? null) }));
   app.use(publicFileRoutes(db, options.publicUrl, secureTransport));
   if (pages) app.use(pages.router);
 

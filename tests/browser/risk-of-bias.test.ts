@@ -14,12 +14,12 @@ const setup = withServerAndBrowser();
 it("the analyst sees the risk-of-bias shares and suggestion, and confirming it needs no reason", async () => {
   const { page, errors, close } = await signedIn(setup.browser, setup.server.url, "analyst@fairweigh.example");
   const briefForm = page.getByRole("form", { name: en.desk.newBrief });
-  await briefForm.getByLabel(en.desk.field.title).fill("Risk of bias in the browser");
+  await briefForm.getByLabel(en.desk.field.title).fill("Judged trials, in the browser");
   await briefForm.getByLabel(en.desk.field.topic).fill("Smoking");
   await briefForm.getByLabel(en.desk.field.condition).fill("Tobacco dependence");
   await briefForm.getByLabel(en.desk.field.population).fill("Adults who smoke");
   await Promise.all([page.waitForURL(/\/desk\/briefs\/[0-9a-f-]+$/), briefForm.getByRole("button", { name: en.desk.create }).click()]);
-  await page.locator("h1", { hasText: "Risk of bias in the browser" }).waitFor();
+  await page.locator("h1", { hasText: "Judged trials, in the browser" }).waitFor();
   const outcomeForm = page.getByRole("form", { name: en.desk.addOutcome });
   await outcomeForm.getByLabel(en.desk.field.name).fill("Quit smoking");
   await outcomeForm.getByLabel(en.desk.field.reference).fill("no_contact");

@@ -62,7 +62,7 @@ describe("a released version's page", () => {
     expect(html).toContain('<meta name="citation_title" content="Sleeping well after night shifts (fictional demonstration)"');
     expect(html).toContain(`<link rel="canonical" href="${server.url}/briefs/${small}/v/1"`);
     expect(html).toMatch(/<meta property="og:title" content="[^"]+"/);
-    expect(html).toContain('<meta name="twitter:card" content="summary"');
+    expect(html).toContain('<meta name="twitter:card" content="summary_large_image"');
     // Each page's head is its own: one canonical link and one JSON-LD block, never a parent page's too.
     expect(html.match(/<link rel="canonical"/g)).toHaveLength(1);
     expect(html.match(/application\/ld\+json/g)).toHaveLength(1);

@@ -36,14 +36,14 @@ const judgement = (riskOfBias: { levels: number; reason: string }) => ({
 
 describe("the risk_of_bias column on upload", () => {
   it("counts the studies per level in the validation report", async () => {
-    const { outcomeId } = await draftBrief(analyst, "Risk of bias upload", robCsv);
+    const { outcomeId } = await draftBrief(analyst, "Judged trials, upload", robCsv);
     const again = await analyst.upload(`/api/outcomes/${outcomeId}/dataset`, { name: "rob.csv", bytes: robCsv }, { format: "arm-binary" });
     expect(again.status).toBe(200);
     expect(again.body.riskOfBias).toEqual({ low: 12, someConcerns: 6, high: 3, notAssessed: 3 });
   });
 
   it("refuses a study whose rows disagree, naming the row, and keeps the data stored before byte for byte", async () => {
-    const { outcomeId } = await draftBrief(analyst, "Risk of bias refused", robCsv);
+    const { outcomeId } = await draftBrief(analyst, "Judged trials, refused", robCsv);
     const before = await analyst.request("GET", `/api/outcomes/${outcomeId}/result`);
     const broken = robCsv.toString().replace("S002,ind_counseling,23,140,low", "S002,ind_counseling,23,140,high");
     const response = await analyst.upload(`/api/outcomes/${outcomeId}/dataset`, { name: "broken.csv", bytes: broken }, { format: "arm-binary" });
@@ -56,7 +56,7 @@ describe("the risk_of_bias column on upload", () => {
 
 describe("the risk-of-bias suggestion in the certainty assessment", () => {
   it("suggests the level carrying the largest share, lets the analyst confirm it without a reason and asks one to depart", async () => {
-    const { outcomeId } = await draftBrief(analyst, "Risk of bias certainty", robCsv);
+    const { outcomeId } = await draftBrief(analyst, "Judged trials, certainty", robCsv);
     const pair = (await certaintyOf(outcomeId)).find((c) => c.treatment === "no_contact" && c.comparator === "self_help")!;
     // Random effects: 61.6% of the direct weight has some concerns (reference file), so one level down.
     const share = expected.random.comparisons.find((c: { treatment: string; comparator: string }) => c.treatment === "no_contact" && c.comparator === "self_help").riskOfBias.someConcerns;
@@ -77,7 +77,7 @@ describe("the risk-of-bias suggestion in the certainty assessment", () => {
   });
 
   it("applies in bulk: every pair takes its own suggestion, all or none", async () => {
-    const { outcomeId } = await draftBrief(analyst, "Risk of bias in bulk", robCsv);
+    const { outcomeId } = await draftBrief(analyst, "Judged trials, in bulk", robCsv);
     const comparisons = await certaintyOf(outcomeId);
     const withDirect = comparisons.filter((c) => c.pending.includes("direct"));
     const judgements = withDirect.map((c) => ({ treatment: c.treatment, comparator: c.comparator, judgement: judgement({ levels: c.suggestions.riskOfBias?.levels ?? 0, reason: "" }) }));
@@ -94,7 +94,7 @@ describe("the risk-of-bias suggestion in the certainty assessment", () => {
 describe("the public pages", () => {
   let slug = "";
   beforeAll(async () => {
-    const brief = await analysedBrief(analyst, "Risk of bias in public", undefined, robCsv);
+    const brief = await analysedBrief(analyst, "Judged trials, in public", undefined, robCsv);
     await approve(analyst, editor, brief.briefId);
     expect((await editor.request("POST", `/api/briefs/${brief.briefId}/versions`, { json: {} })).status).toBe(201);
     slug = brief.slug;

@@ -1,4 +1,5 @@
 // An in-process server on a free port, against the test cluster that scripts/test.ts started.
+import { randomUUID } from "node:crypto";
 import type { AddressInfo } from "node:net";
 import type { Server } from "node:http";
 import { createApp, type AppOptions } from "#web/app";
@@ -29,6 +30,8 @@ export async function startTestApp(databaseUrl = testDatabaseUrl(), options: Par
     secureTransport: false,
     logLevel: "silent",
     pages: false,
+    // Rate-limited attempts counted apart from every other test server's.
+    rateLimitNamespace: `test-${randomUUID()}:`,
     ...options,
   });
   const server: Server = await new Promise((resolve) => {

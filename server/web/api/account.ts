@@ -9,11 +9,11 @@ import { changeOwnAccount, requestPasswordReset, setPasswordWithToken, type Acco
 import { guard } from "../auth/require-role";
 import { isFormPost } from "../http/forms";
 import { fieldIssues, sendError, validateBody } from "../http/errors";
-import { linkLimits, mailRequestLimits } from "../http/security";
+import { linkLimits, mailRequestLimits, type LimitStore } from "../http/security";
 import { accountBody, newPasswordBody, passwordResetBody } from "./contract";
 
 
-export function accountRoutes(context: (req: Request) => AccountContext): Router {
+export function accountRoutes(context: (req: Request) => AccountContext, limitStore: LimitStore): Router {
   const router = Router();
   // A form comes back to the page it was sent from (the reset form, or the link's own page).
   const formPage = (req: Request) => (/^\/(invitation|password-reset)\/[A-Za-z0-9_-]+$/.test(String(req.body?.from ?? "")) ? String(req.body.from) : passwordResetUrl());
@@ -26,7 +26,7 @@ export function accountRoutes(context: (req: Request) => AccountContext): Router
   });
 
   // The same answer whether or not the address has an account (server/workflows/accounts.ts).
-  router.post("/password-reset", ...mailRequestLimits(limited), async (req: Request, res: Response) => {
+  router.post("/password-reset", ...mailRequestLimits(limitStore, "password-reset", limited), async (req: Request, res: Response) => {
     const parsed = passwordResetBody.safeParse(req.body ?? {});
     if (!parsed.success) {
       if (isFormPost(req)) return res.redirect(303, `${passwordResetUrl()}?error=missing`);
@@ -37,7 +37,7 @@ export function accountRoutes(context: (req: Request) => AccountContext): Router
     res.status(202).json({ sent: true });
   });
 
-  router.post("/account/password", ...linkLimits(limited), async (req: Request, res: Response) => {
+  router.post("/account/password", ...linkLimits(limitStore, "account-password", limited), async (req: Request, res: Response) => {
     const form = isFormPost(req);
     const back = (error: string) => res.redirect(303, `${formPage(req)}?error=${error}`);
     const parsed = newPasswordBody.safeParse(req.body ?? {});

@@ -4,7 +4,7 @@ import type { AppPassport } from "../auth/passport";
 import type pg from "pg";
 import type { Database } from "#db/client";
 import { sendError } from "../http/errors";
-import type { createCsrf } from "../http/security";
+import type { createCsrf, LimitStore } from "../http/security";
 import { briefRoutes } from "./briefs";
 import { healthRoutes } from "./health";
 import { outcomeRoutes } from "./outcomes";
@@ -32,9 +32,11 @@ export interface ApiDependencies {
   publicUrl?: string;
   /** Where the development mailbox keeps messages; null in production. */
   mailFolder: string | null;
+  /** The rate limits' counters (shared by every process on the database). */
+  limitStore: LimitStore;
 }
 
-export function apiRoutes({ db, pool, passport, csrf, sessionCookie, queue, publicUrl, mailFolder }: ApiDependencies): Router {
+export function apiRoutes({ db, pool, passport, csrf, sessionCookie, queue, publicUrl, mailFolder, limitStore }: ApiDependencies): Router {
   const accounts = (req: Request): AccountContext => ({ db, queue, siteUrl: siteUrl(req, publicUrl) });
   const api = Router();
   // Answers depend on who asks (drafts, the press room, embargoed versions): no shared cache keeps them.
@@ -55,7 +57,7 @@ export function apiRoutes({ db, pool, passport, csrf, sessionCookie, queue, publ
 
   // Readers' alerts take no token (see subscriptions.ts for why); every route below that changes
   // state needs it (GET and HEAD do not).
-  api.use(subscriptionRoutes(accounts));
+  api.use(subscriptionRoutes(accounts, limitStore));
   api.use((req: Request, res: Response, next: NextFunction) => {
     csrf.doubleCsrfProtection(req, res, (error?: unknown) => {
       if (!error) return next();
@@ -67,9 +69,9 @@ export function apiRoutes({ db, pool, passport, csrf, sessionCookie, queue, publ
     });
   });
 
-  api.use("/session", sessionRoutes(db, passport, sessionCookie));
+  api.use("/session", sessionRoutes(db, passport, sessionCookie, limitStore));
   api.use(peopleRoutes(accounts));
-  api.use(accountRoutes(accounts));
+  api.use(accountRoutes(accounts, limitStore));
   api.use(devRoutes(mailFolder));
   api.use(briefRoutes(db));
   api.use(versionRoutes(db, accounts));

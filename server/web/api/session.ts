@@ -7,7 +7,7 @@ import { isFormPost } from "../http/forms";
 import { recordAudit } from "#db/audit";
 import type { Database } from "#db/client";
 import { fieldIssues, sendError } from "../http/errors";
-import { signInRateLimits, tooManyAttempts } from "../http/security";
+import { signInRateLimits, tooManyAttempts, type LimitStore } from "../http/security";
 import type { Person } from "#db/people";
 import { credentialsBody } from "./contract";
 
@@ -22,14 +22,14 @@ function signInPage(error: string, next: string): string {
   return `/sign-in?error=${error}&next=${encodeURIComponent(next)}`;
 }
 
-export function sessionRoutes(db: Database, passport: AppPassport, sessionCookie: string): Router {
+export function sessionRoutes(db: Database, passport: AppPassport, sessionCookie: string, limitStore: LimitStore): Router {
   const router = Router();
 
   router.get("/", guard("GET /api/session"), (req, res) => {
     res.json({ person: req.user });
   });
 
-  const limited = signInRateLimits((req, res) =>
+  const limited = signInRateLimits(limitStore, (req, res) =>
     isFormPost(req) ? res.redirect(303, signInPage("too-many", safeNext(req.body?.next))) : tooManyAttempts(res),
   );
 

@@ -14,17 +14,17 @@ import type { MailContext } from "#workflows/mail";
 import { guard } from "../auth/require-role";
 import { isFormPost } from "../http/forms";
 import { fieldIssues, sendError } from "../http/errors";
-import { linkLimits, mailRequestLimits } from "../http/security";
+import { linkLimits, mailRequestLimits, type LimitStore } from "../http/security";
 
 const subscribeBody = z.object({ email: z.string().trim().toLowerCase().email("Enter an e-mail address.").max(320), topic: z.string().trim().min(1).max(200), locale: z.string().max(10).optional() });
 const done = (what: string) => `/subscriptions/done?what=${what}`;
 
-export function subscriptionRoutes(context: (req: Request) => MailContext): Router {
+export function subscriptionRoutes(context: (req: Request) => MailContext, limitStore: LimitStore): Router {
   const router = Router();
   const limited = (req: Request, res: Response) => (isFormPost(req) ? res.redirect(303, done("too-many")) : sendError(res, 429, { key: "errors.account.tooMany", message: "Too many requests from here: wait ten minutes, then try again." }));
 
   // The same answer whether or not the address is subscribed already.
-  router.post("/subscriptions", guard("POST /api/subscriptions"), ...mailRequestLimits(limited), async (req, res) => {
+  router.post("/subscriptions", guard("POST /api/subscriptions"), ...mailRequestLimits(limitStore, "subscriptions", limited), async (req, res) => {
     const parsed = subscribeBody.safeParse(req.body ?? {});
     const topics = parsed.success ? topicsOf(await listReleasedBriefs(context(req).db)) : [];
     const topic = parsed.success ? topics.find((t) => t.name === parsed.data.topic || t.slug === parsed.data.topic) : undefined;
@@ -39,7 +39,7 @@ export function subscriptionRoutes(context: (req: Request) => MailContext): Rout
   });
 
   // Like the account links: only links that did not work count, per client address.
-  router.post("/subscriptions/confirm", guard("POST /api/subscriptions/confirm"), ...linkLimits(limited), async (req, res) => {
+  router.post("/subscriptions/confirm", guard("POST /api/subscriptions/confirm"), ...linkLimits(limitStore, "subscription-confirm", limited), async (req, res) => {
     const token = req.body?.token;
     const topic = wellFormedToken(token) ? await confirmSubscription(context(req).db, token) : null;
     if (!topic) res.locals.linkRefused = true;

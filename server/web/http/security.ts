@@ -4,6 +4,7 @@ import type { NextFunction, Request, RequestHandler, Response } from "express";
 import { doubleCsrf } from "csrf-csrf";
 import rateLimit, { ipKeyGenerator } from "express-rate-limit";
 import helmet from "helmet";
+import type { Store } from "express-rate-limit";
 import { sendError } from "./errors";
 
 /** A fresh nonce per response, for the few inline scripts the page renderer writes. */
@@ -36,6 +37,12 @@ export function securityHeaders(production: boolean, secureTransport: boolean): 
   });
 }
 
+/**
+ * The counters' store for one limiter, its keys under `prefix`: in PostgreSQL, shared by every process
+ * of the deployment (server/db/rate-limits.ts).
+ */
+export type LimitStore = (prefix: string) => Store;
+
 /** The session cookie; over HTTPS with the __Host- prefix, which browsers bind to this host and path. */
 export const sessionCookieName = (secureTransport: boolean) => (secureTransport ? "__Host-fairweigh.session" : "fairweigh.session");
 
@@ -60,7 +67,7 @@ export function createCsrf(secret: string, secureTransport: boolean) {
  * Only a password that did not match counts (the route marks it with `signInFailed`), whether the
  * answer is JSON (401) or the form's redirect: a malformed request checks no password.
  */
-export function signInRateLimits(onLimited: (req: Request, res: Response) => void): RequestHandler[] {
+export function signInRateLimits(store: LimitStore, onLimited: (req: Request, res: Response) => void): RequestHandler[] {
   const common = {
     windowMs: 60_000,
     limit: 5,
@@ -71,9 +78,10 @@ export function signInRateLimits(onLimited: (req: Request, res: Response) => voi
     handler: (req: Request, res: Response) => onLimited(req, res),
   };
   return [
-    rateLimit({ ...common, keyGenerator: (req) => `address:${ipKeyGenerator(req.ip ?? "unknown")}` }),
+    rateLimit({ ...common, store: store("sign-in:"), keyGenerator: (req) => `address:${ipKeyGenerator(req.ip ?? "unknown")}` }),
     rateLimit({
       ...common,
+      store: store("sign-in:"),
       keyGenerator: (req) => `email:${String(req.body?.email ?? "").trim().toLowerCase()}`,
     }),
   ];
@@ -91,11 +99,11 @@ export function tooManyAttempts(res: Response): void {
  * confirmation): twenty per client address and five per e-mail in ten minutes, counted whatever their
  * outcome, so that nobody can flood an inbox (common practice).
  */
-export function mailRequestLimits(onLimited: (req: Request, res: Response) => void): RequestHandler[] {
+export function mailRequestLimits(store: LimitStore, route: string, onLimited: (req: Request, res: Response) => void): RequestHandler[] {
   const common = { windowMs: 10 * 60_000, standardHeaders: "draft-8" as const, legacyHeaders: false, handler: (req: Request, res: Response) => onLimited(req, res) };
   return [
-    rateLimit({ ...common, limit: 20, keyGenerator: (req) => `mail:${ipKeyGenerator(req.ip ?? "unknown")}` }),
-    rateLimit({ ...common, limit: 5, keyGenerator: (req) => `mail-to:${String(req.body?.email ?? "").trim().toLowerCase()}` }),
+    rateLimit({ ...common, limit: 20, store: store(`${route}:`), keyGenerator: (req) => `mail:${ipKeyGenerator(req.ip ?? "unknown")}` }),
+    rateLimit({ ...common, limit: 5, store: store(`${route}:`), keyGenerator: (req) => `mail-to:${String(req.body?.email ?? "").trim().toLowerCase()}` }),
   ];
 }
 
@@ -103,9 +111,10 @@ export function mailRequestLimits(onLimited: (req: Request, res: Response) => vo
  * Using one-time links: ten links that did not work per address in ten minutes (the route marks them
  * with `linkRefused`), so that nobody tries tokens at speed; links that work do not count.
  */
-export function linkLimits(onLimited: (req: Request, res: Response) => void): RequestHandler[] {
+export function linkLimits(store: LimitStore, route: string, onLimited: (req: Request, res: Response) => void): RequestHandler[] {
   return [
     rateLimit({
+      store: store(`${route}:`),
       windowMs: 10 * 60_000,
       limit: 10,
       standardHeaders: "draft-8",

@@ -46,7 +46,8 @@ export function etagOf(html: string): string {
 
 /**
  * A version's public state, remembered for two seconds: under load, one query per version and
- * two seconds instead of one per request. A withdrawal or a new version shows on cached pages within that time.
+ * two seconds instead of one per request. A change is announced by the database and forgotten at once
+ * (server/db/notices.ts); were a notice lost, it would still show within the two seconds.
  */
 export class StateMemo<T> {
   private readonly entries = new Map<string, { value: T; until: number }>();
@@ -61,6 +62,11 @@ export class StateMemo<T> {
     this.entries.set(key, { value, until: now + this.millis });
     if (this.entries.size > 5000) this.entries.clear();
     return value;
+  }
+
+  /** Forgets every entry whose key starts with `prefix` (a brief's versions, when the database announces a change). */
+  forget(prefix: string): void {
+    for (const key of this.entries.keys()) if (key.startsWith(prefix)) this.entries.delete(key);
   }
 }
 

@@ -66,7 +66,7 @@ export async function pageRoutes(options: {
   sessionCookie: string;
   /** Called for each answer of the fast path, which runs before the request logger: it logs them. */
   onFastAnswer?: (req: IncomingMessage, res: ServerResponse) => void;
-}): Promise<{ router: Router; fastAnswer: (req: IncomingMessage, res: ServerResponse) => Promise<boolean> }> {
+}): Promise<{ router: Router; fastAnswer: (req: IncomingMessage, res: ServerResponse) => Promise<boolean>; forget: (slug: string) => void }> {
   const { root, production, csrf, db, publicUrl, sessionCookie, onFastAnswer } = options;
   const router = Router();
   const cache = new PageCache();
@@ -246,5 +246,7 @@ export async function pageRoutes(options: {
     return { page, caching, entry: null };
   }
 
-  return { router, fastAnswer };
+  /** What this process remembers of a brief's versions, dropped when the database announces a change to them. */
+  const forget = (slug: string) => states.forget(`${slug}/`);
+  return { router, fastAnswer, forget };
 }

@@ -1,0 +1,68 @@
+// Two server processes on one database, as a deployment runs them behind a load balancer: what one
+// changes, the other shows at once; what must be counted across them is counted in PostgreSQL.
+import { randomUUID } from "node:crypto";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { publishedBrief } from "../support/briefs";
+import { ApiClient, demoClient } from "../support/client";
+import { startProductionServer, type RunningServer } from "../support/production-server";
+
+let first: RunningServer;
+let second: RunningServer;
+let analyst: ApiClient;
+let editor: ApiClient;
+beforeAll(async () => {
+  // One deployment: the same rate-limit namespace for both.
+  const env = { RATE_LIMIT_NAMESPACE: `test-${randomUUID()}:` };
+  [first, second] = await Promise.all([startProductionServer({ env }), startProductionServer({ env })]);
+  // Signed in before the failed sign-ins below make this address wait a minute.
+  analyst = await demoClient(first.url, "analyst");
+  editor = await demoClient(first.url, "editor");
+}, 60_000);
+afterAll(async () => {
+  await Promise.all([first?.stop(), second?.stop()]);
+});
+
+/** Polls until `check` holds or `ms` pass; the milliseconds it took, or null. */
+async function within(ms: number, check: () => Promise<boolean>): Promise<number | null> {
+  const start = Date.now();
+  while (Date.now() - start <= ms) {
+    if (await check()) return Date.now() - start;
+    await new Promise((resolve) => setTimeout(resolve, 25));
+  }
+  return null;
+}
+
+describe("two processes on one database", () => {
+  it("a withdrawal on one is 410 on the other within one second, though the other had the page in memory", async () => {
+    const { briefId, slug } = await publishedBrief(analyst, editor, "Withdrawn across processes");
+    const page = `${second.url}/briefs/${slug}/v/1`;
+    // Read twice on the second process: rendered, then answered from its memory.
+    expect((await fetch(page)).status).toBe(200);
+    expect((await fetch(page)).status).toBe(200);
+    expect((await editor.request("POST", `/api/briefs/${briefId}/withdrawal`, { json: { reason: "A trial in the data was retracted." } })).status).toBe(200);
+    const took = await within(1000, async () => (await fetch(page)).status === 410);
+    expect(took, "the second process still answered 200 after one second").not.toBeNull();
+  });
+
+  it("counts failed sign-ins across both: three on one and two on the other make the sixth a 429", async () => {
+    const email = `nobody-${randomUUID()}@fairweigh.example`;
+    const attempt = async (server: RunningServer) => (await new ApiClient(server.url).signIn(email, "not the password")).status;
+    const statuses = [await attempt(first), await attempt(first), await attempt(first), await attempt(second), await attempt(second)];
+    expect(statuses).toEqual([401, 401, 401, 401, 401]);
+    expect(await attempt(second)).toBe(429);
+    expect(await attempt(first)).toBe(429);
+  });
+
+  it("a scheduled release becomes public on both at its time", async () => {
+    const releaseAt = new Date(Date.now() + 4000);
+    const { slug } = await publishedBrief(analyst, editor, "Released across processes", releaseAt.toISOString());
+    const address = (server: RunningServer) => `${server.url}/briefs/${slug}/v/1`;
+    expect((await fetch(address(first))).status).toBe(404);
+    expect((await fetch(address(second))).status).toBe(404);
+    for (const server of [first, second]) {
+      const took = await within(10_000, async () => (await fetch(address(server))).status === 200);
+      expect(took, server.url).not.toBeNull();
+    }
+    expect(Date.now()).toBeGreaterThanOrEqual(releaseAt.getTime());
+  });
+});
