@@ -1,4 +1,5 @@
 // Settings read from the environment once, at start-up.
+import { availableParallelism } from "node:os";
 import { z } from "zod";
 
 const environment = z.object({
@@ -16,6 +17,8 @@ const environment = z.object({
   MAIL_RETRY_DELAY_SECONDS: z.coerce.number().int().min(1).max(3600).default(10),
   /** Development only: the fake SMTP server's folder, shown at /desk/dev/mail. */
   MAIL_FOLDER: z.string().optional(),
+  /** How many server processes to run (node:cluster); by default one per core in production, else one. */
+  WORKERS: z.coerce.number().int().min(1).max(256).optional(),
   /** Tests only: a namespace of the shared rate-limit counters, so that a test's server counts from zero. */
   RATE_LIMIT_NAMESPACE: z.string().max(64).optional(),
 });
@@ -34,6 +37,7 @@ export type ServerConfig = {
   mailRetryDelaySeconds: number;
   mailFolder: string | null;
   rateLimitNamespace: string;
+  workers: number;
 };
 
 export function readConfig(env: NodeJS.ProcessEnv = process.env): ServerConfig {
@@ -57,5 +61,6 @@ export function readConfig(env: NodeJS.ProcessEnv = process.env): ServerConfig {
     mailRetryDelaySeconds: value.MAIL_RETRY_DELAY_SECONDS,
     mailFolder: value.MAIL_FOLDER ?? null,
     rateLimitNamespace: value.RATE_LIMIT_NAMESPACE ?? "",
+    workers: value.WORKERS ?? (value.NODE_ENV === "production" ? availableParallelism() : 1),
   };
 }

@@ -1,5 +1,6 @@
 // Starts the server against DATABASE_URL: applies pending migrations, then listens.
 // It never seeds: demo content is only for the local cluster that scripts/start.ts manages.
+import cluster from "node:cluster";
 import type { Server } from "node:http";
 import { createApp } from "#web/app";
 import { readConfig, type ServerConfig } from "./config";
@@ -11,9 +12,10 @@ import { startAccountWorker } from "#workflows/accounts";
 import { startReleaseWorker } from "#workflows/alerts";
 import { startSubscriptionWorker } from "#workflows/subscriptions";
 
-export async function startServer(config: ServerConfig): Promise<{ url: string; close(): Promise<void> }> {
+/** `migrate: false` in the processes of a cluster, whose primary migrated once before forking them. */
+export async function startServer(config: ServerConfig, { migrate = true } = {}): Promise<{ url: string; close(): Promise<void> }> {
   const connection = connectDatabase(config.databaseUrl);
-  await migrateDatabase(connection.db);
+  if (migrate) await migrateDatabase(connection.db);
   // The job queue runs in the server's process: e-mail is delivered only where SMTP_URL says how.
   const queue = await startQueue(config.databaseUrl, { ...defaultQueueOptions, retryDelaySeconds: config.mailRetryDelaySeconds }, (error) => console.error("queue:", error.message));
   const mail = { db: connection.db, queue, siteUrl: config.publicUrl };
@@ -56,15 +58,59 @@ export async function startServer(config: ServerConfig): Promise<{ url: string; 
   };
 }
 
-const isEntryPoint = import.meta.url === `file://${process.argv[1]}`;
-if (isEntryPoint) {
-  const config = readConfig();
-  const server = await startServer(config);
-  console.log(`Fairweigh is serving ${server.url}`);
-  const stop = async () => {
-    await server.close();
-    process.exit(0);
+/**
+ * WORKERS processes share the port through node:cluster: the primary migrates once, forks them, and
+ * replaces one that dies; everything they must share lives in PostgreSQL (docs/operations.md).
+ */
+async function runCluster(config: ServerConfig): Promise<void> {
+  const connection = connectDatabase(config.databaseUrl);
+  await migrateDatabase(connection.db);
+  await connection.close();
+  let stopping = false;
+  let listening = 0;
+  const fork = () => cluster.fork({ FAIRWEIGH_CLUSTER_WORKER: "1" });
+  cluster.on("listening", () => {
+    listening += 1;
+    if (listening === config.workers) console.log(`Fairweigh is serving http://${config.host}:${config.port} (${config.workers} processes)`);
+  });
+  cluster.on("exit", (worker, code, signal) => {
+    if (stopping) return;
+    console.error(`a server process (${worker.process.pid}) ended (${signal ?? code}): starting another`);
+    fork();
+  });
+  for (let i = 0; i < config.workers; i++) fork();
+  const stop = () => {
+    stopping = true;
+    const workers = Object.values(cluster.workers ?? {});
+    let left = workers.length;
+    if (left === 0) process.exit(0);
+    for (const worker of workers) {
+      worker?.once("exit", () => {
+        left -= 1;
+        if (left === 0) process.exit(0);
+      });
+      worker?.process.kill("SIGTERM");
+    }
   };
   process.once("SIGINT", stop);
   process.once("SIGTERM", stop);
+}
+
+const isEntryPoint = import.meta.url === `file://${process.argv[1]}`;
+if (isEntryPoint) {
+  const config = readConfig();
+  if (cluster.isPrimary && config.workers > 1) {
+    await runCluster(config);
+  } else {
+    const server = await startServer(config, { migrate: !cluster.isWorker });
+    if (cluster.isPrimary) console.log(`Fairweigh is serving ${server.url}`);
+    const stop = async () => {
+      await server.close();
+      process.exit(0);
+    };
+    process.once("SIGINT", stop);
+    process.once("SIGTERM", stop);
+    // A process of a cluster whose primary is gone takes no more requests: it ends.
+    if (cluster.isWorker) process.once("disconnect", () => void stop());
+  }
 }

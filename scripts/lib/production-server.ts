@@ -26,6 +26,8 @@ export async function startProductionServer(options: { databaseUrl: string; sess
       SESSION_SECRET: options.sessionSecret,
       PORT: String(port),
       LOG_LEVEL: "warn",
+      // One process unless a test asks for more: a test that kills the server kills all of it.
+      WORKERS: "1",
       ...options.env,
     },
     stdio: ["ignore", "pipe", "inherit"],

@@ -1,6 +1,7 @@
 // Two server processes on one database, as a deployment runs them behind a load balancer: what one
 // changes, the other shows at once; what must be counted across them is counted in PostgreSQL.
 import { randomUUID } from "node:crypto";
+import { readFileSync } from "node:fs";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { publishedBrief } from "../support/briefs";
 import { ApiClient, demoClient } from "../support/client";
@@ -65,4 +66,24 @@ describe("two processes on one database", () => {
     }
     expect(Date.now()).toBeGreaterThanOrEqual(releaseAt.getTime());
   });
+});
+
+describe("WORKERS", () => {
+  it("runs that many processes behind one port (node:cluster), and stopping the server stops them all", async () => {
+    const server = await startProductionServer({ env: { WORKERS: "2" } });
+    const children = readFileSync(`/proc/${server.pid}/task/${server.pid}/children`, "utf8").trim().split(/\s+/).map(Number);
+    expect(children).toHaveLength(2);
+    const answers = await Promise.all(Array.from({ length: 8 }, async () => (await fetch(`${server.url}/api/health`)).status));
+    expect(answers).toEqual(Array.from({ length: 8 }, () => 200));
+    await server.stop();
+    const alive = (pid: number) => {
+      try {
+        process.kill(pid, 0);
+        return true;
+      } catch {
+        return false;
+      }
+    };
+    expect(children.filter(alive)).toEqual([]);
+  }, 60_000);
 });
