@@ -17,6 +17,8 @@ const environment = z.object({
   MAIL_RETRY_DELAY_SECONDS: z.coerce.number().int().min(1).max(3600).default(10),
   /** Development only: the fake SMTP server's folder, shown at /desk/dev/mail. */
   MAIL_FOLDER: z.string().optional(),
+  /** Where to POST the surrogate key of a brief whose public pages changed (a CDN's purge endpoint, or a small relay to it). */
+  PURGE_URL: z.string().url({ message: "PURGE_URL must be an http(s):// address" }).optional(),
   /** How many server processes to run (node:cluster); by default one per core in production, else one. */
   WORKERS: z.coerce.number().int().min(1).max(256).optional(),
   /** Tests only: a namespace of the shared rate-limit counters, so that a test's server counts from zero. */
@@ -38,6 +40,7 @@ export type ServerConfig = {
   mailFolder: string | null;
   rateLimitNamespace: string;
   workers: number;
+  purgeUrl: string | null;
 };
 
 export function readConfig(env: NodeJS.ProcessEnv = process.env): ServerConfig {
@@ -62,5 +65,6 @@ export function readConfig(env: NodeJS.ProcessEnv = process.env): ServerConfig {
     mailFolder: value.MAIL_FOLDER ?? null,
     rateLimitNamespace: value.RATE_LIMIT_NAMESPACE ?? "",
     workers: value.WORKERS ?? (value.NODE_ENV === "production" ? availableParallelism() : 1),
+    purgeUrl: value.PURGE_URL ?? null,
   };
 }

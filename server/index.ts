@@ -8,6 +8,7 @@ import { connectDatabase } from "#db/client";
 import { migrateDatabase } from "#db/migrate";
 import { defaultQueueOptions, startQueue } from "#workflows/queue";
 import { startMailWorker } from "#workflows/mail";
+import { requestPurge, startPurgeWorker } from "#workflows/purge";
 import { startAccountWorker } from "#workflows/accounts";
 import { startReleaseWorker } from "#workflows/alerts";
 import { startSubscriptionWorker } from "#workflows/subscriptions";
@@ -22,6 +23,7 @@ export async function startServer(config: ServerConfig, { migrate = true } = {})
   await startAccountWorker(mail);
   await startReleaseWorker(mail);
   await startSubscriptionWorker(mail);
+  if (config.purgeUrl) await startPurgeWorker(queue, config.purgeUrl);
   if (config.smtpUrl) await startMailWorker(queue, connection.db, config.smtpUrl);
   else console.warn("SMTP_URL is not set: e-mails are stored and wait in the queue until it is.");
   const app = await createApp({
@@ -35,6 +37,7 @@ export async function startServer(config: ServerConfig, { migrate = true } = {})
     publicUrl: config.publicUrl,
     mailFolder: config.mailFolder,
     rateLimitNamespace: config.rateLimitNamespace,
+    onVersionsChanged: config.purgeUrl ? (slug) => void requestPurge(queue, slug).catch((error: Error) => console.error("purge:", error.message)) : undefined,
   });
   const server: Server = await new Promise((resolve) => {
     const listening = app.listen(config.port, config.host, () => resolve(listening));

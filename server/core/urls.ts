@@ -132,3 +132,21 @@ export function alternates(path: string): { hreflang: string; path: string }[] {
 
 /** Where the language switcher sends a reader: it keeps the choice (a cookie), then shows `path` in `locale`. */
 export const languageChoiceUrl = (locale: Locale, path: string) => `/language/${locale}?next=${encodeURIComponent(path)}`;
+
+/**
+ * The tags a CDN files a public answer under (Surrogate-Key, space separated), so that one purge
+ * takes a brief's every page and file: `brief:<slug>` for all of them, and `brief:<slug>:v<n>` for
+ * one version's. Null for answers that belong to no brief.
+ */
+export function surrogateKeys(at: { slug: string; version?: number } | null): string | null {
+  if (!at) return null;
+  return at.version === undefined ? `brief:${at.slug}` : `brief:${at.slug} brief:${at.slug}:v${at.version}`;
+}
+
+/** The brief (and version) a public page's path names, for its surrogate keys. */
+export function briefOfPath(path: string): { slug: string; version?: number } | null {
+  const version = parseVersionPath(path);
+  if (version) return { slug: version.at.slug, version: version.at.version };
+  const slug = parseBriefPath(path);
+  return slug === null ? null : { slug };
+}

@@ -44,6 +44,8 @@ export interface AppOptions {
    * same (the default, ""); a test's own server takes one of its own so that its counts start at zero.
    */
   rateLimitNamespace?: string;
+  /** Also told of every change to a brief's public pages (the CDN purge hook). */
+  onVersionsChanged?: (slug: string) => void;
 }
 
 export async function createApp(options: AppOptions): Promise<express.Express> {
@@ -72,7 +74,11 @@ export async function createApp(options: AppOptions): Promise<express.Express> {
   // Released pages in memory go to anonymous readers before Express runs at all (render.ts); every
   // process forgets a brief's remembered state as soon as the database announces a change to it.
   if (pages) {
-    const listener = listenForVersionChanges(options.pool, pages.forget, (error) => logger.warn({ err: error }, "listening for version changes"));
+    const changed = (slug: string) => {
+      pages.forget(slug);
+      options.onVersionsChanged?.(slug);
+    };
+    const listener = listenForVersionChanges(options.pool, changed, (error) => logger.warn({ err: error }, "listening for version changes"));
     app.locals.stopListening = () => listener.stop();
     const { fastAnswer } = pages;
     const handle = (req: IncomingMessage, res: ServerResponse) => void fastAnswer(req, res).then((answered) => answered || app(req, res), () => app(req, res));

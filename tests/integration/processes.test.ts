@@ -2,6 +2,8 @@
 // changes, the other shows at once; what must be counted across them is counted in PostgreSQL.
 import { randomUUID } from "node:crypto";
 import { readFileSync } from "node:fs";
+import { createServer } from "node:http";
+import type { AddressInfo } from "node:net";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { publishedBrief } from "../support/briefs";
 import { ApiClient, demoClient } from "../support/client";
@@ -85,5 +87,46 @@ describe("WORKERS", () => {
       }
     };
     expect(children.filter(alive)).toEqual([]);
+  }, 60_000);
+});
+
+describe("behind a CDN", () => {
+  it("files public answers under the brief's surrogate keys, and asks the purge hook to drop the brief when it is withdrawn", async () => {
+    const received: unknown[] = [];
+    const hook = createServer((req, res) => {
+      let body = "";
+      req.on("data", (chunk: Buffer) => (body += chunk.toString()));
+      req.on("end", () => {
+        received.push(JSON.parse(body));
+        res.end("ok");
+      });
+    });
+    await new Promise<void>((resolve) => hook.listen(0, "127.0.0.1", resolve));
+    const server = await startProductionServer({ env: { PURGE_URL: `http://127.0.0.1:${(hook.address() as AddressInfo).port}/purge` } });
+    try {
+      const { briefId, slug } = await publishedBrief(analyst, editor, "Kept by a CDN");
+      const keys = `brief:${slug} brief:${slug}:v1`;
+      const version = `/briefs/${slug}/v/1`;
+      for (const path of [version, `${version}/compare/grp_counseling/no_contact`, `/es${version}`, `${version}/cite.ris`, `${version}/downloads/results.csv`, `/embed${version}`, `${version}/share.png`]) {
+        const answer = await fetch(`${server.url}${path}`);
+        expect(answer.status, path).toBe(200);
+        expect(answer.headers.get("surrogate-key"), path).toBe(keys);
+        expect(answer.headers.get("cache-control"), path).toMatch(/^public/);
+      }
+      expect((await fetch(`${server.url}/briefs/${slug}`)).headers.get("surrogate-key")).toBe(`brief:${slug}`);
+      // An answer that depends on who reads it is never filed for a shared cache.
+      const press = await demoClient(server.url, "press");
+      const personal = await press.request("GET", version);
+      expect(personal.headers.get("surrogate-key")).toBeNull();
+
+      const before = received.length;
+      expect((await editor.request("POST", `/api/briefs/${briefId}/withdrawal`, { json: { reason: "A trial in the data was retracted." } })).status).toBe(200);
+      const took = await within(10_000, async () => received.length > before);
+      expect(took, "no purge request within ten seconds").not.toBeNull();
+      expect(received.at(-1)).toEqual({ surrogateKeys: [`brief:${slug}`] });
+    } finally {
+      await server.stop();
+      await new Promise<void>((resolve) => hook.close(() => resolve()));
+    }
   }, 60_000);
 });

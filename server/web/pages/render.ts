@@ -13,7 +13,7 @@ import { localeCookie } from "../public/routes";
 import { siteUrl } from "../http/site-url";
 import type { Database } from "#db/client";
 import type { createCsrf } from "../http/security";
-import { canonicalVersionPath, isDeskPath, parseBriefPath, parseVersionPath, type VersionPath } from "#core/urls";
+import { briefOfPath, canonicalVersionPath, isDeskPath, parseBriefPath, parseVersionPath, surrogateKeys, type VersionPath } from "#core/urls";
 import { admits, pageAccess } from "#core/access";
 import { encode, etagOf, PageCache, StateMemo, type CachedPage, type Encodings } from "./page-cache";
 
@@ -93,7 +93,12 @@ export async function pageRoutes(options: {
     // its inline scripts are JSON data, which never runs (tests/integration/public-site.test.ts).
     if (typeof policy === "string" && page.nonce !== nonce) res.setHeader("content-security-policy", policy.replace(` 'nonce-${nonce}'`, ""));
     res.setHeader("Cache-Control", cacheControl[caching]);
-    if (caching !== "private") res.setHeader("ETag", page.etag);
+    if (caching !== "private") {
+      res.setHeader("ETag", page.etag);
+      // A CDN in front may keep public answers; one purge of brief:<slug> takes all of a brief's (docs/operations.md).
+      const keys = surrogateKeys(briefOfPath(splitLocale(req.path).path));
+      if (keys) res.setHeader("Surrogate-Key", keys);
+    }
     if ("state" in page && page.nonce !== nonce && !page.ready && !req.user) {
       // What every anonymous answer of this page from memory says; per-answer headers are left out.
       const perAnswer = new Set(["date", "vary", "set-cookie", "content-length", "content-encoding"]);

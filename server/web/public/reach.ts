@@ -7,7 +7,7 @@ import { Router, type Request, type Response } from "express";
 import { z } from "zod";
 import { defaultLocale, isTranslationLocale, localePath, splitLocale, type Locale } from "#core/locales";
 import { translatedSnapshot } from "#core/translation";
-import { embedUrl, pageUrl, parseBriefPath, parseVersionPath, shareImageUrl, versionNumberOf, type ComparisonAddress, type VersionAddress } from "#core/urls";
+import { embedUrl, pageUrl, surrogateKeys, parseBriefPath, parseVersionPath, shareImageUrl, versionNumberOf, type ComparisonAddress, type VersionAddress } from "#core/urls";
 import { wordsOf } from "#core/words";
 import type { Database } from "#db/client";
 import { publishedTranslation } from "#db/translations";
@@ -60,7 +60,7 @@ export function reachRoutes(db: Database, publicUrl: string | undefined): Router
     const policy = String(res.getHeader("Content-Security-Policy") ?? "");
     res.setHeader("Content-Security-Policy", policy.replace("frame-ancestors 'none'", "frame-ancestors *"));
     res.removeHeader("X-Frame-Options");
-    res.status(found!.withdrawal ? 410 : 200).set({ "Cache-Control": cacheControl, "Cross-Origin-Resource-Policy": "cross-origin" }).type("html").send(html);
+    res.status(found!.withdrawal ? 410 : 200).set({ "Cache-Control": cacheControl, "Cross-Origin-Resource-Policy": "cross-origin", "Surrogate-Key": surrogateKeys({ slug: at!.slug, version: at!.version })! }).type("html").send(html);
   };
   router.get("/embed/briefs/:slug/v/:number", card);
   router.get("/embed/briefs/:slug/v/:number/compare/:a/:b", card);
@@ -77,7 +77,7 @@ export function reachRoutes(db: Database, publicUrl: string | undefined): Router
     const drawn = locale !== "ar" ? text : (arabic ?? shareImageText(found.original, pairOf(at), wordsOf(defaultLocale, "public"))!);
     const png = await shareImage(`${arabic ? "ar" : locale === "ar" ? "en" : locale}|${shareImageUrl(at)}|${found.translatedAt ?? ""}`, drawn, arabic !== null);
     // Other sites show it (cards of social networks, a reporter's page): not bound to this origin.
-    res.set({ "Cache-Control": cacheControl, "Cross-Origin-Resource-Policy": "cross-origin" }).type("png").send(png);
+    res.set({ "Cache-Control": cacheControl, "Cross-Origin-Resource-Policy": "cross-origin", "Surrogate-Key": surrogateKeys({ slug: at.slug, version: at.version })! }).type("png").send(png);
   };
   router.get("/briefs/:slug/v/:number/share.png", image);
   router.get("/briefs/:slug/v/:number/compare/:a/:b/share.png", image);
@@ -109,7 +109,8 @@ export function reachRoutes(db: Database, publicUrl: string | undefined): Router
     const src = `${site}${localePath(locale, embedUrl(at))}`;
     const title = `${text.title} · Fairweigh`;
     const escape = (value: string) => value.replace(/&/g, "&amp;").replace(/"/g, "&quot;").replace(/</g, "&lt;");
-    res.set({ "Cache-Control": cacheControl, "Access-Control-Allow-Origin": "*" }).json({
+    // Filed under the brief too: withdrawing it must take its oEmbed answers out of a CDN as well.
+    res.set({ "Cache-Control": cacheControl, "Access-Control-Allow-Origin": "*", "Surrogate-Key": surrogateKeys({ slug: at.slug, version: at.version })! }).json({
       version: "1.0",
       type: "rich",
       title: text.title,

@@ -4,7 +4,7 @@
 import { Router, type Request, type Response } from "express";
 import { comparisonContent } from "#core/brief-page";
 import { defaultLocale, isLocale, localePath, locales, splitLocale, type Locale } from "#core/locales";
-import { alternates, briefUrl, comparisonUrl, feedUrl, homeUrl, searchUrl, sitemapUrl, versionNumberOf, versionUrl } from "#core/urls";
+import { alternates, briefUrl, surrogateKeys, comparisonUrl, feedUrl, homeUrl, searchUrl, sitemapUrl, versionNumberOf, versionUrl } from "#core/urls";
 import { listReleasedVersions, readVersion } from "#db/versions";
 import { wordsOf } from "#core/words";
 import type { Database } from "#db/client";
@@ -55,10 +55,15 @@ export function publicFileRoutes(db: Database, publicUrl: string | undefined, se
   };
   const formatOf = (value: unknown): CitationFormat | null => (value === "ris" || value === "bib" || value === "json" ? value : null);
   const cacheFor = (embargoed: boolean) => (embargoed ? "private, no-store" : "public, max-age=3600");
+  /** A released version's file: cached for an hour, filed under its brief's and version's surrogate keys. */
+  const setCaching = (res: Response, embargoed: boolean, at: { slug: string; version: number }) => {
+    res.set("Cache-Control", cacheFor(embargoed));
+    if (!embargoed) res.set("Surrogate-Key", surrogateKeys(at)!);
+  };
 
   /** A citation file for a version or one comparison in it, named after what it cites. */
-  function sendCitation(res: Response, format: CitationFormat, embargoed: boolean, fileBase: string, input: Omit<CitationInput, "accessed">) {
-    res.set("Cache-Control", cacheFor(embargoed));
+  function sendCitation(res: Response, format: CitationFormat, embargoed: boolean, fileBase: string, input: Omit<CitationInput, "accessed">, at: { slug: string; version: number }) {
+    setCaching(res, embargoed, at);
     res.type(citationMedia[format]).attachment(`${fileBase}.${format === "json" ? "csl.json" : format}`).send(citationFile({ ...input, accessed: new Date() }, format));
   }
 
@@ -69,7 +74,7 @@ export function publicFileRoutes(db: Database, publicUrl: string | undefined, se
     const { snapshot, embargoed } = page;
     const locale = localeOf(res);
     const url = `${siteUrl(req, publicUrl)}${localePath(locale, versionUrl({ slug: snapshot.brief.slug, version: snapshot.version }))}`;
-    sendCitation(res, format, embargoed, `${snapshot.brief.slug}-v${snapshot.version}`, { title: snapshot.brief.title, author: snapshot.brief.reviewGroup, version: snapshot.version, releaseAt: snapshot.releaseAt, url, language: locale });
+    sendCitation(res, format, embargoed, `${snapshot.brief.slug}-v${snapshot.version}`, { title: snapshot.brief.title, author: snapshot.brief.reviewGroup, version: snapshot.version, releaseAt: snapshot.releaseAt, url, language: locale }, { slug: snapshot.brief.slug, version: snapshot.version });
   });
 
   router.get("/briefs/:slug/v/:number/compare/:a/:b/cite.:format", async (req, res) => {
@@ -87,7 +92,7 @@ export function publicFileRoutes(db: Database, publicUrl: string | undefined, se
       url,
       comparison: `${view.treatment.name} vs ${view.comparator.name}`,
       language: locale,
-    });
+    }, { slug: view.slug, version: view.version });
   });
 
   router.get("/briefs/:slug/v/:number/downloads/:file", async (req, res) => {
@@ -97,7 +102,7 @@ export function publicFileRoutes(db: Database, publicUrl: string | undefined, se
     const page = file ? await versionOf(req) : null;
     if (!file || !page) return res.status(404).type("text/plain").send("There is no such download.");
     const { snapshot, embargoed } = page;
-    res.set("Cache-Control", cacheFor(embargoed));
+    setCaching(res, embargoed, { slug: snapshot.brief.slug, version: snapshot.version });
     res.type(file.media).attachment(`${snapshot.brief.slug}-v${snapshot.version}-${String(req.params.file)}`).send(file.build(snapshot));
   });
 
