@@ -9,6 +9,7 @@ import { migrateDatabase } from "#db/migrate";
 import { defaultQueueOptions, startQueue } from "#workflows/queue";
 import { startMailWorker } from "#workflows/mail";
 import { requestPurge, startPurgeWorker } from "#workflows/purge";
+import { startAnalysisWorker } from "#workflows/analysis";
 import { startAccountWorker } from "#workflows/accounts";
 import { startReleaseWorker } from "#workflows/alerts";
 import { startSubscriptionWorker } from "#workflows/subscriptions";
@@ -24,6 +25,7 @@ export async function startServer(config: ServerConfig, { migrate = true } = {})
   await startReleaseWorker(mail);
   await startSubscriptionWorker(mail);
   if (config.purgeUrl) await startPurgeWorker(queue, config.purgeUrl);
+  await startAnalysisWorker(connection.db, queue);
   if (config.smtpUrl) await startMailWorker(queue, connection.db, config.smtpUrl);
   else console.warn("SMTP_URL is not set: e-mails are stored and wait in the queue until it is.");
   const app = await createApp({

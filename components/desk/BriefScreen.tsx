@@ -7,7 +7,7 @@ import { previewMarkdown, useAnalyseAgain, useBrief, useCreateOutcome, useDelete
 import { ReleasePanel } from "./ReleasePanel";
 import { TextsForm } from "./TextsForm";
 import type { OutcomeSummary } from "#web/api/contract";
-import { UploadForm } from "./UploadForm";
+import { issueText, UploadForm } from "./UploadForm";
 
 export function BriefScreen({ personId, canAnalyse, canEdit }: { personId: string; canAnalyse: boolean; canEdit: boolean }) {
   const { t } = useTranslation();
@@ -64,7 +64,7 @@ export function BriefScreen({ personId, canAnalyse, canEdit }: { personId: strin
 }
 
 function OutcomePanel({ briefId, outcome, canAnalyse }: { briefId: string; outcome: OutcomeSummary; canAnalyse: boolean }) {
-  const { t } = useTranslation();
+  const { t, i18n } = useTranslation();
   const upload = useUploadDataset(briefId, outcome.id);
   const update = useUpdateOutcome(briefId, outcome.id);
   const remove = useDeleteOutcome(briefId, outcome.id);
@@ -93,6 +93,19 @@ function OutcomePanel({ briefId, outcome, canAnalyse }: { briefId: string; outco
         ) : null}
       </p>
       {analyseAgain.isSuccess ? <p role="status" className="mt-1 font-sans text-sm">{t("desk.analysis.ranAgain")}</p> : null}
+      {outcome.analysis.pending?.state === "analysing" ? (
+        <p role="status" className="mt-1 font-sans text-sm" data-testid="analysing">{t("desk.analysis.analysing", { file: outcome.analysis.pending.fileName })}</p>
+      ) : null}
+      {outcome.analysis.pending?.state === "refused" ? (
+        <div role="alert" className="mt-2 border-s-4 border-accent bg-accent-soft px-4 py-3 font-sans text-sm" data-testid="upload-refused">
+          <p>{t("desk.analysis.refused", { file: outcome.analysis.pending.fileName })}</p>
+          <ul className="mt-1 list-disc ps-6">
+            {outcome.analysis.pending.issues.slice(0, 10).map((issue, i) => (
+              <li key={i}>{issueText(t, i18n, issue)}</li>
+            ))}
+          </ul>
+        </div>
+      ) : null}
       {analyseAgain.error ? <p role="alert" className="mt-1 font-sans text-sm text-accent">{t("desk.error", { message: analyseAgain.error.message })}</p> : null}
       {canAnalyse ? (
         <details className="mt-4 font-sans">

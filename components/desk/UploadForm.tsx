@@ -5,7 +5,7 @@ import type { DatasetIssue, Format } from "#core/nma/types";
 import type { UploadReport } from "#web/api/contract";
 
 /** A problem of an upload in the reader's language, from its rule and facts; the engine's English for a rule without words. */
-function issueText(t: TFunction, i18n: i18n, issue: DatasetIssue): string {
+export function issueText(t: TFunction, i18n: i18n, issue: DatasetIssue): string {
   const key = `desk.rule.${issue.rule}`;
   const context = typeof issue.facts?.reason === "string" ? issue.facts.reason : undefined;
   if (!i18n.exists(context ? `${key}_${context}` : key)) return issue.message;
@@ -56,7 +56,12 @@ export function UploadForm({
         </button>
       </form>
       {error ? <p role="alert" className="mt-2 text-accent">{t("desk.error", { message: error })}</p> : null}
-      {report?.valid ? (
+      {report?.valid && "analysing" in report ? (
+        <p role="status" className="mt-3" data-testid="upload-analysing">
+          {t("desk.analysis.queued", { file: report.fileName })}
+        </p>
+      ) : null}
+      {report?.valid && !("analysing" in report) ? (
         <p role="status" className="mt-3">
           {t("desk.uploadValid", { studies: report.studies, treatments: report.treatments?.length })}
           {report.excludedStudies?.length ? ` ${t("desk.excluded", { studies: report.excludedStudies.join(", ") })}` : null}

@@ -70,7 +70,12 @@ export function useBriefs() {
 }
 
 export function useBrief(id: string) {
-  return useQuery({ queryKey: queryKeys.brief(id), queryFn: async () => (await callApi<ApiAnswers["brief"]>("GET", `/api/briefs/${id}`)).brief });
+  return useQuery({
+    queryKey: queryKeys.brief(id),
+    queryFn: async () => (await callApi<ApiAnswers["brief"]>("GET", `/api/briefs/${id}`)).brief,
+    // While a large upload is analysed on the queue, ask again every two seconds until its result is in.
+    refetchInterval: (query) => (query.state.data?.outcomes.some((o) => o.analysis.pending?.state === "analysing") ? 2000 : false),
+  });
 }
 
 export function useCreateBrief() {

@@ -3,9 +3,9 @@
 import { createHash } from "node:crypto";
 import { and, desc, eq, sql } from "drizzle-orm";
 import { engineVersion, type AnalysisResult } from "#core/nma/analyse";
-import type { AnalysisOptions, Format, ParsedDataset } from "#core/nma/types";
+import type { AnalysisOptions, DatasetIssue, Format, ParsedDataset } from "#core/nma/types";
 import type { Executor } from "./client";
-import { analysisResults, datasets } from "./schema";
+import { analysisResults, datasets, pendingUploads } from "./schema";
 import type { OutcomeRow } from "./outcomes";
 
 export function analysisSettings(outcome: OutcomeRow): AnalysisOptions {
@@ -26,7 +26,7 @@ export function inputChecksum(datasetSha256: string, settings: AnalysisOptions):
 /** Keeps an uploaded file with its bytes, SHA-256 and parsed rows; earlier uploads stay in the history. */
 export async function insertDataset(
   db: Executor,
-  values: { outcomeId: string; format: Format; fileName: string; original: Buffer; sha256: string; parsed: ParsedDataset; uploadedBy: string },
+  values: { outcomeId: string; format: Format; fileName: string; original: Buffer; sha256: string; parsed: ParsedDataset; uploadedBy: string; uploadedAt?: Date },
 ) {
   const [dataset] = await db.insert(datasets).values(values).returning({ id: datasets.id, sha256: datasets.sha256, uploadedAt: datasets.uploadedAt });
   return dataset!;
@@ -72,6 +72,13 @@ export async function latestTreatments(db: Executor, outcomeId: string): Promise
 }
 
 /** Whether the outcome has data and a result, and whether that result still matches the data and settings. */
+/** A large upload newer than the outcome's data: still analysing, or refused with its problems. */
+async function pendingSince(db: Executor, outcomeId: string, since: Date | null) {
+  const pending = await latestPendingUpload(db, outcomeId);
+  if (!pending || (since && pending.uploadedAt <= since)) return null;
+  return { fileName: pending.fileName, state: pending.state, issues: (pending.issues as DatasetIssue[] | null) ?? [] };
+}
+
 export async function analysisStatus(db: Executor, outcome: OutcomeRow) {
   // Only the small columns: the file's bytes, its parsed rows and the result stay in the database.
   const [dataset] = await db
@@ -80,7 +87,7 @@ export async function analysisStatus(db: Executor, outcome: OutcomeRow) {
     .where(eq(datasets.outcomeId, outcome.id))
     .orderBy(desc(datasets.uploadedAt))
     .limit(1);
-  if (!dataset) return { state: "no-data" as const };
+  if (!dataset) return { state: "no-data" as const, pending: await pendingSince(db, outcome.id, null) };
   const [result] = await db
     .select({ id: analysisResults.id, inputChecksum: analysisResults.inputChecksum, engineVersion: analysisResults.engineVersion })
     .from(analysisResults)
@@ -90,6 +97,7 @@ export async function analysisStatus(db: Executor, outcome: OutcomeRow) {
   const expected = inputChecksum(dataset.sha256, analysisSettings(outcome));
   return {
     state: result && result.inputChecksum === expected ? ("current" as const) : ("stale" as const),
+    pending: await pendingSince(db, outcome.id, dataset.uploadedAt),
     datasetId: dataset.id,
     fileName: dataset.fileName,
     sha256: dataset.sha256,
@@ -97,4 +105,34 @@ export async function analysisStatus(db: Executor, outcome: OutcomeRow) {
     resultId: result?.id ?? null,
     engineVersion: result?.engineVersion ?? null,
   };
+}
+
+/** A large upload waiting for the queue's analysis (table pending_uploads). */
+export async function insertPendingUpload(db: Executor, values: { outcomeId: string; format: Format; fileName: string; original: Buffer; uploadedBy: string }) {
+  const [row] = await db.insert(pendingUploads).values({ ...values, state: "analysing" }).returning({ id: pendingUploads.id, uploadedAt: pendingUploads.uploadedAt });
+  return row!;
+}
+
+export async function findPendingUpload(db: Executor, id: string) {
+  return (await db.query.pendingUploads.findFirst({ where: eq(pendingUploads.id, id) })) ?? null;
+}
+
+export async function deletePendingUpload(db: Executor, id: string): Promise<void> {
+  await db.delete(pendingUploads).where(eq(pendingUploads.id, id));
+}
+
+/** The engine refused it: its problems are kept for the desk, and nothing else changes. */
+export async function refusePendingUpload(db: Executor, id: string, issues: DatasetIssue[]): Promise<void> {
+  await db.update(pendingUploads).set({ state: "refused", issues }).where(eq(pendingUploads.id, id));
+}
+
+/** The outcome's newest large upload that is still analysing or was refused, without its bytes. */
+export async function latestPendingUpload(db: Executor, outcomeId: string) {
+  const [row] = await db
+    .select({ id: pendingUploads.id, fileName: pendingUploads.fileName, state: pendingUploads.state, issues: pendingUploads.issues, uploadedAt: pendingUploads.uploadedAt })
+    .from(pendingUploads)
+    .where(eq(pendingUploads.outcomeId, outcomeId))
+    .orderBy(desc(pendingUploads.uploadedAt))
+    .limit(1);
+  return row ?? null;
 }

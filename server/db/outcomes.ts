@@ -3,7 +3,7 @@ import { and, eq, sql } from "drizzle-orm";
 import type { OutcomeInput } from "#core/outcome";
 import { recordAudit } from "./audit";
 import type { Database, Executor } from "./client";
-import { analysisResults, certaintyJudgements, datasets, outcomes } from "./schema";
+import { analysisResults, certaintyJudgements, datasets, outcomes, pendingUploads } from "./schema";
 
 export type OutcomeRow = typeof outcomes.$inferSelect;
 
@@ -47,6 +47,7 @@ export async function deleteOutcome(db: Database, id: string, actorId: string): 
     await tx.delete(certaintyJudgements).where(eq(certaintyJudgements.outcomeId, id));
     await tx.delete(analysisResults).where(eq(analysisResults.outcomeId, id));
     await tx.delete(datasets).where(eq(datasets.outcomeId, id));
+    await tx.delete(pendingUploads).where(eq(pendingUploads.outcomeId, id));
     await tx.delete(outcomes).where(eq(outcomes.id, id));
     await recordAudit(tx, { actorId, action: "delete", entity: "outcome", entityId: id, before, after: null });
     return true;

@@ -407,3 +407,26 @@ export const rateLimits = pgTable(
   },
   (table) => [index("rate_limits_reset_idx").on(table.resetAt)],
 );
+
+/**
+ * An upload of a large network waiting for its analysis on the job queue (server/workflows/analysis.ts):
+ * kept here until the engine accepts it (then it becomes a dataset with its result, and this row goes)
+ * or refuses it (then its problems stay here for the desk, and nothing else changes).
+ */
+export const pendingUploads = pgTable(
+  "pending_uploads",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    outcomeId: uuid("outcome_id")
+      .notNull()
+      .references(() => outcomes.id),
+    format: datasetFormat("format").notNull(),
+    fileName: text("file_name").notNull(),
+    original: bytea("original").notNull(),
+    uploadedBy: uuid("uploaded_by").references(() => people.id),
+    uploadedAt: timestamp("uploaded_at", { withTimezone: true }).notNull().defaultNow(),
+    state: text("state", { enum: ["analysing", "refused"] }).notNull(),
+    issues: jsonb("issues"),
+  },
+  (table) => [index("pending_uploads_outcome_idx").on(table.outcomeId, table.uploadedAt), check("pending_uploads_state", sql`${table.state} in ('analysing', 'refused')`)],
+);

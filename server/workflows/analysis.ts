@@ -1,11 +1,13 @@
 // Uploading data and running the engine for an outcome: the file is parsed and analysed by the pure
 // engine, and only a file the engine can analyse is stored, with its result, in one transaction.
 import { createHash } from "node:crypto";
-import type { Format, ParsedDataset } from "#core/nma/types";
-import { analysisSettings, insertDataset, latestDataset, recordResult } from "#db/analyses";
+import type { AnalysisResult } from "#core/nma/analyse";
+import { DatasetError, type Format, type ParsedDataset } from "#core/nma/types";
+import { analysisSettings, deletePendingUpload, findPendingUpload, insertDataset, insertPendingUpload, latestDataset, recordResult, refusePendingUpload } from "#db/analyses";
 import { recordAudit } from "#db/audit";
 import type { Database, Executor } from "#db/client";
-import type { OutcomeRow } from "#db/outcomes";
+import { findOutcome, type OutcomeRow } from "#db/outcomes";
+import type { Queue } from "./queue";
 import { analyseParsed, parseAndAnalyse } from "./engine-thread";
 
 /** Formats that fit an outcome's kind: contrasts carry any measure. */
@@ -22,9 +24,16 @@ export async function storeDataset(db: Database, outcome: OutcomeRow, file: { na
   const settings = analysisSettings(outcome);
   // In the engine's thread: a large or broken file must not hold up every other request.
   const { parsed, result } = await parseAndAnalyse(file.bytes, format, settings);
+  return keepAnalysed(db, outcome, { ...file, format, actorId }, parsed, result);
+}
+
+/** An analysed file and its result, stored together with the audit row (`uploadedAt`: when it was sent, for a queued one). */
+async function keepAnalysed(db: Database, outcome: OutcomeRow, file: { name: string; bytes: Buffer; format: Format; actorId: string; uploadedAt?: Date }, parsed: ParsedDataset, result: AnalysisResult) {
+  const settings = analysisSettings(outcome);
+  const { format, actorId } = file;
   const sha256 = createHash("sha256").update(file.bytes).digest("hex");
   return db.transaction(async (tx) => {
-    const dataset = await insertDataset(tx, { outcomeId: outcome.id, format, fileName: file.name, original: file.bytes, sha256, parsed, uploadedBy: actorId });
+    const dataset = await insertDataset(tx, { outcomeId: outcome.id, format, fileName: file.name, original: file.bytes, sha256, parsed, uploadedBy: actorId, uploadedAt: file.uploadedAt });
     const stored = await recordResult(tx, outcome.id, dataset, settings, result);
     await recordAudit(tx, {
       actorId,
@@ -35,6 +44,50 @@ export async function storeDataset(db: Database, outcome: OutcomeRow, file: { na
       after: { datasetId: dataset.id, fileName: file.name, sha256, format, resultId: stored.id },
     });
     return { dataset, resultId: stored.id, result, parsed };
+  });
+}
+
+/**
+ * Files of more than this many lines are analysed as a job on the queue (any process may take it),
+ * so that the request answers at once; smaller ones, which the engine analyses in well under a
+ * second, answer with their result (common practice: the 27 × 300 network of the benchmark is
+ * about 650 lines and takes 0.1 s).
+ */
+export const queuedUploadLines = 1000;
+export const analysisJob = "analyse-upload";
+
+export const isLargeUpload = (bytes: Buffer) => {
+  let lines = 0;
+  for (const byte of bytes) if (byte === 0x0a && ++lines > queuedUploadLines) return true;
+  return false;
+};
+
+/** Keeps a large upload aside and asks the queue to analyse it; the desk shows it as analysing. */
+export async function queueUpload(db: Database, queue: Queue, outcome: OutcomeRow, file: { name: string; bytes: Buffer }, format: Format, actorId: string) {
+  const pending = await insertPendingUpload(db, { outcomeId: outcome.id, format, fileName: file.name, original: file.bytes, uploadedBy: actorId });
+  await queue.send(analysisJob, { uploadId: pending.id });
+  return pending;
+}
+
+/**
+ * The queue's worker for large uploads: the engine (in this process's engine thread) accepts the
+ * file, and it becomes the outcome's data with its result exactly as a small upload does, or refuses
+ * it, and its problems wait for the analyst beside the data stored before, which nothing changes.
+ */
+export async function startAnalysisWorker(db: Database, queue: Queue): Promise<void> {
+  await queue.work<{ uploadId: string }>(analysisJob, async ({ data }) => {
+    const upload = await findPendingUpload(db, data.uploadId);
+    if (!upload || upload.state !== "analysing") return;
+    const outcome = await findOutcome(db, upload.outcomeId);
+    if (!outcome) return deletePendingUpload(db, upload.id);
+    try {
+      const { parsed, result } = await parseAndAnalyse(upload.original, upload.format, analysisSettings(outcome));
+      await keepAnalysed(db, outcome, { name: upload.fileName, bytes: upload.original, format: upload.format, actorId: upload.uploadedBy!, uploadedAt: upload.uploadedAt }, parsed, result);
+      await deletePendingUpload(db, upload.id);
+    } catch (error) {
+      if (!(error instanceof DatasetError)) throw error;
+      await refusePendingUpload(db, upload.id, error.issues);
+    }
   });
 }
 

@@ -130,3 +130,57 @@ describe("behind a CDN", () => {
     }
   }, 60_000);
 });
+
+describe("large uploads on the queue", () => {
+  /** An invented binary network: a chain through every treatment, then random pairs (a seeded LCG); `split` cuts it in two parts. */
+  function largeNetwork(treatments: number, studies: number, split = false): string {
+    let seed = 20261202;
+    const next = () => (seed = (seed * 1103515245 + 12345) % 2 ** 31) / 2 ** 31;
+    const name = (i: number) => `t${String(i).padStart(2, "0")}`;
+    const half = Math.floor(treatments / 2);
+    const rows: string[] = [];
+    for (let s = 0; s < studies; s++) {
+      let a = s < treatments - 1 ? s : Math.floor(next() * treatments);
+      let b = s < treatments - 1 ? s + 1 : Math.floor(next() * treatments);
+      if (a === b) b = (b + 1) % treatments;
+      // Split: no study joins the first half to the second.
+      if (split && a < half !== b < half) [a, b] = [a, a < half ? (a + 1) % half : half + ((a + 1 - half) % (treatments - half))];
+      if (a === b) continue;
+      for (const t of [a, b]) {
+        const total = 80 + Math.floor(next() * 120);
+        rows.push(`S${s},${name(t)},${5 + Math.floor(next() * (total - 10))},${total}`);
+      }
+    }
+    return `study,treatment,events,total\n${rows.join("\n")}\n`;
+  }
+
+  it("analyses a large network as a job while the pages keep answering; a refused one leaves the stored data as they were", async () => {
+    const created = await analyst.request("POST", "/api/briefs", { json: { title: "A large invented network", topic: "Scale", condition: "Invented condition", population: "Invented people" } });
+    const briefId = String(created.body.id);
+    const outcome = await analyst.request("POST", `/api/briefs/${briefId}/outcomes`, {
+      json: { name: "Invented events", kind: "binary", measure: "OR", model: "random", referenceTreatment: "t00", direction: "higher", baselineRisk: 0.2 },
+    });
+    const outcomeId = String((outcome.body.outcome as { id: string }).id);
+    const state = async () => ((await analyst.request("GET", `/api/briefs/${briefId}`)).body.brief as { outcomes: { analysis: { state: string; pending: { state: string; issues: { rule: string }[] } | null } }[] }).outcomes[0]!.analysis;
+
+    const upload = await analyst.upload(`/api/outcomes/${outcomeId}/dataset`, { name: "large.csv", bytes: largeNetwork(40, 1200) }, { format: "arm-binary" });
+    expect(upload.status).toBe(202);
+    expect(upload.body).toMatchObject({ valid: true, analysing: true, fileName: "large.csv" });
+    // The other process answers pages at once meanwhile.
+    const started = Date.now();
+    expect((await fetch(`${second.url}/briefs`)).status).toBe(200);
+    expect(Date.now() - started).toBeLessThan(2000);
+    const done = await within(60_000, async () => (await state()).state === "current");
+    expect(done, "the large upload was not analysed within a minute").not.toBeNull();
+    expect((await state()).pending).toBeNull();
+    expect((await analyst.request("GET", `/api/outcomes/${outcomeId}/result`)).body.studies).toBe(1200);
+
+    const refused = await analyst.upload(`/api/outcomes/${outcomeId}/dataset`, { name: "split.csv", bytes: largeNetwork(40, 1200, true) }, { format: "arm-binary" });
+    expect(refused.status).toBe(202);
+    const failed = await within(60_000, async () => (await state()).pending?.state === "refused");
+    expect(failed, "the split network was not refused within a minute").not.toBeNull();
+    expect((await state()).pending!.issues.map((issue) => issue.rule)).toEqual(["disconnected-network"]);
+    expect((await state()).state).toBe("current");
+    expect((await analyst.request("GET", `/api/outcomes/${outcomeId}/result`)).body.studies).toBe(1200);
+  }, 150_000);
+});

@@ -181,6 +181,8 @@ export type UploadReport =
       riskOfBias: { low: number; someConcerns: number; high: number; notAssessed: number } | null;
       resultId: string;
     }
+  /** A large file (more than 1 000 lines): accepted for analysis on the queue; the brief's outcome shows it as analysing. */
+  | { valid: true; analysing: true; uploadId: string; fileName: string }
   | { valid: false; error: { key: string; message: string }; issues: DatasetIssue[] };
 
 export interface ApiAnswers {

@@ -75,7 +75,7 @@ export function apiRoutes({ db, pool, passport, csrf, sessionCookie, queue, publ
   api.use(devRoutes(mailFolder));
   api.use(briefRoutes(db));
   api.use(versionRoutes(db, accounts));
-  api.use(outcomeRoutes(db));
+  api.use(outcomeRoutes(db, queue));
   api.use(translationRoutes(db));
 
   api.use((_req, res) => sendError(res, 404, { key: "errors.notFound", message: "There is no such API route." }));

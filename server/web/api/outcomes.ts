@@ -7,7 +7,8 @@ import { DatasetError, formats } from "#core/nma/types";
 import { latestResult } from "#db/analyses";
 import type { Database } from "#db/client";
 import { deleteOutcome, findOutcome } from "#db/outcomes";
-import { analyseAgain, formatFitsOutcome, storeDataset } from "#workflows/analysis";
+import { analyseAgain, formatFitsOutcome, isLargeUpload, queueUpload, storeDataset } from "#workflows/analysis";
+import type { Queue } from "#workflows/queue";
 import { judgeComparisons, outcomeCertainty, type JudgementOutcome } from "#workflows/certainty";
 import { changeOutcomeSettings } from "#workflows/outcome-settings";
 import { guard } from "../auth/require-role";
@@ -21,7 +22,8 @@ const upload = multer({
   limits: { fileSize: maximumUploadBytes, files: 1, fields: 5 },
 });
 
-export function outcomeRoutes(db: Database): Router {
+/** `queue`: where large uploads are analysed; without one (a test's API alone), every upload is analysed at once. */
+export function outcomeRoutes(db: Database, queue: Queue | null): Router {
   const router = Router();
   router.param("id", rejectMalformedId);
 
@@ -75,6 +77,10 @@ export function outcomeRoutes(db: Database): Router {
     }
     if (!formatFitsOutcome(format.data, outcome)) {
       return sendError(res, 400, { key: "errors.upload.formatKind", message: `The ${format.data} format does not fit a ${outcome.kind} outcome.` });
+    }
+    if (queue && isLargeUpload(req.file.buffer)) {
+      const pending = await queueUpload(db, queue, outcome, { name: req.file.originalname, bytes: req.file.buffer }, format.data, req.user!.id);
+      return res.status(202).json({ valid: true, analysing: true, uploadId: pending.id, fileName: req.file.originalname });
     }
     try {
       const stored = await storeDataset(db, outcome, { name: req.file.originalname, bytes: req.file.buffer }, format.data, req.user!.id);
