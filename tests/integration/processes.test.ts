@@ -140,11 +140,11 @@ describe("large uploads on the queue", () => {
     const half = Math.floor(treatments / 2);
     const rows: string[] = [];
     for (let s = 0; s < studies; s++) {
-      let a = s < treatments - 1 ? s : Math.floor(next() * treatments);
+      const a = s < treatments - 1 ? s : Math.floor(next() * treatments);
       let b = s < treatments - 1 ? s + 1 : Math.floor(next() * treatments);
       if (a === b) b = (b + 1) % treatments;
       // Split: no study joins the first half to the second.
-      if (split && a < half !== b < half) [a, b] = [a, a < half ? (a + 1) % half : half + ((a + 1 - half) % (treatments - half))];
+      if (split && a < half !== b < half) b = a < half ? (a + 1) % half : half + ((a + 1 - half) % (treatments - half));
       if (a === b) continue;
       for (const t of [a, b]) {
         const total = 80 + Math.floor(next() * 120);
