@@ -8,7 +8,7 @@ import { recordAudit } from "#db/audit";
 import type { Database, Executor } from "#db/client";
 import { findOutcome, type OutcomeRow } from "#db/outcomes";
 import type { Queue } from "./queue";
-import { analyseParsed, parseAndAnalyse } from "./engine-thread";
+import { analyseParsed, checkFile, parseAndAnalyse } from "./engine-thread";
 
 /** Formats that fit an outcome's kind: contrasts carry any measure. */
 export function formatFitsOutcome(format: Format, outcome: OutcomeRow): boolean {
@@ -62,8 +62,13 @@ export const isLargeUpload = (bytes: Buffer) => {
   return false;
 };
 
-/** Keeps a large upload aside and asks the queue to analyse it; the desk shows it as analysing. */
+/**
+ * Checks a large upload against the input formats' rules (in the engine's thread; throws DatasetError,
+ * storing nothing, as a small upload does), keeps it aside and asks the queue to analyse it; the desk
+ * shows it as analysing.
+ */
 export async function queueUpload(db: Database, queue: Queue, outcome: OutcomeRow, file: { name: string; bytes: Buffer }, format: Format, actorId: string) {
+  await checkFile(file.bytes, format);
   const pending = await insertPendingUpload(db, { outcomeId: outcome.id, format, fileName: file.name, original: file.bytes, uploadedBy: actorId });
   await queue.send(analysisJob, { uploadId: pending.id });
   return pending;

@@ -51,5 +51,10 @@ function run(job: EngineWork): Promise<{ parsed: ParsedDataset; result: Analysis
 /** Parses and analyses an uploaded file; rejects with DatasetError when the file breaks a rule. */
 export const parseAndAnalyse = (bytes: Uint8Array, format: Format, settings: AnalysisOptions) => run({ bytes, format, settings });
 
+/** Reads a file by the rules of the input formats only; rejects with DatasetError when it breaks one. */
+export const checkFile = async (bytes: Uint8Array, format: Format): Promise<void> => {
+  await run({ bytes, format, settings: null });
+};
+
 /** Analyses parsed data again (the outcome's settings changed). */
 export const analyseParsed = async (parsed: ParsedDataset, settings: AnalysisOptions) => (await run({ parsed, settings })).result;

@@ -78,11 +78,11 @@ export function outcomeRoutes(db: Database, queue: Queue | null): Router {
     if (!formatFitsOutcome(format.data, outcome)) {
       return sendError(res, 400, { key: "errors.upload.formatKind", message: `The ${format.data} format does not fit a ${outcome.kind} outcome.` });
     }
-    if (queue && isLargeUpload(req.file.buffer)) {
-      const pending = await queueUpload(db, queue, outcome, { name: req.file.originalname, bytes: req.file.buffer }, format.data, req.user!.id);
-      return res.status(202).json({ valid: true, analysing: true, uploadId: pending.id, fileName: req.file.originalname });
-    }
     try {
+      if (queue && isLargeUpload(req.file.buffer)) {
+        const pending = await queueUpload(db, queue, outcome, { name: req.file.originalname, bytes: req.file.buffer }, format.data, req.user!.id);
+        return res.status(202).json({ valid: true, analysing: true, uploadId: pending.id, fileName: req.file.originalname });
+      }
       const stored = await storeDataset(db, outcome, { name: req.file.originalname, bytes: req.file.buffer }, format.data, req.user!.id);
       res.json({
         valid: true,
