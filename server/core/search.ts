@@ -1,5 +1,5 @@
-// Search and topics over the released briefs (the public list is small: filtering in memory keeps
-// one query per page). Matches ignore case and accents.
+// Topics over the released briefs; the words of a search are matched by PostgreSQL
+// (server/db/versions.ts, searchReleasedSlugs).
 
 export interface ReleasedBrief {
   slug: string;
@@ -16,16 +16,9 @@ export interface ReleasedBrief {
   releasedAt: string;
 }
 
-const fold = (text: string) => text.normalize("NFKD").replace(/[\u0300-\u036f]/g, "").toLowerCase();
-
-/** Every word of the query must appear in the title, the condition or a treatment's name. */
-export function searchBriefs(briefs: ReleasedBrief[], query: { q?: string; topic?: string }): ReleasedBrief[] {
-  const words = fold(query.q ?? "").split(/\s+/).filter(Boolean);
-  return briefs.filter((brief) => {
-    if (query.topic && brief.topicSlug !== query.topic) return false;
-    const haystack = fold([brief.title, brief.condition, ...brief.treatments].join(" "));
-    return words.every((word) => haystack.includes(word));
-  });
+/** The briefs of one topic (all of them without one). */
+export function briefsOfTopic(briefs: ReleasedBrief[], topic: string | undefined): ReleasedBrief[] {
+  return topic ? briefs.filter((brief) => brief.topicSlug === topic) : briefs;
 }
 
 export interface Topic {

@@ -264,3 +264,24 @@ export async function claimAnnouncement(db: Database, versionId: string): Promis
   const rows = await db.insert(releaseAnnouncements).values({ versionId }).onConflictDoNothing().returning();
   return rows.length === 1;
 }
+
+/**
+ * The slugs of released briefs whose frozen title, condition or treatment names (or those of their
+ * published translation into `locale`) hold every word of the query, each as the start of a word,
+ * accents and case aside: PostgreSQL full-text search on indexed documents (migration 0023).
+ */
+export async function searchReleasedSlugs(db: Database, query: string, locale: Locale): Promise<Set<string>> {
+  const words = query.match(/[\p{L}\p{N}]+/gu) ?? [];
+  if (words.length === 0) return new Set();
+  // Each word a prefix, all of them required; words hold letters and digits only, so the query cannot break.
+  const tsquery = words.slice(0, 12).map((word) => `${word}:*`).join(" & ");
+  const rows = await db.execute<{ slug: string }>(sql`
+    select distinct b.slug
+    from brief_versions v
+    join briefs b on b.id = v.brief_id
+    left join version_translations t on t.version_id = v.id and t.locale = ${locale} and t.published_at is not null
+    where v.release_at <= now()
+      and (v.search_document @@ to_tsquery('simple', fairweigh_fold(${tsquery}))
+        or t.search_document @@ to_tsquery('simple', fairweigh_fold(${tsquery})))`);
+  return new Set(rows.rows.map((row) => row.slug));
+}

@@ -307,4 +307,14 @@ describe("feed, sitemap, robots, search and topics", () => {
     expect(await topic.text()).toContain(`/briefs/${large}`);
     expect((await get("/topics/nothing-here")).status).toBe(404);
   });
+
+  it("search is PostgreSQL full-text: words as prefixes in any case, accents aside, in the reader's language and the original", async () => {
+    expect(await (await get("/briefs?q=NIGHT+shif")).text()).toContain(`/briefs/${small}`);
+    // The Spanish translation's condition says "sueño"; a reader typing without the accent finds it, in Spanish only.
+    expect(await (await get("/es/briefs?q=sueno")).text()).toContain(`/es/briefs/${small}`);
+    expect(await (await get("/briefs?q=sueno")).text()).not.toContain(`/briefs/${small}`);
+    // Original names are found in every language.
+    expect(await (await get("/fr/briefs?q=compound+k")).text()).toContain(`/fr/briefs/${large}`);
+    expect(await (await get("/briefs?q=%27%29%3A*%7C%21")).text()).not.toContain(`/briefs/${small}`);
+  });
 });
