@@ -1,0 +1,112 @@
+// npm run bench:scale: a catalogue of a thousand invented briefs (copies of the large demo brief,
+// 22 treatments, under new titles and slugs, three released versions each) in a throw-away cluster,
+// and what that does to the production server: p99 of the list and search pages under 50
+// connections, the time to render a version page that is not in memory, and the page cache's bytes
+// per page against its bound. Prints a table; asserts nothing.
+import { chmodSync, mkdtempSync, readFileSync, rmSync } from "node:fs";
+import { tmpdir } from "node:os";
+import path from "node:path";
+import autocannon from "autocannon";
+import pg from "pg";
+import { slugify } from "#core/slug";
+import { demoBriefs } from "#workflows/demo-briefs";
+import { ensureCluster, freePort, type Cluster } from "./lib/postgres";
+import { startProductionServer, type RunningServer } from "./lib/production-server";
+import { build, log, migrateAndSeed } from "./lib/steps";
+
+const briefCount = Number(process.env.BRIEFS ?? 1000);
+const versionsEach = 3;
+const connections = 50;
+const duration = 10;
+
+const folder = mkdtempSync(path.join(tmpdir(), "fairweigh-scale-"));
+chmodSync(folder, 0o755);
+let cluster: Cluster | null = null;
+let server: RunningServer | null = null;
+
+/** Words for invented titles and conditions, so that searches match some briefs and not others. */
+const words = ["amber", "birch", "cedar", "delta", "ember", "fjord", "garnet", "harbor", "indigo", "juniper"];
+
+/** Copies the large demo brief `count` times with three versions each, in SQL (seconds, not the hours of the desk's way). */
+async function catalogue(url: string, count: number): Promise<void> {
+  const client = new pg.Client({ connectionString: url });
+  await client.connect();
+  const source = slugify(demoBriefs()[1]!.title);
+  await client.query("begin");
+  await client.query(
+    `insert into briefs (id, slug, title, topic, condition, population, status, row_version, created_by, created_at, updated_at, demo, lay_summary, key_messages, review_group)
+     select gen_random_uuid(), 'scale-' || i, 'Invented brief ' || i || ' ' || ($2::text[])[1 + i % 10], 'Scale topic ' || (i % 25), 'Invented condition ' || ($2::text[])[1 + (i / 10) % 10], population,
+            status, row_version, created_by, now(), now(), true, lay_summary, key_messages, review_group
+     from briefs, generate_series(1, $1) as i where slug = $3`,
+    [count, words, source],
+  );
+  await client.query(
+    `insert into brief_versions (id, brief_id, number, release_at, note, snapshot, created_by, created_at)
+     select gen_random_uuid(), b.id, n, now() - interval '1 day' * (4 - n), case when n > 1 then 'An invented correction.' end,
+            jsonb_set(jsonb_set(jsonb_set(jsonb_set(jsonb_set(v.snapshot, '{brief,slug}', to_jsonb(b.slug)), '{brief,title}', to_jsonb(b.title)),
+              '{brief,condition}', to_jsonb(b.condition)), '{brief,topic}', to_jsonb(b.topic)), '{version}', to_jsonb(n)),
+            v.created_by, now()
+     from briefs b, brief_versions v join briefs s on s.id = v.brief_id and s.slug = $2, generate_series(1, $1) as n
+     where b.slug like 'scale-%' and v.number = 1`,
+    [versionsEach, source],
+  );
+  await client.query("commit");
+  await client.end();
+}
+
+async function p99(url: string) {
+  const result = await autocannon({ url, connections, duration, headers: { "accept-encoding": "br, gzip" } });
+  return { rps: result.requests.average, p50: result.latency.p50, p99: result.latency.p99, errors: result.errors + result.timeouts + result.non2xx };
+}
+
+const residentMiB = (pid: number) => Number(readFileSync(`/proc/${pid}/status`, "utf8").split("\n").find((l) => l.startsWith("VmRSS:"))!.replace(/\D+/g, "")) / 1024;
+
+try {
+  cluster = await ensureCluster({ dataDir: path.join(folder, "postgres"), port: await freePort(), log });
+  await migrateAndSeed(cluster.url, true);
+  build();
+  log(`Adding ${briefCount} invented briefs with ${versionsEach} versions each`);
+  const started = performance.now();
+  await catalogue(cluster.url, briefCount);
+  log(`… in ${((performance.now() - started) / 1000).toFixed(1)} s`);
+  server = await startProductionServer({ databaseUrl: cluster.url, sessionSecret: "a-session-secret-used-only-by-the-benchmark-0123" });
+
+  // Pages not in memory: the first answer of twenty different version pages, one after another.
+  const cold: number[] = [];
+  for (let i = 1; i <= 20; i++) {
+    const t0 = performance.now();
+    const answer = await fetch(`${server.url}/briefs/scale-${i}/v/2`);
+    if (answer.status !== 200) throw new Error(`scale-${i}: ${answer.status}`);
+    await answer.arrayBuffer();
+    cold.push(performance.now() - t0);
+  }
+  cold.sort((a, b) => a - b);
+  // The page cache's growth per page: memory before and after 200 more pages are kept.
+  const before = residentMiB(server.pid);
+  for (let i = 21; i <= 220; i++) await (await fetch(`${server.url}/briefs/scale-${i}/v/1`)).arrayBuffer();
+  const after = residentMiB(server.pid);
+
+  log(`autocannon: ${connections} connections, ${duration} s per address`);
+  const loads = {
+    "list of every brief (/briefs)": `${server.url}/briefs`,
+    "search, many matches (?q=invented)": `${server.url}/briefs?q=invented`,
+    "search, few matches (?q=cedar juniper)": `${server.url}/briefs?q=cedar%20juniper`,
+    "search in Spanish (/es/briefs?q=sueno)": `${server.url}/es/briefs?q=sueno`,
+    "a topic (/topics/scale-topic-7)": `${server.url}/topics/scale-topic-7`,
+  };
+  const rows: string[] = [];
+  for (const [name, url] of Object.entries(loads)) {
+    await autocannon({ url, connections, duration: 3 }); // warm-up
+    const m = await p99(url);
+    rows.push(`| ${name} | ${m.rps.toFixed(0)} | ${m.p50} | ${m.p99} | ${m.errors} |`);
+  }
+  console.log(`\nCatalogue: ${briefCount + 2} released briefs, ${briefCount * versionsEach + 2} versions (each of 22 treatments, the large demo brief's data)\n`);
+  console.log("| load | requests/s | p50 ms | p99 ms | errors or non-2xx |\n|---|---:|---:|---:|---:|");
+  console.log(rows.join("\n"));
+  console.log(`\nA version page not in memory: median ${cold[10]!.toFixed(0)} ms, slowest of 20 ${cold[19]!.toFixed(0)} ms (rendered, then kept).`);
+  console.log(`Page cache: ${((after - before) * 1024 / 200).toFixed(0)} KiB of resident memory per kept version page (200 pages: ${before.toFixed(0)} → ${after.toFixed(0)} MiB); bounded at 64 MiB of pages per process.`);
+} finally {
+  await server?.stop();
+  cluster?.stop();
+  rmSync(folder, { recursive: true, force: true });
+}
