@@ -8,7 +8,7 @@ import { useIntl } from "#components/i18n";
 export default function Page() {
   const { t } = useTranslation();
   const { href } = useIntl();
-  const { briefs, topics, q, topic } = useData<Data>();
+  const { briefs, total, page, pages, topics, q, topic } = useData<Data>();
   const filtered = q !== "" || topic !== "";
   return (
     <>
@@ -30,9 +30,16 @@ export default function Page() {
         <button type="submit" className="bg-accent px-4 py-2 font-semibold text-white">{t("search.submit")}</button>
       </form>
       <p className="mt-8 font-sans text-sm text-muted" role="status">
-        {filtered ? t("search.found", { count: briefs.length }) : t("search.all", { count: briefs.length })}
+        {filtered ? t("search.found", { count: total }) : t("search.all", { count: total })}
       </p>
       {briefs.length === 0 ? <p className="mt-4 text-lg">{t("search.none")}</p> : <BriefList briefs={briefs} testId="search-results" />}
+      {pages > 1 ? (
+        <nav aria-label={t("search.pages")} className="mt-6 flex flex-wrap items-center gap-4 font-sans text-sm">
+          {page > 1 ? <a href={href(searchUrl({ q, topic, page: page - 1 }))} rel="prev">{t("search.previous")}</a> : null}
+          <span aria-current="page">{t("search.pageOf", { page, pages })}</span>
+          {page < pages ? <a href={href(searchUrl({ q, topic, page: page + 1 }))} rel="next">{t("search.next")}</a> : null}
+        </nav>
+      ) : null}
     </>
   );
 }

@@ -16,6 +16,20 @@ export interface ReleasedBrief {
   releasedAt: string;
 }
 
+/** What a list shows of a brief: the treatment names are for search, and stay on the server. */
+export type ListedBrief = Omit<ReleasedBrief, "treatments">;
+export const listed = ({ treatments: _names, ...brief }: ReleasedBrief): ListedBrief => brief;
+
+/** Results per page of the search page: its cost stays the same however large the catalogue. */
+export const resultsPerPage = 25;
+
+/** One page of a list (1-based, clamped to the pages there are). */
+export function pageOf<T>(items: T[], requested: number): { items: T[]; page: number; pages: number } {
+  const pages = Math.max(1, Math.ceil(items.length / resultsPerPage));
+  const page = Math.min(Math.max(1, Number.isInteger(requested) ? requested : 1), pages);
+  return { items: items.slice((page - 1) * resultsPerPage, page * resultsPerPage), page, pages };
+}
+
 /** The briefs of one topic (all of them without one). */
 export function briefsOfTopic(briefs: ReleasedBrief[], topic: string | undefined): ReleasedBrief[] {
   return topic ? briefs.filter((brief) => brief.topicSlug === topic) : briefs;

@@ -41,8 +41,11 @@ export const isDeskPath = (path: string) => path === "/desk" || path.startsWith(
 export const previewUrl = (briefId: string) => `/preview/${segment(briefId)}`;
 
 /** The search page, with its query when there is one. */
-export function searchUrl(query: { q?: string; topic?: string } = {}): string {
-  const params = new URLSearchParams(Object.entries(query).filter((entry): entry is [string, string] => Boolean(entry[1])));
+export function searchUrl(query: { q?: string; topic?: string; page?: number } = {}): string {
+  // Page 1 is the address without a page.
+  const params = new URLSearchParams(
+    Object.entries({ ...query, page: query.page && query.page > 1 ? String(query.page) : undefined }).filter((entry): entry is [string, string] => Boolean(entry[1])),
+  );
   const search = params.toString();
   return search ? `/briefs?${search}` : "/briefs";
 }
