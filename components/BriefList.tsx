@@ -1,11 +1,11 @@
 // A list of released briefs: topic, title linked to the latest version, version and date, and
 // whether it is fictional demonstration data or withdrawn.
 import { useTranslation } from "react-i18next";
-import type { ListedBrief } from "#core/search";
+import type { ReleasedBrief } from "#core/search";
 import { briefUrl, topicUrl } from "#core/urls";
 import { useIntl } from "./i18n";
 
-export function BriefList({ briefs, testId = "released-briefs" }: { briefs: ListedBrief[]; testId?: string }) {
+export function BriefList({ briefs, testId = "released-briefs" }: { briefs: ReleasedBrief[]; testId?: string }) {
   const { t } = useTranslation();
   const intl = useIntl();
   const date = intl.date({ dateStyle: "long", timeZone: "UTC" });

@@ -2,7 +2,7 @@
 // names (PostgreSQL full-text search, server/db/versions.ts) in the reader's language and the
 // original, a page of results at a time.
 import type { PageContextServer } from "vike/types";
-import { briefsOfTopic, listed, pageOf, topicsOf } from "#core/search";
+import { briefsOfTopic, pageOf, topicsOf } from "#core/search";
 import { listReleasedBriefs, searchReleasedSlugs } from "#db/versions";
 
 export async function data(pageContext: PageContextServer) {
@@ -12,7 +12,7 @@ export async function data(pageContext: PageContextServer) {
   const [all, found] = await Promise.all([listReleasedBriefs(pageContext.db!, pageContext.locale), q.trim() ? searchReleasedSlugs(pageContext.db!, q, pageContext.locale) : null]);
   const matching = briefsOfTopic(found ? all.filter((brief) => found.has(brief.slug)) : all, topic);
   const { items, page, pages } = pageOf(matching, requested);
-  return { briefs: items.map(listed), total: matching.length, page, pages, topics: topicsOf(all), q, topic, caching: "revalidate" as const };
+  return { briefs: items, total: matching.length, page, pages, topics: topicsOf(all), q, topic, caching: "revalidate" as const };
 }
 
 export type Data = Awaited<ReturnType<typeof data>>;

@@ -1,11 +1,11 @@
 // Runs on the server only: the latest released version of each brief, and the topics.
 import type { PageContextServer } from "vike/types";
-import { listed, topicsOf } from "#core/search";
+import { topicsOf } from "#core/search";
 import { listReleasedBriefs } from "#db/versions";
 
 export async function data(pageContext: PageContextServer) {
   const briefs = await listReleasedBriefs(pageContext.db!, pageContext.locale);
-  return { briefs: briefs.slice(0, 10).map(listed), topics: topicsOf(briefs), caching: "revalidate" as const };
+  return { briefs: briefs.slice(0, 10), topics: topicsOf(briefs), caching: "revalidate" as const };
 }
 
 export type Data = Awaited<ReturnType<typeof data>>;

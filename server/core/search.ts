@@ -8,17 +8,11 @@ export interface ReleasedBrief {
   topicSlug: string;
   condition: string;
   population: string;
-  /** The names readers see, for search. */
-  treatments: string[];
   demo: boolean;
   withdrawn: boolean;
   version: number;
   releasedAt: string;
 }
-
-/** What a list shows of a brief: the treatment names are for search, and stay on the server. */
-export type ListedBrief = Omit<ReleasedBrief, "treatments">;
-export const listed = ({ treatments: _names, ...brief }: ReleasedBrief): ListedBrief => brief;
 
 /** Results per page of the search page: its cost stays the same however large the catalogue. */
 export const resultsPerPage = 25;

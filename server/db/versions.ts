@@ -172,8 +172,8 @@ export async function listPressRoom(db: Database): Promise<PressRoomEntry[]> {
 /** The latest released version of every brief, newest first: what the public may see now. */
 /**
  * The newest released version of each brief, newest first, in a reader's language: a published
- * translation's title, topic name, condition, population and treatment names replace the originals
- * (the topic's address stays that of the original; search also finds the original names).
+ * translation's title, topic name, condition and population replace the originals (the topic's
+ * address stays that of the original). Search finds briefs in the database (searchReleasedSlugs).
  */
 export async function listReleasedBriefs(db: Database, locale: Locale = defaultLocale): Promise<ReleasedBrief[]> {
   // One row per brief: its newest released version (DISTINCT ON keeps the first of each brief).
@@ -183,7 +183,6 @@ export async function listReleasedBriefs(db: Database, locale: Locale = defaultL
       // What a reader sees is the frozen brief; the draft may have moved on.
       // The listed columns, not the snapshot: a few hundred bytes instead of megabytes per brief.
       brief: sql<VersionSnapshot["brief"]>`${briefVersions.listedBrief}`,
-      treatments: sql<VersionSnapshot["treatments"]>`${briefVersions.listedTreatments}`,
       versionId: briefVersions.id,
       withdrawnAt: briefs.withdrawnAt,
       version: briefVersions.number,
@@ -197,17 +196,17 @@ export async function listReleasedBriefs(db: Database, locale: Locale = defaultL
   const translations = new Map<string, Record<string, string>>();
   if (locale !== defaultLocale && rows.length > 0) {
     const found = await db
-      .select({ versionId: versionTranslations.versionId, fields: versionTranslations.publishedFields })
+      // Only the fields a list shows, not the translated summaries.
+      .select({ versionId: versionTranslations.versionId, fields: sql<Record<string, string>>`jsonb_build_object('title', ${versionTranslations.publishedFields} -> 'title', 'topic', ${versionTranslations.publishedFields} -> 'topic', 'condition', ${versionTranslations.publishedFields} -> 'condition', 'population', ${versionTranslations.publishedFields} -> 'population')` })
       .from(versionTranslations)
       .where(and(eq(versionTranslations.locale, locale), inArray(versionTranslations.versionId, rows.map((row) => row.versionId))));
     for (const { versionId, fields } of found) if (fields) translations.set(versionId, fields as Record<string, string>);
   }
   return rows
     .sort((a, b) => b.releaseAt.getTime() - a.releaseAt.getTime())
-    .map(({ brief, treatments, versionId, ...row }) => {
+    .map(({ brief, versionId, ...row }) => {
       const translated = translations.get(versionId);
       const said = (field: string, original: string) => translated?.[field]?.trim() || original;
-      const names = treatments.map((t) => said(`treatment:${t.label}`, t.displayName));
       return {
         slug: row.slug,
         title: said("title", brief.title),
@@ -215,7 +214,6 @@ export async function listReleasedBriefs(db: Database, locale: Locale = defaultL
         topicSlug: slugify(brief.topic),
         condition: said("condition", brief.condition),
         population: said("population", brief.population),
-        treatments: [...new Set([...names, ...treatments.map((t) => t.displayName)])],
         demo: brief.demo,
         withdrawn: row.withdrawnAt !== null,
         version: row.version,

@@ -1,14 +1,14 @@
 // /topics/:slug — the released briefs of one topic.
 import { render } from "vike/abort";
 import type { PageContextServer } from "vike/types";
-import { briefsOfTopic, listed, topicsOf } from "#core/search";
+import { briefsOfTopic, topicsOf } from "#core/search";
 import { listReleasedBriefs } from "#db/versions";
 
 export async function data(pageContext: PageContextServer) {
   const all = await listReleasedBriefs(pageContext.db!, pageContext.locale);
   const topic = topicsOf(all).find((t) => t.slug === pageContext.routeParams.slug);
   if (!topic) throw render(404);
-  return { topic, briefs: briefsOfTopic(all, topic.slug).map(listed), caching: "revalidate" as const };
+  return { topic, briefs: briefsOfTopic(all, topic.slug), caching: "revalidate" as const };
 }
 
 export type Data = Awaited<ReturnType<typeof data>>;
