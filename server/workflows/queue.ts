@@ -23,12 +23,20 @@ export async function startQueue(databaseUrl: string, options: QueueOptions = de
   const boss = new PgBoss({ connectionString: databaseUrl, schema: "pgboss", max: 4 });
   boss.on("error", onError);
   await boss.start();
+  // Several processes starting together create the same queues at once: one of them wins, and a
+  // loser's error (a unique violation, or a deadlock between the two inserts) is tried again.
   const ensureQueue = async (name: string) => {
-    if (await boss.getQueue(name)) return;
-    await boss.createQueue(name).catch(async (error: unknown) => {
-      // Another process created it at the same moment.
-      if (!(await boss.getQueue(name))) throw error;
-    });
+    for (let attempt = 1; ; attempt++) {
+      if (await boss.getQueue(name)) return;
+      try {
+        await boss.createQueue(name);
+        return;
+      } catch (error) {
+        if (await boss.getQueue(name)) return;
+        if (attempt === 5) throw error;
+        await new Promise((resolve) => setTimeout(resolve, 50 + Math.random() * 200 * attempt));
+      }
+    }
   };
   return {
     async send(name, data, singletonKey, startAfter) {
