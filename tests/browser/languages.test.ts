@@ -81,7 +81,7 @@ describe("a translator's path", () => {
 
     const translator = await signedIn(setup.browser, setup.server.url, "translator@fairweigh.example");
     const page = translator.page;
-    await page.getByRole("link", { name: "Translation desk" }).click();
+    await page.getByRole("link", { name: "Translation desk", exact: true }).click();
     const queue = page.getByTestId("queue-es");
     await queue.getByRole("link", { name: new RegExp(title) }).click();
     await page.getByTestId("field-title").locator("input").fill(`Resumen para el escritorio de traducción ${title.slice(-13)}`);
