@@ -11,8 +11,8 @@
 // direction the network loses with s: if c has a part in it (hᵢ ≠ 0), A and B are no longer
 // connected (or s holds the only data on one of them) and I = 1; if not, the direction does not
 // touch A vs B, as with a generalised inverse.
-import { CholeskyDecomposition, EigenvalueDecomposition, Matrix } from "ml-matrix";
-import type { StudyBlock } from "./model";
+import { CholeskyDecomposition, EigenvalueDecomposition, inverse, Matrix } from "ml-matrix";
+import { symmetrise, type StudyBlock } from "./model";
 
 export interface StudyImportance {
   study: string;
@@ -65,52 +65,12 @@ function studyUpdate(block: StudyBlock, H: number[][], tau2: number, columns: nu
     const rowOut = K[0]!.map((v) => v * scale);
     return { rows: [rowOut], lambda: [1 - G[0]![0]! / sigma[0]![0]!] };
   }
-  const L = new CholeskyDecomposition(sigma).lowerTriangularMatrix;
-  const lower = inverseLower(L.to2DArray());
-  const LG = multiply(multiply(lower, G), transpose(lower));
-  const N = LG.map((r, j) => r.map((v, l) => (j === l ? 1 : 0) - v));
-  const symmetric = N.map((r, j) => r.map((v, l) => (v + N[l]![j]!) / 2));
-  const eigen = new EigenvalueDecomposition(new Matrix(symmetric), { assumeSymmetric: true });
-  const Q = eigen.eigenvectorMatrix.to2DArray();
-  const lambda = eigen.realEigenvalues;
+  const inverseL = inverse(new CholeskyDecomposition(sigma).lowerTriangularMatrix);
+  const N = Matrix.eye(m).sub(inverseL.mmul(new Matrix(G)).mmul(inverseL.transpose()));
+  const eigen = new EigenvalueDecomposition(new Matrix(symmetrise(N.to2DArray())), { assumeSymmetric: true });
   // R = Qᵀ L⁻¹ K.
-  const LK = lower.map((r) => {
-    const out = new Float64Array(columns);
-    r.forEach((w, l) => {
-      if (w !== 0) for (let q = 0; q < columns; q++) out[q]! += w * K[l]![q]!;
-    });
-    return out;
-  });
-  const rows = lambda.map((_, i) => {
-    const out = new Float64Array(columns);
-    for (let j = 0; j < m; j++) {
-      const w = Q[j]![i]!;
-      for (let q = 0; q < columns; q++) out[q]! += w * LK[j]![q]!;
-    }
-    return out;
-  });
-  return { rows, lambda };
-}
-
-function inverseLower(L: number[][]): number[][] {
-  const m = L.length;
-  const inverse = Array.from({ length: m }, () => new Array<number>(m).fill(0));
-  for (let col = 0; col < m; col++) {
-    for (let i = col; i < m; i++) {
-      let sum = i === col ? 1 : 0;
-      for (let k = col; k < i; k++) sum -= L[i]![k]! * inverse[k]![col]!;
-      inverse[i]![col] = sum / L[i]![i]!;
-    }
-  }
-  return inverse;
-}
-
-function multiply(a: number[][], b: number[][]): number[][] {
-  return a.map((r) => b[0]!.map((_, j) => r.reduce((sum, v, k) => sum + v * b[k]![j]!, 0)));
-}
-
-function transpose(a: number[][]): number[][] {
-  return a[0]!.map((_, j) => a.map((r) => r[j]!));
+  const R = eigen.eigenvectorMatrix.transpose().mmul(inverseL).mmul(new Matrix(K.map((k) => Array.from(k))));
+  return { rows: R.to2DArray().map((r) => Float64Array.from(r)), lambda: eigen.realEigenvalues };
 }
 
 /**
