@@ -3,6 +3,7 @@
 // precision without the study (Rücker et al. 2020), not shares: the page says so.
 import { useTranslation } from "react-i18next";
 import type { ComparisonOutcomeView } from "#core/brief-page";
+import { riskOfBiasShareKey } from "#core/nma/risk-of-bias";
 import { useIntl } from "../i18n";
 
 /** Our own bands, in plain words (docs/methods.md): how much less precise the estimate would be without the study. */
@@ -14,7 +15,6 @@ export function importanceWords(value: number): "only" | "much" | "noticeably" |
   return "slightly";
 }
 
-export const riskOfBiasKey = (level: "low" | "some-concerns" | "high" | null) => (level === "some-concerns" ? "someConcerns" : (level ?? "notAssessed"));
 
 export function ImportantStudies({ outcome }: { outcome: ComparisonOutcomeView }) {
   const { t } = useTranslation();
@@ -47,7 +47,7 @@ export function ImportantStudies({ outcome }: { outcome: ComparisonOutcomeView }
                       {t(`compare.studies.words.${importanceWords(study.value)}`)}{" "}
                       <span className="text-muted tabular-nums">({t("compare.studies.value", { value: study.value >= 0.1 ? intl.number(study.value, 2) : intl.precise(study.value, 2) })})</span>
                     </td>
-                    <td className="py-2">{outcome.judged ? t(`riskOfBias.level.${riskOfBiasKey(study.riskOfBias)}`) : t("riskOfBias.noJudgements")}</td>
+                    <td className="py-2">{outcome.judged ? t(`riskOfBias.level.${riskOfBiasShareKey(study.riskOfBias)}`) : t("riskOfBias.noJudgements")}</td>
                   </tr>
                 ))}
               </tbody>

@@ -18,8 +18,9 @@ export interface RiskOfBiasShares {
 
 const levelsOf = { low: 0, someConcerns: 1, high: 2 } as const;
 
-const shareKey = (level: RiskOfBias | null | undefined): keyof Omit<RiskOfBiasShares, "suggestedLevels"> =>
-  level === "low" ? "low" : level === "some-concerns" ? "someConcerns" : level === "high" ? "high" : "notAssessed";
+/** The share (and the words) a study's judgement counts under: null or absent is "not assessed". */
+export const riskOfBiasShareKey = (level: RiskOfBias | null | undefined): keyof Omit<RiskOfBiasShares, "suggestedLevels"> =>
+  level === "some-concerns" ? "someConcerns" : (level ?? "notAssessed");
 
 /** Two shares this close count as a tie (they come from sums of the same weights). */
 const tie = 1e-12;
@@ -43,7 +44,7 @@ export function directRiskOfBias(studies: readonly ArmEffects[], tau2: number, j
           if (i >= j) return;
           const key = pairKey(a, b);
           const sum = sums.get(key) ?? { low: 0, someConcerns: 0, high: 0, notAssessed: 0 };
-          sum[shareKey(study.riskOfBias)] += 1 / (study.variances[i]! + study.variances[j]! + tau2);
+          sum[riskOfBiasShareKey(study.riskOfBias)] += 1 / (study.variances[i]! + study.variances[j]! + tau2);
           sums.set(key, sum);
         });
       });

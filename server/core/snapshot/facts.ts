@@ -7,7 +7,8 @@ import type { ComparisonCertainty } from "../grade/assess";
 import { z975, type AnalysisResult } from "../nma/analyse";
 import { directParticipants } from "../nma/participants";
 import { pairKey } from "../pairs";
-import type { Estimate, ParsedStudy, RiskOfBias } from "../nma/types";
+import { riskOfBiasShareKey } from "../nma/risk-of-bias";
+import type { Estimate, ParsedStudy } from "../nma/types";
 import type { OutcomeSnapshot } from "./schema";
 
 /** METHODS.md §9: an unrated comparison says so in a footnote, and counts as not convincingly different. */
@@ -15,8 +16,6 @@ const notAssessed = { domainKey: "certainty.footnote.notAssessed", levels: 0, re
 
 const withCi = (x: Estimate) => ({ estimate: x.estimate, se: x.se, lower: x.estimate - z975 * x.se, upper: x.estimate + z975 * x.se });
 
-/** The share key of a study's risk of bias (§13). */
-const levelKey = (level: RiskOfBias | null | undefined) => (level === "some-concerns" ? "someConcerns" : (level ?? "notAssessed"));
 
 /**
  * How much of the evidence comes from studies at each risk of bias: the studies the analysis used,
@@ -30,7 +29,7 @@ export function evidenceByRiskOfBias(studies: readonly ParsedStudy[], excludedSt
   let sized = true;
   for (const study of studies) {
     if (excluded.has(study.study)) continue;
-    const key = levelKey(study.riskOfBias);
+    const key = riskOfBiasShareKey(study.riskOfBias);
     counts[key] += 1;
     if (study.format === "contrast") sized = false;
     else participants[key] += (study.arms as { total?: number; n?: number }[]).reduce((sum, arm) => sum + (arm.total ?? arm.n ?? 0), 0);

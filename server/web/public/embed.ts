@@ -10,18 +10,18 @@ import { certaintySteps, type Rating } from "#core/grade/certainty";
 import { intlLocale, textDirection, type Locale } from "#core/locales";
 import { messageText } from "#core/message";
 import type { VersionSnapshot } from "#core/snapshot/schema";
+import { escapeXml } from "./feed";
 import { embedHeightMessage } from "#core/urls";
 
 /** Card widths the layout is made for (the issue's 320–720 px); oEmbed answers clamp to them. */
 export const cardWidth = { min: 320, max: 720, default: 560 } as const;
 
-const escapeHtml = (text: string) => text.replace(/[&<>"']/g, (c) => ({ "&": "&amp;", "<": "&lt;", ">": "&gt;", '"': "&quot;", "'": "&#39;" })[c]!);
 
 function mark(rating: Rating | null, t: TFunction): string {
-  if (rating === null) return `<span class="muted">${escapeHtml(t("certainty.notAssessed"))}</span>`;
+  if (rating === null) return `<span class="muted">${escapeXml(t("certainty.notAssessed"))}</span>`;
   const filled = certaintySteps(rating);
   const steps = [0, 1, 2, 3].map((i) => `<rect x="${i * 7}" y="${9 - i * 3}" width="5" height="${3 + i * 3}" fill="${i < filled ? "#6d1f35" : "none"}" stroke="#6d1f35"/>`).join("");
-  return `<span class="certainty">${escapeHtml(t(`certainty.rating.${rating}`))} <svg viewBox="0 0 26 12" width="26" height="12" aria-hidden="true">${steps}</svg></span>`;
+  return `<span class="certainty">${escapeXml(t(`certainty.rating.${rating}`))} <svg viewBox="0 0 26 12" width="26" height="12" aria-hidden="true">${steps}</svg></span>`;
 }
 
 const styles = `
@@ -71,12 +71,12 @@ export function embedCard(input: CardInput): string | null {
     body = view.outcomes
       .map((outcome) => {
         const rows = [
-          `<dt>${escapeHtml(t("compare.relative", { measure: t(`brief.measure.${outcome.measure}`) }))}</dt><dd>${escapeHtml(formatInterval(outcome.measure, outcome.network, t("brief.to"), locale))}${outcome.unit ? ` ${escapeHtml(outcome.unit)}` : ""}</dd>`,
-          outcome.absolute ? `<dt>${escapeHtml(t("compare.absolute"))}</dt><dd>${escapeHtml(messageText(t, outcome.absolute.statement))}</dd>` : "",
-          `<dt>${escapeHtml(t("brief.certainty"))}</dt><dd>${mark(outcome.certainty, t)}</dd>`,
+          `<dt>${escapeXml(t("compare.relative", { measure: t(`brief.measure.${outcome.measure}`) }))}</dt><dd>${escapeXml(formatInterval(outcome.measure, outcome.network, t("brief.to"), locale))}${outcome.unit ? ` ${escapeXml(outcome.unit)}` : ""}</dd>`,
+          outcome.absolute ? `<dt>${escapeXml(t("compare.absolute"))}</dt><dd>${escapeXml(messageText(t, outcome.absolute.statement))}</dd>` : "",
+          `<dt>${escapeXml(t("brief.certainty"))}</dt><dd>${mark(outcome.certainty, t)}</dd>`,
         ].join("");
         const statement = outcome.statement ? messageText(t, outcome.statement) : t("compare.noStatement");
-        return `<section><h2>${escapeHtml(outcome.name)}</h2><p class="statement">${escapeHtml(statement)}</p><dl>${rows}</dl></section>`;
+        return `<section><h2>${escapeXml(outcome.name)}</h2><p class="statement">${escapeXml(statement)}</p><dl>${rows}</dl></section>`;
       })
       .join("");
   } else {
@@ -84,14 +84,14 @@ export function embedCard(input: CardInput): string | null {
     heading = view.title;
     body = view.outcomes
       .map((outcome) => {
-        const groups = outcome.groups.map((g) => `<li>${escapeHtml(messageText(t, g.label))}: ${escapeHtml(g.treatments.map((x) => x.name).join(", "))}</li>`).join("");
-        return `<section><h2>${escapeHtml(outcome.name)}</h2><ul>${groups}</ul></section>`;
+        const groups = outcome.groups.map((g) => `<li>${escapeXml(messageText(t, g.label))}: ${escapeXml(g.treatments.map((x) => x.name).join(", "))}</li>`).join("");
+        return `<section><h2>${escapeXml(outcome.name)}</h2><ul>${groups}</ul></section>`;
       })
       .join("");
   }
   const link = t(pair ? "embed.readComparison" : "embed.readBrief", { version: snapshot.version });
   // A withdrawn brief's card keeps saying what it was, and that it was withdrawn and why, without its findings.
-  const main = withdrawal ? `<p class="withdrawn" role="alert">${escapeHtml(t("embed.withdrawn", { date: date(withdrawal.at), reason: withdrawal.reason }))}</p>` : body;
+  const main = withdrawal ? `<p class="withdrawn" role="alert">${escapeXml(t("embed.withdrawn", { date: date(withdrawal.at), reason: withdrawal.reason }))}</p>` : body;
   const height = `(function(){function send(){parent.postMessage({type:"${embedHeightMessage}",height:Math.ceil(document.documentElement.getBoundingClientRect().height)},"*")}addEventListener("load",send);if(window.ResizeObserver)new ResizeObserver(send).observe(document.documentElement)})();`;
   return `<!doctype html>
 <html lang="${locale}" dir="${textDirection(locale)}">
@@ -99,21 +99,21 @@ export function embedCard(input: CardInput): string | null {
 <meta charset="utf-8">
 <meta name="viewport" content="width=device-width, initial-scale=1">
 <meta name="robots" content="noindex">
-<title>${escapeHtml(`${heading} · Fairweigh`)}</title>
-<link rel="canonical" href="${escapeHtml(permalink)}">
+<title>${escapeXml(`${heading} · Fairweigh`)}</title>
+<link rel="canonical" href="${escapeXml(permalink)}">
 <style>${styles}</style>
 </head>
 <body>
 <article class="card" data-testid="embed-card">
 <p class="brand">Fairweigh</p>
-<h1>${escapeHtml(heading)}</h1>
-<p class="from">${escapeHtml(from)}</p>
-${snapshot.brief.demo ? `<p class="fictional">${escapeHtml(t("embed.fictional"))}</p>` : ""}
+<h1>${escapeXml(heading)}</h1>
+<p class="from">${escapeXml(from)}</p>
+${snapshot.brief.demo ? `<p class="fictional">${escapeXml(t("embed.fictional"))}</p>` : ""}
 ${main}
-<p class="caution">${escapeHtml(t("embed.caution"))}</p>
-<a class="link" href="${escapeHtml(permalink)}" target="_blank" rel="noopener">${escapeHtml(link)}</a>
+<p class="caution">${escapeXml(t("embed.caution"))}</p>
+<a class="link" href="${escapeXml(permalink)}" target="_blank" rel="noopener">${escapeXml(link)}</a>
 </article>
-<script nonce="${escapeHtml(input.nonce)}">${height}</script>
+<script nonce="${escapeXml(input.nonce)}">${height}</script>
 </body>
 </html>
 `;

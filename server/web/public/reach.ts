@@ -13,6 +13,7 @@ import type { Database } from "#db/client";
 import { publishedTranslation } from "#db/translations";
 import { readPublicVersion, readVersion } from "#db/versions";
 import { cardWidth, embedCard } from "./embed";
+import { escapeXml } from "./feed";
 import { siteUrl } from "../http/site-url";
 import { arabicImageText, shareImage, shareImageSize, shareImageText } from "./share-image";
 
@@ -108,7 +109,6 @@ export function reachRoutes(db: Database, publicUrl: string | undefined): Router
     const height = Math.min(query.data.maxheight ?? Number.POSITIVE_INFINITY, cardHeight(outcomes, pair !== null));
     const src = `${site}${localePath(locale, embedUrl(at))}`;
     const title = `${text.title} · Fairweigh`;
-    const escape = (value: string) => value.replace(/&/g, "&amp;").replace(/"/g, "&quot;").replace(/</g, "&lt;");
     // Filed under the brief too: withdrawing it must take its oEmbed answers out of a CDN as well.
     res.set({ "Cache-Control": cacheControl, "Access-Control-Allow-Origin": "*", "Surrogate-Key": surrogateKeys({ slug: at.slug, version: at.version })! }).json({
       version: "1.0",
@@ -117,7 +117,7 @@ export function reachRoutes(db: Database, publicUrl: string | undefined): Router
       provider_name: "Fairweigh",
       provider_url: `${site}/`,
       cache_age: 3600,
-      html: `<iframe src="${escape(src)}" title="${escape(title)}" width="${width}" height="${height}" style="border:0;max-width:100%" loading="lazy"></iframe>`,
+      html: `<iframe src="${escapeXml(src)}" title="${escapeXml(title)}" width="${width}" height="${height}" style="border:0;max-width:100%" loading="lazy"></iframe>`,
       width,
       height,
       thumbnail_url: `${site}${localePath(locale, shareImageUrl(at))}`,

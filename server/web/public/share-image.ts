@@ -13,6 +13,7 @@ import { briefContent, comparisonContent } from "#core/brief-page";
 import { certaintySteps, type Rating } from "#core/grade/certainty";
 import { messageText } from "#core/message";
 import type { VersionSnapshot } from "#core/snapshot/schema";
+import { escapeXml } from "./feed";
 import { sfntFromWoff } from "./woff";
 
 export const shareImageSize = { width: 1200, height: 630 } as const;
@@ -40,7 +41,6 @@ function fonts(): string[] {
   return fontFiles;
 }
 
-const escapeXml = (text: string) => text.replace(/[&<>"']/g, (c) => ({ "&": "&amp;", "<": "&lt;", ">": "&gt;", '"': "&quot;", "'": "&apos;" })[c]!);
 
 /**
  * Words into at most `lines` lines of about `perLine` characters (an average glyph is about half
