@@ -11,7 +11,7 @@
 // machine reports rather than fails. autocannon runs on the same machine and takes a core of its own:
 // on two cores its share shows in every latency, the static asset's included.
 import { spawn, type ChildProcess } from "node:child_process";
-import { readFileSync, chmodSync, mkdtempSync, readdirSync, rmSync, writeFileSync } from "node:fs";
+import { chmodSync, mkdtempSync, readdirSync, rmSync, writeFileSync } from "node:fs";
 import { request } from "node:http";
 import { tmpdir } from "node:os";
 import path from "node:path";
@@ -20,7 +20,7 @@ import { slugify } from "#core/slug";
 import { demoBriefs } from "#workflows/demo-briefs";
 import { demoPassword } from "#workflows/seed";
 import { ensureCluster, freePort, type Cluster } from "./lib/postgres";
-import { startProductionServer, type RunningServer } from "./lib/production-server";
+import { residentMiB, startProductionServer, type RunningServer } from "./lib/production-server";
 import { build, log, migrateAndSeed, projectRoot } from "./lib/steps";
 
 const connections = 50;
@@ -48,12 +48,6 @@ interface Row {
 async function measure(name: string, options: autocannon.Options): Promise<Row> {
   const result = await autocannon({ connections, headers, ...options });
   return { name, rps: result.requests.average, p50: result.latency.p50, p99: result.latency.p99, errors: result.errors + result.timeouts, non2xx: result.non2xx };
-}
-
-/** The server's resident memory in MiB, from /proc. */
-function residentMiB(pid: number): number {
-  const line = readFileSync(`/proc/${pid}/status`, "utf8").split("\n").find((l) => l.startsWith("VmRSS:"))!;
-  return Number(line.replace(/\D+/g, "")) / 1024;
 }
 
 /** A signed-in session's cookie, as the desk's browser holds it. */

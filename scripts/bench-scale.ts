@@ -3,7 +3,7 @@
 // and what that does to the production server: p99 of the list and search pages under 50
 // connections, the time to render a version page that is not in memory, and the page cache's bytes
 // per page against its bound. Prints a table; asserts nothing.
-import { chmodSync, mkdtempSync, readFileSync, rmSync } from "node:fs";
+import { chmodSync, mkdtempSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import autocannon from "autocannon";
@@ -11,7 +11,7 @@ import pg from "pg";
 import { slugify } from "#core/slug";
 import { demoBriefs } from "#workflows/demo-briefs";
 import { ensureCluster, freePort, type Cluster } from "./lib/postgres";
-import { startProductionServer, type RunningServer } from "./lib/production-server";
+import { residentMiB, startProductionServer, type RunningServer } from "./lib/production-server";
 import { build, log, migrateAndSeed } from "./lib/steps";
 
 const briefCount = Number(process.env.BRIEFS ?? 1000);
@@ -58,8 +58,6 @@ async function p99(url: string) {
   const result = await autocannon({ url, connections, duration, headers: { "accept-encoding": "br, gzip" } });
   return { rps: result.requests.average, p50: result.latency.p50, p99: result.latency.p99, errors: result.errors + result.timeouts + result.non2xx };
 }
-
-const residentMiB = (pid: number) => Number(readFileSync(`/proc/${pid}/status`, "utf8").split("\n").find((l) => l.startsWith("VmRSS:"))!.replace(/\D+/g, "")) / 1024;
 
 try {
   cluster = await ensureCluster({ dataDir: path.join(folder, "postgres"), port: await freePort(), log });

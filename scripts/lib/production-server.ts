@@ -1,6 +1,7 @@
 // The production build served by server/index.ts in a child process, as `npm start` serves it:
 // used by the browser and integration tests and by `npm run bench:http`.
 import { spawn, type ChildProcess } from "node:child_process";
+import { readFileSync } from "node:fs";
 import { freePort } from "./postgres";
 import { projectRoot } from "./steps";
 
@@ -11,6 +12,12 @@ export interface RunningServer {
   stop(): Promise<void>;
   /** Ends the process at once (SIGKILL), as a crash or a power cut would: no shutdown runs. */
   kill(): Promise<void>;
+}
+
+/** A server's resident memory in MiB, from /proc (the benchmarks read it). */
+export function residentMiB(pid: number): number {
+  const line = readFileSync(`/proc/${pid}/status`, "utf8").split("\n").find((l) => l.startsWith("VmRSS:"))!;
+  return Number(line.replace(/\D+/g, "")) / 1024;
 }
 
 export async function startProductionServer(options: { databaseUrl: string; sessionSecret: string; port?: number; env?: Record<string, string> }): Promise<RunningServer> {

@@ -90,7 +90,10 @@ export function syllablesOf(word: string, locale: Locale): number {
 }
 
 export function countsOf(text: string, locale: Locale): Counts {
-  const sentences = sentencesOf(text);
+  return countsOfSentences(sentencesOf(text), locale);
+}
+
+function countsOfSentences(sentences: string[], locale: Locale): Counts {
   const words = sentences.flatMap(wordsOf);
   return { sentences: sentences.length, words: words.length, syllables: words.reduce((sum, w) => sum + syllablesOf(w, locale), 0) };
 }
@@ -160,10 +163,11 @@ export interface ReadabilityReport {
 }
 
 export function readability(markdown: string, locale: Locale): ReadabilityReport {
-  const counts = countsOf(markdown, locale);
+  const sentences = sentencesOf(markdown);
+  const counts = countsOfSentences(sentences, locale);
   const formula = formulaOf[locale];
   const score = formula && counts.words > 0 ? readingEase(formula, counts) : null;
-  const longest = sentencesOf(markdown)
+  const longest = sentences
     .map((sentence) => ({ sentence, words: wordsOf(sentence).length }))
     .filter((s) => s.words > longSentenceWords)
     .sort((a, b) => b.words - a.words)

@@ -56,11 +56,15 @@ async function keepAnalysed(db: Database, outcome: OutcomeRow, file: { name: str
 export const queuedUploadLines = 1000;
 export const analysisJob = "analyse-upload";
 
-export const isLargeUpload = (bytes: Buffer) => {
-  let lines = 0;
-  for (const byte of bytes) if (byte === 0x0a && ++lines > queuedUploadLines) return true;
-  return false;
-};
+export function isLargeUpload(bytes: Buffer): boolean {
+  // Line ends found by the buffer's own search, stopping at the limit: a multi-megabyte file costs microseconds.
+  let at = -1;
+  for (let lines = 0; lines <= queuedUploadLines; lines++) {
+    at = bytes.indexOf(0x0a, at + 1);
+    if (at < 0) return false;
+  }
+  return true;
+}
 
 /**
  * Checks a large upload against the input formats' rules (in the engine's thread; throws DatasetError,
