@@ -1,6 +1,7 @@
 import type { Locale } from "#core/locales";
 import type { Database } from "#db/client";
 import type { Person } from "#db/people";
+import type { CatalogueView } from "#web/pages/catalogue";
 
 declare global {
   namespace Vike {
@@ -11,6 +12,8 @@ declare global {
       person?: Person | null;
       /** The database, for +data hooks; on the server only, never passed to the client. */
       db?: Database;
+      /** The released briefs in a language, kept in memory between changes; on the server only. */
+      catalogue?: (locale: Locale) => Promise<CatalogueView>;
       /** For pages with a form that posts without JavaScript; see server/pages.ts. */
       csrfToken?: string;
       /** The address readers use, for permalinks and citations (no trailing slash). */

@@ -2,17 +2,20 @@
 // names (PostgreSQL full-text search, server/db/versions.ts) in the reader's language and the
 // original, a page of results at a time.
 import type { PageContextServer } from "vike/types";
-import { briefsOfTopic, pageOf, topicsOf } from "#core/search";
-import { listReleasedBriefs, searchReleasedSlugs } from "#db/versions";
+import { briefsOfTopic, pageOf } from "#core/search";
+import { searchReleasedSlugs } from "#db/versions";
 
 export async function data(pageContext: PageContextServer) {
   const q = (pageContext.urlParsed.search.q ?? "").slice(0, 200);
   const topic = pageContext.urlParsed.search.topic ?? "";
   const requested = Number(pageContext.urlParsed.search.page ?? "1");
-  const [all, found] = await Promise.all([listReleasedBriefs(pageContext.db!, pageContext.locale), q.trim() ? searchReleasedSlugs(pageContext.db!, q, pageContext.locale) : null]);
+  const [{ briefs: all, topics, state }, found] = await Promise.all([
+    pageContext.catalogue!(pageContext.locale),
+    q.trim() ? searchReleasedSlugs(pageContext.db!, q, pageContext.locale) : null,
+  ]);
   const matching = briefsOfTopic(found ? all.filter((brief) => found.has(brief.slug)) : all, topic);
   const { items, page, pages } = pageOf(matching, requested);
-  return { briefs: items, total: matching.length, page, pages, topics: topicsOf(all), q, topic, caching: "revalidate" as const };
+  return { briefs: items, total: matching.length, page, pages, topics, q, topic, caching: "revalidate" as const, cacheState: state };
 }
 
 export type Data = Awaited<ReturnType<typeof data>>;

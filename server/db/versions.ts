@@ -169,7 +169,6 @@ export async function listPressRoom(db: Database): Promise<PressRoomEntry[]> {
   return [...embargoed, ...released];
 }
 
-/** The latest released version of every brief, newest first: what the public may see now. */
 /**
  * The newest released version of each brief, newest first, in a reader's language: a published
  * translation's title, topic name, condition and population replace the originals (the topic's
@@ -220,6 +219,20 @@ export async function listReleasedBriefs(db: Database, locale: Locale = defaultL
         releasedAt: row.releaseAt.toISOString(),
       };
     });
+}
+
+/**
+ * A fingerprint of everything the list pages show (the newest released version of each brief, its
+ * withdrawal, published translations): it changes when any of them does, releases at their time
+ * included. One small query over the versions, so a process can ask it every few seconds.
+ */
+export async function catalogueState(db: Database): Promise<string> {
+  const result = await db.execute<{ state: string }>(sql`
+    select concat_ws('|',
+      (select count(*) || ':' || coalesce(max(release_at)::text, '') from brief_versions where release_at <= now()),
+      (select count(*) || ':' || coalesce(max(withdrawn_at)::text, '') from briefs where withdrawn_at is not null),
+      (select count(*) || ':' || coalesce(max(published_at)::text, '') from version_translations where published_at is not null)) as state`);
+  return result.rows[0]!.state;
 }
 
 export interface ReleasedVersion {

@@ -47,6 +47,21 @@ describe("two processes on one database", () => {
     expect(took, "the second process still answered 200 after one second").not.toBeNull();
   });
 
+  it("a release and a withdrawal on one show in the other's list pages within one second, though it had them in memory", async () => {
+    const word = `quillwort${randomUUID().slice(0, 8)}`;
+    const search = `${second.url}/briefs?q=${word}`;
+    /** The list entry of the brief the search finds, or null when it finds none. */
+    const entry = async () => /<li[^>]*>(?:(?!<\/li>).)*<\/li>/s.exec(await (await fetch(search)).text())?.[0] ?? null;
+    // Read twice on the second process: rendered, then answered from its memory.
+    expect(await entry()).toBeNull();
+    expect(await entry()).toBeNull();
+    const { briefId } = await publishedBrief(analyst, editor, `Listed across processes ${word}`);
+    expect(await within(1000, async () => (await entry()) !== null), "the second process's search did not find the release within one second").not.toBeNull();
+    expect(await entry()).not.toContain("Withdrawn");
+    expect((await editor.request("POST", `/api/briefs/${briefId}/withdrawal`, { json: { reason: "A trial in the data was retracted." } })).status).toBe(200);
+    expect(await within(1000, async () => (await entry())?.includes("Withdrawn") ?? false), "the second process's list did not show the withdrawal within one second").not.toBeNull();
+  });
+
   it("counts failed sign-ins across both: three on one and two on the other make the sixth a 429", async () => {
     const email = `nobody-${randomUUID()}@fairweigh.example`;
     const attempt = async (server: RunningServer) => (await new ApiClient(server.url).signIn(email, "not the password")).status;

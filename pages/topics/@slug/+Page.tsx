@@ -17,6 +17,11 @@ export default function Page() {
       </p>
       <h1 className="mt-2 text-4xl leading-tight font-semibold tracking-tight">{t("topic.title", { name: topic.name })}</h1>
       <BriefList briefs={briefs} />
+      {topic.count > briefs.length ? (
+        <p className="mt-6 font-sans text-sm">
+          <a href={href(searchUrl({ topic: topic.slug }))}>{t("topic.all", { count: topic.count })}</a>
+        </p>
+      ) : null}
       <SubscribeForm topic={topic.name} topicSlug={topic.slug} />
     </>
   );

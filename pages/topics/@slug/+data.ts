@@ -1,14 +1,14 @@
-// /topics/:slug — the released briefs of one topic.
+// /topics/:slug — the released briefs of one topic, the newest first page of them (the search page,
+// filtered by the topic, pages through the rest).
 import { render } from "vike/abort";
 import type { PageContextServer } from "vike/types";
-import { briefsOfTopic, topicsOf } from "#core/search";
-import { listReleasedBriefs } from "#db/versions";
+import { briefsOfTopic, pageOf } from "#core/search";
 
 export async function data(pageContext: PageContextServer) {
-  const all = await listReleasedBriefs(pageContext.db!, pageContext.locale);
-  const topic = topicsOf(all).find((t) => t.slug === pageContext.routeParams.slug);
+  const { briefs: all, topics, state } = await pageContext.catalogue!(pageContext.locale);
+  const topic = topics.find((t) => t.slug === pageContext.routeParams.slug);
   if (!topic) throw render(404);
-  return { topic, briefs: briefsOfTopic(all, topic.slug), caching: "revalidate" as const };
+  return { topic, briefs: pageOf(briefsOfTopic(all, topic.slug), 1).items, caching: "revalidate" as const, cacheState: state };
 }
 
 export type Data = Awaited<ReturnType<typeof data>>;

@@ -4,6 +4,13 @@
 import { createHash } from "node:crypto";
 import { brotliCompressSync, constants, gzipSync } from "node:zlib";
 
+/**
+ * How hard to compress a kept page: "thorough" for a version's pages, answered for as long as they
+ * are kept (brotli 9 takes milliseconds once, and saves bytes on every answer); "quick" for the list
+ * pages, many of them one search's answer, where those milliseconds would be most of the request.
+ */
+export type Effort = "thorough" | "quick";
+
 /** The page's bytes, compressed once when it is cached rather than on every answer. */
 export interface Encodings {
   identity: Buffer;
@@ -11,17 +18,18 @@ export interface Encodings {
   br: Buffer;
 }
 
-export function encode(html: string): Encodings {
+export function encode(html: string, effort: Effort = "thorough"): Encodings {
   const identity = Buffer.from(html);
+  const thorough = effort === "thorough";
   return {
     identity,
-    gzip: gzipSync(identity, { level: 9 }),
-    br: brotliCompressSync(identity, { params: { [constants.BROTLI_PARAM_QUALITY]: 9, [constants.BROTLI_PARAM_SIZE_HINT]: identity.length } }),
+    gzip: gzipSync(identity, { level: thorough ? 9 : 6 }),
+    br: brotliCompressSync(identity, { params: { [constants.BROTLI_PARAM_QUALITY]: thorough ? 9 : 4, [constants.BROTLI_PARAM_SIZE_HINT]: identity.length } }),
   };
 }
 
 export interface CachedPage {
-  html: string;
+  /** The page's bytes only, not its text as well: a string beside them would double what a page holds, unbounded. */
   encodings: Encodings;
   etag: string;
   status: number;

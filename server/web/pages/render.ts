@@ -15,13 +15,17 @@ import type { Database } from "#db/client";
 import type { createCsrf } from "../http/security";
 import { briefOfPath, canonicalVersionPath, isDeskPath, parseBriefPath, parseVersionPath, surrogateKeys, type VersionPath } from "#core/urls";
 import { admits, pageAccess } from "#core/access";
-import { encode, etagOf, PageCache, StateMemo, type CachedPage, type Encodings } from "./page-cache";
+import { encode, etagOf, PageCache, StateMemo, type CachedPage, type Effort, type Encodings } from "./page-cache";
+import { Catalogue, catalogueKey } from "./catalogue";
 
 /** Pages whose HTML carries a CSRF token, because they hold a form that posts without JavaScript. */
 const holdsForm = (path: string) => path === "/sign-in" || path === "/password-reset" || /^\/(password-reset|invitation)\/[^/]+$/.test(path);
 
 /** The pages that exist in every language: all but the desk and a draft's preview, which follow the person signed in. */
 const negotiates = (path: string) => !isDeskPath(path) && !path.startsWith("/preview/");
+
+/** The list pages: their data is the catalogue's, and a search's or a page's query is part of their address. */
+const isListPath = (path: string) => path === "/" || path === "/briefs" || /^\/topics\/[^/]+$/.test(path);
 
 /** The language a reader chose on the site (the cookie), else the first of ours their browser asks for, else English. */
 function readerLocale(chosen: unknown, acceptLanguage: string | undefined): Locale {
@@ -50,6 +54,14 @@ export interface PageAnswer {
   cacheState?: string;
 }
 
+/** Where a public page is kept in memory, and the state it is checked against on every hit. */
+interface Kept {
+  cache: PageCache;
+  key: string;
+  effort: Effort;
+  state: () => Promise<string | null>;
+}
+
 const cacheControl = {
   version: "public, max-age=3600",
   revalidate: "public, no-cache",
@@ -70,7 +82,10 @@ export async function pageRoutes(options: {
   const { root, production, csrf, db, publicUrl, sessionCookie, onFastAnswer } = options;
   const router = Router();
   const cache = new PageCache();
+  // The list pages apart, in less memory: a flood of distinct searches cannot push out versions' pages.
+  const lists = new PageCache(16 * 1024 * 1024);
   const states = new StateMemo<string | null>();
+  const catalogue = new Catalogue(db, states);
   const rendering = new Map<string, Promise<CachedPage | null>>();
   if (production) {
     // Built assets carry a content hash in their name, so they can be cached for a year.
@@ -84,7 +99,7 @@ export async function pageRoutes(options: {
     router.use(devMiddleware);
   }
 
-  function send(req: Request, res: Response, page: Omit<CachedPage, "state" | "encodings" | "caching"> & { encodings?: Encodings }, caching: keyof typeof cacheControl) {
+  function send(req: Request, res: Response, page: Omit<CachedPage, "state" | "encodings" | "caching"> & ({ html: string; encodings?: never } | { encodings: Encodings }), caching: keyof typeof cacheControl) {
     for (const [name, value] of page.headers) res.setHeader(name, value);
     const policy = res.getHeader("content-security-policy");
     const nonce = res.locals.cspNonce as string;
@@ -138,12 +153,12 @@ export async function pageRoutes(options: {
     // is sent there, so that each page is rendered and cached once.
     if (parsed && !parsed.canonical) return res.redirect(301, localePath(locale, canonicalVersionPath(parsed)) + query);
     try {
-      const memory = memoryCached(req.user, locale, path, parsed);
+      const memory = memoryCached(req.user, locale, path, query, parsed);
       if (memory) {
-        const cached = cache.get(memory.key);
+        const cached = memory.cache.get(memory.key);
         if (cached) {
           if ((await memory.state()) === cached.state) return send(req, res, cached, cached.caching);
-          cache.delete(memory.key);
+          memory.cache.delete(memory.key);
         }
         // One render per address at a time: readers who arrive meanwhile get its result, so that a
         // cold page under load is rendered once rather than once per reader.
@@ -153,7 +168,7 @@ export async function pageRoutes(options: {
           if (entry) return send(req, res, entry, entry.caching);
         }
       }
-      const rendered = renderAndKeep(req, res, path, memory?.key ?? null);
+      const rendered = renderAndKeep(req, res, path, memory);
       if (memory) rendering.set(memory.key, rendered.then((result) => result?.entry ?? null));
       const result = await rendered.finally(() => memory && rendering.delete(memory.key));
       if (!result) return next();
@@ -175,16 +190,20 @@ export async function pageRoutes(options: {
   async function fastAnswer(req: IncomingMessage, res: ServerResponse): Promise<boolean> {
     if (req.method !== "GET" && req.method !== "HEAD") return false;
     const url = req.url ?? "/";
-    if (url.includes("?") || !url.startsWith("/")) return false;
+    if (!url.startsWith("/")) return false;
     const cookies = req.headers.cookie ?? "";
     if (cookieValue(cookies, sessionCookie) !== undefined) return false;
-    const { locale, path } = splitLocale(url);
+    const at = url.indexOf("?");
+    const query = at < 0 ? "" : url.slice(at);
+    const { locale, path } = splitLocale(at < 0 ? url : url.slice(0, at));
+    // Only a list's address carries a query that names a page of its own (a search, a page number).
+    if (query && !isListPath(path)) return false;
     const negotiated = locale === defaultLocale && negotiates(path);
     if (negotiated && readerLocale(cookieValue(cookies, localeCookie), req.headers["accept-language"]) !== defaultLocale) return false;
     const parsed = parseVersionPath(path);
     if (parsed && !parsed.canonical) return false;
-    const memory = memoryCached(undefined, locale, path, parsed);
-    const cached = memory ? cache.get(memory.key) : undefined;
+    const memory = memoryCached(undefined, locale, path, query, parsed);
+    const cached = memory?.cache.get(memory.key);
     if (!memory || !cached?.ready || (await memory.state()) !== cached.state) return false;
     const vary = negotiated ? "Accept-Language, Cookie, Accept-Encoding" : "Accept-Encoding";
     // The same freshness and encoding rules as the full way's req.fresh and req.acceptsEncodings (Express's own packages).
@@ -203,24 +222,26 @@ export async function pageRoutes(options: {
 
   /**
    * The public pages kept in memory, with the state each is checked against on every hit: a released
-   * version's pages and a brief's latest address. Only a reader who sees what the public sees shares
-   * them: the press and editors also see embargoed versions in a page's history.
+   * version's pages and a brief's latest address (against the brief's state), and the list pages
+   * (against the catalogue's). Only a reader who sees what the public sees shares them: the press and
+   * editors also see embargoed versions in a page's history.
    */
-  function memoryCached(reader: Request["user"], locale: Locale, path: string, version: VersionPath | null): { key: string; state: () => Promise<string | null> } | null {
+  function memoryCached(reader: Request["user"], locale: Locale, path: string, query: string, version: VersionPath | null): Kept | null {
     if (mayReadEmbargoed(reader?.roles ?? [])) return null;
+    if (isListPath(path)) return { cache: lists, key: PageCache.key(locale, path + query), effort: "quick", state: () => catalogue.state() };
     const key = PageCache.key(locale, path);
     if (version) {
       const { slug, version: number } = version.at;
-      return { key, state: () => states.get(`${slug}/${number}`, () => publicVersionState(db, slug, number)) };
+      return { cache, key, effort: "thorough", state: () => states.get(`${slug}/${number}`, () => publicVersionState(db, slug, number)) };
     }
     const latest = parseBriefPath(path);
     // The latest address shows the newest released version: the same state, read from version 1 on.
-    if (latest) return { key, state: () => states.get(`${latest}/latest`, () => publicVersionState(db, latest, 1)) };
+    if (latest) return { cache, key, effort: "thorough", state: () => states.get(`${latest}/latest`, () => publicVersionState(db, latest, 1)) };
     return null;
   }
 
-  /** Renders the page; one that says how it may be cached in memory is kept under `key`. */
-  async function renderAndKeep(req: Request, res: Response, path: string, key: string | null) {
+  /** Renders the page; one that says how it may be cached in memory is kept where `kept` says. */
+  async function renderAndKeep(req: Request, res: Response, path: string, kept: Kept | null) {
     let csrfToken: string | undefined;
     if (holdsForm(path)) {
       req.session.csrfIssued = true;
@@ -232,6 +253,7 @@ export async function pageRoutes(options: {
       cspNonce: res.locals.cspNonce as string,
       person: req.user ?? null,
       db,
+      catalogue: (locale: Locale) => catalogue.briefs(locale),
       csrfToken,
       siteUrl: siteUrl(req, publicUrl),
     });
@@ -243,15 +265,18 @@ export async function pageRoutes(options: {
     const headers = httpResponse.headers.filter(([name]) => name.toLowerCase() !== "content-security-policy") as [string, string][];
     const page = { html, etag: etagOf(html), status: answer.httpStatus ?? httpResponse.statusCode, headers, nonce: res.locals.cspNonce as string };
     const caching = httpResponse.statusCode >= 400 && !answer.httpStatus ? "private" : (answer.caching ?? "private");
-    if (key && caching !== "private" && answer.cacheState !== undefined) {
-      const entry: CachedPage = { ...page, encodings: encode(html), state: answer.cacheState, caching };
-      cache.set(key, entry);
+    if (kept && caching !== "private" && answer.cacheState !== undefined) {
+      const entry: CachedPage = { etag: page.etag, status: page.status, headers, nonce: page.nonce, encodings: encode(html, kept.effort), state: answer.cacheState, caching };
+      kept.cache.set(kept.key, entry);
       return { page, caching, entry };
     }
     return { page, caching, entry: null };
   }
 
-  /** What this process remembers of a brief's versions, dropped when the database announces a change to them. */
-  const forget = (slug: string) => states.forget(`${slug}/`);
+  /** What this process remembers of a brief's versions and of the catalogue, dropped when the database announces a change to them. */
+  const forget = (slug: string) => {
+    states.forget(`${slug}/`);
+    states.forget(catalogueKey);
+  };
   return { router, fastAnswer, forget };
 }
