@@ -4,7 +4,8 @@
 // One JSON object on stdout and exit 0; bad input: one line on stderr, exit 1; bad arguments: exit 2.
 import { readFileSync } from "node:fs";
 import { parseArgs } from "node:util";
-import { z } from "zod";
+// zod's tree-shakeable build: the full one is most of the bundle, and a run would spend its start compiling it.
+import * as z from "zod/mini";
 import { analyse } from "#core/nma/analyse";
 import { measuresByFormat } from "#core/nma/options";
 import { parseDataset } from "#core/nma/parse";
@@ -15,20 +16,23 @@ function fail(code: 1 | 2, reason: string): never {
   process.exit(code);
 }
 
+const whole = (name: string) => z.refine<number>(Number.isInteger, `${name} must be a whole number`);
 const argumentsSchema = z
   .object({
-    input: z.string({ message: "--input FILE.csv is required" }),
-    format: z.enum(formats, { message: `--format must be one of ${formats.join(", ")}` }),
-    measure: z.enum(measures, { message: `--measure must be one of ${measures.join(", ")}` }),
-    model: z.enum(["fixed", "random"], { message: "--model must be fixed or random" }),
-    reference: z.string({ message: "--reference NAME is required" }).min(1),
-    better: z.enum(["higher", "lower"], { message: "--better must be higher or lower" }),
-    draws: z.coerce.number({ message: "--draws must be a number" }).int().min(1).max(10_000_000).optional(),
-    seed: z.coerce.number({ message: "--seed must be a number" }).int().optional(),
+    input: z.string({ error: "--input FILE.csv is required" }),
+    format: z.enum(formats, { error: `--format must be one of ${formats.join(", ")}` }),
+    measure: z.enum(measures, { error: `--measure must be one of ${measures.join(", ")}` }),
+    model: z.enum(["fixed", "random"], { error: "--model must be fixed or random" }),
+    reference: z.string({ error: "--reference NAME is required" }).check(z.minLength(1, "--reference NAME is required")),
+    better: z.enum(["higher", "lower"], { error: "--better must be higher or lower" }),
+    draws: z.optional(z.coerce.number({ error: "--draws must be a number" }).check(whole("--draws"), z.minimum(1, "--draws must be at least 1"), z.maximum(10_000_000, "--draws must be at most 10000000"))),
+    seed: z.optional(z.coerce.number({ error: "--seed must be a number" }).check(whole("--seed"))),
   })
-  .refine((a) => measuresByFormat[a.format].includes(a.measure), {
-    message: "--measure does not fit --format (arm-binary takes OR, RR or RD; arm-continuous takes MD)",
-  });
+  .check(
+    z.refine((a) => measuresByFormat[a.format].includes(a.measure), {
+      error: "--measure does not fit --format (arm-binary takes OR, RR or RD; arm-continuous takes MD)",
+    }),
+  );
 
 let raw;
 try {

@@ -89,7 +89,7 @@ export function analyse(dataset: ParsedDataset, options: AnalysisOptions): Analy
   const fixed = fitAt(blocks, parameters, 0);
   const df = degreesOfFreedom(studies, treatments.length);
   // With no residual degrees of freedom τ² cannot be estimated: the random-effects fit is the fixed one.
-  const fit: Fit = model === "fixed" || df === 0 ? fixed : estimateTau2(blocks, parameters);
+  const fit: Fit = model === "fixed" || df === 0 ? fixed : estimateTau2(blocks, parameters, fixed);
   const tau2 = fit.tau2;
 
   const network = (a: string, b: string): Estimate => {

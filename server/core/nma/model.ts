@@ -125,6 +125,24 @@ export function fitAt(blocks: StudyBlock[], parameters: number, tau2: number): F
   const weights: { W: number[][]; WPW: number[][] }[] = [];
 
   for (const block of blocks) {
+    if (block.y.length === 1) {
+      // A two-arm study (most of them): every matrix below is one number, P = [1], so
+      // WP = W, WPW = W², WPWPW = W³; written out, to spare the small-matrix work.
+      const sigma = block.V[0]![0]! + tau2;
+      const w = 1 / sigma;
+      logDetSigma += Math.log(sigma);
+      const weight = { W: [[w]], WPW: [[w * w]] };
+      addProjected(A, weight.W, block);
+      const plus = block.plus[0]!, minus = block.minus[0]!;
+      if (plus >= 0) c[plus]! += w * block.y[0]!;
+      if (minus >= 0) c[minus]! -= w * block.y[0]!;
+      traceWP += w;
+      traceWPWP += w * w;
+      addProjected(M, weight.WPW, block);
+      addProjected(N, [[w * w * w]], block);
+      weights.push(weight);
+      continue;
+    }
     const { W, P, logDet } = invertBlock(block, tau2);
     logDetSigma += logDet;
     addProjected(A, W, block);
