@@ -82,6 +82,24 @@ if (one >= 0) {
   commandLine();
 }
 
+const peerScript = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "bench-peer.R");
+
+/** Whether R and metafor are here to run the command line's peer. */
+function peerAvailable(): boolean {
+  return spawnSync("Rscript", ["-e", "library(metafor)"], { encoding: "utf8" }).status === 0;
+}
+
+/** The median time of `runs` runs of a child process that must succeed. */
+function medianMs(runs: number, run: () => ReturnType<typeof spawnSync>): number {
+  const times = Array.from({ length: runs }, () => {
+    const start = performance.now();
+    const child = run();
+    if (child.status !== 0) throw new Error(String(child.stderr));
+    return performance.now() - start;
+  });
+  return times.sort((a, b) => a - b)[Math.floor(runs / 2)]!;
+}
+
 /**
  * The whole command-line process (METHODS.md §11) on the same networks written as CSV: start-up,
  * reading, analysis and printing, as a script calling `npm run nma` would see it (without npm's own
@@ -90,9 +108,15 @@ if (one >= 0) {
 function commandLine() {
   const folder = mkdtempSync(path.join(tmpdir(), "fairweigh-bench-"));
   const cli = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "nma.mjs");
-  console.log("\nThe command line, whole process (node scripts/nma.mjs, default 10 000 draws); median of 3 runs\n");
-  console.log("| network (treatments × studies) | median | peak RSS | target |");
-  console.log("|---|---|---|---|");
+  const peer = peerAvailable();
+  console.log("\nThe command line, whole process (node scripts/nma.mjs, default 10 000 draws); median of 3 runs");
+  console.log(
+    peer
+      ? "beside its peer on the same file: R with metafor (scripts/bench-peer.R), once doing §2–§6 only (less than ours, which also computes §13's importances and shares: a conservative ratio), once the whole of §2–§6 and §13 as the reference values were computed (the same output: like for like; one run, on the smaller network)\n"
+      : "(no peer: Rscript with metafor is not installed; `apt-get install r-base-core r-cran-metafor` to measure the ratio)\n",
+  );
+  console.log("| network (treatments × studies) | ours | peak RSS | R, §2–§6 | ratio | R, §2–§6 and §13 | ratio | target |");
+  console.log("|---|---|---|---|---|---|---|---|");
   for (const size of sizes.slice(0, 2)) {
     const file = path.join(folder, `${size.treatments}x${size.studies}.csv`);
     const rows = syntheticNetwork(size.treatments, size.studies, 20261201).studies.flatMap((study) =>
@@ -108,8 +132,15 @@ function commandLine() {
       return { ms: performance.now() - start, rssKiB: Number(child.stderr.trim().split("\n").at(-1)) };
     });
     runs.sort((a, b) => a.ms - b.ms);
-    const target = size.treatments === 60 ? "< 1 s whole" : "";
-    console.log(`| ${size.treatments} × ${size.studies} | ${runs[1]!.ms.toFixed(0)} ms | ${(runs[1]!.rssKiB / 1024).toFixed(0)} MiB | ${target} |`);
+    const ours = runs[1]!.ms;
+    const small = size.treatments === 27;
+    const r = (mode: string[]) => () => spawnSync("Rscript", [peerScript, file, "t000", ...mode], { encoding: "utf8" });
+    const partial = peer ? medianMs(small ? 3 : 1, r([])) : null;
+    const whole = peer && small ? medianMs(1, r(["all"])) : null;
+    const shown = (ms: number | null) => (ms === null ? "—" : `${(ms / 1000).toFixed(1)} s`);
+    const ratio = (ms: number | null) => (ms === null ? "—" : `${(ms / ours).toFixed(1)}×`);
+    const target = small ? "≥ 20× faster than R" : "< 1 s whole";
+    console.log(`| ${size.treatments} × ${size.studies} | ${ours.toFixed(0)} ms | ${(runs[1]!.rssKiB / 1024).toFixed(0)} MiB | ${shown(partial)} | ${ratio(partial)} | ${shown(whole)} | ${ratio(whole)} | ${target} |`);
   }
   rmSync(folder, { recursive: true, force: true });
 }
