@@ -26,17 +26,17 @@ export const importanceListLength = 10;
 /** Below this, an eigenvalue of N is a direction the network loses entirely without the study. */
 const lostDirection = 1e-9;
 
-/** Largest first; equal importances by study label (code-point order). */
-function before(x: StudyImportance, y: StudyImportance): boolean {
-  return x.value > y.value || (x.value === y.value && x.study < y.study);
+/** Whether a study of this importance goes before `other`: largest first, equal ones by study label (code-point order). */
+function precedes(value: number, study: string, other: StudyImportance): boolean {
+  return value > other.value || (value === other.value && study < other.study);
 }
 
 /** Keeps `list` sorted and at most `importanceListLength` long. */
-function insert(list: StudyImportance[], entry: StudyImportance): void {
-  if (list.length === importanceListLength && !before(entry, list[list.length - 1]!)) return;
+function insert(list: StudyImportance[], study: string, value: number): void {
+  if (list.length === importanceListLength && !precedes(value, study, list[list.length - 1]!)) return;
   let i = list.length;
-  while (i > 0 && before(entry, list[i - 1]!)) i--;
-  list.splice(i, 0, entry);
+  while (i > 0 && precedes(value, study, list[i - 1]!)) i--;
+  list.splice(i, 0, { study, value });
   if (list.length > importanceListLength) list.pop();
 }
 
@@ -115,7 +115,7 @@ export function studyImportances(
           else if (Math.abs(h) > 1e-6 * Math.sqrt(vN)) lost = true;
         }
         const value = lost ? 1 : extra / (vN + extra);
-        if (value >= importanceFloor) insert(lists[i * T + j]!, { study: block.study, value });
+        if (value >= importanceFloor) insert(lists[i * T + j]!, block.study, value);
       }
     }
   }

@@ -53,8 +53,14 @@ function addProjected(target: number[][], S: number[][], block: StudyBlock): voi
   }
 }
 
+/** The product of two of a study's small square matrices (a multi-arm study's few contrasts). */
 function product(a: number[][], b: number[][]): number[][] {
-  return a.length === 1 ? [[a[0]![0]! * b[0]![0]!]] : new Matrix(a).mmul(new Matrix(b)).to2DArray();
+  const m = a.length;
+  return a.map((row) => {
+    const out = new Array<number>(m).fill(0);
+    for (let k = 0; k < m; k++) for (let j = 0; j < m; j++) out[j]! += row[k]! * b[k]![j]!;
+    return out;
+  });
 }
 
 /** (S + Sᵀ)/2: rounding leaves inverses a hair off symmetric, and the Cholesky factorisation insists. */
