@@ -17,7 +17,7 @@ import { startSubscriptionWorker } from "#workflows/subscriptions";
 /** `migrate: false` in the processes of a cluster, whose primary migrated once before forking them. */
 export async function startServer(config: ServerConfig, { migrate = true } = {}): Promise<{ url: string; close(): Promise<void> }> {
   const connection = connectDatabase(config.databaseUrl);
-  if (migrate) await migrateDatabase(connection.db);
+  if (migrate) await migrateDatabase(connection);
   // The job queue runs in the server's process: e-mail is delivered only where SMTP_URL says how.
   const queue = await startQueue(config.databaseUrl, { ...defaultQueueOptions, retryDelaySeconds: config.mailRetryDelaySeconds }, (error) => console.error("queue:", error.message));
   const mail = { db: connection.db, queue, siteUrl: config.publicUrl };
@@ -69,7 +69,7 @@ export async function startServer(config: ServerConfig, { migrate = true } = {})
  */
 async function runCluster(config: ServerConfig): Promise<void> {
   const connection = connectDatabase(config.databaseUrl);
-  await migrateDatabase(connection.db);
+  await migrateDatabase(connection);
   await connection.close();
   let stopping = false;
   let listening = 0;

@@ -28,7 +28,7 @@ export async function migrateAndSeed(databaseUrl: string, seed: boolean): Promis
   const connection = connectDatabase(databaseUrl);
   try {
     log("Applying database migrations");
-    await migrateDatabase(connection.db);
+    await migrateDatabase(connection);
     if (seed) {
       log("Seeding the demo content (skipped where it exists)");
       await seedDemo(connection.db);

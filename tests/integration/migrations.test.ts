@@ -42,7 +42,7 @@ afterAll(async () => {
 
 describe("0008: thresholds of binary outcomes become differences per 1000 (docs/decisions/0017-thresholds-per-1000.md)", () => {
   it("converts log odds ratio, log risk ratio and risk difference thresholds at the baseline risk, clears those without one, leaves continuous ones", async () => {
-    await migrateDatabase(connection.db, folderBefore);
+    await migrateDatabase(connection, folderBefore);
     const { pool } = connection;
     const [{ id: person }] = (await pool.query<{ id: string }>("insert into people (email, display_name, password_hash) values ('m@x.example', 'M', 'x') returning id")).rows as [{ id: string }];
     const [{ id: brief }] = (await pool.query<{ id: string }>("insert into briefs (slug, title, topic, condition, population, created_by) values ('m', 'M', 't', 'c', 'p', $1) returning id", [person])).rows as [{ id: string }];
@@ -57,7 +57,7 @@ describe("0008: thresholds of binary outcomes become differences per 1000 (docs/
     await outcome("no baseline", "binary", "OR", null, 0.4);
     await outcome("points", "continuous", "MD", null, 3);
 
-    await migrateDatabase(connection.db);
+    await migrateDatabase(connection);
     const rows = (await pool.query<{ name: string; threshold_small: number | null }>("select name, threshold_small from outcomes")).rows;
     const small = Object.fromEntries(rows.map((r) => [r.name, r.threshold_small]));
     // OR 2 at p₀ = 0.3: p₁ = 0.6/1.3 = 0.461538…, so 161.5 more per 1000 (worked by hand, METHODS.md §7).
@@ -68,5 +68,24 @@ describe("0008: thresholds of binary outcomes become differences per 1000 (docs/
     expect(small.difference).toBe(50);
     expect(small["no baseline"]).toBeNull();
     expect(small.points).toBe(3);
+  });
+});
+
+describe("machines that start at once", () => {
+  it("migrate a new database once between them: three at the same moment all start, and every migration is recorded once", async () => {
+    const fresh = `migration_race_${process.pid}`;
+    await admin.query(`create database ${fresh}`);
+    const url = new URL(testDatabaseUrl());
+    url.pathname = `/${fresh}`;
+    const machines = [0, 1, 2].map(() => connectDatabase(url.toString()));
+    try {
+      await Promise.all(machines.map((machine) => migrateDatabase(machine)));
+      const journal = JSON.parse(readFileSync(path.join(migrationsFolder, "meta/_journal.json"), "utf8")) as { entries: unknown[] };
+      const applied = await machines[0]!.pool.query<{ count: string }>("select count(*) from drizzle.__drizzle_migrations");
+      expect(Number(applied.rows[0]!.count)).toBe(journal.entries.length);
+    } finally {
+      await Promise.all(machines.map((machine) => machine.close()));
+      await admin.query(`drop database ${fresh}`);
+    }
   });
 });
