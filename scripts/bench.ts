@@ -16,6 +16,8 @@ const sizes = [
   { treatments: 100, studies: 5000, target: "< 5 s", runs: 3 },
 ];
 const threeArmShare = 0.15;
+/** The command line's peer: the same analysis by R with metafor (decision 0032). */
+const peerScript = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "bench-peer.R");
 
 /** Invented continuous-outcome data: a spanning chain keeps the network connected, the rest is random. */
 export function syntheticNetwork(treatments: number, studies: number, seed: number): ParsedDataset {
@@ -81,8 +83,6 @@ if (one >= 0) {
   }
   commandLine();
 }
-
-const peerScript = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "bench-peer.R");
 
 /** Whether R and metafor are here to run the command line's peer. */
 function peerAvailable(): boolean {
