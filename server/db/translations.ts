@@ -1,7 +1,7 @@
 // Translations of released versions, one row per version and language (schema: versionTranslations).
 import { and, desc, eq, inArray, isNull, lt, sql } from "drizzle-orm";
-import type { TranslationLocale } from "#core/locales";
-import type { PublishedFields, StoredFields } from "#core/translation";
+import { isTranslationLocale, type Locale, type TranslationLocale } from "#core/locales";
+import { translatedSnapshot, translatedTopic, type PublishedFields, type StoredFields } from "#core/translation";
 import type { VersionSnapshot } from "#core/snapshot/schema";
 import { readSnapshot } from "#core/snapshot/upgrade";
 import type { Database, Executor } from "./client";
@@ -96,6 +96,22 @@ export async function publishedTranslation(db: Database, versionId: string, loca
     .from(versionTranslations)
     .where(and(eq(versionTranslations.versionId, versionId), eq(versionTranslations.locale, locale)));
   return row?.fields && row.publishedAt ? { fields: row.fields as PublishedFields, publishedAt: row.publishedAt.toISOString() } : null;
+}
+
+/**
+ * A version as a reader of `locale` sees it: its published translation in place of the original texts,
+ * or the original, with whether a translation is published (null for the original's own language).
+ * The generated words (statements, groups, cautions) come from locales/, not from here.
+ */
+export async function inLanguage(db: Database, versionId: string, original: VersionSnapshot, locale: Locale) {
+  if (!isTranslationLocale(locale)) return { snapshot: original, topic: original.brief.topic, translation: null };
+  const published = await publishedTranslation(db, versionId, locale);
+  if (!published) return { snapshot: original, topic: original.brief.topic, translation: { locale, publishedAt: null } };
+  return {
+    snapshot: translatedSnapshot(original, published.fields),
+    topic: translatedTopic(original, published.fields),
+    translation: { locale, publishedAt: published.publishedAt as string | null },
+  };
 }
 
 export interface QueueEntry {

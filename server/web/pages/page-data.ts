@@ -3,9 +3,8 @@
 import { render } from "vike/abort";
 import type { PageContextServer } from "vike/types";
 import { briefContent, comparisonContent, type BriefView, type ComparisonView, type PageState } from "#core/brief-page";
-import { isTranslationLocale, localeOf, localePath, locales } from "#core/locales";
-import { translatedSnapshot, translatedTopic } from "#core/translation";
-import { publishedTranslation } from "#db/translations";
+import { localeOf, localePath, locales } from "#core/locales";
+import { inLanguage } from "#db/translations";
 import { mayReadEmbargoed } from "#core/roles";
 import { admits, pageAccess } from "#core/access";
 import type { VersionSnapshot } from "#core/snapshot/schema";
@@ -40,19 +39,8 @@ function answer(pageContext: PageContextServer, page: PublicVersion, latestUrl: 
   };
 }
 
-/**
- * The version in the reader's language: its published translation in place of the original texts,
- * or the original with a notice when there is none yet. The generated words (statements, groups,
- * cautions) are always in the reader's language: they come from locales/, not from the snapshot.
- */
-async function inReadersLanguage(pageContext: PageContextServer, page: PublicVersion) {
-  const locale = pageContext.locale;
-  const original = page.found.snapshot;
-  if (!isTranslationLocale(locale)) return { snapshot: original, topic: original.brief.topic, translation: null };
-  const published = await publishedTranslation(pageContext.db!, page.found.versionId, locale);
-  if (!published) return { snapshot: original, topic: original.brief.topic, translation: { locale, publishedAt: null } };
-  return { snapshot: translatedSnapshot(original, published.fields), topic: translatedTopic(original, published.fields), translation: { locale, publishedAt: published.publishedAt } };
-}
+/** The version in the reader's language (server/db/translations.ts, inLanguage). */
+const inReadersLanguage = (pageContext: PageContextServer, page: PublicVersion) => inLanguage(pageContext.db!, page.found.versionId, page.found.snapshot, pageContext.locale);
 
 /** The reference with its permalink (in the language it was read in) and today's access date, for a version or one comparison in it. */
 function citation(pageContext: PageContextServer, snapshot: VersionSnapshot, path: string, comparison?: string) {

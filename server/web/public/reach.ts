@@ -5,12 +5,11 @@
 // not offer it (docs/decisions/0028-reach.md).
 import { Router, type Request, type Response } from "express";
 import { z } from "zod";
-import { defaultLocale, isTranslationLocale, localePath, splitLocale, type Locale } from "#core/locales";
-import { translatedSnapshot } from "#core/translation";
+import { defaultLocale, localePath, splitLocale, type Locale } from "#core/locales";
 import { embedUrl, pageUrl, surrogateKeys, parseBriefPath, parseVersionPath, shareImageUrl, versionNumberOf, type ComparisonAddress, type VersionAddress } from "#core/urls";
 import { wordsOf } from "#core/words";
 import type { Database } from "#db/client";
-import { publishedTranslation } from "#db/translations";
+import { inLanguage } from "#db/translations";
 import { readPublicVersion, readVersion } from "#db/versions";
 import { cardWidth, embedCard } from "./embed";
 import { escapeXml } from "./feed";
@@ -23,8 +22,7 @@ const cacheControl = "public, max-age=3600";
 async function releasedVersion(db: Database, slug: string, number: number, locale: Locale) {
   const found = await readVersion(db, slug, number, []);
   if (!found) return null;
-  const published = isTranslationLocale(locale) ? await publishedTranslation(db, found.versionId, locale) : null;
-  return { ...found, original: found.snapshot, snapshot: published ? translatedSnapshot(found.snapshot, published.fields) : found.snapshot };
+  return { ...found, original: found.snapshot, snapshot: (await inLanguage(db, found.versionId, found.snapshot, locale)).snapshot };
 }
 
 const addressOf = (req: Request): VersionAddress | ComparisonAddress | null => {
