@@ -14,8 +14,8 @@ let second: RunningServer;
 let analyst: ApiClient;
 let editor: ApiClient;
 beforeAll(async () => {
-  // One deployment: the same rate-limit namespace for both.
-  const env = { RATE_LIMIT_NAMESPACE: `test-${randomUUID()}:` };
+  // One deployment: the same rate-limit namespace and public address for both.
+  const env = { RATE_LIMIT_NAMESPACE: `test-${randomUUID()}:`, PUBLIC_URL: "http://fairweigh.example" };
   [first, second] = await Promise.all([startProductionServer({ env }), startProductionServer({ env })]);
   // Signed in before the failed sign-ins below make this address wait a minute.
   analyst = await demoClient(first.url, "analyst");
@@ -60,6 +60,20 @@ describe("two processes on one database", () => {
     expect(await entry()).not.toContain("Withdrawn");
     expect((await editor.request("POST", `/api/briefs/${briefId}/withdrawal`, { json: { reason: "A trial in the data was retracted." } })).status).toBe(200);
     expect(await within(1000, async () => (await entry())?.includes("Withdrawn") ?? false), "the second process's list did not show the withdrawal within one second").not.toBeNull();
+  });
+
+  it("gives a kept page the same ETag in both, so that a reader revalidating with one's tag gets a 304 from the other", async () => {
+    const { slug } = await publishedBrief(analyst, editor, "Tagged alike across processes");
+    for (const path of [`/briefs/${slug}/v/1`, `/briefs/${slug}/v/1/compare/grp_counseling/no_contact`, "/briefs?q=tagged"]) {
+      const [one, other] = [await fetch(`${first.url}${path}`), await fetch(`${second.url}${path}`)];
+      expect(one.status, path).toBe(200);
+      const tag = one.headers.get("etag");
+      expect(tag, path).toBeTruthy();
+      expect(other.headers.get("etag"), path).toBe(tag);
+      // As a browser revalidates (fetch would add "no-cache" to a conditional request of its own).
+      const revalidated = await fetch(`${second.url}${path}`, { headers: { "if-none-match": tag!, "cache-control": "max-age=0" } });
+      expect(revalidated.status, path).toBe(304);
+    }
   });
 
   it("counts failed sign-ins across both: three on one and two on the other make the sixth a 429", async () => {

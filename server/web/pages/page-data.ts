@@ -44,7 +44,9 @@ const inReadersLanguage = (pageContext: PageContextServer, page: PublicVersion) 
 
 /** The reference with its permalink (in the language it was read in) and today's access date, for a version or one comparison in it. */
 function citation(pageContext: PageContextServer, snapshot: VersionSnapshot, path: string, comparison?: string) {
-  const accessed = new Date();
+  // The day, not the moment: a citation's access date is a day, and the page is kept for the day
+  // (its cache key names it), so every process renders the same page and the same ETag.
+  const accessed = new Date(new Date().toISOString().slice(0, 10));
   const permalink = `${pageContext.siteUrl ?? ""}${localePath(pageContext.locale, path)}`;
   return {
     reference: formattedReference({ title: snapshot.brief.title, author: snapshot.brief.reviewGroup, version: snapshot.version, releaseAt: snapshot.releaseAt, url: permalink, accessed, comparison, language: pageContext.locale }),

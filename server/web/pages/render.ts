@@ -263,7 +263,10 @@ export async function pageRoutes(options: {
     const html = await httpResponse.getBody();
     // helmet has set the full policy with the same nonce; Vike's shorter one would replace it.
     const headers = httpResponse.headers.filter(([name]) => name.toLowerCase() !== "content-security-policy") as [string, string][];
-    const page = { html, etag: etagOf(html), status: answer.httpStatus ?? httpResponse.statusCode, headers, nonce: res.locals.cspNonce as string };
+    const nonce = res.locals.cspNonce as string;
+    // The tag leaves the nonce out: every process renders the page with a nonce of its own, and a
+    // reader (or a CDN) revalidating with one process's tag must get its 304 from any other.
+    const page = { html, etag: etagOf(html.replaceAll(nonce, "")), status: answer.httpStatus ?? httpResponse.statusCode, headers, nonce };
     const caching = httpResponse.statusCode >= 400 && !answer.httpStatus ? "private" : (answer.caching ?? "private");
     if (kept && caching !== "private" && answer.cacheState !== undefined) {
       const entry: CachedPage = { etag: page.etag, status: page.status, headers, nonce: page.nonce, encodings: encode(html, kept.effort), state: answer.cacheState, caching };
