@@ -15,7 +15,8 @@ const setup = withServerAndBrowser();
 const signedIn = (browser: Browser, email: string) => signedInAt(browser, setup.server.url, email);
 
 const openBrief = async (page: Page) => {
-  await page.getByRole("link", { name: title }).first().click();
+  // The brief's screen in the desk, not its public page, which the press room on the same screen links once it is released.
+  await page.locator('a[href^="/desk/briefs/"]', { hasText: title }).first().click();
   await page.locator("h1", { hasText: title }).waitFor();
 };
 
