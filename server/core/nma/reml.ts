@@ -7,7 +7,7 @@ export const remlTolerance = 1e-8;
 const maximumIterations = 200;
 
 /** `atZero` is the fit at τ² = 0 (the fixed-effect fit), which the caller has already made. */
-export function estimateTau2(blocks: StudyBlock[], parameters: number, atZero: Fit = fitAt(blocks, parameters, 0)): Fit {
+export function estimateTau2(blocks: StudyBlock[], parameters: number, atZero: Fit): Fit {
   // The likelihood falls away from the boundary (or is flat, as with one contrast per parameter):
   // τ² = 0 is the restricted maximum.
   if (!(atZero.score > 0) || !(atZero.information > 0)) return atZero;
