@@ -86,7 +86,11 @@ export class PageCache {
   private readonly entries = new Map<string, CachedPage>();
   private bytes = 0;
 
-  constructor(private readonly capacityBytes = 64 * 1024 * 1024) {}
+  /** `effort`: how hard to compress the pages it keeps (see Effort). */
+  constructor(
+    private readonly capacityBytes = 64 * 1024 * 1024,
+    readonly effort: Effort = "thorough",
+  ) {}
 
   static key(locale: string, path: string, day = new Date().toISOString().slice(0, 10)): string {
     return `${locale}|${day}|${path}`;

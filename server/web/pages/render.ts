@@ -15,7 +15,7 @@ import type { Database } from "#db/client";
 import type { createCsrf } from "../http/security";
 import { briefOfPath, canonicalVersionPath, isDeskPath, parseBriefPath, parseVersionPath, surrogateKeys, type VersionPath } from "#core/urls";
 import { admits, pageAccess } from "#core/access";
-import { encode, etagOf, PageCache, StateMemo, type CachedPage, type Effort, type Encodings } from "./page-cache";
+import { encode, etagOf, PageCache, StateMemo, type CachedPage, type Encodings } from "./page-cache";
 import { Catalogue, catalogueKey } from "./catalogue";
 
 /** Pages whose HTML carries a CSRF token, because they hold a form that posts without JavaScript. */
@@ -58,7 +58,6 @@ export interface PageAnswer {
 interface Kept {
   cache: PageCache;
   key: string;
-  effort: Effort;
   state: () => Promise<string | null>;
 }
 
@@ -83,7 +82,7 @@ export async function pageRoutes(options: {
   const router = Router();
   const cache = new PageCache();
   // The list pages apart, in less memory: a flood of distinct searches cannot push out versions' pages.
-  const lists = new PageCache(16 * 1024 * 1024);
+  const lists = new PageCache(16 * 1024 * 1024, "quick");
   const states = new StateMemo<string | null>();
   const catalogue = new Catalogue(db, states);
   const rendering = new Map<string, Promise<CachedPage | null>>();
@@ -228,15 +227,15 @@ export async function pageRoutes(options: {
    */
   function memoryCached(reader: Request["user"], locale: Locale, path: string, query: string, version: VersionPath | null): Kept | null {
     if (mayReadEmbargoed(reader?.roles ?? [])) return null;
-    if (isListPath(path)) return { cache: lists, key: PageCache.key(locale, path + query), effort: "quick", state: () => catalogue.state() };
+    if (isListPath(path)) return { cache: lists, key: PageCache.key(locale, path + query), state: () => catalogue.state() };
     const key = PageCache.key(locale, path);
     if (version) {
       const { slug, version: number } = version.at;
-      return { cache, key, effort: "thorough", state: () => states.get(`${slug}/${number}`, () => publicVersionState(db, slug, number)) };
+      return { cache, key, state: () => states.get(`${slug}/${number}`, () => publicVersionState(db, slug, number)) };
     }
     const latest = parseBriefPath(path);
     // The latest address shows the newest released version: the same state, read from version 1 on.
-    if (latest) return { cache, key, effort: "thorough", state: () => states.get(`${latest}/latest`, () => publicVersionState(db, latest, 1)) };
+    if (latest) return { cache, key, state: () => states.get(`${latest}/latest`, () => publicVersionState(db, latest, 1)) };
     return null;
   }
 
@@ -269,7 +268,7 @@ export async function pageRoutes(options: {
     const page = { html, etag: etagOf(html.replaceAll(nonce, "")), status: answer.httpStatus ?? httpResponse.statusCode, headers, nonce };
     const caching = httpResponse.statusCode >= 400 && !answer.httpStatus ? "private" : (answer.caching ?? "private");
     if (kept && caching !== "private" && answer.cacheState !== undefined) {
-      const entry: CachedPage = { etag: page.etag, status: page.status, headers, nonce: page.nonce, encodings: encode(html, kept.effort), state: answer.cacheState, caching };
+      const entry: CachedPage = { etag: page.etag, status: page.status, headers, nonce: page.nonce, encodings: encode(html, kept.cache.effort), state: answer.cacheState, caching };
       kept.cache.set(kept.key, entry);
       return { page, caching, entry };
     }
