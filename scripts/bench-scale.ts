@@ -34,9 +34,9 @@ async function catalogue(url: string, count: number): Promise<void> {
   const source = slugify(demoBriefs()[1]!.title);
   await client.query("begin");
   await client.query(
-    `insert into briefs (id, slug, title, topic, condition, population, status, row_version, created_by, created_at, updated_at, demo, lay_summary, key_messages, review_group)
+    `insert into briefs (id, slug, title, topic, condition, population, status, row_version, created_by, created_at, updated_at, demo, lay_summary, short_take, author_team)
      select gen_random_uuid(), 'scale-' || i, 'Invented brief ' || i || ' ' || ($2::text[])[1 + i % 10], 'Scale topic ' || (i % 25), 'Invented condition ' || ($2::text[])[1 + (i / 10) % 10], population,
-            status, row_version, created_by, now(), now(), true, lay_summary, key_messages, review_group
+            status, row_version, created_by, now(), now(), true, lay_summary, short_take, author_team
      from briefs, generate_series(1, $1) as i where slug = $3`,
     [count, words, source],
   );

@@ -40,10 +40,10 @@ export function BriefPage({ data }: { data: BriefPageData }) {
         {view.note ? <p className="mt-2 border-s-4 border-accent ps-3">{t("brief.correctionNote", { note: view.note })}</p> : null}
       </header>
 
-      {view.texts.keyMessagesHtml ? (
-        <section aria-labelledby="key-messages" className="mt-10 bg-white p-6">
-          <h2 id="key-messages" className="font-sans text-sm font-semibold uppercase tracking-wide">{t("brief.keyMessages")}</h2>
-          <div lang={original} className="prose-brief mt-3" dangerouslySetInnerHTML={{ __html: view.texts.keyMessagesHtml }} />
+      {view.texts.shortTakeHtml ? (
+        <section aria-labelledby="short-take" className="mt-10 bg-white p-6">
+          <h2 id="short-take" className="font-sans text-sm font-semibold uppercase tracking-wide">{t("brief.shortTake")}</h2>
+          <div lang={original} className="prose-brief mt-3" dangerouslySetInnerHTML={{ __html: view.texts.shortTakeHtml }} />
         </section>
       ) : null}
       {view.texts.laySummaryHtml ? (

@@ -35,13 +35,13 @@ export function BriefScreen({ personId, canAnalyse, canEdit }: { personId: strin
       ))}
       {canEdit ? (
         <TextsForm
-          initial={{ laySummary: data.laySummary, keyMessages: data.keyMessages }}
+          initial={{ laySummary: data.laySummary, shortTake: data.shortTake }}
           onPreview={previewMarkdown}
           onSave={(texts) => saveTexts.mutate({ rowVersion: data.rowVersion, ...texts })}
           busy={saveTexts.isPending}
           saved={saveTexts.isSuccess}
           error={saveTexts.error instanceof ApiError && saveTexts.error.status === 409 ? t("desk.conflict") : (saveTexts.error?.message ?? null)}
-          theirs={saveTexts.error instanceof ApiError && saveTexts.error.status === 409 ? { laySummary: data.laySummary, keyMessages: data.keyMessages } : null}
+          theirs={saveTexts.error instanceof ApiError && saveTexts.error.status === 409 ? { laySummary: data.laySummary, shortTake: data.shortTake } : null}
         />
       ) : null}
       {canAnalyse && data.treatments.length > 0 ? (

@@ -11,7 +11,7 @@ export function NewBriefForm({ onCreate, busy, error }: { onCreate: (fields: Cre
       onSubmit={(event) => {
         event.preventDefault();
         const v = formValues(event.currentTarget);
-        onCreate({ title: v.title ?? "", topic: v.topic ?? "", condition: v.condition ?? "", population: v.population ?? "", reviewGroup: v.reviewGroup || null });
+        onCreate({ title: v.title ?? "", topic: v.topic ?? "", condition: v.condition ?? "", population: v.population ?? "", authorTeam: v.authorTeam || null });
       }}
     >
       {(["title", "topic", "condition", "population"] as const).map((name) => (
@@ -19,8 +19,8 @@ export function NewBriefForm({ onCreate, busy, error }: { onCreate: (fields: Cre
           <input name={name} required className={inputClass} />
         </Field>
       ))}
-      <Field label={t("desk.field.reviewGroup")}>
-        <input name="reviewGroup" className={inputClass} />
+      <Field label={t("desk.field.authorTeam")}>
+        <input name="authorTeam" className={inputClass} />
       </Field>
       <SubmitRow label={t("desk.create")} busy={busy} error={error} />
     </form>

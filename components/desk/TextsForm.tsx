@@ -14,18 +14,18 @@ export function TextsForm({
   error,
   theirs,
 }: {
-  initial: { laySummary: string; keyMessages: string };
+  initial: { laySummary: string; shortTake: string };
   onPreview: (markdown: string) => Promise<string>;
-  onSave: (texts: { laySummary: string; keyMessages: string }) => void;
+  onSave: (texts: { laySummary: string; shortTake: string }) => void;
   busy: boolean;
   saved: boolean;
   error: string | null;
   /** After a conflict: the texts as the other person saved them. Yours stay in the form. */
-  theirs: { laySummary: string; keyMessages: string } | null;
+  theirs: { laySummary: string; shortTake: string } | null;
 }) {
   const { t } = useTranslation();
   const [texts, setTexts] = useState(initial);
-  const [preview, setPreview] = useState<{ laySummary: string; keyMessages: string } | null>(null);
+  const [preview, setPreview] = useState<{ laySummary: string; shortTake: string } | null>(null);
   return (
     <section className="mt-10 border-t border-rule pt-6">
       <h2 className="text-xl font-semibold">{t("desk.texts")}</h2>
@@ -38,7 +38,7 @@ export function TextsForm({
           onSave(texts);
         }}
       >
-        {(["laySummary", "keyMessages"] as const).map((name) => (
+        {(["laySummary", "shortTake"] as const).map((name) => (
           <div key={name}>
             <label className="block">
               <span className="block text-sm font-semibold">{t(`desk.${name}`)}</span>
@@ -58,7 +58,7 @@ export function TextsForm({
           <button
             type="button"
             className="border border-accent px-4 py-2 text-accent"
-            onClick={async () => setPreview({ laySummary: await onPreview(texts.laySummary), keyMessages: await onPreview(texts.keyMessages) })}
+            onClick={async () => setPreview({ laySummary: await onPreview(texts.laySummary), shortTake: await onPreview(texts.shortTake) })}
           >
             {t("desk.preview")}
           </button>
@@ -72,7 +72,7 @@ export function TextsForm({
           <pre className="whitespace-pre-wrap border border-rule bg-paper p-3 text-sm" data-testid="their-texts">
             {theirs.laySummary}
             {"\n\n"}
-            {theirs.keyMessages}
+            {theirs.shortTake}
           </pre>
         ) : null}
       </form>
@@ -80,7 +80,7 @@ export function TextsForm({
         <div className="mt-6 border border-rule bg-white p-5" data-testid="texts-preview">
           {/* The HTML comes from the server's Markdown renderer, which sanitises it (server/content/markdown.ts). */}
           <div className="space-y-3 text-lg leading-relaxed" dangerouslySetInnerHTML={{ __html: preview.laySummary }} />
-          <div className="mt-4 space-y-2" dangerouslySetInnerHTML={{ __html: preview.keyMessages }} />
+          <div className="mt-4 space-y-2" dangerouslySetInnerHTML={{ __html: preview.shortTake }} />
         </div>
       ) : null}
     </section>

@@ -202,7 +202,7 @@ export function previewMarkdown(markdown: string): Promise<string> {
 export function useSaveTexts(briefId: string) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: ({ rowVersion, ...texts }: { rowVersion: number; laySummary: string; keyMessages: string }) =>
+    mutationFn: ({ rowVersion, ...texts }: { rowVersion: number; laySummary: string; shortTake: string }) =>
       callApi<ApiAnswers["patchedBrief"]>("PATCH", `/api/briefs/${briefId}`, { rowVersion, ...texts }),
     onSettled: () => queryClient.invalidateQueries({ queryKey: queryKeys.brief(briefId) }),
   });

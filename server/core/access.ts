@@ -47,8 +47,8 @@ export const apiAccess = {
   "GET /api/briefs/:id": { who: desk, does: "read a draft brief with its outcomes" },
   "PATCH /api/briefs/:id": {
     who: ["analyst", "editor"],
-    does: "change a brief's title, topic, condition, population, review group; its texts",
-    also: "The lay summary and key messages need the role editor.",
+    does: "change a brief's title, topic, condition, population, author team; its texts",
+    also: "The lay summary and short take need the role editor.",
   },
   "PUT /api/briefs/:id/treatments": { who: ["analyst"], does: "name the treatments of the brief's data" },
   "POST /api/preview": { who: desk, does: "render Markdown as the public page would" },

@@ -1,4 +1,4 @@
-// Lay summaries and key messages are written in Markdown and rendered to HTML on the server. Raw
+// Lay summaries and short take are written in Markdown and rendered to HTML on the server. Raw
 // HTML in the source is escaped, and the output passes an allow-list sanitiser (sanitize-html), so
 // no script, event handler or javascript: link reaches a reader.
 import { Marked } from "marked";

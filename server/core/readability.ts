@@ -112,7 +112,7 @@ export const jargon: Record<Locale, { term: string; plain: string }[]> = {
     { term: "heterogeneity", plain: "differences between the trials' results" },
     { term: "efficacy", plain: "how well it works" },
     { term: "placebo", plain: "a dummy treatment" },
-    { term: "randomised controlled trial", plain: "a fair test" },
+    { term: "randomised controlled trial", plain: "a trial in which chance decides who gets which treatment" },
     { term: "adverse event", plain: "harm or side effect" },
   ],
   es: [
@@ -126,6 +126,7 @@ export const jargon: Record<Locale, { term: string; plain: string }[]> = {
     { term: "heterogeneidad", plain: "diferencias entre los resultados de los ensayos" },
     { term: "eficacia", plain: "lo bien que funciona" },
     { term: "placebo", plain: "un tratamiento simulado" },
+    { term: "ensayo controlado aleatorizado", plain: "un ensayo en el que el azar decide quién recibe cada tratamiento" },
   ],
   fr: [
     { term: "statistiquement significatif", plain: "peu probablement dû au seul hasard" },
@@ -138,6 +139,7 @@ export const jargon: Record<Locale, { term: string; plain: string }[]> = {
     { term: "hétérogénéité", plain: "des différences entre les résultats des essais" },
     { term: "efficacité", plain: "à quel point cela marche" },
     { term: "placebo", plain: "un traitement factice" },
+    { term: "essai contrôlé randomisé", plain: "un essai où le hasard décide qui reçoit quel traitement" },
   ],
   ar: [
     { term: "ذو دلالة إحصائية", plain: "من غير المرجح أن يكون بالصدفة وحدها" },
@@ -148,6 +150,7 @@ export const jargon: Record<Locale, { term: string; plain: string }[]> = {
     { term: "التحليل التلوي الشبكي", plain: "دراسة تجمع تجارب تقارن عدة علاجات" },
     { term: "عدم التجانس", plain: "الاختلافات بين نتائج التجارب" },
     { term: "العلاج الوهمي", plain: "علاج صوري" },
+    { term: "تجربة معشاة ذات شواهد", plain: "تجربة تحدد فيها الصدفة من يتلقى كل علاج" },
   ],
 };
 

@@ -17,7 +17,7 @@ export interface Readiness {
 
 export interface DraftFacts {
   laySummary: string;
-  keyMessages: string;
+  shortTake: string;
   outcomes: { name: string; current: boolean; result: AnalysisResult | null; certainty: ComparisonCertainty[] | null }[];
   /** Every treatment label of the data, and whether the analysts gave it the name readers see. */
   treatments: { label: string; named: boolean }[];
@@ -31,7 +31,7 @@ const alpha = 0.05;
 export function readinessOf(draft: DraftFacts): Readiness {
   const blocking: ReadinessItem[] = [];
   const warnings: ReadinessItem[] = [];
-  if (draft.keyMessages.trim() === "") blocking.push({ key: "readiness.noShortTake", values: {} });
+  if (draft.shortTake.trim() === "") blocking.push({ key: "readiness.noShortTake", values: {} });
   if (draft.laySummary.trim() === "") blocking.push({ key: "readiness.noSummary", values: {} });
   const unnamed = draft.treatments.filter((t) => !t.named).map((t) => t.label);
   if (unnamed.length > 0) blocking.push({ key: "readiness.unnamed", values: { count: unnamed.length, labels: unnamed.join(", ") } });

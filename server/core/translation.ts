@@ -42,7 +42,7 @@ export function sourceFields(snapshot: VersionSnapshot): SourceField[] {
     line("topic", snapshot.brief.topic),
     line("condition", snapshot.brief.condition),
     line("population", snapshot.brief.population),
-    markdown("keyMessages", snapshot.texts.keyMessagesHtml),
+    markdown("shortTake", snapshot.texts.shortTakeHtml),
     markdown("summary", snapshot.texts.laySummaryHtml),
     ...(snapshot.note ? [line("note", snapshot.note)] : []),
     ...snapshot.outcomes.flatMap((outcome, index) => {
@@ -134,7 +134,7 @@ export function translatedSnapshot(snapshot: VersionSnapshot, published: Publish
     ...snapshot,
     brief: { ...snapshot.brief, title: given("title") ?? snapshot.brief.title, condition: given("condition") ?? snapshot.brief.condition, population: given("population") ?? snapshot.brief.population },
     treatments,
-    texts: { keyMessagesHtml: html("keyMessages", snapshot.texts.keyMessagesHtml), laySummaryHtml: html("summary", snapshot.texts.laySummaryHtml) },
+    texts: { shortTakeHtml: html("shortTake", snapshot.texts.shortTakeHtml), laySummaryHtml: html("summary", snapshot.texts.laySummaryHtml) },
     note: snapshot.note ? (given("note") ?? snapshot.note) : null,
     outcomes: snapshot.outcomes.map((outcome, index) => ({
       ...outcome,

@@ -13,13 +13,13 @@ export interface BriefFields {
   topic: string;
   condition: string;
   population: string;
-  reviewGroup?: string | null;
+  authorTeam?: string | null;
 }
 
 /** What the editor writes: Markdown, rendered and sanitised wherever it is shown. */
 export interface EditorialFields {
   laySummary: string;
-  keyMessages: string;
+  shortTake: string;
 }
 
 export async function createBrief(db: Database, fields: BriefFields & { demo?: boolean }, actorId: string): Promise<BriefRow> {

@@ -150,10 +150,10 @@ export const briefs = pgTable("briefs", {
   condition: text("condition").notNull(),
   population: text("population").notNull(),
   /** The group that did the review, named as the author of its citations; the product's name when empty. */
-  reviewGroup: text("review_group"),
-  /** The editor's plain-language summary and key messages, in Markdown (rendered and sanitised on the server). */
+  authorTeam: text("author_team"),
+  /** The editor's plain-language summary and short take, in Markdown (rendered and sanitised on the server). */
   laySummary: text("lay_summary").notNull().default(""),
-  keyMessages: text("key_messages").notNull().default(""),
+  shortTake: text("short_take").notNull().default(""),
   status: briefStatus("status").notNull().default("draft"),
   /** Invented demonstration content: every page of it says so. */
   demo: boolean("demo").notNull().default(false),

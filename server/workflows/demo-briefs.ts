@@ -23,7 +23,7 @@ export interface DemoBrief {
   population: string;
   /** The editor's Markdown, as invented as the data. */
   laySummary: string;
-  keyMessages: string;
+  shortTake: string;
   treatmentNames: Record<string, string>;
   outcomes: DemoOutcome[];
 }
@@ -75,7 +75,7 @@ const smallBrief: DemoBrief = {
 People who work night shifts often sleep badly during the day. This fictional analysis brings together 15 invented trials of five ways to help — bright-light sessions, a planned-nap schedule, two sleep aids and light sessions combined with naps — and compares each with usual care and with each other, even where no trial compared them directly.
 
 The groups below say which options the evidence supports and how sure we can be. They are not a ranking: options in the same group may not differ from each other at all.`,
-  keyMessages: `- Light sessions combined with a nap schedule, and sleep aid K, probably help people sleep well: a large benefit compared with usual care (moderate certainty).
+  shortTake: `- Light sessions combined with a nap schedule, and sleep aid K, probably help people sleep well: a large benefit compared with usual care (moderate certainty).
 - The planned-nap schedule and sleep aid M **may** help a little, but the certainty is low.
 - Scores that place options "first" or "last" are not proof: read the groups and the certainty instead.`,
   treatmentNames: {
@@ -132,7 +132,7 @@ function largeBrief(): DemoBrief {
     laySummary: `*This brief uses invented data to show how Fairweigh presents a large network. No real study, person or product is described.*
 
 Twenty-one fictional compounds for an everyday tension headache are compared with an inactive tablet and with each other. With this many options, a list from "best" to "worst" would suggest differences that the evidence does not show. The groups below keep together the compounds that the evidence cannot tell apart.`,
-    keyMessages: `- Every compound in this fictional network gives some benefit compared with the inactive tablet.
+    shortTake: `- Every compound in this fictional network gives some benefit compared with the inactive tablet.
 - Most compounds cannot be told apart from each other: they fall in the same group.
 - A compound's rank score can be high by chance; the groups and their certainty say more.`,
     treatmentNames: Object.fromEntries(labels.map((l) => [l, l === "inactive" ? "Inactive tablet" : `Compound ${l.slice(-1).toUpperCase()} (fictional)`])),

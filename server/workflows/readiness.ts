@@ -17,5 +17,5 @@ export async function briefReadiness(db: Database, briefId: string): Promise<Rea
     outcomes.push({ name: outcome.name, current, result, certainty: result ? await outcomeCertainty(db, outcome, result) : null });
   }
   if (outcomes.length === 0) outcomes.push({ name: "—", current: false, result: null, certainty: null });
-  return readinessOf({ laySummary: brief.laySummary, keyMessages: brief.keyMessages, outcomes, treatments: brief.treatments });
+  return readinessOf({ laySummary: brief.laySummary, shortTake: brief.shortTake, outcomes, treatments: brief.treatments });
 }

@@ -108,7 +108,7 @@ async function publishDemoBrief(db: Database, demo: ReturnType<typeof demoBriefs
     }
   }
   await nameTreatments(db, brief.id, demo.treatmentNames, analystId);
-  const texts = await updateBrief(db, brief.id, brief.rowVersion, { laySummary: demo.laySummary, keyMessages: demo.keyMessages }, editorId);
+  const texts = await updateBrief(db, brief.id, brief.rowVersion, { laySummary: demo.laySummary, shortTake: demo.shortTake }, editorId);
   if (!texts.ok) throw new Error(`the demo brief "${demo.title}" could not take its texts`);
   const steps = [
     await reviewBrief(db, brief.id, { decision: "submitted" }, analystId),

@@ -46,9 +46,9 @@ export async function draftSnapshot(db: Database, briefId: string): Promise<Draf
   }
   const snapshot = draftSnapshotSchema.parse({
     schemaVersion: snapshotSchemaVersion,
-    brief: { slug: brief.slug, title: brief.title, topic: brief.topic, condition: brief.condition, population: brief.population, demo: brief.demo, reviewGroup: brief.reviewGroup },
+    brief: { slug: brief.slug, title: brief.title, topic: brief.topic, condition: brief.condition, population: brief.population, demo: brief.demo, authorTeam: brief.authorTeam },
     treatments: brief.treatments,
-    texts: { laySummaryHtml: renderMarkdown(brief.laySummary), keyMessagesHtml: renderMarkdown(brief.keyMessages) },
+    texts: { laySummaryHtml: renderMarkdown(brief.laySummary), shortTakeHtml: renderMarkdown(brief.shortTake) },
     outcomes,
   });
   return { ok: true, snapshot };

@@ -65,7 +65,7 @@ it("goes upload → bulk rating → approval → publication → correction with
   const editor = await signedIn(setup.browser, "editor@fairweigh.example");
   await openBrief(editor.page);
   const texts = editor.page.getByRole("form", { name: en.desk.texts });
-  await texts.getByLabel(en.desk.keyMessages).fill("Counselling probably helps people stop smoking (test data).");
+  await texts.getByLabel(en.desk.shortTake).fill("Counselling probably helps people stop smoking (test data).");
   await texts.getByLabel(en.desk.laySummary).fill("A test summary in plain words.");
   await texts.getByRole("button", { name: en.desk.saveTexts }).click();
   await texts.getByRole("status").waitFor();
@@ -92,7 +92,7 @@ it("goes upload → bulk rating → approval → publication → correction with
   expect((await fetch(`${setup.server.url}${versionPath}`)).status).toBe(200);
 
   // A correction: the editor changes the short take, the analyst submits, the editor approves and publishes with a note.
-  await texts.getByLabel(en.desk.keyMessages).fill("Counselling probably helps people stop smoking (test data, corrected).");
+  await texts.getByLabel(en.desk.shortTake).fill("Counselling probably helps people stop smoking (test data, corrected).");
   await texts.getByRole("button", { name: en.desk.saveTexts }).click();
   await texts.getByRole("status").waitFor();
   await analyst.page.reload();

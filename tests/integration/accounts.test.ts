@@ -269,7 +269,7 @@ describe("topic alerts for readers", () => {
 async function approveChange(analyst: ApiClient, editor: ApiClient, briefId: string) {
   const current = await editor.request("GET", `/api/briefs/${briefId}`);
   const rowVersion = (current.body.brief as { rowVersion: number }).rowVersion;
-  expect((await editor.request("PATCH", `/api/briefs/${briefId}`, { json: { rowVersion, keyMessages: `Changed at ${Date.now()}` } })).status).toBe(200);
+  expect((await editor.request("PATCH", `/api/briefs/${briefId}`, { json: { rowVersion, shortTake: `Changed at ${Date.now()}` } })).status).toBe(200);
   await approve(analyst, editor, briefId);
 }
 

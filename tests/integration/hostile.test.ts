@@ -201,7 +201,7 @@ describe("a treatment label with a slash", () => {
     expect((await clients.analyst!.request("PUT", `/api/briefs/${briefId}/treatments`, { json: { names } })).status).toBe(200);
     await rateEveryComparison(clients.analyst!, outcomeId);
     const { rowVersion } = (await clients.editor!.request("GET", `/api/briefs/${briefId}`)).body.brief as { rowVersion: number };
-    await clients.editor!.request("PATCH", `/api/briefs/${briefId}`, { json: { rowVersion, laySummary: "Test.", keyMessages: "Test." } });
+    await clients.editor!.request("PATCH", `/api/briefs/${briefId}`, { json: { rowVersion, laySummary: "Test.", shortTake: "Test." } });
     await approve(clients.analyst!, clients.editor!, briefId);
     expect((await clients.editor!.request("POST", `/api/briefs/${briefId}/versions`, { json: {} })).status).toBe(201);
     const page = await (await get(`/briefs/${String(created.body.slug)}/v/1`)).text();

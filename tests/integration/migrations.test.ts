@@ -71,6 +71,46 @@ describe("0008: thresholds of binary outcomes become differences per 1000 (docs/
   });
 });
 
+describe("0024: the author team and the short take under the product's own names (docs/decisions/0034-product-names.md)", () => {
+  it("keeps a brief's author and short take, and moves translated short takes to the new field name", async () => {
+    const named = `migration_names_${process.pid}`;
+    await admin.query(`create database ${named}`);
+    const url = new URL(testDatabaseUrl());
+    url.pathname = `/${named}`;
+    const machine = connectDatabase(url.toString());
+    const before = migrationsUpTo("0023_search-documents");
+    try {
+      await migrateDatabase(machine, before);
+      const { pool } = machine;
+      const [{ id: person }] = (await pool.query<{ id: string }>("insert into people (email, display_name, password_hash) values ('n@x.example', 'N', 'x') returning id")).rows as [{ id: string }];
+      const [{ id: brief }] = (
+        await pool.query<{ id: string }>(
+          "insert into briefs (slug, title, topic, condition, population, created_by, review_group, key_messages) values ('n', 'N', 't', 'c', 'p', $1, 'Northfield Evidence Unit (fictional)', '- Walking may help.') returning id",
+          [person],
+        )
+      ).rows as [{ id: string }];
+      const [{ id: version }] = (await pool.query<{ id: string }>("insert into brief_versions (brief_id, number, release_at, snapshot) values ($1, 1, now(), $2) returning id", [brief, { brief: { title: "N" }, treatments: [] }])).rows as [{ id: string }];
+      const field = { text: "Caminar puede ayudar.", sourceHash: "h", sourceText: "Walking may help." };
+      await pool.query("insert into version_translations (version_id, locale, state, fields, published_fields, published_at) values ($1, 'es', 'published', $2, $3, now())", [
+        version,
+        { keyMessages: field, title: { ...field, text: "Título" } },
+        { keyMessages: "Caminar puede ayudar.", title: "Título" },
+      ]);
+
+      await migrateDatabase(machine);
+      const row = (await pool.query<{ author_team: string; short_take: string }>("select author_team, short_take from briefs where id = $1", [brief])).rows[0]!;
+      expect(row).toEqual({ author_team: "Northfield Evidence Unit (fictional)", short_take: "- Walking may help." });
+      const translation = (await pool.query<{ fields: unknown; published_fields: unknown }>("select fields, published_fields from version_translations where version_id = $1", [version])).rows[0]!;
+      expect(translation.fields).toEqual({ shortTake: field, title: { ...field, text: "Título" } });
+      expect(translation.published_fields).toEqual({ shortTake: "Caminar puede ayudar.", title: "Título" });
+    } finally {
+      await machine.close();
+      await admin.query(`drop database ${named}`);
+      rmSync(before, { recursive: true, force: true });
+    }
+  });
+});
+
 describe("machines that start at once", () => {
   it("migrate a new database once between them: three at the same moment all start, and every migration is recorded once", async () => {
     const fresh = `migration_race_${process.pid}`;

@@ -233,10 +233,10 @@ describe("citations", () => {
     expect(bibKey(comparisonBib)).toBe(risId(comparisonRis));
   });
 
-  it("name the brief's review group as their author", async () => {
-    const { briefId, slug } = await analysedBrief(clients.analyst!, "Cited with its review group");
+  it("name the brief's author team as their author", async () => {
+    const { briefId, slug } = await analysedBrief(clients.analyst!, "Cited with its author team");
     const { rowVersion } = (await clients.analyst!.request("GET", `/api/briefs/${briefId}`)).body.brief as { rowVersion: number };
-    expect((await clients.analyst!.request("PATCH", `/api/briefs/${briefId}`, { json: { rowVersion, reviewGroup: "Northfield Evidence Unit (fictional)" } })).status).toBe(200);
+    expect((await clients.analyst!.request("PATCH", `/api/briefs/${briefId}`, { json: { rowVersion, authorTeam: "Northfield Evidence Unit (fictional)" } })).status).toBe(200);
     await approve(clients.analyst!, clients.editor!, briefId);
     expect((await clients.editor!.request("POST", `/api/briefs/${briefId}/versions`, { json: {} })).status).toBe(201);
     const ris = await (await get(`/briefs/${slug}/v/1/cite.ris`)).text();

@@ -83,15 +83,15 @@ describe("the editor's texts", () => {
     expect(denied.status).toBe(403);
     // The ready draft already has the editor's texts (row version 2); the editor writes them anew.
     const written = await clients.editor!.request("PATCH", `/api/briefs/${briefId}`, {
-      json: { rowVersion: 2, laySummary: "Counselling **probably** helps. <script>alert(1)</script>", keyMessages: "- [more](javascript:alert(1))" },
+      json: { rowVersion: 2, laySummary: "Counselling **probably** helps. <script>alert(1)</script>", shortTake: "- [more](javascript:alert(1))" },
     });
     expect(written.status).toBe(200);
     await approve(briefId);
     await clients.editor!.request("POST", `/api/briefs/${briefId}/versions`, { json: {} });
-    const snapshot = (await new ApiClient(app.url).request("GET", `/api/briefs/${slug}/versions/1`)).body as { texts: { laySummaryHtml: string; keyMessagesHtml: string } };
+    const snapshot = (await new ApiClient(app.url).request("GET", `/api/briefs/${slug}/versions/1`)).body as { texts: { laySummaryHtml: string; shortTakeHtml: string } };
     expect(snapshot.texts.laySummaryHtml).toContain("<strong>probably</strong>");
     expect(snapshot.texts.laySummaryHtml).not.toMatch(/<script/i);
-    expect(snapshot.texts.keyMessagesHtml).not.toMatch(/javascript:/i);
+    expect(snapshot.texts.shortTakeHtml).not.toMatch(/javascript:/i);
   });
 });
 

@@ -62,7 +62,7 @@ export async function analysedBrief(analyst: ApiClient, title: string, which?: (
   const editor = await editorAt(analyst.baseUrl);
   const current = await editor.request("GET", `/api/briefs/${brief.briefId}`);
   const rowVersion = (current.body.brief as { rowVersion: number }).rowVersion;
-  const texts = { laySummary: "Test summary: counselling may help people stop smoking.", keyMessages: "Test short take." };
+  const texts = { laySummary: "Test summary: counselling may help people stop smoking.", shortTake: "Test short take." };
   expect((await editor.request("PATCH", `/api/briefs/${brief.briefId}`, { json: { rowVersion, ...texts } })).status).toBe(200);
   return brief;
 }

@@ -5,7 +5,7 @@
 // `snapshotSchemaVersion` and adds a numbered upgrade in ./upgrade.ts.
 import { z } from "zod";
 
-export const snapshotSchemaVersion = 4;
+export const snapshotSchemaVersion = 5;
 
 const finite = z.number();
 const text = z.string();
@@ -124,10 +124,10 @@ const outcomeSnapshot = z.object({
 
 export const draftSnapshotSchema = z.object({
   schemaVersion: z.literal(snapshotSchemaVersion),
-  // reviewGroup: optional, so versions frozen before it read as before (the product's name as author).
-  brief: z.object({ slug: text, title: text, topic: text, condition: text, population: text, demo: z.boolean(), reviewGroup: text.nullable().optional() }),
+  // authorTeam: optional, so versions frozen before it read as before (the product's name as author).
+  brief: z.object({ slug: text, title: text, topic: text, condition: text, population: text, demo: z.boolean(), authorTeam: text.nullable().optional() }),
   treatments: z.array(z.object({ label: text, displayName: text })),
-  texts: z.object({ laySummaryHtml: text, keyMessagesHtml: text }),
+  texts: z.object({ laySummaryHtml: text, shortTakeHtml: text }),
   outcomes: z.array(outcomeSnapshot),
 });
 

@@ -79,8 +79,24 @@ function upgrade3to4(snapshot: Stored): Stored {
   return { ...snapshot, schemaVersion: 4, outcomes } as unknown as Stored;
 }
 
+/**
+ * 4 → 5: two fields took the product's own names (decision 0034): the brief's author, `reviewGroup`
+ * before, is `authorTeam`; the editor's short text, `keyMessagesHtml` before, is `shortTakeHtml`.
+ * The words themselves are as they were frozen.
+ */
+function upgrade4to5(snapshot: Stored): Stored {
+  const { reviewGroup, ...brief } = snapshot.brief as Record<string, unknown>;
+  const { keyMessagesHtml, ...texts } = snapshot.texts as Record<string, unknown>;
+  return {
+    ...snapshot,
+    schemaVersion: 5,
+    brief: reviewGroup === undefined ? brief : { ...brief, authorTeam: reviewGroup },
+    texts: { ...texts, shortTakeHtml: keyMessagesHtml },
+  };
+}
+
 /** upgrades[n] brings shape n + 1 to shape n + 2. */
-export const upgrades: ((snapshot: Stored) => Stored)[] = [upgrade1to2, upgrade2to3, upgrade3to4];
+export const upgrades: ((snapshot: Stored) => Stored)[] = [upgrade1to2, upgrade2to3, upgrade3to4, upgrade4to5];
 
 export class SnapshotError extends Error {
   constructor(message: string) {

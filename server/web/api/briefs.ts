@@ -10,7 +10,7 @@ import type { Database } from "#db/client";
 import { rejectMalformedId, sendError, validateBody } from "../http/errors";
 
 /** Who may change what in a brief: analysts its description, editors also its texts. */
-const editorialFields = ["laySummary", "keyMessages"] as const;
+const editorialFields = ["laySummary", "shortTake"] as const;
 
 export function briefRoutes(db: Database): Router {
   const router = Router();
@@ -34,7 +34,7 @@ export function briefRoutes(db: Database): Router {
   router.patch("/briefs/:id", guard("PATCH /api/briefs/:id"), validateBody(patchBriefBody), async (req, res) => {
     const { rowVersion, ...changes } = req.body as z.infer<typeof patchBriefBody>;
     if (editorialFields.some((field) => field in changes) && !req.user!.roles.includes("editor")) {
-      return sendError(res, 403, { key: "errors.roleRequired", message: "The lay summary and key messages need the role editor.", details: { required: ["editor"] } });
+      return sendError(res, 403, { key: "errors.roleRequired", message: "The lay summary and short take need the role editor.", details: { required: ["editor"] } });
     }
     const outcome = await updateBrief(db, String(req.params.id), rowVersion, changes, req.user!.id);
     if (outcome.ok) return res.json({ brief: outcome.brief });

@@ -103,9 +103,9 @@ const briefFields = {
   condition: z.string().trim().min(1).max(200),
   population: z.string().trim().min(1).max(500),
 };
-/** The review group named as the author of the brief's citations (an organisation). */
-const reviewGroup = z.string().trim().max(200).nullish();
-export const createBriefBody = z.object({ ...briefFields, reviewGroup }).strict();
+/** The author team named as the author of the brief's citations (an organisation). */
+const authorTeam = z.string().trim().max(200).nullish();
+export const createBriefBody = z.object({ ...briefFields, authorTeam }).strict();
 export const patchBriefBody = z
   .object({
     rowVersion,
@@ -113,9 +113,9 @@ export const patchBriefBody = z
     topic: briefFields.topic.optional(),
     condition: briefFields.condition.optional(),
     population: briefFields.population.optional(),
-    reviewGroup,
+    authorTeam,
     laySummary: z.string().max(20_000).optional(),
-    keyMessages: z.string().max(20_000).optional(),
+    shortTake: z.string().max(20_000).optional(),
   })
   .strict();
 export const treatmentNamesBody = z.object({ names: z.record(z.string().min(1).max(200), z.string().trim().min(1).max(200)) }).strict();

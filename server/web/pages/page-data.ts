@@ -49,7 +49,7 @@ function citation(pageContext: PageContextServer, snapshot: VersionSnapshot, pat
   const accessed = new Date(new Date().toISOString().slice(0, 10));
   const permalink = `${pageContext.siteUrl ?? ""}${localePath(pageContext.locale, path)}`;
   return {
-    reference: formattedReference({ title: snapshot.brief.title, author: snapshot.brief.reviewGroup, version: snapshot.version, releaseAt: snapshot.releaseAt, url: permalink, accessed, comparison, language: pageContext.locale }),
+    reference: formattedReference({ title: snapshot.brief.title, author: snapshot.brief.authorTeam, version: snapshot.version, releaseAt: snapshot.releaseAt, url: permalink, accessed, comparison, language: pageContext.locale }),
     accessed: accessed.toISOString(),
     permalink,
   };

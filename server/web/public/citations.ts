@@ -17,7 +17,7 @@ export interface CitationInput {
   accessed: Date;
   /** For one comparison: "A vs B". */
   comparison?: string;
-  /** The review group, the citation's author; the product's name when none is set. */
+  /** The author team, the citation's author; the product's name when none is set. */
   author?: string | null;
   /** The language the version was read in: the permalink names it, the item says it; the version cited is the same. */
   language?: Locale;

@@ -74,7 +74,7 @@ export function publicFileRoutes(db: Database, publicUrl: string | undefined, se
     const { snapshot, embargoed } = page;
     const locale = localeOf(res);
     const url = `${siteUrl(req, publicUrl)}${localePath(locale, versionUrl({ slug: snapshot.brief.slug, version: snapshot.version }))}`;
-    sendCitation(res, format, embargoed, `${snapshot.brief.slug}-v${snapshot.version}`, { title: snapshot.brief.title, author: snapshot.brief.reviewGroup, version: snapshot.version, releaseAt: snapshot.releaseAt, url, language: locale }, { slug: snapshot.brief.slug, version: snapshot.version });
+    sendCitation(res, format, embargoed, `${snapshot.brief.slug}-v${snapshot.version}`, { title: snapshot.brief.title, author: snapshot.brief.authorTeam, version: snapshot.version, releaseAt: snapshot.releaseAt, url, language: locale }, { slug: snapshot.brief.slug, version: snapshot.version });
   });
 
   router.get("/briefs/:slug/v/:number/compare/:a/:b/cite.:format", async (req, res) => {
@@ -86,7 +86,7 @@ export function publicFileRoutes(db: Database, publicUrl: string | undefined, se
     const url = `${siteUrl(req, publicUrl)}${localePath(locale, comparisonUrl({ slug: view.slug, version: view.version, treatment: view.treatment.id, comparator: view.comparator.id }))}`;
     sendCitation(res, format, page.embargoed, `${view.slug}-v${view.version}-${view.treatment.id}-vs-${view.comparator.id}`, {
       title: view.title,
-      author: page.snapshot.brief.reviewGroup,
+      author: page.snapshot.brief.authorTeam,
       version: view.version,
       releaseAt: view.releaseAt,
       url,

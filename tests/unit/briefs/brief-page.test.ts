@@ -23,7 +23,7 @@ const snapshot = versionSnapshotSchema.parse({
   schemaVersion: snapshotSchemaVersion,
   brief: { slug: "invented", title: "Invented brief", topic: "Testing", condition: "A condition", population: "Adults", demo: true },
   treatments,
-  texts: { laySummaryHtml: "", keyMessagesHtml: "" },
+  texts: { laySummaryHtml: "", shortTakeHtml: "" },
   outcomes: [
     {
       name: "Response",

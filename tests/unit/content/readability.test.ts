@@ -55,6 +55,13 @@ describe("advice, never a block", () => {
     expect(readability("Light sessions helped. Short one.", "en").score!).toBeGreaterThan(report.score!);
   });
 
+  it("glosses a randomised trial as chance deciding who gets which treatment, in each language", () => {
+    expect(readability("A randomised controlled trial.", "en").jargon).toEqual([{ term: "randomised controlled trial", plain: "a trial in which chance decides who gets which treatment" }]);
+    expect(readability("Un ensayo controlado aleatorizado.", "es").jargon).toEqual([{ term: "ensayo controlado aleatorizado", plain: "un ensayo en el que el azar decide quién recibe cada tratamiento" }]);
+    expect(readability("Un essai contrôlé randomisé.", "fr").jargon).toEqual([{ term: "essai contrôlé randomisé", plain: "un essai où le hasard décide qui reçoit quel traitement" }]);
+    expect(readability("تجربة معشاة ذات شواهد.", "ar").jargon).toEqual([{ term: "تجربة معشاة ذات شواهد", plain: "تجربة تحدد فيها الصدفة من يتلقى كل علاج" }]);
+  });
+
   it("reads Markdown as text: list items are sentences, links count by their words", () => {
     expect(countsOf("- First point\n- Second [point](https://example.org)\n", "en")).toMatchObject({ sentences: 2, words: 4 });
   });

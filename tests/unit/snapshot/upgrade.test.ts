@@ -17,8 +17,8 @@ describe("a snapshot of shape 1 (frozen before schemaVersion)", () => {
   const snapshot = readSnapshot(stored);
 
   it("is brought to the current shape and passes the declared schema", () => {
-    expect(snapshotSchemaVersion).toBe(4);
-    expect(snapshot.schemaVersion).toBe(4);
+    expect(snapshotSchemaVersion).toBe(5);
+    expect(snapshot.schemaVersion).toBe(5);
     expect(snapshot.outcomes[0]!.pairs).toHaveLength(3); // three treatments: three pairs
   });
 
@@ -63,7 +63,7 @@ describe("a snapshot of shape 1 from before conclusions were frozen", () => {
 
 describe("a snapshot that cannot be read", () => {
   it("of an unknown shape is refused with the shape named", () => {
-    expect(() => readSnapshot({ ...fixture("shape-1.json"), schemaVersion: 99 })).toThrow(new SnapshotError("a snapshot of shape 99 cannot be read (known: 1 to 4)"));
+    expect(() => readSnapshot({ ...fixture("shape-1.json"), schemaVersion: 99 })).toThrow(new SnapshotError("a snapshot of shape 99 cannot be read (known: 1 to 5)"));
   });
 
   it("that breaks the schema is refused with the path of what is wrong", () => {
@@ -93,5 +93,17 @@ describe("shape 3 → 4: study importances and risk of bias (METHODS.md §13)", 
   it("reads them as not known in versions frozen before they were computed, and keeps what is there", () => {
     const upgraded = upgrades[2]!({ schemaVersion: 3, outcomes: [{ pairs: [{ treatment: "a", comparator: "b", footnotes: [] }] }] });
     expect(upgraded).toEqual({ schemaVersion: 4, outcomes: [{ riskOfBias: null, pairs: [{ treatment: "a", comparator: "b", importance: null, riskOfBias: null, footnotes: [] }] }] });
+  });
+});
+
+describe("shape 4 → 5: the author and the short take under the product's own names", () => {
+  it("moves the frozen words to the new fields, unchanged", () => {
+    const upgraded = upgrades[3]!({ schemaVersion: 4, brief: { slug: "s", reviewGroup: "Northfield Evidence Unit" }, texts: { laySummaryHtml: "<p>Summary.</p>", keyMessagesHtml: "<p>Short.</p>" }, outcomes: [] });
+    expect(upgraded).toEqual({ schemaVersion: 5, brief: { slug: "s", authorTeam: "Northfield Evidence Unit" }, texts: { laySummaryHtml: "<p>Summary.</p>", shortTakeHtml: "<p>Short.</p>" }, outcomes: [] });
+  });
+
+  it("leaves a version frozen before it had an author without one", () => {
+    const upgraded = upgrades[3]!({ schemaVersion: 4, brief: { slug: "s" }, texts: { laySummaryHtml: "", keyMessagesHtml: "" }, outcomes: [] });
+    expect(upgraded.brief).toEqual({ slug: "s" });
   });
 });
