@@ -56,12 +56,12 @@ export interface OutcomeFacts {
 
 /**
  * The size of an effect for its statement. With thresholds, the point estimate against them, both on
- * the decision scale (§9, §10). Without any, our own rule (docs/decisions/0008): "trivial" when the
- * 95% CI includes the null, else "moderate", whose wording ("reduces", "probably reduces", "may
- * reduce") carries no size qualifier.
+ * the decision scale (§9, §10). Without any (METHODS.md §10), "unclear" when the 95% CI includes the
+ * null, else the direction alone: "moderate", whose wording ("reduces", "probably reduces", "may
+ * reduce") carries no size word.
  */
 export function magnitudeFor(network: { estimate: number; lower: number; upper: number }, thresholds: Thresholds | null): Magnitude {
-  if (!thresholds || !hasThresholds(thresholds)) return network.lower <= 0 && network.upper >= 0 ? "trivial" : "moderate";
+  if (!thresholds || !hasThresholds(thresholds)) return network.lower <= 0 && network.upper >= 0 ? "unclear" : "moderate";
   const given = (value: number | null) => value ?? Number.POSITIVE_INFINITY;
   return magnitudeOf(network.estimate, { small: given(thresholds.small), moderate: given(thresholds.moderate), large: given(thresholds.large) });
 }
@@ -73,11 +73,16 @@ function inSentence(name: string): string {
 
 const sizes = ["small", "moderate", "large"] as const;
 
-function groupLabel(group: TreatmentGroup, framework: Framework, extremes: { best: number; worst: number }, reference: { label: string; name: string }): Message {
+/**
+ * A group's label. `hedged`: some member's comparison with the reference is of moderate certainty, so
+ * a placement away from the reference reads "probably" (METHODS.md §10); "not shown to differ" needs
+ * no hedge, as it claims no effect.
+ */
+export function groupLabel(group: TreatmentGroup, framework: Framework, extremes: { best: number; worst: number }, reference: { label: string; name: string }, hedged = false): Message {
   const values = { reference: reference.name };
   if (group.firmness === "very-uncertain") return { key: "groups.veryUncertain", values };
   if (group.firmness === "not-assessed") return { key: "groups.notAssessed", values };
-  const firmness = group.firmness;
+  const firmness = group.firmness === "firm" && hedged && group.level !== 0 && framework === "minimal" ? "probably" : group.firmness;
   if (group.treatments.length === 1 && group.treatments[0] === reference.label) return { key: "groups.referenceOnly", values };
   if (framework === "partial") {
     if (group.level === 0) return { key: `groups.partial.trivial.${firmness}`, values };
@@ -127,7 +132,10 @@ export function concludeOutcome(result: AnalysisResult, certainty: ComparisonCer
 
   return {
     framework,
-    groups: groups.map((group) => ({ ...group, label: groupLabel(group, framework, extremes, { label: result.reference, name: name(result.reference) }) })),
+    groups: groups.map((group) => {
+      const hedged = group.treatments.some((t) => t !== result.reference && rated.get(pairKey(t, result.reference)) === "moderate");
+      return { ...group, label: groupLabel(group, framework, extremes, { label: result.reference, name: name(result.reference) }, hedged) };
+    }),
     readings,
     rankScores: rankExplainer(result),
   };

@@ -3,7 +3,12 @@
 // under "statement", so every language follows the same rule; this file only chooses the key.
 import type { Rating } from "./certainty";
 
-export type Magnitude = "large" | "moderate" | "small" | "trivial";
+/**
+ * "trivial" needs thresholds: the estimate lies below the smallest one. "unclear" is an outcome without
+ * thresholds whose 95% CI includes the null (METHODS.md §10): no trivial band, so the evidence does not
+ * show a clear difference — never "little to no difference", which claims a trivial effect.
+ */
+export type Magnitude = "large" | "moderate" | "small" | "trivial" | "unclear";
 
 /** The size of the point estimate (absolute, analysis scale) against the outcome's thresholds. */
 export function magnitudeOf(estimate: number, thresholds: { small: number; moderate: number; large: number }): Magnitude {
@@ -33,7 +38,7 @@ export function statementFor(input: {
 }): Statement {
   const values = { treatment: input.treatment, comparator: input.comparator, outcome: input.outcome };
   if (input.certainty === "very_low") return { key: "statement.very_low", values };
-  if (input.magnitude === "trivial") return { key: `statement.${input.certainty}.trivial`, values };
+  if (input.magnitude === "trivial" || input.magnitude === "unclear") return { key: `statement.${input.certainty}.${input.magnitude}`, values };
   const change = input.estimate < 0 ? "reduce" : "increase";
   return { key: `statement.${input.certainty}.${input.magnitude}.${change}`, values };
 }

@@ -5,7 +5,7 @@
 // `snapshotSchemaVersion` and adds a numbered upgrade in ./upgrade.ts.
 import { z } from "zod";
 
-export const snapshotSchemaVersion = 5;
+export const snapshotSchemaVersion = 6;
 
 const finite = z.number();
 const text = z.string();
@@ -44,7 +44,7 @@ const reading = z.object({
   treatment: text,
   comparator: text,
   certainty: rating.nullable(),
-  magnitude: z.enum(["large", "moderate", "small", "trivial"]),
+  magnitude: z.enum(["large", "moderate", "small", "trivial", "unclear"]),
   statement: messageSchema.nullable(),
   absolute: z
     .object({ baselinePer1000: finite, treatmentPer1000: interval, differencePer1000: interval, statement: messageSchema })

@@ -95,8 +95,39 @@ function upgrade4to5(snapshot: Stored): Stored {
   };
 }
 
+/**
+ * 5 → 6: without thresholds (the minimally contextualised framework), a comparison whose 95% CI
+ * includes the null was frozen as "trivial" and read "little to no difference", which claims a trivial
+ * effect that no threshold defines (METHODS.md §10). The fact frozen is the same; it now reads "does
+ * not show a clear difference". A group placed away from the reference with a member of moderate
+ * certainty against it reads "probably", as new versions do.
+ */
+function upgrade5to6(snapshot: Stored): Stored {
+  type Reading = { treatment: string; comparator: string; certainty: string | null; magnitude: string; statement: { key: string } | null };
+  type Group = { level: number; firmness: string; treatments: string[]; label: { key: string } };
+  type Outcome = { framework: string; readings: Reading[]; groups: Group[]; methods: { reference: string } };
+  const outcomes = (snapshot.outcomes as unknown as Outcome[]).map((outcome) => {
+    if (outcome.framework !== "minimal") return outcome;
+    const moderate = new Set(outcome.readings.filter((r) => r.comparator === outcome.methods.reference && r.certainty === "moderate").map((r) => r.treatment));
+    return {
+      ...outcome,
+      readings: outcome.readings.map((reading) =>
+        reading.magnitude !== "trivial"
+          ? reading
+          : { ...reading, magnitude: "unclear", statement: reading.statement && { ...reading.statement, key: reading.statement.key.replace(/\.trivial$/, ".unclear") } },
+      ),
+      groups: outcome.groups.map((group) =>
+        group.firmness === "firm" && group.level !== 0 && group.treatments.some((t) => moderate.has(t))
+          ? { ...group, label: { ...group.label, key: group.label.key.replace(/\.firm$/, ".probably") } }
+          : group,
+      ),
+    };
+  });
+  return { ...snapshot, schemaVersion: 6, outcomes } as unknown as Stored;
+}
+
 /** upgrades[n] brings shape n + 1 to shape n + 2. */
-export const upgrades: ((snapshot: Stored) => Stored)[] = [upgrade1to2, upgrade2to3, upgrade3to4, upgrade4to5];
+export const upgrades: ((snapshot: Stored) => Stored)[] = [upgrade1to2, upgrade2to3, upgrade3to4, upgrade4to5, upgrade5to6];
 
 export class SnapshotError extends Error {
   constructor(message: string) {

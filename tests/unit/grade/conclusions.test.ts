@@ -50,6 +50,24 @@ describe("conclusions of an outcome", () => {
     expect(readings.every((r) => r.absolute === null && r.statement === null && r.certainty === null)).toBe(true);
   });
 
+  it("without thresholds, says an interval that includes the null does not show a clear difference, never “little to no difference” (METHODS.md §10)", () => {
+    const { readings } = concludeOutcome(result, rated("moderate"), { name: "Response to treatment", baselineRisk: 0.2, thresholds: none, names });
+    const beta = readings.find((r) => r.treatment === "beta" && r.comparator === "alpha")!;
+    const network = comparisonOf(result, "beta", "alpha")!.network;
+    expect(network.lower).toBeLessThan(0);
+    expect(network.upper).toBeGreaterThan(0);
+    expect(t(beta.statement!.key, beta.statement!.values)).toBe("Beta probably does not show a clear difference in response to treatment compared with Alpha.");
+    expect(createI18n("es").t(beta.statement!.key, beta.statement!.values)).toBe("Beta probablemente no muestra una diferencia clara en response to treatment en comparación con Alpha.");
+  });
+
+  it("hedges a group of moderate certainty with “probably”, and says “not shown to differ” of the group with the reference (METHODS.md §10)", () => {
+    const labels = (rating: Rating) => concludeOutcome(result, rated(rating), { name: "Response", baselineRisk: 0.2, thresholds: none, names }).groups.map((g) => t(g.label.key, g.label.values));
+    expect(labels("high")[0]).toBe("Among the most effective");
+    expect(labels("moderate")[0]).toBe("Probably among the most effective");
+    expect(labels("low")[0]).toBe("May be among the most effective");
+    expect(t("groups.minimal.none.firm", { reference: "Placebo" })).toBe("Not shown to differ from Placebo");
+  });
+
   it("labels every group with words the locale has", () => {
     for (const thresholds of [none, { small: 0.2, moderate: 0.5, large: 1 }]) {
       for (const rating of ["high", "low", "very_low"] as const) {
@@ -70,8 +88,8 @@ describe("the size of an effect for its statement", () => {
     expect(magnitudeFor({ estimate: 0.7, lower: 0.65, upper: 0.75 }, { small: 0.1, moderate: null, large: null })).toBe("small");
   });
 
-  it("without thresholds, is trivial when the CI includes the null and unqualified otherwise (our rule, decision 0008)", () => {
-    expect(magnitudeFor({ estimate: 0.2, lower: -0.1, upper: 0.5 }, none)).toBe("trivial");
+  it("without thresholds, is unclear when the CI includes the null and gives the direction alone otherwise (METHODS.md §10)", () => {
+    expect(magnitudeFor({ estimate: 0.2, lower: -0.1, upper: 0.5 }, none)).toBe("unclear");
     expect(magnitudeFor({ estimate: 0.2, lower: 0.1, upper: 0.3 }, none)).toBe("moderate");
   });
 });

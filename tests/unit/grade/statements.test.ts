@@ -1,7 +1,8 @@
 // The full grid of plain-language statements: 4 certainty levels × 4 magnitudes × benefit or harm,
 // against the wording of Santesso et al., GRADE guidelines 26, J Clin Epidemiol 2020;119:126–135
 // (the phrases below are recalled from that paper's table of suggested statements; "slightly" stands
-// before the verb, our wording, so that a long outcome phrase still reads naturally).
+// before the verb, our wording, so that a long outcome phrase still reads naturally). "unclear" is
+// METHODS.md §10 without thresholds: the 95% CI includes the null, and no trivial band is defined.
 import { describe, expect, it } from "vitest";
 import { createI18n, locales, type Locale } from "#components/i18n";
 import { messageText } from "#components/Message";
@@ -14,22 +15,25 @@ const wording: Record<Exclude<Rating, "very_low">, Record<Magnitude, { reduce: s
     moderate: { reduce: "reduces pain", increase: "increases pain" },
     small: { reduce: "slightly reduces pain", increase: "slightly increases pain" },
     trivial: { reduce: "results in little to no difference in pain", increase: "results in little to no difference in pain" },
+    unclear: { reduce: "does not show a clear difference in pain", increase: "does not show a clear difference in pain" },
   },
   moderate: {
     large: { reduce: "likely results in a large reduction in pain", increase: "likely results in a large increase in pain" },
     moderate: { reduce: "probably reduces pain", increase: "probably increases pain" },
     small: { reduce: "probably slightly reduces pain", increase: "probably slightly increases pain" },
     trivial: { reduce: "probably results in little to no difference in pain", increase: "probably results in little to no difference in pain" },
+    unclear: { reduce: "probably does not show a clear difference in pain", increase: "probably does not show a clear difference in pain" },
   },
   low: {
     large: { reduce: "may result in a large reduction in pain", increase: "may result in a large increase in pain" },
     moderate: { reduce: "may reduce pain", increase: "may increase pain" },
     small: { reduce: "may slightly reduce pain", increase: "may slightly increase pain" },
     trivial: { reduce: "may result in little to no difference in pain", increase: "may result in little to no difference in pain" },
+    unclear: { reduce: "may not show a clear difference in pain", increase: "may not show a clear difference in pain" },
   },
 };
 
-const magnitudes: Magnitude[] = ["large", "moderate", "small", "trivial"];
+const magnitudes: Magnitude[] = ["large", "moderate", "small", "trivial", "unclear"];
 type Grid = Record<Exclude<Rating, "very_low">, Record<Magnitude, { reduce: string; increase: string }>>;
 
 // The same grid in Spanish, French and Arabic: our own translations of the published English
@@ -44,18 +48,21 @@ const grids: Record<Exclude<Locale, "en">, { grid: Grid; sentence: (phrase: stri
         moderate: { reduce: "T reduce O", increase: "T aumenta O" },
         small: { reduce: "T reduce ligeramente O", increase: "T aumenta ligeramente O" },
         trivial: same("T produce poca o ninguna diferencia en O"),
+        unclear: same("T no muestra una diferencia clara en O"),
       },
       moderate: {
         large: { reduce: "T probablemente produce una gran reducción de O", increase: "T probablemente produce un gran aumento de O" },
         moderate: { reduce: "T probablemente reduce O", increase: "T probablemente aumenta O" },
         small: { reduce: "T probablemente reduce ligeramente O", increase: "T probablemente aumenta ligeramente O" },
         trivial: same("T probablemente produce poca o ninguna diferencia en O"),
+        unclear: same("T probablemente no muestra una diferencia clara en O"),
       },
       low: {
         large: { reduce: "T podría producir una gran reducción de O", increase: "T podría producir un gran aumento de O" },
         moderate: { reduce: "T podría reducir O", increase: "T podría aumentar O" },
         small: { reduce: "T podría reducir ligeramente O", increase: "T podría aumentar ligeramente O" },
         trivial: same("T podría producir poca o ninguna diferencia en O"),
+        unclear: same("T podría no mostrar una diferencia clara en O"),
       },
     },
     sentence: (phrase) => `${phrase} en comparación con C.`,
@@ -69,18 +76,21 @@ const grids: Record<Exclude<Locale, "en">, { grid: Grid; sentence: (phrase: stri
         moderate: { reduce: "T diminue O", increase: "T augmente O" },
         small: { reduce: "T diminue légèrement O", increase: "T augmente légèrement O" },
         trivial: same("T entraîne peu ou pas de différence sur O"),
+        unclear: same("T ne montre pas de différence nette sur O"),
       },
       moderate: {
         large: { reduce: "T entraîne probablement une forte diminution de O", increase: "T entraîne probablement une forte augmentation de O" },
         moderate: { reduce: "T diminue probablement O", increase: "T augmente probablement O" },
         small: { reduce: "T diminue probablement légèrement O", increase: "T augmente probablement légèrement O" },
         trivial: same("T n’entraîne probablement que peu ou pas de différence sur O"),
+        unclear: same("T ne montre probablement pas de différence nette sur O"),
       },
       low: {
         large: { reduce: "T pourrait entraîner une forte diminution de O", increase: "T pourrait entraîner une forte augmentation de O" },
         moderate: { reduce: "T pourrait diminuer O", increase: "T pourrait augmenter O" },
         small: { reduce: "T pourrait diminuer légèrement O", increase: "T pourrait augmenter légèrement O" },
         trivial: same("T pourrait n’entraîner que peu ou pas de différence sur O"),
+        unclear: same("T pourrait ne pas montrer de différence nette sur O"),
       },
     },
     sentence: (phrase) => `${phrase} par rapport à C.`,
@@ -94,18 +104,21 @@ const grids: Record<Exclude<Locale, "en">, { grid: Grid; sentence: (phrase: stri
         moderate: { reduce: "يخفّض T O", increase: "يزيد T O" },
         small: { reduce: "يخفّض T O قليلًا", increase: "يزيد T O قليلًا" },
         trivial: same("يؤدي T إلى فرق ضئيل أو لا فرق في O"),
+        unclear: same("لا يُظهر T فرقًا واضحًا في O"),
       },
       moderate: {
         large: { reduce: "يُرجَّح أن يؤدي T إلى انخفاض كبير في O", increase: "يُرجَّح أن يؤدي T إلى زيادة كبيرة في O" },
         moderate: { reduce: "يُحتمل أن يخفّض T O", increase: "يُحتمل أن يزيد T O" },
         small: { reduce: "يُحتمل أن يخفّض T O قليلًا", increase: "يُحتمل أن يزيد T O قليلًا" },
         trivial: same("يُحتمل أن يؤدي T إلى فرق ضئيل أو لا فرق في O"),
+        unclear: same("يُحتمل ألّا يُظهر T فرقًا واضحًا في O"),
       },
       low: {
         large: { reduce: "قد يؤدي T إلى انخفاض كبير في O", increase: "قد يؤدي T إلى زيادة كبيرة في O" },
         moderate: { reduce: "قد يخفّض T O", increase: "قد يزيد T O" },
         small: { reduce: "قد يخفّض T O قليلًا", increase: "قد يزيد T O قليلًا" },
         trivial: same("قد يؤدي T إلى فرق ضئيل أو لا فرق في O"),
+        unclear: same("قد لا يُظهر T فرقًا واضحًا في O"),
       },
     },
     sentence: (phrase) => `${phrase} مقارنةً بـC.`,

@@ -17,8 +17,8 @@ describe("a snapshot of shape 1 (frozen before schemaVersion)", () => {
   const snapshot = readSnapshot(stored);
 
   it("is brought to the current shape and passes the declared schema", () => {
-    expect(snapshotSchemaVersion).toBe(5);
-    expect(snapshot.schemaVersion).toBe(5);
+    expect(snapshotSchemaVersion).toBe(6);
+    expect(snapshot.schemaVersion).toBe(6);
     expect(snapshot.outcomes[0]!.pairs).toHaveLength(3); // three treatments: three pairs
   });
 
@@ -36,10 +36,21 @@ describe("a snapshot of shape 1 (frozen before schemaVersion)", () => {
     expect(comparison.footnotes).toContainEqual({ domainKey: "certainty.domain.riskOfBias", levels: 1, reason: "Allocation was not concealed in s1.", because: null });
   });
 
-  it("keeps the conclusions it froze", () => {
-    const outcome = (stored.outcomes as { groups: unknown[]; readings: unknown[] }[])[0]!;
-    expect(snapshot.outcomes[0]!.groups).toEqual(outcome.groups);
-    expect(snapshot.outcomes[0]!.readings).toEqual(outcome.readings);
+  it("keeps the conclusions it froze, in today's words (shape 6: no thresholds, so no “little to no difference”; moderate certainty hedged)", () => {
+    const outcome = (stored.outcomes as { groups: { label: { key: string } }[]; readings: { magnitude: string; statement: { key: string } }[] }[])[0]!;
+    // Alpha and beta were both rated moderate against placebo: their group reads "probably among the most effective".
+    expect(snapshot.outcomes[0]!.groups.map((g) => g.label.key)).toEqual(["groups.minimal.best.probably", "groups.referenceOnly"]);
+    expect(snapshot.outcomes[0]!.groups.map(({ label: _, ...g }) => g)).toEqual(outcome.groups.map(({ label: _, ...g }) => g));
+    // Alpha against beta: the 95% CI includes the null, frozen as "trivial", now "does not show a clear difference".
+    expect(snapshot.outcomes[0]!.readings.map((r) => `${r.treatment} ${r.comparator} ${r.magnitude} ${r.statement!.key}`)).toEqual([
+      "alpha beta unclear statement.moderate.unclear",
+      "alpha placebo moderate statement.moderate.moderate.increase",
+      "beta alpha unclear statement.moderate.unclear",
+      "beta placebo moderate statement.moderate.moderate.increase",
+      "placebo alpha moderate statement.moderate.moderate.reduce",
+      "placebo beta moderate statement.moderate.moderate.reduce",
+    ]);
+    expect(outcome.readings.map((r) => r.magnitude)).toContain("trivial");
   });
 
   it("reads the same after a round trip: an upgraded snapshot is a current one", () => {
@@ -63,7 +74,7 @@ describe("a snapshot of shape 1 from before conclusions were frozen", () => {
 
 describe("a snapshot that cannot be read", () => {
   it("of an unknown shape is refused with the shape named", () => {
-    expect(() => readSnapshot({ ...fixture("shape-1.json"), schemaVersion: 99 })).toThrow(new SnapshotError("a snapshot of shape 99 cannot be read (known: 1 to 5)"));
+    expect(() => readSnapshot({ ...fixture("shape-1.json"), schemaVersion: 99 })).toThrow(new SnapshotError("a snapshot of shape 99 cannot be read (known: 1 to 6)"));
   });
 
   it("that breaks the schema is refused with the path of what is wrong", () => {
