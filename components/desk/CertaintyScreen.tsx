@@ -14,6 +14,10 @@ const domains = ["riskOfBias", "inconsistency", "indirectness", "publicationBias
 /** The bulk form's value for "each pair's own risk-of-bias suggestion". */
 const suggested = "suggested";
 
+/** "Suggested: no change." or "Suggested: 1 level down.": the plural form counts levels, never stands for a yes/no. */
+const suggestedLevels = (t: (key: string, values?: Record<string, unknown>) => string, levels: number) =>
+  levels === 0 ? t("desk.suggested.none") : t("desk.suggested.down", { count: levels });
+
 export function CertaintyScreen({ canJudge }: { canJudge: boolean }) {
   const { t } = useTranslation();
   const { briefId = "", outcomeId = "" } = useParams();
@@ -193,7 +197,7 @@ function RiskOfBiasAdvice({ shares, suggestion }: { shares: RiskOfBiasShares | n
   return (
     <p className="mt-1 text-muted" data-testid="risk-of-bias-advice">
       {t("desk.riskOfBias.shares", { low: percent(shares.low), someConcerns: percent(shares.someConcerns), high: percent(shares.high), notAssessed: percent(shares.notAssessed) })}{" "}
-      {suggestion ? `${t("desk.suggested", { levels: suggestion.levels })} ${t(suggestion.because.key, suggestion.because.values)}` : t("desk.riskOfBias.noSuggestion")}
+      {suggestion ? `${suggestedLevels(t, suggestion.levels)} ${t(suggestion.because.key, suggestion.because.values)}` : t("desk.riskOfBias.noSuggestion")}
     </p>
   );
 }
@@ -291,7 +295,7 @@ function JudgementForm({ outcomeId, comparison, shares }: { outcomeId: string; c
         <div key={name}>
           <DowngradeField name={name} label={t(`desk.domain.${name}`)} value={decision(name) as Downgrade} />
           <p className="mt-1 text-muted">
-            {t("desk.suggested", { levels: comparison.suggestions[name].levels })} {t(comparison.suggestions[name].because.key, comparison.suggestions[name].because.values)}
+            {suggestedLevels(t, comparison.suggestions[name].levels)} {t(comparison.suggestions[name].because.key, comparison.suggestions[name].because.values)}
           </p>
         </div>
       ))}

@@ -44,6 +44,12 @@ function message(kind: string, recipient: string, requestedLocale: string | unde
   return { kind, recipient, locale, ...(headers ? { headers } : {}), subject, text, html };
 }
 
+/** "Spanish and French", in the reader's language: the names of languages, never their codes. */
+export function languageList(codes: string[], locale: Locale): string {
+  const names = new Intl.DisplayNames([locale], { type: "language" });
+  return new Intl.ListFormat(locale, { type: "conjunction" }).format(codes.map((code) => names.of(code) ?? code));
+}
+
 const utc = (date: Date) => date.toISOString().slice(0, 16).replace("T", " ");
 
 export function invitationMessage(input: { recipient: string; name: string; inviter: string; roles: Role[]; link: string; expires: Date; locale?: string }): Message {
@@ -116,7 +122,7 @@ export function releaseAlertMessage(to: Recipient, version: Announced, link: str
 /** To a translator when a version is released: the locales they translate it into. */
 export function translationRequestMessage(to: Recipient & { translationLocales: string[] }, version: Announced, link: string): Message {
   return message("translation-request", to.email, to.locale, (words) => {
-    const values = { name: to.displayName, title: version.title, version: version.number, locales: to.translationLocales.join(", ") };
+    const values = { name: to.displayName, title: version.title, version: version.number, locales: languageList(to.translationLocales, localeOf(to.locale)) };
     return {
       subject: words("translationRequest.subject", values),
       paragraphs: [words("translationRequest.greeting", values), words("translationRequest.body", values)],

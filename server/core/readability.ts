@@ -102,7 +102,7 @@ function countsOfSentences(sentences: string[], locale: Locale): Counts {
 export const jargon: Record<Locale, { term: string; plain: string }[]> = {
   en: [
     { term: "statistically significant", plain: "unlikely to be due to chance alone" },
-    { term: "confidence interval", plain: "the range the true effect probably lies in" },
+    { term: "confidence interval", plain: "a range worked out from the data; 95 of every 100 ranges worked out this way contain the true effect" },
     { term: "odds ratio", plain: "how much more or less likely" },
     { term: "risk ratio", plain: "how much more or less likely" },
     { term: "relative risk", plain: "how much more or less likely" },
@@ -117,12 +117,12 @@ export const jargon: Record<Locale, { term: string; plain: string }[]> = {
   ],
   es: [
     { term: "estadísticamente significativo", plain: "poco probable que se deba solo al azar" },
-    { term: "intervalo de confianza", plain: "el margen en el que probablemente está el efecto real" },
+    { term: "intervalo de confianza", plain: "un margen calculado a partir de los datos; 95 de cada 100 márgenes calculados así contienen el efecto real" },
     { term: "odds ratio", plain: "cuánto más o menos probable" },
     { term: "razón de momios", plain: "cuánto más o menos probable" },
     { term: "riesgo relativo", plain: "cuánto más o menos probable" },
     { term: "SUCRA", plain: "una puntuación de rango (no demuestra un ganador)" },
-    { term: "metanálisis en red", plain: "un estudio que combina ensayos que comparan varios tratamientos" },
+    { term: "metaanálisis en red", plain: "un estudio que combina ensayos que comparan varios tratamientos" },
     { term: "heterogeneidad", plain: "diferencias entre los resultados de los ensayos" },
     { term: "eficacia", plain: "lo bien que funciona" },
     { term: "placebo", plain: "un tratamiento simulado" },
@@ -130,7 +130,7 @@ export const jargon: Record<Locale, { term: string; plain: string }[]> = {
   ],
   fr: [
     { term: "statistiquement significatif", plain: "peu probablement dû au seul hasard" },
-    { term: "intervalle de confiance", plain: "la fourchette où se trouve probablement l’effet réel" },
+    { term: "intervalle de confiance", plain: "une fourchette calculée à partir des données ; 95 sur 100 des fourchettes calculées ainsi contiennent l’effet réel" },
     { term: "rapport de cotes", plain: "combien plus ou moins probable" },
     { term: "odds ratio", plain: "combien plus ou moins probable" },
     { term: "risque relatif", plain: "combien plus ou moins probable" },
@@ -143,9 +143,10 @@ export const jargon: Record<Locale, { term: string; plain: string }[]> = {
   ],
   ar: [
     { term: "ذو دلالة إحصائية", plain: "من غير المرجح أن يكون بالصدفة وحدها" },
-    { term: "فترة الثقة", plain: "المدى الذي يقع فيه الأثر الحقيقي على الأرجح" },
+    { term: "فترة الثقة", plain: "مدى محسوب من البيانات؛ 95 من كل 100 مدى يُحسب بهذه الطريقة تحتوي على الأثر الحقيقي" },
     { term: "نسبة الأرجحية", plain: "كم هو أكثر أو أقل احتمالًا" },
     { term: "الخطر النسبي", plain: "كم هو أكثر أو أقل احتمالًا" },
+    { term: "نسبة الخطر", plain: "كم هو أكثر أو أقل احتمالًا" },
     { term: "SUCRA", plain: "درجة ترتيب (لا تثبت وجود فائز)" },
     { term: "التحليل التلوي الشبكي", plain: "دراسة تجمع تجارب تقارن عدة علاجات" },
     { term: "عدم التجانس", plain: "الاختلافات بين نتائج التجارب" },

@@ -190,7 +190,7 @@ describe("alerts around a release", () => {
     expect(released.text).toContain(`/briefs/${slug}/v/1`);
     expect(new Date(released.receivedAt).getTime()).toBeGreaterThanOrEqual(releaseAt.getTime());
     const request = await mailbox.waitFor(translator.email, (m) => m.subject === `To translate: ${title}`);
-    expect(request.text).toContain("into es");
+    expect(request.text).toContain("It is waiting for your translation into Spanish.");
     // Announced once, whatever jobs there were.
     await new Promise((resolve) => setTimeout(resolve, 1500));
     expect(mailbox.messages().filter((m) => m.to.includes(reporter.email) && m.subject === `Released: ${title}`)).toHaveLength(1);

@@ -109,7 +109,8 @@ export function imprecisionSuggestion(
   const magnitudes = [thresholds.small, thresholds.moderate, thresholds.large].filter((t): t is number => t !== null);
   const lines = magnitudes.length > 0 ? magnitudes.flatMap((t) => [-t, t]) : [0];
   const crossed = lines.filter((t) => interval.lower < t && t < interval.upper).length;
-  const key = magnitudes.length > 0 ? "certainty.imprecision.thresholds" : "certainty.imprecision.null";
+  // Whether it crosses is said by the key, never by a plural form: French reads 0 as singular.
+  const key = magnitudes.length > 0 ? (crossed > 0 ? "certainty.imprecision.crossesThresholds" : "certainty.imprecision.clearOfThresholds") : crossed > 0 ? "certainty.imprecision.crossesNull" : "certainty.imprecision.clearOfNull";
   return { levels: Math.min(2, crossed), because: { key, values: { count: crossed } } };
 }
 

@@ -43,10 +43,14 @@ export function statementFor(input: {
   return { key: `statement.${input.certainty}.${input.magnitude}.${change}`, values };
 }
 
-/** "N fewer per 1000 (from … to …)" for binary outcomes: the key and the rounded counts. */
+/**
+ * "N fewer per 1000 (from … to …)" for binary outcomes: the key and the rounded counts. A difference
+ * that rounds to none reads "0 fewer", as summary-of-findings tables write it, never "no difference",
+ * which would claim what the interval does not show.
+ */
 export function absoluteStatement(difference: { estimate: number; lower: number; upper: number }) {
   const round = (x: number) => Math.round(Math.abs(x));
-  const side = (x: number) => (Math.round(x) < 0 ? "fewer" : Math.round(x) > 0 ? "more" : "same");
+  const side = (x: number) => (Math.round(x) > 0 ? "more" : "fewer");
   return {
     key: `statement.absolute.${side(difference.estimate)}`,
     values: {

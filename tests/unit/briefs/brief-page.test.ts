@@ -89,7 +89,7 @@ describe("certainty footnotes", () => {
       network: "low",
       suggestions: {
         incoherence: { levels: 0, because: { key: "certainty.incoherence.notTestable", values: {} } },
-        imprecision: { levels: 1, because: { key: "certainty.imprecision.null", values: { count: 1 } } },
+        imprecision: { levels: 1, because: { key: "certainty.imprecision.crossesNull", values: { count: 1 } } },
         riskOfBias: null,
       },
       judgement: {
@@ -101,7 +101,7 @@ describe("certainty footnotes", () => {
     });
     expect(notes).toEqual([
       { domainKey: "certainty.domain.riskOfBias", levels: 1, reason: "Allocation was not concealed.", because: null },
-      { domainKey: "certainty.domain.imprecision", levels: 1, reason: null, because: { key: "certainty.imprecision.null", values: { count: 1 } } },
+      { domainKey: "certainty.domain.imprecision", levels: 1, reason: null, because: { key: "certainty.imprecision.crossesNull", values: { count: 1 } } },
     ]);
   });
 });

@@ -87,7 +87,7 @@ describe("suggestions", () => {
     const noThresholds = { small: null, moderate: null, large: null };
     expect(imprecisionSuggestion({ lower: -0.1, upper: 0.4 }, noThresholds)).toEqual({
       levels: 1,
-      because: { key: "certainty.imprecision.null", values: { count: 1 } },
+      because: { key: "certainty.imprecision.crossesNull", values: { count: 1 } },
     });
     expect(imprecisionSuggestion({ lower: 0.1, upper: 0.4 }, noThresholds).levels).toBe(0);
   });
