@@ -49,6 +49,7 @@ export function OutcomeSection({ outcome, version }: { outcome: OutcomeView; ver
         rows={outcome.effects.map((e) => ({ label: e.name, ...e.network }))}
         measure={outcome.measure}
         title={t("brief.forestTitle", { reference: outcome.reference.name, measure: t(`brief.measure.${outcome.measure}`) })}
+        axis={{ better: outcome.better, referenceName: outcome.reference.name, unit: outcome.unit }}
       />
       {/* On a phone, one card per option; from the sm breakpoint, the table. Only one is displayed, so assistive technology reads it once. */}
       <ul className="space-y-3 font-sans text-sm sm:hidden">

@@ -4,10 +4,17 @@ import { Group } from "@visx/group";
 import { scaleLinear } from "@visx/scale";
 import { Line } from "@visx/shape";
 import { useTranslation } from "react-i18next";
-import { formatEffect, formatInterval } from "#core/effects";
+import { formatInterval, formatTick, isRatio } from "#core/effects";
 import type { Measure } from "#core/nma/types";
 import { axisTicks } from "./scale";
 import { textDirection, useIntl } from "../i18n";
+
+/** What the axis says: the measure, and which side of the line of no effect favours whom. */
+export interface ForestAxis {
+  better: "higher" | "lower";
+  referenceName: string;
+  unit?: string | null;
+}
 
 export interface ForestRow {
   label: string;
@@ -19,7 +26,7 @@ export interface ForestRow {
 const rowHeight = 28;
 const plotWidth = 460;
 
-export function ForestPlot({ rows, measure, title }: { rows: ForestRow[]; measure: Measure; title: string }) {
+export function ForestPlot({ rows, measure, title, axis }: { rows: ForestRow[]; measure: Measure; title: string; axis: ForestAxis }) {
   const { t } = useTranslation();
   const intl = useIntl();
   // Room beside the plot for the longest label at 13 px (about 7 px a character): on the left, or in
@@ -27,7 +34,15 @@ export function ForestPlot({ rows, measure, title }: { rows: ForestRow[]; measur
   // direction (smaller values on the left) in every language.
   const rtl = textDirection(intl.locale) === "rtl";
   const labelWidth = 7 * Math.max(8, ...rows.map((r) => r.label.length));
-  const margin = { top: 8, right: 24 + (rtl ? labelWidth : 0), bottom: 40, left: 24 + (rtl ? 0 : labelWidth) };
+  const margin = { top: 8, right: 24 + (rtl ? labelWidth : 0), bottom: 76, left: 24 + (rtl ? 0 : labelWidth) };
+  // Each row is the option against the reference: where higher is better, the side of higher values
+  // favours the option; where lower is better, the side of lower values does.
+  const option = t("brief.forestAxis.favoursOption");
+  const reference = t("brief.forestAxis.favours", { name: axis.referenceName });
+  const [leftSide, rightSide] = axis.better === "higher" ? [reference, option] : [option, reference];
+  const measureWords = t(`brief.measure.${measure}`);
+  const measureName = measureWords.charAt(0).toLocaleUpperCase(intl.locale) + measureWords.slice(1);
+  const axisTitle = isRatio(measure) ? t("brief.forestAxis.ratio", { measure: measureName }) : axis.unit ? t("brief.forestAxis.withUnit", { measure: measureName, unit: axis.unit }) : measureName;
   const width = margin.left + plotWidth + margin.right;
   const height = margin.top + margin.bottom + rows.length * rowHeight;
   const lowest = Math.min(0, ...rows.map((r) => r.lower));
@@ -61,9 +76,18 @@ export function ForestPlot({ rows, measure, title }: { rows: ForestRow[]; measur
             {axisTicks(measure, x.domain() as [number, number], x.ticks(6)).map((tick) => (
               <g key={tick} transform={`translate(${x(tick)} 0)`}>
                 <line y2={6} stroke="#d9d1c5" />
-                <text y={20}>{formatEffect(measure, tick, intl.locale)}</text>
+                <text y={20}>{formatTick(measure, tick, intl.locale)}</text>
               </g>
             ))}
+            <text x={plotWidth / 2} y={40} fill="#1d1a17" data-testid="forest-axis-title">
+              {axisTitle}
+            </text>
+            <text x={0} y={62} textAnchor="start" direction="ltr" data-testid="forest-left-side">
+              {`← ${leftSide}`}
+            </text>
+            <text x={plotWidth} y={62} textAnchor="end" direction="ltr" data-testid="forest-right-side">
+              {`${rightSide} →`}
+            </text>
           </g>
         </Group>
       </svg>

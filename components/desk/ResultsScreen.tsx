@@ -45,7 +45,7 @@ export function ResultsScreen() {
         ) : null}
         {result.excludedStudies.length > 0 ? <p>{t("desk.excluded", { studies: result.excludedStudies.join(", ") })}</p> : null}
       </section>
-      <ForestPlot rows={forestRows} measure={result.measure} title={t("desk.forestTitle", { reference: name(result.reference), measure: result.measure })} />
+      <ForestPlot rows={forestRows} measure={result.measure} title={t("desk.forestTitle", { reference: name(result.reference), measure: result.measure })} axis={{ better: result.better, referenceName: name(result.reference) }} />
       <NetworkDiagram
         title={t("desk.networkTitle")}
         nodes={result.treatments.map((id) => ({ id, label: name(id), participants: result.network.participants[id] ?? null }))}

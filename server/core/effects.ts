@@ -13,21 +13,45 @@ export function displayValue(measure: Measure, value: number): number {
 
 const formats = new Map<string, Intl.NumberFormat>();
 
-/** A number with a fixed count of decimals, as the locale writes it; a value that rounds to zero reads as zero, not "-0.00". */
-export function formatNumber(value: number, digits: number, locale: Locale = "en"): string {
-  const key = `${locale}/${digits}`;
-  let format = formats.get(key);
+function formatter(locale: Locale, key: string, options: Intl.NumberFormatOptions): Intl.NumberFormat {
+  const id = `${locale}/${key}`;
+  let format = formats.get(id);
   if (!format) {
-    format = new Intl.NumberFormat(intlLocale(locale), { minimumFractionDigits: digits, maximumFractionDigits: digits, useGrouping: false, signDisplay: "negative" });
-    formats.set(key, format);
+    format = new Intl.NumberFormat(intlLocale(locale), { useGrouping: false, signDisplay: "negative", ...options });
+    formats.set(id, format);
   }
-  return format.format(value);
+  return format;
 }
+
+/**
+ * A true minus sign (U+2212), as typography asks, in text, tables and charts alike. In Arabic, Intl
+ * puts a left-to-right mark before a negative number, so the sign stays before the digits inside
+ * right-to-left text (decision 0024).
+ */
+const withMinus = (text: string) => text.replace("-", "\u2212");
+
+/** A number with a fixed count of decimals, as the locale writes it; a value that rounds to zero reads as zero, not "−0.00". */
+export function formatNumber(value: number, digits: number, locale: Locale = "en"): string {
+  return withMinus(formatter(locale, `f${digits}`, { minimumFractionDigits: digits, maximumFractionDigits: digits }).format(value));
+}
+
+/**
+ * Decimals of an effect, the same in sentence, table, chart and card (decision 0035): two below 10
+ * and one from 10 on, so three significant digits from 1 to 100 ("2.83", "−11.1", "−7.74") and never
+ * a long tail of digits near zero. Ratios are shown as ratios.
+ */
+const effectDecimals = (shown: number) => (Math.abs(shown) < 10 ? 2 : 1);
 
 export function formatEffect(measure: Measure, value: number, locale: Locale = "en"): string {
   const shown = displayValue(measure, value);
-  const digits = isRatio(measure) || Math.abs(shown) < 10 ? 2 : 1;
-  return formatNumber(shown, digits, locale);
+  return formatNumber(shown, effectDecimals(shown), locale);
+}
+
+/** A tick of a chart's axis: the same decimals at most, without trailing zeros ("−12", "−8", "0.5", "2"). */
+export function formatTick(measure: Measure, value: number, locale: Locale = "en"): string {
+  const shown = displayValue(measure, value);
+  const digits = effectDecimals(shown);
+  return withMinus(formatter(locale, `t${digits}`, { maximumFractionDigits: digits }).format(shown));
 }
 
 /** "2.83 (1.99 to 4.01)": `to` is the locale's word (brief.to). */
