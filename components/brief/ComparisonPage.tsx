@@ -6,6 +6,7 @@ import type { ComparisonOutcomeView } from "#core/brief-page";
 import type { ComparisonPageData } from "#web/pages/page-data";
 import { HealthCaution } from "../HealthCaution";
 import { CertaintyMark } from "./CertaintyMark";
+import { CertaintyPath } from "./CertaintyPath";
 import { CiteBlock } from "./CiteBlock";
 import { EmbedCode } from "./EmbedCode";
 import { ImportantStudies } from "./ImportantStudies";
@@ -34,7 +35,7 @@ export function ComparisonPage({ data }: { data: ComparisonPageData }) {
         <a href={intl.href(comparisonUrl({ ...at, treatment: at.comparator, comparator: at.treatment }))}>{t("compare.reverse")}</a>
       </p>
       {view.outcomes.map((outcome) => (
-        <OutcomeComparison key={outcome.index} outcome={outcome} />
+        <OutcomeComparison key={outcome.index} outcome={outcome} names={{ treatment: view.treatment.name, comparator: view.comparator.name }} />
       ))}
       <div className="mt-12">
         <HealthCaution />
@@ -45,7 +46,7 @@ export function ComparisonPage({ data }: { data: ComparisonPageData }) {
   );
 }
 
-function OutcomeComparison({ outcome }: { outcome: ComparisonOutcomeView }) {
+function OutcomeComparison({ outcome, names }: { outcome: ComparisonOutcomeView; names: { treatment: string; comparator: string } }) {
   const { t } = useTranslation();
   const intl = useIntl();
   const to = t("brief.to");
@@ -122,6 +123,8 @@ function OutcomeComparison({ outcome }: { outcome: ComparisonOutcomeView }) {
           </tbody>
         </table>
       </div>
+
+      <CertaintyPath outcome={outcome} names={names} />
 
       {outcome.footnotes.length > 0 ? (
         <ol className="mt-4 list-decimal space-y-1 ps-6 text-sm" aria-label={t("compare.footnotes")}>

@@ -78,6 +78,7 @@ export function CertaintyScreen({ canJudge }: { canJudge: boolean }) {
             {t("desk.bulk.accept", { count: chosen.length })}
           </button>
           <DirectBulkForm chosen={chosen} busy={bulk.isPending} onApply={(items) => bulk.mutate(items)} />
+          <IndirectBulkForm chosen={chosen} busy={bulk.isPending} onApply={(items) => bulk.mutate(items)} />
           {bulk.isSuccess ? <p role="status">{t("desk.bulk.saved", { count: bulk.data.comparisons.length })}</p> : null}
           {bulk.error ? <p role="alert" className="text-accent">{t("desk.error", { message: bulk.error.message })}</p> : null}
         </div>
@@ -140,6 +141,42 @@ export function CertaintyScreen({ canJudge }: { canJudge: boolean }) {
           <JudgementForm key={keyOf(c)} outcomeId={outcomeId} comparison={c} shares={comparisonOf(analysed, c.treatment, c.comparator)?.riskOfBias ?? null} />
         ))}
     </>
+  );
+}
+
+/**
+ * The indirect certainty, with its reason, for every selected pair whose indirect evidence has no
+ * first-order loop (METHODS.md §8 steps 2 and 4): the analysts set it from the longer paths.
+ */
+function IndirectBulkForm({ chosen, busy, onApply }: { chosen: ComparisonCertainty[]; busy: boolean; onApply: (items: { treatment: string; comparator: string; judgement: ComparisonJudgement }[]) => void }) {
+  const { t } = useTranslation();
+  const withoutLoop = chosen.filter((c) => c.indirectVia === null && (c.indirect !== null || c.pending.includes("indirect")));
+  if (withoutLoop.length === 0) return null;
+  return (
+    <form
+      className="grid gap-2"
+      aria-label={t("desk.bulk.indirectTitle", { count: withoutLoop.length })}
+      onSubmit={(event) => {
+        event.preventDefault();
+        const data = new FormData(event.currentTarget);
+        const indirectRating = { rating: String(data.get("indirectRating")) as Rating, reason: String(data.get("reason") ?? "") };
+        onApply(withoutLoop.map((c) => ({ treatment: c.treatment, comparator: c.comparator, judgement: { ...c.judgement, indirectRating } })));
+      }}
+    >
+      <p className="font-semibold">{t("desk.bulk.indirectTitle", { count: withoutLoop.length })}</p>
+      <div className="flex flex-wrap gap-3">
+        <select name="indirectRating" required defaultValue="" className={inputClass} aria-label={t("desk.indirectRatingLabel")}>
+          <option value="" disabled>—</option>
+          {[...ratings].reverse().map((r) => (
+            <option key={r} value={r}>{t(`certainty.rating.${r}`)}</option>
+          ))}
+        </select>
+        <input name="reason" required placeholder={t("desk.bulk.indirectReason")} aria-label={t("desk.bulk.indirectReason")} className={`${inputClass} min-w-[16rem] flex-1`} />
+      </div>
+      <div>
+        <button type="submit" className="border border-ink px-5 py-2 font-semibold" disabled={busy}>{t("desk.bulk.applyIndirect", { count: withoutLoop.length })}</button>
+      </div>
+    </form>
   );
 }
 
@@ -244,7 +281,8 @@ function JudgementForm({ outcomeId, comparison, shares }: { outcomeId: string; c
             ? { indirectRating: { rating: data.get("indirectRating") as Rating, reason: String(data.get("indirectRating.reason") ?? "") } }
             : {}),
           ...(hasDirect && hasIndirect ? { dominant: (data.get("dominant") || null) as "direct" | "indirect" | null } : {}),
-          incoherence: read("incoherence"),
+          // Incoherence needs both kinds of evidence (METHODS.md §8 step 4): a pair no trial compared has none to judge.
+          ...(hasDirect ? { incoherence: read("incoherence") } : {}),
           imprecision: read("imprecision"),
         };
         save.mutate({ treatment: comparison.treatment, comparator: comparison.comparator, judgement });
@@ -291,7 +329,7 @@ function JudgementForm({ outcomeId, comparison, shares }: { outcomeId: string; c
           </select>
         </label>
       ) : null}
-      {(["incoherence", "imprecision"] as const).map((name) => (
+      {(hasDirect ? (["incoherence", "imprecision"] as const) : (["imprecision"] as const)).map((name) => (
         <div key={name}>
           <DowngradeField name={name} label={t(`desk.domain.${name}`)} value={decision(name) as Downgrade} />
           <p className="mt-1 text-muted">

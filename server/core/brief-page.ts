@@ -7,7 +7,7 @@ import type { Rating } from "./grade/certainty";
 import type { Firmness } from "./grade/groups";
 import type { Measure } from "./nma/types";
 import { flipInterval, pairFinder, type Interval } from "./pairs";
-import type { Footnote, Message, OutcomeSnapshot, PairFacts, Reading, VersionSnapshot } from "./snapshot/schema";
+import type { CertaintyPathFacts, Footnote, Message, OutcomeSnapshot, PairFacts, Reading, VersionSnapshot } from "./snapshot/schema";
 import { slugify } from "./slug";
 
 export type { Footnote, Interval };
@@ -186,7 +186,10 @@ export interface ComparisonOutcomeView {
   absolute: Reading["absolute"];
   network: Interval;
   direct: (Interval & { studies: number; participants: number | null }) | null;
+  /** For a pair no trial compared, the network estimate itself: it is wholly indirect. */
   indirect: Interval | null;
+  /** How the certainty was reached, read as the page is (treatment first); null where it was not stored. */
+  path: (Omit<CertaintyPathFacts, "indirect"> & { indirect: (Omit<NonNullable<CertaintyPathFacts["indirect"]>, "via"> & { via: Named | null }) | null }) | null;
   footnotes: Footnote[];
   /** The studies that matter most (METHODS.md §13), largest first; null in versions frozen before they were computed. */
   importance: PairFacts["importance"];
@@ -222,7 +225,16 @@ export function comparisonContent(snapshot: VersionSnapshot, a: string, b: strin
       absolute: reading?.absolute ?? null,
       network: oriented(pair.network, flipped),
       direct: pair.direct ? { ...oriented(pair.direct, flipped), studies: pair.direct.studies, participants: pair.direct.participants } : null,
-      indirect: pair.indirect ? oriented(pair.indirect, flipped) : null,
+      indirect: pair.indirect ? oriented(pair.indirect, flipped) : pair.direct ? null : oriented(pair.network, flipped),
+      path: pair.path && {
+        ...pair.path,
+        // The loop's sides as the page reads the pair: treatment–via, then via–comparator.
+        indirect: pair.path.indirect && {
+          ...pair.path.indirect,
+          via: pair.path.indirect.via === null ? null : named(pair.path.indirect.via),
+          sides: pair.path.indirect.sides && (flipped ? [pair.path.indirect.sides[1], pair.path.indirect.sides[0]] : pair.path.indirect.sides),
+        },
+      },
       footnotes: pair.footnotes,
       importance: pair.importance,
       judged: outcome.riskOfBias !== null,

@@ -44,6 +44,10 @@ export function readinessOf(draft: DraftFacts): Readiness {
     // Comparisons against the reference drive the groups and the statements: each needs its rating.
     const unrated = outcome.certainty.filter((c) => (c.treatment === result.reference || c.comparator === result.reference) && c.network === null);
     if (unrated.length > 0) blocking.push({ key: "readiness.unrated", values: { outcome: outcome.name, count: unrated.length } });
+    // Every other pair is published too, on its own page (METHODS.md §8 step 4): one without a
+    // certainty reads "not assessed" there, which the approving editor must accept knowingly.
+    const unratedOthers = outcome.certainty.filter((c) => c.treatment !== result.reference && c.comparator !== result.reference && c.network === null);
+    if (unratedOthers.length > 0) warnings.push({ key: "readiness.unratedOthers", values: { outcome: outcome.name, count: unratedOthers.length } });
     if (result.heterogeneity.I2 >= substantialI2) warnings.push({ key: "readiness.heterogeneity", values: { outcome: outcome.name, I2: Math.round(100 * result.heterogeneity.I2) } });
     if (result.inconsistency.pBetween !== null && result.inconsistency.pBetween < alpha) {
       warnings.push({ key: "readiness.inconsistency", values: { outcome: outcome.name, p: Number(result.inconsistency.pBetween.toPrecision(2)) } });

@@ -67,6 +67,9 @@ function directStanding(judgement: ComparisonJudgement["direct"], suggestion: Su
   return explained ? judgement : undefined;
 }
 
+/** Incoherence compares direct with indirect evidence: without direct evidence there is nothing to judge. */
+const notApplicable: SuggestionDecision = { levels: 0, reason: "" };
+
 /** Thresholds are read on the outcome's decision scale (METHODS.md §9): per 1000 at `baselineRisk` for binary outcomes. */
 export function assessCertainty(result: AnalysisResult, judgements: Map<string, ComparisonJudgement>, thresholds: Thresholds, baselineRisk: number | null = null): ComparisonCertainty[] {
   const scale = decisionScale(result, thresholds, baselineRisk);
@@ -90,9 +93,12 @@ export function assessCertainty(result: AnalysisResult, judgements: Map<string, 
     const direct = comparison.direct ? directRating(a, b) : null;
     if (comparison.direct && !direct) pending.push("direct");
 
+    // A pair no trial compared (METHODS.md §8 step 4): its network estimate is wholly indirect, so its
+    // certainty starts from the indirect certainty like any other, and incoherence does not apply.
+    const whollyIndirect = comparison.direct === null;
     let indirect: Rating | null = null;
     let indirectVia: string | null = null;
-    if (comparison.indirect) {
+    if (comparison.indirect || whollyIndirect) {
       const loop = dominantLoop(a, b, result.treatments, directVariance);
       if (loop) {
         indirectVia = loop.via;
@@ -110,12 +116,15 @@ export function assessCertainty(result: AnalysisResult, judgements: Map<string, 
       imprecision: imprecisionSuggestion(scale.effect(a, b), scale.thresholds ?? none),
       riskOfBias: comparison.direct ? riskOfBiasSuggestion(comparison.riskOfBias) : null,
     };
-    const incoherence = standing(judgement.incoherence, suggestions.incoherence);
+    const incoherence = whollyIndirect ? notApplicable : standing(judgement.incoherence, suggestions.incoherence);
     const imprecision = standing(judgement.imprecision, suggestions.imprecision);
     if (!incoherence) pending.push("incoherence");
     if (!imprecision) pending.push("imprecision");
 
-    const network = incoherence && imprecision ? networkCertainty({ direct, indirect, dominant: judgement.dominant, incoherence, imprecision }) : null;
+    // The network's certainty is the higher of the two it combines: both must be known first, unless
+    // the analyst says one of them dominates the estimate (then the other is not needed).
+    const unknown = pending.filter((part) => !(part === "indirect" && judgement.dominant === "direct") && !(part === "direct" && judgement.dominant === "indirect"));
+    const network = unknown.length === 0 && incoherence && imprecision ? networkCertainty({ direct, indirect, dominant: judgement.dominant, incoherence, imprecision }) : null;
     return { treatment: a, comparator: b, direct, indirect, indirectVia, network, suggestions, judgement, pending };
   });
 }

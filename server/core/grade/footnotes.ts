@@ -21,7 +21,9 @@ export function certaintyFootnotes(certainty: ComparisonCertainty): Footnote[] {
   if (judgement.indirectRating) {
     notes.push({ domainKey: "certainty.footnote.indirectSet", levels: 0, reason: judgement.indirectRating.reason, because: null });
   }
-  for (const domain of ["incoherence", "imprecision"] as const) {
+  // Without direct evidence incoherence does not apply (METHODS.md §8 step 4), whatever was recorded.
+  const domains = certainty.direct === null ? (["imprecision"] as const) : (["incoherence", "imprecision"] as const);
+  for (const domain of domains) {
     const decision = judgement[domain];
     if (decision && decision.levels > 0) {
       notes.push({ domainKey: `certainty.domain.${domain}`, levels: decision.levels, reason: decision.reason || null, because: decision.reason ? null : suggestions[domain].because });

@@ -3,6 +3,7 @@
 // comparison as the engine counted them, the certainty footnotes, the network and the methods. Pure:
 // the page model then only projects them and does no statistics (docs/decisions/0012-snapshot-contract.md).
 import { certaintyFootnotes } from "../grade/footnotes";
+import { certaintyPath } from "../grade/path";
 import type { ComparisonCertainty } from "../grade/assess";
 import { z975, type AnalysisResult } from "../nma/analyse";
 import { directParticipants } from "../nma/participants";
@@ -51,6 +52,7 @@ export function outcomeFacts(result: AnalysisResult, certainty: readonly Compari
         indirect: c.indirect ? withCi(c.indirect) : null,
         incoherenceP: c.incoherence?.p ?? null,
         certainty: assessment?.network ?? null,
+        path: assessment ? certaintyPath(assessment, (x, y) => assessed.get(pairKey(x, y))?.direct ?? null) : null,
         footnotes: assessment?.network ? certaintyFootnotes(assessment) : [notAssessed],
         // Results computed before engine 1.1.0 have neither (§13).
         importance: c.importance?.map((s) => ({ study: s.study, value: s.value, riskOfBias: judged.get(s.study) ?? null })) ?? null,

@@ -23,6 +23,18 @@ const footnote = z.object({ domainKey: text, levels: finite, reason: text.nullab
 const riskOfBiasLevel = z.enum(["low", "some-concerns", "high"]).nullable();
 const perLevel = <T extends z.ZodType>(value: T) => z.object({ low: value, someConcerns: value, high: value, notAssessed: value });
 
+/** One step down of a certainty: the domain (a key of the public pages' words) and the levels. */
+const certaintyStep = z.object({ domainKey: text, levels: z.number().int() });
+
+/** How the pair's certainty was reached (METHODS.md §8 step 5; server/core/grade/path.ts). */
+const certaintyPath = z.object({
+  direct: z.object({ rating, steps: z.array(certaintyStep) }).nullable(),
+  indirect: z.object({ rating, via: text.nullable(), sides: z.tuple([rating, rating]).nullable(), steps: z.array(certaintyStep), reason: text.nullable() }).nullable(),
+  took: z.enum(["direct", "indirect"]),
+  steps: z.array(certaintyStep),
+  rating,
+});
+
 /** Every fact a page shows about one pair, computed when the version is published (never when it is read). */
 const pairFacts = z.object({
   treatment: text,
@@ -32,6 +44,8 @@ const pairFacts = z.object({
   indirect: estimateWithCi.nullable(),
   incoherenceP: finite.nullable(),
   certainty: rating.nullable(),
+  /** Null while unrated, and in versions frozen before the path was stored (shape 6). */
+  path: certaintyPath.nullable(),
   footnotes: z.array(footnote),
   /** METHODS.md §13: the studies that matter most, largest first; null in versions frozen before importances were computed. */
   importance: z.array(z.object({ study: text, value: finite, riskOfBias: riskOfBiasLevel })).nullable(),
@@ -141,6 +155,7 @@ export const versionSnapshotSchema = draftSnapshotSchema.extend({
 export type Message = z.infer<typeof messageSchema>;
 export type Footnote = z.infer<typeof footnote>;
 export type PairFacts = z.infer<typeof pairFacts>;
+export type CertaintyPathFacts = z.infer<typeof certaintyPath>;
 export type Reading = z.infer<typeof reading>;
 export type OutcomeSnapshot = z.infer<typeof outcomeSnapshot>;
 export type DraftSnapshot = z.infer<typeof draftSnapshotSchema>;

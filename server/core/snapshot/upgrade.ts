@@ -100,13 +100,16 @@ function upgrade4to5(snapshot: Stored): Stored {
  * includes the null was frozen as "trivial" and read "little to no difference", which claims a trivial
  * effect that no threshold defines (METHODS.md §10). The fact frozen is the same; it now reads "does
  * not show a clear difference". A group placed away from the reference with a member of moderate
- * certainty against it reads "probably", as new versions do.
+ * certainty against it reads "probably", as new versions do. How each certainty was reached (§8
+ * step 5) was not stored: it reads as not known.
  */
 function upgrade5to6(snapshot: Stored): Stored {
   type Reading = { treatment: string; comparator: string; certainty: string | null; magnitude: string; statement: { key: string } | null };
   type Group = { level: number; firmness: string; treatments: string[]; label: { key: string } };
-  type Outcome = { framework: string; readings: Reading[]; groups: Group[]; methods: { reference: string } };
-  const outcomes = (snapshot.outcomes as unknown as Outcome[]).map((outcome) => {
+  type Outcome = { framework: string; readings: Reading[]; groups: Group[]; methods: { reference: string }; pairs: Record<string, unknown>[] };
+  const outcomes = (snapshot.outcomes as unknown as Outcome[]).map((stored) => {
+    // How each certainty was reached was not stored then: the page shows the footnotes alone.
+    const outcome = { ...stored, pairs: stored.pairs.map((pair) => ({ path: null, ...pair })) };
     if (outcome.framework !== "minimal") return outcome;
     const moderate = new Set(outcome.readings.filter((r) => r.comparator === outcome.methods.reference && r.certainty === "moderate").map((r) => r.treatment));
     return {
