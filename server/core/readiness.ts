@@ -1,7 +1,9 @@
 // Whether a draft may be approved and published (PRODUCT.md: nothing goes out with unrated
 // comparisons against the reference or empty texts). Pure: the draft's facts in, the checklist out.
 // Blocking items refuse approval and publishing; warnings must be acknowledged by the approving editor.
+import { textClaims } from "./claims";
 import type { ComparisonCertainty } from "./grade/assess";
+import type { TreatmentGroup } from "./grade/groups";
 import type { AnalysisResult } from "./nma/analyse";
 
 export interface ReadinessItem {
@@ -18,9 +20,10 @@ export interface Readiness {
 export interface DraftFacts {
   laySummary: string;
   shortTake: string;
-  outcomes: { name: string; current: boolean; result: AnalysisResult | null; certainty: ComparisonCertainty[] | null }[];
-  /** Every treatment label of the data, and whether the analysts gave it the name readers see. */
-  treatments: { label: string; named: boolean }[];
+  /** `groups`: the conclusions a version would freeze now (null without a current analysis). */
+  outcomes: { name: string; current: boolean; result: AnalysisResult | null; certainty: ComparisonCertainty[] | null; groups?: TreatmentGroup[] | null }[];
+  /** Every treatment label of the data, the name readers see, and whether the analysts gave that name. */
+  treatments: { label: string; named: boolean; displayName?: string }[];
 }
 
 /** I² from 50% is substantial heterogeneity (common practice; the Cochrane Handbook's rough guide, section 10.10.2). */
@@ -55,5 +58,29 @@ export function readinessOf(draft: DraftFacts): Readiness {
     const incoherent = result.comparisons.filter((c) => c.incoherence !== null && c.incoherence.p < alpha);
     if (incoherent.length > 0) warnings.push({ key: "readiness.incoherence", values: { outcome: outcome.name, count: incoherent.length } });
   }
+  warnings.push(...claimsAgainstFindings(draft));
   return { blocking, warnings };
+}
+
+/** The editor's texts read against what the analysis found (server/core/claims.ts), once every outcome is analysed. */
+function claimsAgainstFindings(draft: DraftFacts): ReadinessItem[] {
+  const analysed = draft.outcomes.filter((o) => o.current && o.result && o.certainty && o.groups);
+  if (analysed.length === 0 || analysed.length < draft.outcomes.length) return [];
+  return textClaims({
+    texts: [
+      { field: "shortTake", markdown: draft.shortTake },
+      { field: "laySummary", markdown: draft.laySummary },
+    ],
+    treatments: draft.treatments.map((t) => ({ label: t.label, displayName: t.displayName ?? t.label })),
+    outcomes: analysed.map((o) => {
+      const reference = o.result!.reference;
+      const against = o.certainty!.filter((c) => c.treatment === reference || c.comparator === reference);
+      return {
+        name: o.name,
+        reference,
+        certainty: new Map(against.map((c) => [c.treatment === reference ? c.comparator : c.treatment, c.network])),
+        level: new Map(o.groups!.flatMap((g) => g.treatments.map((t) => [t, g.level] as const))),
+      };
+    }),
+  });
 }

@@ -75,8 +75,9 @@ const smallBrief: DemoBrief = {
 People who work night shifts often sleep badly during the day. This fictional analysis brings together 15 invented trials of five ways to help — bright-light sessions, a planned-nap schedule, two sleep aids and light sessions combined with naps — and compares each with usual care and with each other, even where no trial compared them directly.
 
 The groups below say which options the evidence supports and how sure we can be. They are not a ranking: options in the same group may not differ from each other at all.`,
-  shortTake: `- Light sessions combined with a nap schedule, and sleep aid K, probably help people sleep well: a large benefit compared with usual care (moderate certainty).
+  shortTake: `- Sleep aid K probably gives a large benefit for good sleep compared with usual care, and timed bright-light sessions probably a moderate one (moderate certainty).
 - The planned-nap schedule and sleep aid M **may** help a little, but the certainty is low.
+- For light sessions with nap schedule the evidence is very uncertain.
 - Scores that place options "first" or "last" are not proof: read the groups and the certainty instead.`,
   treatmentNames: {
     usual_care: "Usual care",
@@ -132,7 +133,8 @@ function largeBrief(): DemoBrief {
     laySummary: `*This brief uses invented data to show how Fairweigh presents a large network. No real study, person or product is described.*
 
 Twenty-one fictional compounds for an everyday tension headache are compared with an inactive tablet and with each other. With this many options, a list from "best" to "worst" would suggest differences that the evidence does not show. The groups below keep together the compounds that the evidence cannot tell apart.`,
-    shortTake: `- Every compound in this fictional network gives some benefit compared with the inactive tablet.
+    shortTake: `- Ten of the 21 fictional compounds probably give a large benefit compared with the inactive tablet; nine more may give a smaller one, with low certainty.
+- For compounds B and H the evidence is very uncertain.
 - Most compounds cannot be told apart from each other: they fall in the same group.
 - A compound's rank score can be high by chance; the groups and their certainty say more.`,
     treatmentNames: Object.fromEntries(labels.map((l) => [l, l === "inactive" ? "Inactive tablet" : `Compound ${l.slice(-1).toUpperCase()} (fictional)`])),

@@ -16,8 +16,9 @@ const sleep: Record<TranslationLocale, Texts> = {
 Quienes trabajan de noche suelen dormir mal durante el día. Este análisis ficticio reúne 15 ensayos inventados sobre cinco formas de ayudar —sesiones de luz intensa, un plan de siestas, dos ayudas para dormir y sesiones de luz combinadas con siestas— y compara cada una con la atención habitual y entre sí, incluso donde ningún ensayo las comparó directamente.
 
 Los grupos de abajo dicen qué opciones respalda la evidencia y con qué seguridad. No son una clasificación: las opciones de un mismo grupo pueden no diferir entre sí en absoluto.`,
-    shortTake: `- Las sesiones de luz combinadas con un plan de siestas, y la ayuda para dormir K, probablemente ayudan a dormir bien: un beneficio grande en comparación con la atención habitual (certeza moderada).
+    shortTake: `- La ayuda para dormir K probablemente da un beneficio grande para el buen sueño en comparación con la atención habitual, y las sesiones de luz brillante programadas probablemente uno moderado (certeza moderada).
 - El plan de siestas y la ayuda para dormir M **podrían** ayudar un poco, pero la certeza es baja.
+- Para las sesiones de luz con plan de siestas, la evidencia es muy incierta.
 - Las puntuaciones que ponen opciones «primeras» o «últimas» no son una prueba: lea los grupos y la certeza.`,
     "outcome:0": "Buen sueño la mayoría de los días a las 4 semanas",
     "outcomePhrase:0": "el buen sueño la mayoría de los días a las 4 semanas",
@@ -40,8 +41,9 @@ Los grupos de abajo dicen qué opciones respalda la evidencia y con qué segurid
 Les personnes qui travaillent de nuit dorment souvent mal le jour. Cette analyse fictive réunit 15 essais inventés portant sur cinq façons d’aider — des séances de lumière vive, un programme de siestes, deux aides au sommeil et des séances de lumière associées aux siestes — et compare chacune aux soins habituels et aux autres, même là où aucun essai ne les a comparées directement.
 
 Les groupes ci-dessous disent quelles options les données probantes soutiennent, et avec quelle certitude. Ce n’est pas un classement : des options d’un même groupe peuvent ne pas différer du tout.`,
-    shortTake: `- Les séances de lumière associées à un programme de siestes, et l’aide au sommeil K, aident probablement à bien dormir : un grand bénéfice par rapport aux soins habituels (certitude modérée).
+    shortTake: `- L’aide au sommeil K apporte probablement un grand bénéfice pour bien dormir par rapport aux soins habituels, et les séances de lumière vive programmées probablement un bénéfice modéré (certitude modérée).
 - Le programme de siestes et l’aide au sommeil M **pourraient** aider un peu, mais la certitude est faible.
+- Pour les séances de lumière avec programme de siestes, les données sont très incertaines.
 - Les scores qui placent des options « premières » ou « dernières » ne prouvent rien : lisez plutôt les groupes et la certitude.`,
     "outcome:0": "Bon sommeil la plupart des jours à 4 semaines",
     "outcomePhrase:0": "le bon sommeil la plupart des jours à 4 semaines",
@@ -64,8 +66,9 @@ Les groupes ci-dessous disent quelles options les données probantes soutiennent
 كثيرًا ما ينام العاملون في النوبات الليلية نومًا سيئًا في النهار. يجمع هذا التحليل الخيالي 15 تجربة مختلَقة لخمس طرق للمساعدة — جلسات الضوء الساطع، وجدول القيلولة، ومساعدان على النوم، وجلسات الضوء مع القيلولة — ويقارن كلًّا منها بالرعاية المعتادة وببعضها، حتى حيث لم تقارن أي تجربة بينها مباشرةً.
 
 تبيّن المجموعات أدناه الخيارات التي تدعمها الأدلة ومدى يقيننا. وهي ليست ترتيبًا: فقد لا تختلف الخيارات في المجموعة الواحدة عن بعضها إطلاقًا.`,
-    shortTake: `- يُحتمل أن تساعد جلسات الضوء مع جدول القيلولة، والمساعد على النوم K، على النوم الجيد: فائدة كبيرة مقارنةً بالرعاية المعتادة (يقين متوسط).
+    shortTake: `- يُحتمل أن يعطي المساعد على النوم K فائدة كبيرة للنوم الجيد مقارنةً بالرعاية المعتادة، وأن تعطي جلسات الضوء الساطع المجدولة فائدة متوسطة (يقين متوسط).
 - **قد** يساعد جدول القيلولة والمساعد على النوم M قليلًا، لكن اليقين منخفض.
+- أما جلسات الضوء مع جدول القيلولة، فالأدلة بشأنها غير مؤكدة إلى حد كبير.
 - الدرجات التي تضع خيارات «أولًا» أو «أخيرًا» ليست دليلًا: اقرأ المجموعات ودرجة اليقين بدلًا منها.`,
     "outcome:0": "نوم جيد في معظم الأيام بعد 4 أسابيع",
     "outcomePhrase:0": "النوم الجيد في معظم الأيام بعد 4 أسابيع",
@@ -95,7 +98,8 @@ const headache: Record<TranslationLocale, Texts> = {
     summary: `*Este resumen usa datos inventados para mostrar cómo presenta Fairweigh una red grande. No describe ningún estudio, persona ni producto reales.*
 
 Veintiún compuestos ficticios para una cefalea tensional corriente se comparan con un comprimido inactivo y entre sí. Con tantas opciones, una lista de «mejor» a «peor» sugeriría diferencias que la evidencia no muestra. Los grupos de abajo mantienen juntos los compuestos que la evidencia no puede distinguir.`,
-    shortTake: `- Todos los compuestos de esta red ficticia dan algún beneficio en comparación con el comprimido inactivo.
+    shortTake: `- Diez de los 21 compuestos ficticios probablemente dan un beneficio grande en comparación con el comprimido inactivo; otros nueve podrían dar uno menor, con certeza baja.
+- Para los compuestos B y H, la evidencia es muy incierta.
 - La mayoría de los compuestos no se pueden distinguir entre sí: caen en el mismo grupo.
 - La puntuación de clasificación de un compuesto puede ser alta por azar; los grupos y su certeza dicen más.`,
     "outcome:0": "Sin dolor dos horas después de una dosis",
@@ -110,7 +114,8 @@ Veintiún compuestos ficticios para una cefalea tensional corriente se comparan 
     summary: `*Cette synthèse utilise des données inventées pour montrer comment Fairweigh présente un grand réseau. Aucune étude, personne ou produit réels n’y sont décrits.*
 
 Vingt et un composés fictifs contre une céphalée de tension ordinaire sont comparés à un comprimé inactif et entre eux. Avec autant d’options, une liste du « meilleur » au « pire » suggérerait des différences que les données probantes ne montrent pas. Les groupes ci-dessous réunissent les composés que les données ne permettent pas de distinguer.`,
-    shortTake: `- Chaque composé de ce réseau fictif apporte un certain bénéfice par rapport au comprimé inactif.
+    shortTake: `- Dix des 21 composés fictifs apportent probablement un grand bénéfice par rapport au comprimé inactif ; neuf autres pourraient en apporter un moindre, avec une certitude faible.
+- Pour les composés B et H, les données sont très incertaines.
 - La plupart des composés ne peuvent pas être distingués les uns des autres : ils tombent dans le même groupe.
 - Le score de classement d’un composé peut être élevé par hasard ; les groupes et leur certitude en disent plus.`,
     "outcome:0": "Sans douleur deux heures après une dose",
@@ -125,7 +130,8 @@ Vingt et un composés fictifs contre une céphalée de tension ordinaire sont co
     summary: `*يستخدم هذا الملخص بيانات مختلَقة لبيان كيف يعرض Fairweigh شبكة كبيرة. ولا يصف أي دراسة أو شخص أو منتج حقيقي.*
 
 يُقارَن واحد وعشرون مركّبًا خياليًا لصداع التوتر اليومي بقرص غير فعّال وببعضها. ومع هذا العدد من الخيارات، توحي قائمة من «الأفضل» إلى «الأسوأ» بفروق لا تُظهرها الأدلة. وتجمع المجموعات أدناه المركّبات التي لا تستطيع الأدلة التمييز بينها.`,
-    shortTake: `- كل مركّب في هذه الشبكة الخيالية يعطي بعض الفائدة مقارنةً بالقرص غير الفعّال.
+    shortTake: `- يُحتمل أن تعطي عشرة من المركّبات الخيالية الـ21 فائدة كبيرة مقارنةً بالقرص غير الفعّال؛ وقد تعطي تسعة أخرى فائدة أصغر، بيقين منخفض.
+- أما المركّبان B وH، فالأدلة بشأنهما غير مؤكدة إلى حد كبير.
 - لا يمكن التمييز بين معظم المركّبات: فهي تقع في المجموعة نفسها.
 - قد تكون درجة ترتيب مركّب ما مرتفعة بالصدفة؛ والمجموعات ودرجة يقينها أبلغ دلالة.`,
     "outcome:0": "الخلو من الألم بعد ساعتين من جرعة واحدة",

@@ -1,20 +1,24 @@
 // The publish-readiness checklist of a draft (server/core/readiness.ts) from what is stored now.
+import { concludeOutcome } from "#core/grade/conclusions";
 import type { AnalysisResult } from "#core/nma/analyse";
 import { readinessOf, type Readiness } from "#core/readiness";
 import { latestResult } from "#db/analyses";
 import { briefWithOutcomes } from "#db/briefs";
 import type { Database } from "#db/client";
-import { outcomeCertainty } from "./certainty";
+import { outcomeCertainty, thresholdsOf } from "./certainty";
 
 /** Null when there is no such brief. */
 export async function briefReadiness(db: Database, briefId: string): Promise<Readiness | null> {
   const brief = await briefWithOutcomes(db, briefId);
   if (!brief) return null;
+  const names = Object.fromEntries(brief.treatments.map((t) => [t.label, t.displayName]));
   const outcomes = [];
   for (const outcome of brief.outcomes) {
     const current = outcome.analysis.state === "current";
     const result = current ? ((await latestResult(db, outcome.id))?.result as AnalysisResult | undefined) ?? null : null;
-    outcomes.push({ name: outcome.name, current, result, certainty: result ? await outcomeCertainty(db, outcome, result) : null });
+    const certainty = result ? await outcomeCertainty(db, outcome, result) : null;
+    const groups = result && certainty ? concludeOutcome(result, certainty, { name: outcome.name, baselineRisk: outcome.baselineRisk, thresholds: thresholdsOf(outcome), names }).groups : null;
+    outcomes.push({ name: outcome.name, current, result, certainty, groups });
   }
   if (outcomes.length === 0) outcomes.push({ name: "—", current: false, result: null, certainty: null });
   return readinessOf({ laySummary: brief.laySummary, shortTake: brief.shortTake, outcomes, treatments: brief.treatments });

@@ -16,7 +16,8 @@ export type ReviewOutcome =
 
 /**
  * An approval vouches for a draft that is ready (server/core/readiness.ts): every blocking item is
- * refused with the list, and the approving editor acknowledges the warnings.
+ * refused with the list, and the approving editor acknowledges the warnings — those about the texts'
+ * claims (server/core/claims.ts) with a reason, given as the review's comment.
  */
 export async function reviewBrief(db: Database, briefId: string, step: { decision: ReviewDecision; comment?: string; acknowledgeWarnings?: boolean }, actorId: string): Promise<ReviewOutcome> {
   const readiness = step.decision === "approved" ? await briefReadiness(db, briefId) : null;
@@ -33,6 +34,11 @@ export async function reviewBrief(db: Database, briefId: string, step: { decisio
     if (readiness && readiness.blocking.length > 0) return { ok: false, reason: "not-ready", detail: "the draft is not ready to approve", items: readiness.blocking };
     if (readiness && readiness.warnings.length > 0 && !step.acknowledgeWarnings) {
       return { ok: false, reason: "warnings", detail: "acknowledge the warnings before approving", items: readiness.warnings };
+    }
+    // A text that says more than the findings is approved only with the editor's reason, kept with the review.
+    const claims = readiness?.warnings.filter((w) => w.key.startsWith("readiness.claim.")) ?? [];
+    if (claims.length > 0 && !comment) {
+      return { ok: false, reason: "warnings", detail: "the texts' claims that differ from the findings need a reason in the comment", items: claims };
     }
     const status = statusAfterReview(step.decision);
     await insertReviewStep(tx, { briefId, decision: step.decision, comment, contentSha256: checksum, actorId });

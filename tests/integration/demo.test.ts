@@ -5,6 +5,7 @@ import { demoBriefs } from "#workflows/demo-briefs";
 import { slugify } from "#core/slug";
 import { snapshotSchemaVersion } from "#core/snapshot/schema";
 import { readSnapshot } from "#core/snapshot/upgrade";
+import { briefReadiness } from "#workflows/readiness";
 import { startTestApp, type TestApp } from "../support/app";
 
 let app: TestApp;
@@ -42,6 +43,16 @@ describe("the fictional demo briefs", () => {
     const snapshot = await snapshotOf(large!.title);
     expect(snapshot.outcomes[0]!.result.treatments.length).toBeGreaterThanOrEqual(20);
     expect(new Set(snapshot.outcomes[0]!.groups.map((g) => g.level)).size).toBeGreaterThan(1);
+  });
+});
+
+describe("the demo briefs' texts", () => {
+  it("claim nothing their findings do not show: no readiness warning about the texts", async () => {
+    for (const demo of demoBriefs()) {
+      const { rows } = await app.connection.pool.query<{ id: string }>("select id from briefs where slug = $1", [slugify(demo.title)]);
+      const readiness = await briefReadiness(app.connection.db, rows[0]!.id);
+      expect(readiness!.warnings.filter((w) => w.key.startsWith("readiness.claim.")), demo.title).toEqual([]);
+    }
   });
 });
 

@@ -51,6 +51,28 @@ describe("the readiness checklist", () => {
   });
 });
 
+describe("the editor's texts against the findings", () => {
+  it("warns of a short take that overclaims, and approves it only with the editor's reason", async () => {
+    const { briefId } = await analysedBrief(clients.analyst!, "Overclaiming short take");
+    const editor = clients.editor!;
+    const rowVersion = ((await editor.request("GET", `/api/briefs/${briefId}`)).body.brief as { rowVersion: number }).rowVersion;
+    const shortTake = "Individual counselling is the best option: it ranked first, with the highest SUCRA.";
+    expect((await editor.request("PATCH", `/api/briefs/${briefId}`, { json: { rowVersion, shortTake } })).status).toBe(200);
+    const readiness = await editor.request("GET", `/api/briefs/${briefId}/readiness`);
+    expect(readiness.body.warnings).toContainEqual({ key: "readiness.claim.rank", values: { field: "shortTake", sentence: shortTake, treatment: "Individual counselling", word: "best" } });
+
+    expect((await submit(briefId)).status).toBe(201);
+    const withoutReason = await approveAs(briefId, true);
+    expect(withoutReason.status).toBe(409);
+    expect(withoutReason.body.error?.key).toBe("errors.review.warnings");
+    expect((withoutReason.body.error?.details as { key: string }[]).map((d) => d.key)).toEqual(["readiness.claim.rank"]);
+    const withReason = await editor.request("POST", `/api/briefs/${briefId}/reviews`, {
+      json: { decision: "approved", acknowledgeWarnings: true, comment: "Kept for the test: the sentence is quoted as an example of what not to write." },
+    });
+    expect(withReason.status).toBe(201);
+  });
+});
+
 describe("judgements and changed suggestions", () => {
   it("a judgement that followed a suggestion goes back to pending when the suggestion changes", async () => {
     const { briefId, outcomeId } = await analysedBrief(clients.analyst!, "Changed suggestions");

@@ -121,10 +121,7 @@ export function assessCertainty(result: AnalysisResult, judgements: Map<string, 
     if (!incoherence) pending.push("incoherence");
     if (!imprecision) pending.push("imprecision");
 
-    // The network's certainty is the higher of the two it combines: both must be known first, unless
-    // the analyst says one of them dominates the estimate (then the other is not needed).
-    const unknown = pending.filter((part) => !(part === "indirect" && judgement.dominant === "direct") && !(part === "direct" && judgement.dominant === "indirect"));
-    const network = unknown.length === 0 && incoherence && imprecision ? networkCertainty({ direct, indirect, dominant: judgement.dominant, incoherence, imprecision }) : null;
+    const network = incoherence && imprecision ? networkCertainty({ direct, indirect, dominant: judgement.dominant, incoherence, imprecision }) : null;
     return { treatment: a, comparator: b, direct, indirect, indirectVia, network, suggestions, judgement, pending };
   });
 }

@@ -82,7 +82,7 @@ export function groupLabel(group: TreatmentGroup, framework: Framework, extremes
   const values = { reference: reference.name };
   if (group.firmness === "very-uncertain") return { key: "groups.veryUncertain", values };
   if (group.firmness === "not-assessed") return { key: "groups.notAssessed", values };
-  const firmness = group.firmness === "firm" && hedged && group.level !== 0 && framework === "minimal" ? "probably" : group.firmness;
+  const firmness = group.firmness === "firm" && hedged && group.level !== 0 ? "probably" : group.firmness;
   if (group.treatments.length === 1 && group.treatments[0] === reference.label) return { key: "groups.referenceOnly", values };
   if (framework === "partial") {
     if (group.level === 0) return { key: `groups.partial.trivial.${firmness}`, values };

@@ -100,7 +100,7 @@ function upgrade4to5(snapshot: Stored): Stored {
  * includes the null was frozen as "trivial" and read "little to no difference", which claims a trivial
  * effect that no threshold defines (METHODS.md §10). The fact frozen is the same; it now reads "does
  * not show a clear difference". A group placed away from the reference with a member of moderate
- * certainty against it reads "probably", as new versions do. How each certainty was reached (§8
+ * certainty against it reads "probably", as new versions do (with or without thresholds). How each certainty was reached (§8
  * step 5) was not stored: it reads as not known.
  */
 function upgrade5to6(snapshot: Stored): Stored {
@@ -110,12 +110,12 @@ function upgrade5to6(snapshot: Stored): Stored {
   const outcomes = (snapshot.outcomes as unknown as Outcome[]).map((stored) => {
     // How each certainty was reached was not stored then: the page shows the footnotes alone.
     const outcome = { ...stored, pairs: stored.pairs.map((pair) => ({ path: null, ...pair })) };
-    if (outcome.framework !== "minimal") return outcome;
     const moderate = new Set(outcome.readings.filter((r) => r.comparator === outcome.methods.reference && r.certainty === "moderate").map((r) => r.treatment));
+    const minimal = outcome.framework === "minimal";
     return {
       ...outcome,
       readings: outcome.readings.map((reading) =>
-        reading.magnitude !== "trivial"
+        !minimal || reading.magnitude !== "trivial"
           ? reading
           : { ...reading, magnitude: "unclear", statement: reading.statement && { ...reading.statement, key: reading.statement.key.replace(/\.trivial$/, ".unclear") } },
       ),

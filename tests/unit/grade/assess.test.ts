@@ -58,15 +58,6 @@ describe("pairs that no trial compared (METHODS.md §8 step 4)", () => {
     const deltaEpsilon = after.find((c) => key(c.treatment, c.comparator) === "delta|epsilon")!;
     expect(deltaEpsilon.indirect).toBe("low");
   });
-
-  it("never let a network certainty stand on one source while the other is still unjudged", () => {
-    // Alpha–beta has direct evidence and a loop through placebo; with alpha–beta's own trial unjudged, nothing is rated.
-    const judgements = judge();
-    judgements.set(pairKey("alpha", "beta"), { ...judgements.get(pairKey("alpha", "beta"))!, direct: undefined });
-    const alphaBeta = assessCertainty(result, judgements, thresholds).find((c) => key(c.treatment, c.comparator) === "alpha|beta")!;
-    expect(alphaBeta.pending).toEqual(["direct"]);
-    expect(alphaBeta.network).toBeNull();
-  });
 });
 
 describe("the path a reader can add up (METHODS.md §8 step 5)", () => {
