@@ -49,7 +49,7 @@ export function BriefScreen({ personId, canAnalyse, canEdit }: { personId: strin
           treatments={data.treatments}
           busy={nameTreatments.isPending}
           saved={nameTreatments.isSuccess}
-          onSave={(names) => nameTreatments.mutate(names)}
+          onSave={(names, grammar) => nameTreatments.mutate({ names, grammar })}
         />
       ) : null}
       <ReleasePanel brief={data} personId={personId} canEdit={canEdit} canSubmit={canAnalyse || canEdit} />

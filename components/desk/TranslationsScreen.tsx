@@ -1,6 +1,7 @@
 // The translation desk: the queue of versions per language, and one version's texts in one language
 // beside their source, with a preview of the Markdown and, where a source changed since it was
 // translated, what changed. Translators save and mark ready; editors also publish.
+import { grammarChoices } from "#core/translation";
 import { useState } from "react";
 import { useTranslation as useWords } from "react-i18next";
 import { Link, useParams } from "react-router";
@@ -60,8 +61,11 @@ function EditorForm({ translation, canPublish }: { translation: Translation; can
   const locale = translation.locale as Locale;
   const fieldLabel = (name: string) => {
     const [kind, which] = name.split(":");
-    return which === undefined ? t(`desk.translations.field.${kind}`) : t(`desk.translations.field.${kind}`, { name: translation.fields.find((f) => f.name === name)?.text ?? which });
+    // A treatment's phrase and grammar are named after the treatment itself.
+    const about = kind === "treatmentPhrase" || kind === "treatmentGrammar" ? `treatment:${which}` : name;
+    return which === undefined ? t(`desk.translations.field.${kind}`) : t(`desk.translations.field.${kind}`, { name: translation.fields.find((f) => f.name === about)?.text ?? which });
   };
+  const grammarWords = (choice: string) => t(`desk.translations.grammar.${choice.replace(/ (\w)/, (_, c: string) => c.toUpperCase())}`);
   const save = (form: HTMLFormElement) => {
     const data = new FormData(form);
     const fields = Object.fromEntries(translation.fields.map((field) => [field.name, String(data.get(field.name) ?? "")]));
@@ -92,7 +96,11 @@ function EditorForm({ translation, canPublish }: { translation: Translation; can
             <legend className="font-sans text-sm font-semibold">{fieldLabel(field.name)}</legend>
             <div>
               <p className="font-sans text-xs uppercase tracking-wide text-muted">{t("desk.translations.source")}</p>
-              {field.html ? <div lang="en" className="prose-brief mt-1" dangerouslySetInnerHTML={{ __html: field.html }} /> : <p lang="en" className="mt-1">{field.text}</p>}
+              {field.html ? (
+                <div lang="en" className="prose-brief mt-1" dangerouslySetInnerHTML={{ __html: field.html }} />
+              ) : (
+                <p lang="en" className="mt-1">{field.kind === "grammar" ? t(`desk.number.${field.text}`) : field.text}</p>
+              )}
               {field.stale && field.diff ? (
                 <div role="note" className="mt-3 border-s-4 border-accent ps-3 font-sans text-sm" data-testid="source-changed">
                   <p className="font-semibold">{t("desk.translations.sourceChanged")}</p>
@@ -120,6 +128,13 @@ function EditorForm({ translation, canPublish }: { translation: Translation; can
                       setDrafts((all) => ({ ...all, [field.name]: value }));
                     }}
                   />
+                ) : field.kind === "grammar" ? (
+                  <select name={field.name} defaultValue={field.target} className={`${inputClass} mt-1`}>
+                    <option value="">{t("desk.translations.grammar.default")}</option>
+                    {grammarChoices.map((choice) => (
+                      <option key={choice} value={choice}>{grammarWords(choice)}</option>
+                    ))}
+                  </select>
                 ) : (
                   <input name={field.name} lang={locale} dir={textDirection(locale)} defaultValue={field.target} className={`${inputClass} mt-1`} />
                 )}

@@ -7,8 +7,8 @@ export function TreatmentNamesForm({
   busy,
   saved,
 }: {
-  treatments: { label: string; displayName: string }[];
-  onSave: (names: Record<string, string>) => void;
+  treatments: { label: string; displayName: string; phrase?: string | null; number?: "singular" | "plural" }[];
+  onSave: (names: Record<string, string>, grammar: Record<string, { phrase: string | null; number: "singular" | "plural" }>) => void;
   busy: boolean;
   saved: boolean;
 }) {
@@ -23,14 +23,21 @@ export function TreatmentNamesForm({
         onSubmit={(event) => {
           event.preventDefault();
           const data = new FormData(event.currentTarget);
-          onSave(Object.fromEntries(treatments.map((tr) => [tr.label, String(data.get(tr.label) ?? "").trim() || tr.label])));
+          onSave(
+            Object.fromEntries(treatments.map((tr) => [tr.label, String(data.get(tr.label) ?? "").trim() || tr.label])),
+            Object.fromEntries(
+              treatments.map((tr) => [tr.label, { phrase: String(data.get(`${tr.label}.phrase`) ?? "").trim() || null, number: data.get(`${tr.label}.number`) === "plural" ? "plural" : "singular" }]),
+            ),
+          );
         }}
       >
-        <table className="w-full max-w-xl text-sm">
+        <table className="w-full max-w-3xl text-sm">
           <thead>
             <tr>
               <th scope="col" className="py-1 text-start">{t("desk.label")}</th>
               <th scope="col" className="py-1 text-start">{t("desk.displayName")}</th>
+              <th scope="col" className="py-1 text-start">{t("desk.phrase")}</th>
+              <th scope="col" className="py-1 text-start">{t("desk.grammaticalNumber")}</th>
             </tr>
           </thead>
           <tbody>
@@ -39,6 +46,15 @@ export function TreatmentNamesForm({
                 <td className="py-1 pe-4 font-mono">{tr.label}</td>
                 <td className="py-1">
                   <input name={tr.label} defaultValue={tr.displayName} aria-label={`${t("desk.displayName")}: ${tr.label}`} className={inputClass} />
+                </td>
+                <td className="py-1 ps-2">
+                  <input name={`${tr.label}.phrase`} defaultValue={tr.phrase ?? ""} placeholder={t("desk.phraseHint")} aria-label={`${t("desk.phrase")}: ${tr.label}`} className={inputClass} />
+                </td>
+                <td className="py-1 ps-2">
+                  <select name={`${tr.label}.number`} defaultValue={tr.number ?? "singular"} aria-label={`${t("desk.grammaticalNumber")}: ${tr.label}`} className={inputClass}>
+                    <option value="singular">{t("desk.number.singular")}</option>
+                    <option value="plural">{t("desk.number.plural")}</option>
+                  </select>
                 </td>
               </tr>
             ))}

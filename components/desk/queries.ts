@@ -183,7 +183,8 @@ export function useSaveJudgements(outcomeId: string) {
 export function useNameTreatments(briefId: string) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (names: Record<string, string>) => callApi<ApiAnswers["treatments"]>("PUT", `/api/briefs/${briefId}/treatments`, { names }),
+    mutationFn: (body: { names: Record<string, string>; grammar: Record<string, { phrase: string | null; number: "singular" | "plural" }> }) =>
+      callApi<ApiAnswers["treatments"]>("PUT", `/api/briefs/${briefId}/treatments`, body),
     onSuccess: () => queryClient.invalidateQueries({ queryKey: queryKeys.brief(briefId) }),
   });
 }

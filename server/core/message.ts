@@ -2,6 +2,8 @@
 // language: the same words for the pages (components/Message.tsx) and for what the server writes
 // itself (the embedded card, the share image).
 import type { TFunction } from "i18next";
+import { joinParts } from "./grammar";
+import type { Locale } from "./locales";
 
 export type MessageValues = Record<string, string | number>;
 
@@ -18,5 +20,24 @@ export function localisedValues(t: TFunction, values: MessageValues): MessageVal
   );
 }
 
-/** The message as plain text (an aria-label, a title, a card), its values said in the reader's language. */
-export const messageText = (t: TFunction, message: { key: string; values: MessageValues }) => String(t(message.key, localisedValues(t, message.values)));
+const mark = (index: number) => `\u2063${index}\u2063`;
+const marked = /\u2063(\d+)\u2063/;
+
+/**
+ * The message as parts, template text and the names it holds, each name kept apart (the pages isolate
+ * it for bidirectional text), contracted and capitalised as the language wants (./grammar.ts).
+ * `context` is the template's agreement, not a name.
+ */
+export function messageParts(t: TFunction, locale: Locale, message: { key: string; values: MessageValues }): { text: string; name: boolean }[] {
+  const names: string[] = [];
+  const values = localisedValues(t, message.values);
+  const withMarks = Object.fromEntries(Object.entries(values).map(([name, value]) => [name, typeof value === "string" && name !== "context" ? mark(names.push(value) - 1) : value]));
+  const parts = String(t(message.key, withMarks)).split(marked);
+  return joinParts(locale, parts.map((part, i) => (i % 2 === 1 ? { text: names[Number(part)]!, name: true } : { text: part, name: false })));
+}
+
+/** The message as plain text (an aria-label, a title, a card). */
+export const messageText = (t: TFunction, locale: Locale, message: { key: string; values: MessageValues }) =>
+  messageParts(t, locale, message)
+    .map((part) => part.text)
+    .join("");

@@ -4,11 +4,13 @@
 // Pure: the frozen snapshot is read, never changed; the translated copy is made for one page.
 import { createHash } from "node:crypto";
 import { diffWords } from "diff";
+import { genders, grammaticalNumbers, inSentence, type Gender, type GrammaticalNumber, type TreatmentGrammar } from "./grammar";
+import type { Locale } from "./locales";
 import { renderMarkdown, textOf } from "./markdown";
 import type { VersionSnapshot } from "./snapshot/schema";
 
-/** How a field is written: one line, or Markdown (shown to readers as sanitised HTML). */
-export type FieldKind = "line" | "markdown";
+/** How a field is written: one line, Markdown (shown to readers as sanitised HTML), or a treatment's grammar (a choice). */
+export type FieldKind = "line" | "markdown" | "grammar";
 
 export interface SourceField {
   /** "title", "summary", "treatment:<label>", "outcome:<index>"… */
@@ -18,6 +20,8 @@ export interface SourceField {
   text: string;
   /** For Markdown fields, the source as readers see it. */
   html: string | null;
+  /** May stay empty when the translation is marked ready: the default reads correctly (a treatment's phrase and grammar). */
+  optional?: boolean;
 }
 
 /** A translated field as stored: the target, and the source it was translated from. */
@@ -49,7 +53,12 @@ export function sourceFields(snapshot: VersionSnapshot): SourceField[] {
       const phrase = statementPhrase(outcome);
       return [line(`outcome:${index}`, outcome.name), ...(phrase ? [line(`outcomePhrase:${index}`, phrase)] : [])];
     }),
-    ...snapshot.treatments.map((treatment) => line(`treatment:${treatment.label}`, treatment.displayName)),
+    ...snapshot.treatments.flatMap((treatment): SourceField[] => [
+      line(`treatment:${treatment.label}`, treatment.displayName),
+      // How a sentence of the language names it (with its article: "les soins habituels"), and its gender and number.
+      { ...line(`treatmentPhrase:${treatment.label}`, treatment.phrase ?? inSentence(treatment.displayName, "en")), optional: true },
+      { name: `treatmentGrammar:${treatment.label}`, kind: "grammar", text: treatment.number ?? "singular", html: null, optional: true },
+    ]),
   ].filter((field) => field.text.trim() !== "");
 }
 
@@ -83,9 +92,40 @@ export function fieldViews(sources: SourceField[], stored: StoredFields): FieldV
   });
 }
 
-/** Why a translation cannot be marked ready: fields left empty, and fields whose source changed. */
+/** Why a translation cannot be marked ready: fields left empty, and fields whose source changed (an optional one only once filled in). */
 export function unfinished(views: FieldView[]): { empty: string[]; stale: string[] } {
-  return { empty: views.filter((v) => v.target.trim() === "").map((v) => v.name), stale: views.filter((v) => v.stale).map((v) => v.name) };
+  return {
+    empty: views.filter((v) => !v.optional && v.target.trim() === "").map((v) => v.name),
+    stale: views.filter((v) => v.stale && (!v.optional || v.target.trim() !== "")).map((v) => v.name),
+  };
+}
+
+/** A translator's choice of gender and number, as the grammar field stores it ("feminine plural"). */
+export const grammarChoices = genders.flatMap((gender) => grammaticalNumbers.map((number) => `${gender} ${number}`));
+
+/**
+ * Each treatment's grammar for the words of `locale`: the translator's phrase and choice where the
+ * translation gives them, else the display name inside a sentence, the source's number, masculine.
+ */
+export function versionGrammar(snapshot: VersionSnapshot, locale: Locale, published: PublishedFields | null): (label: string) => TreatmentGrammar {
+  const given = (name: string) => published?.[name]?.trim() || null;
+  const byLabel = new Map(
+    snapshot.treatments.map((treatment) => {
+      const number = treatment.number ?? "singular";
+      if (!published) return [treatment.label, { phrase: treatment.phrase ?? inSentence(treatment.displayName, "en"), number, gender: "masculine" }] as const;
+      const name = given(`treatment:${treatment.label}`) ?? treatment.displayName;
+      const [gender, chosenNumber] = (given(`treatmentGrammar:${treatment.label}`) ?? "").split(" ") as [Gender | undefined, GrammaticalNumber | undefined];
+      return [
+        treatment.label,
+        {
+          phrase: given(`treatmentPhrase:${treatment.label}`) ?? inSentence(name, locale),
+          number: chosenNumber && grammaticalNumbers.includes(chosenNumber) ? chosenNumber : number,
+          gender: gender && genders.includes(gender) ? gender : "masculine",
+        },
+      ] as const;
+    }),
+  );
+  return (label) => byLabel.get(label) ?? { phrase: label, number: "singular", gender: "masculine" };
 }
 
 /** The stored fields after a save: each target with the source it now translates. */

@@ -70,25 +70,33 @@ export async function briefWithOutcomes(db: Database, id: string) {
   const withStatus = await Promise.all(rows.map(async (outcome) => ({ ...outcome, analysis: await analysisStatus(db, outcome) })));
   const labels = new Set<string>();
   for (const outcome of rows) for (const label of await latestTreatments(db, outcome.id)) labels.add(label);
-  const named = new Map((await db.select().from(treatmentNames).where(eq(treatmentNames.briefId, id))).map((r) => [r.label, r.displayName]));
-  const treatments = [...labels].sort().map((label) => ({ label, displayName: named.get(label) ?? label, named: named.has(label) }));
+  const named = new Map((await db.select().from(treatmentNames).where(eq(treatmentNames.briefId, id))).map((r) => [r.label, r]));
+  const treatments = [...labels].sort().map((label) => {
+    const row = named.get(label);
+    return { label, displayName: row?.displayName ?? label, named: row !== undefined, phrase: row?.phrase ?? null, number: row?.number ?? ("singular" as const) };
+  });
   const [latest] = await db.select({ number: briefVersions.number, releaseAt: briefVersions.releaseAt }).from(briefVersions).where(eq(briefVersions.briefId, id)).orderBy(desc(briefVersions.number)).limit(1);
   // The newest version's release time while it is still embargoed: the desk shows it and may move it.
   const embargoedUntil = latest && latest.releaseAt.getTime() > Date.now() ? latest.releaseAt : null;
   return { ...brief, outcomes: withStatus, treatments, latestVersion: latest?.number ?? 0, embargoedUntil };
 }
 
+/** How a sentence names a treatment and its number (server/core/grammar.ts); left out, they stay as they were. */
+export type TreatmentGrammarInput = Record<string, { phrase?: string | null; number?: "singular" | "plural" }>;
+
 /** Sets the names readers see for treatment labels of the data; an empty name falls back to the label. */
-export async function nameTreatments(db: Database, briefId: string, names: Record<string, string>, actorId: string): Promise<void> {
+export async function nameTreatments(db: Database, briefId: string, names: Record<string, string>, actorId: string, grammar: TreatmentGrammarInput = {}): Promise<void> {
   await db.transaction(async (tx) => {
     const before = await tx.select().from(treatmentNames).where(eq(treatmentNames.briefId, briefId));
     for (const [label, displayName] of Object.entries(names)) {
+      const given = grammar[label] ?? {};
+      const set = { displayName, ...(given.phrase !== undefined ? { phrase: given.phrase?.trim() || null } : {}), ...(given.number ? { number: given.number } : {}) };
       await tx
         .insert(treatmentNames)
-        .values({ briefId, label, displayName })
-        .onConflictDoUpdate({ target: [treatmentNames.briefId, treatmentNames.label], set: { displayName } });
+        .values({ briefId, label, ...set })
+        .onConflictDoUpdate({ target: [treatmentNames.briefId, treatmentNames.label], set });
     }
-    await recordAudit(tx, { actorId, action: "name-treatments", entity: "brief", entityId: briefId, before, after: names });
+    await recordAudit(tx, { actorId, action: "name-treatments", entity: "brief", entityId: briefId, before, after: { names, grammar } });
   });
 }
 

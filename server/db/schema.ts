@@ -176,8 +176,12 @@ export const treatmentNames = pgTable(
       .references(() => briefs.id),
     label: text("label").notNull(),
     displayName: text("display_name").notNull(),
+    /** How an English sentence names it ("usual care"); null: the display name, in lower case where it starts as a word (server/core/grammar.ts). */
+    phrase: text("phrase"),
+    /** Grammatical number, for the verb of a statement ("sessions … increase"). */
+    number: text("number", { enum: ["singular", "plural"] }).notNull().default("singular"),
   },
-  (table) => [primaryKey({ columns: [table.briefId, table.label] })],
+  (table) => [primaryKey({ columns: [table.briefId, table.label] }), check("treatment_names_number", sql`${table.number} in ('singular', 'plural')`)],
 );
 
 export const outcomes = pgTable("outcomes", {

@@ -1,7 +1,8 @@
 // Translations of released versions, one row per version and language (schema: versionTranslations).
 import { and, desc, eq, inArray, isNull, lt, sql } from "drizzle-orm";
 import { isTranslationLocale, type Locale, type TranslationLocale } from "#core/locales";
-import { translatedSnapshot, translatedTopic, type PublishedFields, type StoredFields } from "#core/translation";
+import { grammaticalSnapshot } from "#core/grammar";
+import { translatedSnapshot, translatedTopic, versionGrammar, type PublishedFields, type StoredFields } from "#core/translation";
 import type { VersionSnapshot } from "#core/snapshot/schema";
 import { readSnapshot } from "#core/snapshot/upgrade";
 import type { Database, Executor } from "./client";
@@ -104,11 +105,13 @@ export async function publishedTranslation(db: Database, versionId: string, loca
  * The generated words (statements, groups, cautions) come from locales/, not from here.
  */
 export async function inLanguage(db: Database, versionId: string, original: VersionSnapshot, locale: Locale) {
-  if (!isTranslationLocale(locale)) return { snapshot: original, topic: original.brief.topic, translation: null };
+  // Statements and group labels name treatments as a sentence of the language does (server/core/grammar.ts).
+  const source = grammaticalSnapshot(original, locale, versionGrammar(original, locale, null));
+  if (!isTranslationLocale(locale)) return { snapshot: source, topic: original.brief.topic, translation: null };
   const published = await publishedTranslation(db, versionId, locale);
-  if (!published) return { snapshot: original, topic: original.brief.topic, translation: { locale, publishedAt: null } };
+  if (!published) return { snapshot: source, topic: original.brief.topic, translation: { locale, publishedAt: null } };
   return {
-    snapshot: translatedSnapshot(original, published.fields),
+    snapshot: grammaticalSnapshot(translatedSnapshot(original, published.fields), locale, versionGrammar(original, locale, published.fields)),
     topic: translatedTopic(original, published.fields),
     translation: { locale, publishedAt: published.publishedAt as string | null },
   };

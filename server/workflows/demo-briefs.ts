@@ -25,6 +25,8 @@ export interface DemoBrief {
   laySummary: string;
   shortTake: string;
   treatmentNames: Record<string, string>;
+  /** How an English sentence names a treatment, where the display name alone would not read well. */
+  treatmentGrammar?: Record<string, { phrase?: string; number?: "singular" | "plural" }>;
   outcomes: DemoOutcome[];
 }
 
@@ -87,6 +89,14 @@ The groups below say which options the evidence supports and how sure we can be.
     drug_m: "Sleep aid M (fictional)",
     combined: "Light sessions with nap schedule",
   },
+  treatmentGrammar: {
+    usual_care: { phrase: "usual care" },
+    light: { phrase: "timed bright-light sessions", number: "plural" },
+    nap_plan: { phrase: "the planned-nap schedule" },
+    drug_k: { phrase: "sleep aid K" },
+    drug_m: { phrase: "sleep aid M" },
+    combined: { phrase: "light sessions with a nap schedule", number: "plural" },
+  },
   outcomes: [
     {
       name: "Good sleep on most days at 4 weeks",
@@ -138,6 +148,7 @@ Twenty-one fictional compounds for an everyday tension headache are compared wit
 - Most compounds cannot be told apart from each other: they fall in the same group.
 - A compound's rank score can be high by chance; the groups and their certainty say more.`,
     treatmentNames: Object.fromEntries(labels.map((l) => [l, l === "inactive" ? "Inactive tablet" : `Compound ${l.slice(-1).toUpperCase()} (fictional)`])),
+    treatmentGrammar: { inactive: { phrase: "the inactive tablet" }, ...Object.fromEntries(labels.slice(1).map((l) => [l, { phrase: `compound ${l.slice(-1).toUpperCase()}` }])) },
     outcomes: [
       {
         name: "Free of pain two hours after one dose",

@@ -30,6 +30,14 @@ Los grupos de abajo dicen qué opciones respalda la evidencia y con qué segurid
     "treatment:drug_k": "Ayuda para dormir K (ficticia)",
     "treatment:drug_m": "Ayuda para dormir M (ficticia)",
     "treatment:combined": "Sesiones de luz con plan de siestas",
+    ...grammar({
+      usual_care: ["la atención habitual", "feminine singular"],
+      light: ["las sesiones de luz intensa programadas", "feminine plural"],
+      nap_plan: ["el plan de siestas", "masculine singular"],
+      drug_k: ["la ayuda para dormir K", "feminine singular"],
+      drug_m: ["la ayuda para dormir M", "feminine singular"],
+      combined: ["las sesiones de luz con plan de siestas", "feminine plural"],
+    }),
   },
   fr: {
     topic: "Sommeil",
@@ -55,6 +63,14 @@ Les groupes ci-dessous disent quelles options les données probantes soutiennent
     "treatment:drug_k": "Aide au sommeil K (fictive)",
     "treatment:drug_m": "Aide au sommeil M (fictive)",
     "treatment:combined": "Séances de lumière avec programme de siestes",
+    ...grammar({
+      usual_care: ["les soins habituels", "masculine plural"],
+      light: ["les séances de lumière vive programmées", "feminine plural"],
+      nap_plan: ["le programme de siestes", "masculine singular"],
+      drug_k: ["l’aide au sommeil K", "feminine singular"],
+      drug_m: ["l’aide au sommeil M", "feminine singular"],
+      combined: ["les séances de lumière avec programme de siestes", "feminine plural"],
+    }),
   },
   ar: {
     topic: "النوم",
@@ -80,13 +96,30 @@ Les groupes ci-dessous disent quelles options les données probantes soutiennent
     "treatment:drug_k": "المساعد على النوم K (خيالي)",
     "treatment:drug_m": "المساعد على النوم M (خيالي)",
     "treatment:combined": "جلسات الضوء مع جدول القيلولة",
+    ...grammar({
+      usual_care: ["الرعاية المعتادة", "feminine singular"],
+      light: ["جلسات الضوء الساطع في مواعيد محددة", "feminine plural"],
+      nap_plan: ["جدول القيلولة", "masculine singular"],
+      drug_k: ["المساعد على النوم K", "masculine singular"],
+      drug_m: ["المساعد على النوم M", "masculine singular"],
+      combined: ["جلسات الضوء مع جدول القيلولة", "feminine plural"],
+    }),
   },
 };
 
-/** The 21 fictional compounds and the inactive tablet, named in each language. */
-function compounds(name: (letter: string) => string, inactive: string): Texts {
+/** How a sentence of the language names each treatment, and its gender and number (server/core/grammar.ts). */
+function grammar(byLabel: Record<string, [phrase: string, genderAndNumber: string]>): Texts {
+  return Object.fromEntries(Object.entries(byLabel).flatMap(([label, [phrase, choice]]) => [[`treatmentPhrase:${label}`, phrase], [`treatmentGrammar:${label}`, choice]]));
+}
+
+/** The 21 fictional compounds and the inactive tablet, named in each language, with their phrases inside a sentence. */
+function compounds(name: (letter: string) => string, inactive: string, phrase: (letter: string) => string, inactivePhrase: string, gender: string): Texts {
   const letters = Array.from({ length: 21 }, (_, i) => String.fromCharCode(97 + i));
-  return { "treatment:inactive": inactive, ...Object.fromEntries(letters.map((l) => [`treatment:compound_${l}`, name(l.toUpperCase())])) };
+  return {
+    "treatment:inactive": inactive,
+    ...Object.fromEntries(letters.map((l) => [`treatment:compound_${l}`, name(l.toUpperCase())])),
+    ...grammar({ inactive: [inactivePhrase, "masculine singular"], ...Object.fromEntries(letters.map((l) => [`compound_${l}`, [phrase(l.toUpperCase()), gender]])) }),
+  };
 }
 
 const headache: Record<TranslationLocale, Texts> = {
@@ -104,7 +137,7 @@ Veintiún compuestos ficticios para una cefalea tensional corriente se comparan 
 - La puntuación de clasificación de un compuesto puede ser alta por azar; los grupos y su certeza dicen más.`,
     "outcome:0": "Sin dolor dos horas después de una dosis",
     "outcomePhrase:0": "la ausencia de dolor dos horas después de una dosis",
-    ...compounds((l) => `Compuesto ${l} (ficticio)`, "Comprimido inactivo"),
+    ...compounds((l) => `Compuesto ${l} (ficticio)`, "Comprimido inactivo", (l) => `el compuesto ${l}`, "el comprimido inactivo", "masculine singular"),
   },
   fr: {
     topic: "Céphalée",
@@ -120,7 +153,7 @@ Vingt et un composés fictifs contre une céphalée de tension ordinaire sont co
 - Le score de classement d’un composé peut être élevé par hasard ; les groupes et leur certitude en disent plus.`,
     "outcome:0": "Sans douleur deux heures après une dose",
     "outcomePhrase:0": "l’absence de douleur deux heures après une dose",
-    ...compounds((l) => `Composé ${l} (fictif)`, "Comprimé inactif"),
+    ...compounds((l) => `Composé ${l} (fictif)`, "Comprimé inactif", (l) => `le composé ${l}`, "le comprimé inactif", "masculine singular"),
   },
   ar: {
     topic: "الصداع",
@@ -136,7 +169,7 @@ Vingt et un composés fictifs contre une céphalée de tension ordinaire sont co
 - قد تكون درجة ترتيب مركّب ما مرتفعة بالصدفة؛ والمجموعات ودرجة يقينها أبلغ دلالة.`,
     "outcome:0": "الخلو من الألم بعد ساعتين من جرعة واحدة",
     "outcomePhrase:0": "الخلو من الألم بعد ساعتين من جرعة واحدة",
-    ...compounds((l) => `المركّب ${l} (خيالي)`, "قرص غير فعّال"),
+    ...compounds((l) => `المركّب ${l} (خيالي)`, "قرص غير فعّال", (l) => `المركّب ${l}`, "القرص غير الفعّال", "masculine singular"),
   },
 };
 

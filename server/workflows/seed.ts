@@ -107,7 +107,7 @@ async function publishDemoBrief(db: Database, demo: ReturnType<typeof demoBriefs
       );
     }
   }
-  await nameTreatments(db, brief.id, demo.treatmentNames, analystId);
+  await nameTreatments(db, brief.id, demo.treatmentNames, analystId, demo.treatmentGrammar);
   const texts = await updateBrief(db, brief.id, brief.rowVersion, { laySummary: demo.laySummary, shortTake: demo.shortTake }, editorId);
   if (!texts.ok) throw new Error(`the demo brief "${demo.title}" could not take its texts`);
   const steps = [

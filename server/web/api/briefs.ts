@@ -49,10 +49,10 @@ export function briefRoutes(db: Database): Router {
   router.put("/briefs/:id/treatments", guard("PUT /api/briefs/:id/treatments"), validateBody(treatmentNamesBody), async (req, res) => {
     const current = await briefWithOutcomes(db, String(req.params.id));
     if (!current) return sendError(res, 404, { key: "errors.notFound", message: "There is no such brief." });
-    const { names } = req.body as z.infer<typeof treatmentNamesBody>;
+    const { names, grammar = {} } = req.body as z.infer<typeof treatmentNamesBody>;
     // Names are for the labels in the brief's data only: anything else would be stored and never shown.
     const known = new Set(current.treatments.map((t) => t.label));
-    const unknown = Object.keys(names).filter((label) => !known.has(label));
+    const unknown = [...new Set([...Object.keys(names), ...Object.keys(grammar)])].filter((label) => !known.has(label));
     if (unknown.length > 0) {
       return sendError(res, 400, {
         key: "errors.treatments.unknownLabel",
@@ -60,7 +60,9 @@ export function briefRoutes(db: Database): Router {
         details: unknown.slice(0, 10).map((label) => ({ field: `names.${label}`, message: "not a treatment in the data" })),
       });
     }
-    await nameTreatments(db, String(req.params.id), names, req.user!.id);
+    // Grammar is given with a name: a label named before keeps its name when only its grammar changes.
+    const withNames = { ...Object.fromEntries(current.treatments.filter((t) => t.named && t.label in grammar).map((t) => [t.label, t.displayName])), ...names };
+    await nameTreatments(db, String(req.params.id), withNames, req.user!.id, grammar);
     const brief = await briefWithOutcomes(db, String(req.params.id));
     res.json({ treatments: brief!.treatments });
   });

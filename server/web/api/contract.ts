@@ -118,7 +118,13 @@ export const patchBriefBody = z
     shortTake: z.string().max(20_000).optional(),
   })
   .strict();
-export const treatmentNamesBody = z.object({ names: z.record(z.string().min(1).max(200), z.string().trim().min(1).max(200)) }).strict();
+export const treatmentNamesBody = z
+  .object({
+    names: z.record(z.string().min(1).max(200), z.string().trim().min(1).max(200)),
+    /** How an English sentence names each treatment ("usual care") and its grammatical number. */
+    grammar: z.record(z.string().min(1).max(200), z.object({ phrase: z.string().trim().max(200).nullish(), number: z.enum(["singular", "plural"]).optional() }).strict()).optional(),
+  })
+  .strict();
 export const previewBody = z.object({ markdown: z.string().max(20_000) }).strict();
 export { judgementInput as judgementBody, outcomeInput as createOutcomeBody, outcomePatch as patchOutcomeBody };
 /** Judgements of many pairs at once: all saved, or none. */

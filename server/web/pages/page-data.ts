@@ -10,6 +10,8 @@ import { admits, pageAccess } from "#core/access";
 import type { VersionSnapshot } from "#core/snapshot/schema";
 import { cacheState, readPublicVersion, versionHistory, type PublicVersion } from "#db/versions";
 import { draftSnapshot } from "#workflows/snapshot";
+import { grammaticalSnapshot } from "#core/grammar";
+import { versionGrammar } from "#core/translation";
 import { comparisonUrl, versionNumberOf, versionUrl } from "#core/urls";
 import { formattedReference } from "../public/citations";
 
@@ -105,7 +107,8 @@ export async function previewPageData(pageContext: PageContextServer) {
   }
   const history = await versionHistory(pageContext.db!, draft.snapshot.brief.slug, roles);
   const number = (history[0]?.number ?? 0) + 1;
-  const snapshot: VersionSnapshot = { ...draft.snapshot, version: number, releaseAt: new Date().toISOString(), note: null };
+  const frozen: VersionSnapshot = { ...draft.snapshot, version: number, releaseAt: new Date().toISOString(), note: null };
+  const snapshot = grammaticalSnapshot(frozen, locale, versionGrammar(frozen, locale, null));
   const view: BriefView = { ...briefContent(snapshot), embargoed: false, withdrawal: null, latestVersion: number, history };
   const path = versionUrl({ slug: view.slug, version: number });
   const page: BriefPageData = {

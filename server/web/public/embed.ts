@@ -72,10 +72,10 @@ export function embedCard(input: CardInput): string | null {
       .map((outcome) => {
         const rows = [
           `<dt>${escapeXml(t("compare.relative", { measure: t(`brief.measure.${outcome.measure}`) }))}</dt><dd>${escapeXml(formatInterval(outcome.measure, outcome.network, t("brief.to"), locale))}${outcome.unit ? ` ${escapeXml(outcome.unit)}` : ""}</dd>`,
-          outcome.absolute ? `<dt>${escapeXml(t("compare.absolute"))}</dt><dd>${escapeXml(messageText(t, outcome.absolute.statement))}</dd>` : "",
+          outcome.absolute ? `<dt>${escapeXml(t("compare.absolute"))}</dt><dd>${escapeXml(messageText(t, locale, outcome.absolute.statement))}</dd>` : "",
           `<dt>${escapeXml(t("brief.certainty"))}</dt><dd>${mark(outcome.certainty, t)}</dd>`,
         ].join("");
-        const statement = outcome.statement ? messageText(t, outcome.statement) : t("compare.noStatement");
+        const statement = outcome.statement ? messageText(t, locale, outcome.statement) : t("compare.noStatement");
         return `<section><h2>${escapeXml(outcome.name)}</h2><p class="statement">${escapeXml(statement)}</p><dl>${rows}</dl></section>`;
       })
       .join("");
@@ -84,7 +84,7 @@ export function embedCard(input: CardInput): string | null {
     heading = view.title;
     body = view.outcomes
       .map((outcome) => {
-        const groups = outcome.groups.map((g) => `<li>${escapeXml(messageText(t, g.label))}: ${escapeXml(g.treatments.map((x) => x.name).join(", "))}</li>`).join("");
+        const groups = outcome.groups.map((g) => `<li>${escapeXml(messageText(t, locale, g.label))}: ${escapeXml(g.treatments.map((x) => x.name).join(", "))}</li>`).join("");
         return `<section><h2>${escapeXml(outcome.name)}</h2><ul>${groups}</ul></section>`;
       })
       .join("");

@@ -68,12 +68,12 @@ export function reachRoutes(db: Database, publicUrl: string | undefined): Router
     const at = addressOf(req);
     const locale = localeOf(res);
     const found = at ? await releasedVersion(db, at.slug, at.version, locale) : null;
-    const text = at && found ? shareImageText(found.snapshot, pairOf(at), wordsOf(locale, "public")) : null;
+    const text = at && found ? shareImageText(found.snapshot, pairOf(at), wordsOf(locale, "public"), locale) : null;
     if (!at || !found || !text) return res.status(404).type("text/plain").send("There is no such released version.");
     if (found.withdrawal) return res.status(410).type("text/plain").send(`This brief was withdrawn: ${found.withdrawal.reason}`);
     // An Arabic image needs every word in Arabic script; else the English one (share-image.ts says why).
     const arabic = locale === "ar" ? arabicImageText(text) : null;
-    const drawn = locale !== "ar" ? text : (arabic ?? shareImageText(found.original, pairOf(at), wordsOf(defaultLocale, "public"))!);
+    const drawn = locale !== "ar" ? text : (arabic ?? shareImageText(found.original, pairOf(at), wordsOf(defaultLocale, "public"), defaultLocale)!);
     const png = await shareImage(`${arabic ? "ar" : locale === "ar" ? "en" : locale}|${shareImageUrl(at)}|${found.translatedAt ?? ""}`, drawn, arabic !== null);
     // Other sites show it (cards of social networks, a reporter's page): not bound to this origin.
     res.set({ "Cache-Control": cacheControl, "Cross-Origin-Resource-Policy": "cross-origin", "Surrogate-Key": surrogateKeys({ slug: at.slug, version: at.version })! }).type("png").send(png);
@@ -98,7 +98,7 @@ export function reachRoutes(db: Database, publicUrl: string | undefined): Router
       at = latest && !latest.found.embargoed ? { slug: briefSlug, version: latest.found.snapshot.version } : null;
     }
     const found = at ? await releasedVersion(db, at.slug, at.version, locale) : null;
-    const text = at && found && !found.withdrawal ? shareImageText(found.snapshot, pairOf(at), wordsOf(locale, "public")) : null;
+    const text = at && found && !found.withdrawal ? shareImageText(found.snapshot, pairOf(at), wordsOf(locale, "public"), locale) : null;
     // §2.3.4: 404 when there is no response for the address; unreleased and withdrawn versions have none.
     if (!at || !found || !text) return res.status(404).type("text/plain").send("There is no released brief, version or comparison at this address.");
     const pair = pairOf(at);

@@ -12,6 +12,7 @@ import type { TFunction } from "i18next";
 import { briefContent, comparisonContent } from "#core/brief-page";
 import { certaintySteps, type Rating } from "#core/grade/certainty";
 import { messageText } from "#core/message";
+import type { Locale } from "#core/locales";
 import type { VersionSnapshot } from "#core/snapshot/schema";
 import { escapeXml } from "./feed";
 import { sfntFromWoff } from "./woff";
@@ -146,7 +147,7 @@ export function arabicImageText(text: ShareText): ShareText | null {
 }
 
 /** What a version's or a comparison's image says; null when the version has no such comparison. */
-export function shareImageText(snapshot: VersionSnapshot, pair: { a: string; b: string } | null, t: TFunction): ShareText | null {
+export function shareImageText(snapshot: VersionSnapshot, pair: { a: string; b: string } | null, t: TFunction, locale: Locale): ShareText | null {
   const footer = t("share.footer", { version: snapshot.version });
   const fictional = snapshot.brief.demo ? t("embed.fictional") : null;
   if (!pair) {
@@ -157,7 +158,7 @@ export function shareImageText(snapshot: VersionSnapshot, pair: { a: string; b: 
   const view = comparisonContent(snapshot, pair.a, pair.b);
   if (!view) return null;
   const first = view.outcomes[0]!;
-  const statement = first.statement ? messageText(t, first.statement) : null;
+  const statement = first.statement ? messageText(t, locale, first.statement) : null;
   const certainty = first.certainty ? { label: `${t("brief.certainty")}: ${t(`certainty.rating.${first.certainty}`)}`, rating: first.certainty } : null;
   const title = t("brief.versus", { treatment: view.treatment.name, comparator: view.comparator.name });
   return {

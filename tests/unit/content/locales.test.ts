@@ -8,6 +8,8 @@ import { locales } from "#core/locales";
 const root = path.resolve(import.meta.dirname, "../../../locales");
 const namespaces = readdirSync(path.join(root, "en")).filter((file) => file.endsWith(".json"));
 const pluralSuffix = /_(zero|one|two|few|many|other)$/;
+/** Agreement of a statement with its subject (server/core/grammar.ts): each language has the contexts its grammar marks. */
+const contextSuffix = /_(plural|feminine)$/;
 
 /** Every leaf as "a.b.c" → text. */
 function flatten(value: unknown, prefix = ""): Map<string, string> {
@@ -30,6 +32,15 @@ describe.each(namespaces)("locales/*/%s", (file) => {
 
   it.each(locales.filter((l) => l !== "en"))("%s has every key, no stray key, and the same placeholders", (locale) => {
     const words = read(locale, file);
+    // A context form stands beside its base key, with the same placeholders; English need not have it.
+    for (const [key, text] of words) {
+      if (!contextSuffix.test(key)) continue;
+      const base = english.get(key.replace(contextSuffix, ""));
+      expect(base, `${locale} ${key} has no base key`).toBeDefined();
+      expect([...placeholders(text)].sort(), `${locale} ${key}`).toEqual([...placeholders(base!)].sort());
+      words.delete(key);
+    }
+    for (const key of [...english.keys()].filter((k) => contextSuffix.test(k))) english.delete(key);
     const categories = new Intl.PluralRules(locale).resolvedOptions().pluralCategories;
     const expected = new Set([...english.keys()].filter((key) => !plurals.has(key.replace(pluralSuffix, ""))));
     for (const base of plurals) for (const category of categories) expected.add(`${base}_${category}`);

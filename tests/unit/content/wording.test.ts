@@ -11,7 +11,7 @@ import { readability } from "#core/readability";
 
 const say = (locale: "en" | "es" | "fr" | "ar") => {
   const { t } = createI18n(locale);
-  return (message: { key: string; values: Record<string, string | number> }) => messageText(t, message);
+  return (message: { key: string; values: Record<string, string | number> }) => messageText(t, locale, message);
 };
 const none = { small: null, moderate: null, large: null };
 

@@ -137,7 +137,7 @@ const english = {
 describe.each(locales)("statements in %s", (locale) => {
   const { t } = createI18n(locale);
   // Frozen versions hold "40 fewer" as a value: pages say it in the reader's language (components/Message.tsx).
-  const say = (s: { key: string; values: Record<string, string | number> }) => messageText(t, s);
+  const say = (s: { key: string; values: Record<string, string | number> }) => messageText(t, locale, s);
   const expected = locale === "en" ? english : grids[locale];
 
   for (const better of ["lower", "higher"] as const) {
