@@ -51,7 +51,7 @@ export function sourceFields(snapshot: VersionSnapshot): SourceField[] {
     ...(snapshot.note ? [line("note", snapshot.note)] : []),
     ...snapshot.outcomes.flatMap((outcome, index) => {
       const phrase = statementPhrase(outcome);
-      return [line(`outcome:${index}`, outcome.name), ...(phrase ? [line(`outcomePhrase:${index}`, phrase)] : [])];
+      return [line(`outcome:${index}`, outcome.name), ...(phrase ? [line(`outcomePhrase:${index}`, phrase)] : []), ...(outcome.unit ? [line(`unit:${index}`, outcome.unit)] : [])];
     }),
     ...snapshot.treatments.flatMap((treatment): SourceField[] => [
       line(`treatment:${treatment.label}`, treatment.displayName),
@@ -179,6 +179,7 @@ export function translatedSnapshot(snapshot: VersionSnapshot, published: Publish
     outcomes: snapshot.outcomes.map((outcome, index) => ({
       ...outcome,
       name: outcomeNames[index]!,
+      unit: outcome.unit ? (given(`unit:${index}`) ?? outcome.unit) : null,
       groups: outcome.groups.map((group) => ({ ...group, label: rename(group.label) })),
       readings: outcome.readings.map((reading) => ({
         ...reading,

@@ -37,7 +37,7 @@ describe("with JavaScript disabled", () => {
       await page.getByText(en.rankScores.title).first().click();
       expect(await page.getByText(en.rankScores.caution.chance).first().isVisible()).toBe(true);
     }
-    if (kind === "comparison") expect(await page.getByTestId("statement").first().textContent()).toMatch(/compared with Usual care\.$/);
+    if (kind === "comparison") expect(await page.getByTestId("statement").first().textContent()).toMatch(/compared with usual care\.$/);
     if (kind === "search" || kind === "topic") expect(text).toContain("Sleeping well after night shifts");
     await context.close();
   });

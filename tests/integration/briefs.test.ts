@@ -260,11 +260,23 @@ describe("treatment names", () => {
     const response = await analyst.request("PUT", `/api/briefs/${briefId}/treatments`, { json: { names: { no_contact: "No contact", self_help: "Self-help materials" } } });
     expect(response.status).toBe(200);
     expect(response.body.treatments).toEqual([
-      { label: "grp_counseling", displayName: "grp_counseling", named: false },
-      { label: "ind_counseling", displayName: "ind_counseling", named: false },
-      { label: "no_contact", displayName: "No contact", named: true },
-      { label: "self_help", displayName: "Self-help materials", named: true },
+      { label: "grp_counseling", displayName: "grp_counseling", named: false, phrase: null, number: "singular" },
+      { label: "ind_counseling", displayName: "ind_counseling", named: false, phrase: null, number: "singular" },
+      { label: "no_contact", displayName: "No contact", named: true, phrase: null, number: "singular" },
+      { label: "self_help", displayName: "Self-help materials", named: true, phrase: null, number: "singular" },
     ]);
+  });
+
+  it("keeps how a sentence names a treatment and its number, and refuses grammar for a label not in the data", async () => {
+    const { briefId, outcomeId } = await newBriefWithOutcome("Treatment grammar");
+    await analyst.upload(`/api/outcomes/${outcomeId}/dataset`, { name: "h.csv", bytes: hasselbladCsv }, { format: "arm-binary" });
+    const grammar = { self_help: { phrase: "self-help materials", number: "plural" } };
+    const response = await analyst.request("PUT", `/api/briefs/${briefId}/treatments`, { json: { names: { self_help: "Self-help materials" }, grammar } });
+    expect(response.status).toBe(200);
+    expect((response.body.treatments as { label: string }[]).find((t) => t.label === "self_help")).toEqual({ label: "self_help", displayName: "Self-help materials", named: true, phrase: "self-help materials", number: "plural" });
+    const unknown = await analyst.request("PUT", `/api/briefs/${briefId}/treatments`, { json: { names: {}, grammar: { nothing: { number: "plural" } } } });
+    expect(unknown.status).toBe(400);
+    expect(unknown.body.error?.message).toBe("These labels are not treatments in the brief's data: nothing.");
   });
 });
 

@@ -44,7 +44,7 @@ describe("the embedded card", () => {
 
   it("holds the statement, the effect with its interval, the certainty in words, the caution, the fictional label and a link to this exact version", async () => {
     const html = (await (await get(`/embed${comparison}`)).text()).replaceAll("&#39;", "'");
-    expect(html).toContain("The evidence is very uncertain about the effect of Light sessions with nap schedule");
+    expect(html).toContain("The evidence is very uncertain about the effect of light sessions with a nap schedule");
     expect(html).toMatch(/Effect \(odds ratio, 95% CI\)<\/dt><dd>\d+\.\d+ \(\d+\.\d+ to \d+\.\d+\)/);
     expect(html).toContain(`<span class="certainty">${en.certainty.rating.very_low}`);
     expect(html).toContain(en.embed.caution);

@@ -12,6 +12,7 @@ import { cacheState, readPublicVersion, versionHistory, type PublicVersion } fro
 import { draftSnapshot } from "#workflows/snapshot";
 import { grammaticalSnapshot } from "#core/grammar";
 import { versionGrammar } from "#core/translation";
+import { wordsOf } from "#core/words";
 import { comparisonUrl, versionNumberOf, versionUrl } from "#core/urls";
 import { formattedReference } from "../public/citations";
 
@@ -79,7 +80,7 @@ export async function comparisonPageData(pageContext: PageContextServer) {
     view,
     path,
     translation,
-    citation: citation(pageContext, snapshot, path, `${view.treatment.name} vs ${view.comparator.name}`),
+    citation: citation(pageContext, snapshot, path, wordsOf(pageContext.locale, "public")("brief.versus", { treatment: view.treatment.name, comparator: view.comparator.name })),
     siteUrl: pageContext.siteUrl ?? "",
     ...answer(pageContext, page, false),
   };

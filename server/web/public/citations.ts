@@ -15,7 +15,7 @@ export interface CitationInput {
   /** The permalink: the version's URL (or the comparison's), absolute. */
   url: string;
   accessed: Date;
-  /** For one comparison: "A vs B". */
+  /** For one comparison: "A vs B", in the reader's language (brief.versus). */
   comparison?: string;
   /** The author team, the citation's author; the product's name when none is set. */
   author?: string | null;

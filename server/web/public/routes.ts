@@ -90,7 +90,7 @@ export function publicFileRoutes(db: Database, publicUrl: string | undefined, se
       version: view.version,
       releaseAt: view.releaseAt,
       url,
-      comparison: `${view.treatment.name} vs ${view.comparator.name}`,
+      comparison: wordsOf(locale, "public")("brief.versus", { treatment: view.treatment.name, comparator: view.comparator.name }),
       language: locale,
     }, { slug: view.slug, version: view.version });
   });

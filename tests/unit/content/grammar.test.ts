@@ -8,6 +8,7 @@ import { statementFor, type Magnitude } from "#core/grade/statements";
 import { grammaticalSnapshot, joinParts, type TreatmentGrammar } from "#core/grammar";
 import type { Locale } from "#core/locales";
 import { messageText } from "#core/message";
+import { translatedSnapshot, versionGrammar } from "#core/translation";
 import type { VersionSnapshot } from "#core/snapshot/schema";
 
 type Case = [treatment: string, comparator: string, certainty: Rating, magnitude: Magnitude, change: "increase" | "reduce", sentence: string];
@@ -129,5 +130,49 @@ describe("contractions only where a preposition meets an article", () => {
     expect(parts("par rapport à ", "l’aide")).toBe("Par rapport à l’aide");
     expect(parts("plus de ", "lecture")).toBe("Plus de lecture");
     expect(parts("l’effet de ", "les soins")).toBe("L’effet des soins");
+  });
+});
+
+describe("each treatment's grammar in a language (server/core/translation.ts, versionGrammar)", () => {
+  const snapshot = {
+    treatments: [
+      { label: "usual", displayName: "Usual care", phrase: "usual care", number: "singular" },
+      { label: "light", displayName: "Timed bright-light sessions", number: "plural" },
+      { label: "k", displayName: "Sleep aid K" },
+    ],
+  } as unknown as VersionSnapshot;
+
+  it("in English: the analyst's phrase and number, else the display name inside a sentence", () => {
+    const grammar = versionGrammar(snapshot, "en", null);
+    expect(grammar("usual")).toEqual({ phrase: "usual care", number: "singular", gender: "masculine" });
+    expect(grammar("light")).toEqual({ phrase: "timed bright-light sessions", number: "plural", gender: "masculine" });
+    expect(grammar("k")).toEqual({ phrase: "sleep aid K", number: "singular", gender: "masculine" });
+  });
+
+  it("in a translation: the translator's phrase and choice, else the translated name and the source's number", () => {
+    const grammar = versionGrammar(snapshot, "fr", {
+      "treatment:usual": "Soins habituels",
+      "treatmentPhrase:usual": "les soins habituels",
+      "treatmentGrammar:usual": "masculine plural",
+      "treatment:light": "Séances de lumière",
+      "treatmentGrammar:light": "feminine plural",
+      "treatment:k": "Aide au sommeil K",
+      "treatmentGrammar:k": "neuter dual",
+    });
+    expect(grammar("usual")).toEqual({ phrase: "les soins habituels", number: "plural", gender: "masculine" });
+    expect(grammar("light")).toEqual({ phrase: "séances de lumière", number: "plural", gender: "feminine" });
+    // A choice the desk does not offer reads as the default.
+    expect(grammar("k")).toEqual({ phrase: "aide au sommeil K", number: "singular", gender: "masculine" });
+  });
+});
+
+describe("an outcome's unit in a translation", () => {
+  it("is a field of its own, and the page reads the translated unit", () => {
+    const outcome = { name: "Sleepiness", unit: "points", readings: [], groups: [] };
+    const translated = translatedSnapshot(
+      { brief: { title: "T", condition: "C", population: "P", topic: "S" }, treatments: [], texts: { shortTakeHtml: "", laySummaryHtml: "" }, note: null, outcomes: [outcome] } as unknown as VersionSnapshot,
+      { "unit:0": "puntos" },
+    );
+    expect(translated.outcomes[0]!.unit).toBe("puntos");
   });
 });
