@@ -82,12 +82,15 @@ export function ForestPlot({ rows, measure, title, axis }: { rows: ForestRow[]; 
             <text x={plotWidth / 2} y={40} fill="#1d1a17" data-testid="forest-axis-title">
               {axisTitle}
             </text>
-            <text x={0} y={62} textAnchor="start" direction="ltr" data-testid="forest-left-side">
-              {`← ${leftSide}`}
+            {/* The arrows stand apart from the words, so that right-to-left words cannot move them off the outer edge. */}
+            <text x={0} y={62} textAnchor="start" aria-hidden="true">←</text>
+            <text x={16} y={62} textAnchor="start" direction="ltr" data-testid="forest-left-side">
+              {leftSide}
             </text>
-            <text x={plotWidth} y={62} textAnchor="end" direction="ltr" data-testid="forest-right-side">
-              {`${rightSide} →`}
+            <text x={plotWidth - 16} y={62} textAnchor="end" direction="ltr" data-testid="forest-right-side">
+              {rightSide}
             </text>
+            <text x={plotWidth} y={62} textAnchor="end" aria-hidden="true">→</text>
           </g>
         </Group>
       </svg>

@@ -43,8 +43,8 @@ describe("the arithmetic of a comparison's certainty", () => {
 
 describe("the forest plot's axis", () => {
   it.each([
-    ["en", "", ["Odds ratio (log scale)", "← Favours Usual care", "Favours the option →"], ["Mean difference (points)", "← Favours the option", "Favours Usual care →"]],
-    ["ar", "/ar", ["نسبة الأرجحية (مقياس لوغاريتمي)", "← لصالح الرعاية المعتادة", "لصالح الخيار →"], ["فرق المتوسطات (نقاط)", "← لصالح الخيار", "لصالح الرعاية المعتادة →"]],
+    ["en", "", ["Odds ratio (log scale)", "Favours Usual care", "Favours the option"], ["Mean difference (points)", "Favours the option", "Favours Usual care"]],
+    ["ar", "/ar", ["نسبة الأرجحية (مقياس لوغاريتمي)", "لصالح الرعاية المعتادة", "لصالح الخيار"], ["فرق المتوسطات (نقاط)", "لصالح الخيار", "لصالح الرعاية المعتادة"]],
   ])("names the measure and which side favours whom, following each outcome's direction (%s)", async (locale, prefix, higherIsBetter, lowerIsBetter) => {
     const page = await (await setup.browser.newContext({ viewport: { width: 1280, height: 1600 } })).newPage();
     await page.goto(`${setup.server.url}${prefix}/briefs/${small}`);
@@ -68,8 +68,8 @@ describe("the forest plot's axis", () => {
     const page = await (await setup.browser.newContext({ viewport: { width: 1280, height: 1600 } })).newPage();
     await page.goto(`${setup.server.url}/ar/briefs/${small}`);
     const order = await page.evaluate(() => {
-      const walker = document.createTreeWalker(document.querySelector("table")!.closest("section")!, NodeFilter.SHOW_TEXT);
-      for (let node = walker.nextNode(); node; node = walker.nextNode()) {
+      const cells = [...document.querySelectorAll("td")].filter((td) => td.textContent?.includes("\u2212"));
+      for (const node of cells.flatMap((td) => [...td.childNodes].filter((n) => n.nodeType === Node.TEXT_NODE))) {
         const text = node.textContent ?? "";
         const at = text.indexOf("\u2212");
         if (at < 0 || !/\d/.test(text[at + 1] ?? "")) continue;
