@@ -41,6 +41,7 @@ export function OutcomeForm({
           baselineRisk: kind === "binary" ? optionalNumber(v.baselineRisk) : null,
           unit: kind === "continuous" ? v.unit || null : null,
           statementPhrase: v.statementPhrase || null,
+          measuresHarm: (event.currentTarget.elements.namedItem("measuresHarm") as HTMLInputElement | null)?.checked ?? false,
           thresholdSmall: optionalNumber(v.thresholdSmall),
           thresholdModerate: optionalNumber(v.thresholdModerate),
           thresholdLarge: optionalNumber(v.thresholdLarge),
@@ -78,6 +79,10 @@ export function OutcomeForm({
       <Field label={t("desk.field.statementPhrase")}>
         <input name="statementPhrase" defaultValue={value("statementPhrase")} placeholder={t("desk.statementPhraseHint")} title={t("desk.statementPhraseHint")} className={inputClass} />
       </Field>
+      <label className="flex items-center gap-2 text-sm sm:col-span-2">
+        <input type="checkbox" name="measuresHarm" defaultChecked={initial?.measuresHarm ?? false} />
+        {t("desk.field.measuresHarm")}
+      </label>
       <Field label={t("desk.field.reference")}>
         <input name="referenceTreatment" required defaultValue={value("referenceTreatment")} className={inputClass} />
       </Field>

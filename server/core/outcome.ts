@@ -12,6 +12,8 @@ export const outcomeFields = z.object({
     baselineRisk: z.number().gt(0).lt(1).nullish(),
     unit: z.string().trim().max(50).nullish(),
     statementPhrase: z.string().trim().max(200).nullish(),
+    /** The outcome is a harm (an adverse effect): its groups speak of harm, not of effectiveness (METHODS.md §10). */
+    measuresHarm: z.boolean().optional(),
     thresholdSmall: z.number().positive().nullish(),
     thresholdModerate: z.number().positive().nullish(),
     thresholdLarge: z.number().positive().nullish(),

@@ -203,6 +203,8 @@ export const outcomes = pgTable("outcomes", {
   unit: text("unit"),
   /** How the outcome reads inside a statement ("the chance of being free of pain"); the name when empty. */
   statementPhrase: text("statement_phrase"),
+  /** The outcome is a harm (an adverse effect): groups speak of harm, not effectiveness (METHODS.md §10). */
+  measuresHarm: boolean("measures_harm").notNull().default(false),
   /** Thresholds for small, moderate and large effects on the analysis scale (absolute values). */
   thresholdSmall: doublePrecision("threshold_small"),
   thresholdModerate: doublePrecision("threshold_moderate"),

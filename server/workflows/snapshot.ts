@@ -36,11 +36,12 @@ export async function draftSnapshot(db: Database, briefId: string): Promise<Draf
       settings: analysisSettings(outcome),
       baselineRisk: outcome.baselineRisk,
       unit: outcome.unit,
+      measuresHarm: outcome.measuresHarm,
       thresholds,
       dataset: { fileName: dataset.fileName, sha256: dataset.sha256, format: dataset.format, parsed },
       result,
       certainty,
-      ...concludeOutcome(result, certainty, { name: outcome.name, statementPhrase: outcome.statementPhrase, baselineRisk: outcome.baselineRisk, thresholds, names }),
+      ...concludeOutcome(result, certainty, { name: outcome.name, statementPhrase: outcome.statementPhrase, baselineRisk: outcome.baselineRisk, thresholds, names, measuresHarm: outcome.measuresHarm }),
       ...outcomeFacts(result, certainty, parsed.studies),
     });
   }

@@ -215,6 +215,14 @@ describe("files that name the language", () => {
     expect(id(spanish)).toBe(id(english));
   });
 
+  it("names a cited comparison in the reader's language, not “A vs B” in every language", async () => {
+    const spanish = await (await get(`/es/briefs/${small}/v/1/compare/light/usual_care/cite.ris`)).text();
+    expect(spanish).toMatch(/^TI {2}- .* frente a .*$/m);
+    expect(spanish).not.toMatch(/^TI {2}- .* vs .*$/m);
+    const arabic = await (await get(`/ar/briefs/${small}/v/1/compare/light/usual_care/cite.ris`)).text();
+    expect(arabic).toMatch(/^TI {2}- .* مقابل .*$/m);
+  });
+
   it("has a feed per language and a sitemap with every language's alternates", async () => {
     const feed = await (await get("/fr/feed.xml")).text();
     expect(feed).toContain('xml:lang="fr"');

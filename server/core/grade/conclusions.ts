@@ -48,6 +48,8 @@ export interface OutcomeFacts {
   name: string;
   /** How the outcome reads inside a statement, when the analysts gave it ("the chance of being free of pain"). */
   statementPhrase?: string | null;
+  /** The outcome is a harm: its groups speak of harm, not effectiveness (METHODS.md §10). */
+  measuresHarm?: boolean;
   baselineRisk: number | null;
   thresholds: Thresholds;
   /** The names readers see, by the label in the data. */
@@ -78,20 +80,22 @@ const sizes = ["small", "moderate", "large"] as const;
  * a placement away from the reference reads "probably" (METHODS.md §10); "not shown to differ" needs
  * no hedge, as it claims no effect.
  */
-export function groupLabel(group: TreatmentGroup, framework: Framework, extremes: { best: number; worst: number }, reference: { label: string; name: string }, hedged = false): Message {
+export function groupLabel(group: TreatmentGroup, framework: Framework, extremes: { best: number; worst: number }, reference: { label: string; name: string }, hedged = false, measuresHarm = false): Message {
   const values = { reference: reference.name };
   if (group.firmness === "very-uncertain") return { key: "groups.veryUncertain", values };
   if (group.firmness === "not-assessed") return { key: "groups.notAssessed", values };
   const firmness = group.firmness === "firm" && hedged && group.level !== 0 ? "probably" : group.firmness;
   if (group.treatments.length === 1 && group.treatments[0] === reference.label) return { key: "groups.referenceOnly", values };
+  // For a harm outcome "better" means less harm: the labels say so rather than "most effective".
+  const words = measuresHarm ? "groups.harmOutcome" : "groups";
   if (framework === "partial") {
     if (group.level === 0) return { key: `groups.partial.trivial.${firmness}`, values };
-    const side = group.level > 0 ? "benefit" : "harm";
-    return { key: `groups.partial.${side}.${sizes[Math.abs(group.level) - 1]}.${firmness}`, values };
+    const size = sizes[Math.abs(group.level) - 1];
+    return group.level > 0 ? { key: `${words}.partial.benefit.${size}.${firmness}`, values } : { key: `groups.partial.harm.${size}.${firmness}`, values };
   }
   if (group.level === 0) return { key: `groups.minimal.none.${firmness}`, values };
-  if (group.level > 0) return { key: `groups.minimal.${group.level === extremes.best ? "best" : "better"}.${firmness}`, values };
-  return { key: `groups.minimal.${group.level === extremes.worst && group.level < -1 ? "worst" : "worse"}.${firmness}`, values };
+  if (group.level > 0) return { key: `${words}.minimal.${group.level === extremes.best ? "best" : "better"}.${firmness}`, values };
+  return { key: `${words}.minimal.${group.level === extremes.worst && group.level < -1 ? "worst" : "worse"}.${firmness}`, values };
 }
 
 export function concludeOutcome(result: AnalysisResult, certainty: ComparisonCertainty[], outcome: OutcomeFacts): OutcomeConclusions {
@@ -134,7 +138,7 @@ export function concludeOutcome(result: AnalysisResult, certainty: ComparisonCer
     framework,
     groups: groups.map((group) => {
       const hedged = group.treatments.some((t) => t !== result.reference && rated.get(pairKey(t, result.reference)) === "moderate");
-      return { ...group, label: groupLabel(group, framework, extremes, { label: result.reference, name: name(result.reference) }, hedged) };
+      return { ...group, label: groupLabel(group, framework, extremes, { label: result.reference, name: name(result.reference) }, hedged, outcome.measuresHarm) };
     }),
     readings,
     rankScores: rankExplainer(result),

@@ -85,6 +85,8 @@ const outcomeSnapshot = z.object({
   }),
   baselineRisk: finite.nullable(),
   unit: text.nullable(),
+  /** The outcome is a harm: its groups speak of harm (absent in versions frozen before it was asked). */
+  measuresHarm: z.boolean().optional(),
   /** On the decision scale (METHODS.md §9): per 1000 people for binary outcomes, the outcome's units for continuous ones. */
   thresholds: z.object({ small: finite.nullable(), moderate: finite.nullable(), large: finite.nullable() }),
   /** The uploaded file as parsed: the inputs download. */

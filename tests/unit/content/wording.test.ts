@@ -70,6 +70,15 @@ describe("cautions on the brief page", () => {
   });
 });
 
+describe("Arabic keeps the health outcome apart from the results", () => {
+  it("names an outcome “النتيجة الصحية”, and results “النتائج”", () => {
+    const { t } = createI18n("ar");
+    expect(t("brief.outcomesNav")).toBe("النتائج الصحية في هذا الملخص");
+    expect(t("brief.methods")).toBe("المنهجية والحواشي لهذه النتيجة الصحية");
+    expect(t("brief.download.results_csv")).toBe("نتائج كل مقارنة (CSV)");
+  });
+});
+
 describe("the desk counts in words", () => {
   const { t } = createI18n("en");
   it("“1 comparison”, and levels without “(s)”", () => {

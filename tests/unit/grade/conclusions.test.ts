@@ -68,6 +68,16 @@ describe("conclusions of an outcome", () => {
     expect(t("groups.minimal.none.firm", { reference: "Placebo" })).toBe("Not shown to differ from Placebo");
   });
 
+  it("speaks of harm, not effectiveness, for an outcome that measures a harm (METHODS.md §10)", () => {
+    const labels = (rating: Rating, locale: "en" | "fr") =>
+      concludeOutcome(result, rated(rating), { name: "Falls", baselineRisk: 0.2, thresholds: none, names, measuresHarm: true }).groups.map((g) => createI18n(locale).t(g.label.key, g.label.values));
+    expect(labels("high", "en")[0]).toBe("Among the least harmful");
+    expect(labels("moderate", "en")[0]).toBe("Probably among the least harmful");
+    expect(labels("low", "fr")[0]).toBe("Pourrait être parmi les moins nocifs");
+    const partial = concludeOutcome(result, rated("high"), { name: "Falls", baselineRisk: 0.2, thresholds: { small: 20, moderate: null, large: null }, names, measuresHarm: true }).groups;
+    expect(t(partial[0]!.label.key, partial[0]!.label.values)).toBe("Slightly less harm than Placebo");
+  });
+
   it("labels every group with words the locale has", () => {
     for (const thresholds of [none, { small: 0.2, moderate: 0.5, large: 1 }]) {
       for (const rating of ["high", "low", "very_low"] as const) {
