@@ -1,17 +1,18 @@
 // An outcome's settings (PRODUCT.md, the desk: name, binary or continuous, measure, model, reference,
 // direction, baseline risk, thresholds) and the rules a valid outcome keeps. Pure.
 import { z } from "zod";
+import { lineText } from "./text";
 
 export const outcomeFields = z.object({
-    name: z.string().trim().min(1).max(200),
+    name: lineText(200),
     kind: z.enum(["binary", "continuous"]),
     measure: z.enum(["OR", "RR", "RD", "MD"]),
     model: z.enum(["fixed", "random"]),
     referenceTreatment: z.string().trim().min(1).max(200),
     direction: z.enum(["higher", "lower"]),
     baselineRisk: z.number().gt(0).lt(1).nullish(),
-    unit: z.string().trim().max(50).nullish(),
-    statementPhrase: z.string().trim().max(200).nullish(),
+    unit: lineText(50, 0).nullish(),
+    statementPhrase: lineText(200, 0).nullish(),
     /** The outcome is a harm (an adverse effect): its groups speak of harm, not of effectiveness (METHODS.md §10). */
     measuresHarm: z.boolean().optional(),
     thresholdSmall: z.number().positive().nullish(),

@@ -1,5 +1,5 @@
 // People and their roles: the only place that reads or writes the people tables.
-import { and, eq, isNull, sql } from "drizzle-orm";
+import { and, eq, isNotNull, isNull, sql } from "drizzle-orm";
 import type { Database } from "./client";
 import { people, personRoles, sessions } from "./schema";
 import { recordAudit } from "./audit";
@@ -161,13 +161,28 @@ export async function activePeopleWithRole(db: Executor, role: Role): Promise<Pe
 }
 
 /** How many active administrators there are, so that the last one cannot be removed. */
+/**
+ * Administrators who can act: not deactivated, and able to sign in (an invitation never accepted has
+ * no password yet, so it cannot stand in for the last administrator).
+ */
 export async function activeAdminCount(db: Executor): Promise<number> {
   const [row] = await db
     .select({ count: sql<number>`count(*)::int` })
     .from(personRoles)
     .innerJoin(people, eq(people.id, personRoles.personId))
-    .where(and(eq(personRoles.role, "admin"), isNull(people.deactivatedAt)));
+    .where(and(eq(personRoles.role, "admin"), isNull(people.deactivatedAt), isNotNull(people.passwordHash)));
   return row?.count ?? 0;
+}
+
+/** The key of the transaction-level advisory lock under which administrators' roles change (any number of ours). */
+const administratorsLock = 20_261_204;
+
+/**
+ * Changes to people take turns for the rest of the transaction: two administrators demoting each other
+ * at once would each count the other and leave none. The lock ends with the transaction.
+ */
+export async function lockAdministrators(tx: Executor): Promise<void> {
+  await tx.select({ locked: sql`pg_advisory_xact_lock(${administratorsLock})` }).from(sql`(select 1) as one`);
 }
 
 function personOf(row: typeof people.$inferSelect, roles: Role[]): Person {

@@ -6,7 +6,7 @@ import { invitationMessage, passwordResetMessage } from "#core/mail";
 import type { Role } from "#core/roles";
 import { invitationUrl, passwordResetUrl } from "#core/urls";
 import { insertMessage } from "#db/messages";
-import { activeAdminCount, endSessions, findActiveByEmail, findPersonRecord, insertPerson, passwordHashOf, setPasswordHash, updatePerson, type Person } from "#db/people";
+import { activeAdminCount, lockAdministrators, endSessions, findActiveByEmail, findPersonRecord, insertPerson, passwordHashOf, setPasswordHash, updatePerson, type Person } from "#db/people";
 import { consumeToken, issueToken } from "#db/tokens";
 import type { Executor } from "#db/client";
 import { deliver, type MailContext } from "./mail";
@@ -108,6 +108,8 @@ export async function changeOwnAccount(ctx: AccountContext, person: Person, sess
 export async function changePerson(ctx: AccountContext, id: string, changes: { roles?: Role[]; translationLocales?: string[]; locale?: string; active?: boolean }, actor: Person) {
   if (id === actor.id && changes.active === false) return { ok: false as const, reason: "self" as const };
   return ctx.db.transaction(async (tx) => {
+    // One change to people at a time: the count below then sees every change committed before it.
+    await lockAdministrators(tx);
     const before = await findPersonRecord(tx, id);
     if (!before) return { ok: false as const, reason: "not-found" as const };
     const person = await updatePerson(tx, id, changes, actor.id);

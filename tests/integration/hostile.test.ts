@@ -105,6 +105,47 @@ describe("addresses", () => {
   });
 });
 
+describe("round 3 of the hostile probe (F1): the language switcher returns only to this site", () => {
+  it.each([
+    ["/es//evil.example/x", "/"],
+    ["/es/%5Cevil.example", "/"],
+    ["//evil.example", "/"],
+    ["/fr/%5C%5Cevil.example", "/"],
+    ["https://evil.example/", "/"],
+  ])("next=%s answers Location %s, never another host", async (next, location) => {
+    const answer = await get(`/language/en?next=${next}`);
+    expect(answer.status).toBe(303);
+    expect(answer.headers.get("location")).toBe(location);
+  });
+
+  it("still returns to the same page in the chosen language, query included", async () => {
+    const answer = await get(`/language/es?next=${encodeURIComponent("/briefs?q=sleep")}`);
+    expect(answer.headers.get("location")).toBe("/es/briefs?q=sleep");
+    expect((await get(`/language/en?next=${encodeURIComponent("/fr/briefs/x")}`)).headers.get("location")).toBe("/briefs/x");
+  });
+});
+
+describe("round 3 of the hostile probe (F5, F12): text that no reader should receive is refused where it enters", () => {
+  it.each([
+    ["U+0001 in a title", { title: "Sleep\u0001" }, "title"],
+    ["U+FFFE in a title", { title: "Sleep\uFFFE" }, "title"],
+    ["U+202E in a title", { title: "\u202Epeels" }, "title"],
+    ["a title of zero-width characters", { title: "\u200b\u200b" }, "title"],
+    ["U+000B in the author team", { authorTeam: "Team\u000bB" }, "authorTeam"],
+  ])("%s: 400 naming the field", async (_, fields, field) => {
+    const answer = await clients.analyst!.request("POST", "/api/briefs", { json: { title: "Valid", topic: "T", condition: "C", population: "P", ...fields } });
+    expect(answer.status).toBe(400);
+    expect(JSON.stringify(answer.body.error?.details)).toContain(field);
+  });
+
+  it("a treatment name with a control character is refused too", async () => {
+    const { briefId } = await analysedBrief(clients.analyst!, "Names with controls");
+    const answer = await clients.analyst!.request("PUT", `/api/briefs/${briefId}/treatments`, { json: { names: { no_contact: "No\u0001contact" } } });
+    expect(answer.status).toBe(400);
+    expect(JSON.stringify(answer.body.error?.details)).toContain("names.no_contact");
+  });
+});
+
 describe("what the public files say", () => {
   it("the feed sends titles as text, and a title's markup stays words", async () => {
     await publishedBrief(clients.analyst!, clients.editor!, "Markup <b>bold</b> & more");
@@ -113,11 +154,11 @@ describe("what the public files say", () => {
     expect(feed).toContain('<title type="text">Markup &#60;b&#62;bold&#60;/b&#62; &#38; more</title>');
   });
 
-  it("a title with line breaks stays one record in RIS", async () => {
-    const { slug } = await publishedBrief(clients.analyst!, clients.editor!, "Two\r\nTY  - GEN\r\nlines");
-    const ris = await (await get(`/briefs/${slug}/v/1/cite.ris`)).text();
-    expect(ris.match(/^TY {2}- /gm)).toHaveLength(1);
-    expect(ris.match(/^ER {2}- /gm)).toHaveLength(1);
+  it("a title with line breaks is refused where it enters, so no RIS file can hold a second record", async () => {
+    const answer = await clients.analyst!.request("POST", "/api/briefs", { json: { title: "Two\r\nTY  - GEN\r\nlines", topic: "T", condition: "C", population: "P" } });
+    expect(answer.status).toBe(400);
+    expect(answer.body.error?.details).toContainEqual({ field: "title", message: "contains a control character or a line break" });
+    // Files still keep every field on one line (tests/unit/public/citations.test.ts).
   });
 });
 

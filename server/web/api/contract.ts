@@ -3,6 +3,7 @@
 // desk's data hooks alike. Answer types are derived from what the stores and workflows return, as
 // JSON carries it (dates become strings), so the desk cannot drift from the server. Browser-safe:
 // it imports zod and the pure core at run time, and only types from the layers below.
+import { lineText, markdownText } from "#core/text";
 import { z } from "zod";
 import type { ComparisonCertainty } from "#core/grade/assess";
 import { judgementInput } from "#core/grade/judgement";
@@ -97,14 +98,16 @@ export const newPasswordBody = z.object({ token: z.string().max(200), password: 
 /** A row version as the database stores it (PostgreSQL's integer). */
 export const rowVersion = z.number().int().positive().max(2_147_483_647);
 
+// Every text a reader sees goes through one normaliser (server/core/text.ts): NFC, no control,
+// noncharacter or bidirectional control character, something visible.
 const briefFields = {
-  title: z.string().trim().min(1).max(300),
-  topic: z.string().trim().min(1).max(200),
-  condition: z.string().trim().min(1).max(200),
-  population: z.string().trim().min(1).max(500),
+  title: lineText(300),
+  topic: lineText(200),
+  condition: lineText(200),
+  population: lineText(500),
 };
 /** The author team named as the author of the brief's citations (an organisation). */
-const authorTeam = z.string().trim().max(200).nullish();
+const authorTeam = lineText(200, 0).nullish();
 export const createBriefBody = z.object({ ...briefFields, authorTeam }).strict();
 export const patchBriefBody = z
   .object({
@@ -114,15 +117,15 @@ export const patchBriefBody = z
     condition: briefFields.condition.optional(),
     population: briefFields.population.optional(),
     authorTeam,
-    laySummary: z.string().max(20_000).optional(),
-    shortTake: z.string().max(20_000).optional(),
+    laySummary: markdownText(20_000).optional(),
+    shortTake: markdownText(20_000).optional(),
   })
   .strict();
 export const treatmentNamesBody = z
   .object({
-    names: z.record(z.string().min(1).max(200), z.string().trim().min(1).max(200)),
+    names: z.record(z.string().min(1).max(200), lineText(200)),
     /** How an English sentence names each treatment ("usual care") and its grammatical number. */
-    grammar: z.record(z.string().min(1).max(200), z.object({ phrase: z.string().trim().max(200).nullish(), number: z.enum(["singular", "plural"]).optional() }).strict()).optional(),
+    grammar: z.record(z.string().min(1).max(200), z.object({ phrase: lineText(200, 0).nullish(), number: z.enum(["singular", "plural"]).optional() }).strict()).optional(),
   })
   .strict();
 export const previewBody = z.object({ markdown: z.string().max(20_000) }).strict();

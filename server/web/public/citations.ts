@@ -25,8 +25,12 @@ export interface CitationInput {
 
 const dateParts = (date: Date) => ({ "date-parts": [[date.getUTCFullYear(), date.getUTCMonth() + 1, date.getUTCDate()]] });
 
-/** One line: a line break inside a field would start a new record in RIS (and a new field in BibTeX). */
-const oneLine = (text: string) => text.replace(/[\r\n\u2028\u2029]+/g, " ").trim();
+/**
+ * One line, without control characters: a line break inside a field would start a new record in RIS
+ * (and a new field in BibTeX). Every text field goes through it, the author as well as the title.
+ */
+// eslint-disable-next-line no-control-regex -- finding control characters is the point
+const oneLine = (text: string) => text.replace(/[\r\n\u2028\u2029\u0000-\u001f\u007f-\u009f]+/g, " ").trim();
 
 export function cslItem(input: CitationInput) {
   const title = oneLine(input.comparison ? `${input.comparison}: ${input.title}` : input.title);
@@ -35,7 +39,7 @@ export function cslItem(input: CitationInput) {
     id: `fairweigh-${splitLocale(new URL(input.url).pathname).path.replace(/[^a-z0-9]+/gi, "-").replace(/^-|-$/g, "")}`,
     type: "report",
     title,
-    author: [{ literal: input.author?.trim() || "Fairweigh" }],
+    author: [{ literal: oneLine(input.author ?? "") || "Fairweigh" }],
     publisher: "Fairweigh",
     version: String(input.version),
     // RIS ET and BibTeX edition: reference managers show which version is cited.

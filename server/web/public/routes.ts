@@ -19,6 +19,20 @@ const notFound = "There is no such published version.";
 /** The files that have words, and so an address in each language: citations, downloads, the feed, embedded cards and share images. */
 const localizedFile = (path: string) => /\/cite\.\w+$|\/downloads\/[^/]+$|^\/feed\.xml$|^\/embed\/|\/share\.png$/.test(path);
 
+/**
+ * Where the language switcher returns: the page without its own language prefix, in the chosen one,
+ * its query string kept. Checked once the prefix is gone, so that no address of another site gets
+ * through ("/es//host" would become "//host", "/es/\\host" "/\\host", which browsers read as a host).
+ */
+export function returnPath(next: unknown, locale: Locale): string {
+  const home = localePath(locale, "/");
+  if (typeof next !== "string" || !/^\/(?![/\\])/.test(next)) return home;
+  const query = next.indexOf("?") < 0 ? next.length : next.indexOf("?");
+  const path = localePath(locale, splitLocale(next.slice(0, query)).path) + next.slice(query);
+  // eslint-disable-next-line no-control-regex -- a control character has no place in an address
+  return /^\/(?![/\\])/.test(path) && !/[\\\u0000-\u001f\u007f]/.test(path) ? path : home;
+}
+
 /** The cookie that keeps a reader's choice of language; the page router reads it on a first visit. */
 export const localeCookie = "fairweigh.locale";
 
@@ -40,11 +54,8 @@ export function publicFileRoutes(db: Database, publicUrl: string | undefined, se
   router.get("/language/:locale", (req, res) => {
     const locale = String(req.params.locale);
     if (!isLocale(locale)) return res.status(404).type("text/plain").send(`There is no language "${locale}" here: choose one of ${locales.join(", ")}.`);
-    const next = typeof req.query.next === "string" && /^\/(?![/\\])/.test(req.query.next) ? req.query.next : "/";
     res.cookie(localeCookie, locale, { maxAge: 365 * 24 * 3600 * 1000, sameSite: "lax", httpOnly: true, secure: secureTransport, path: "/" });
-    // The page without its own language prefix, in the chosen one; its query string kept.
-    const query = next.indexOf("?") < 0 ? next.length : next.indexOf("?");
-    res.set("Cache-Control", "no-store").redirect(303, localePath(locale, splitLocale(next.slice(0, query)).path) + next.slice(query));
+    res.set("Cache-Control", "no-store").redirect(303, returnPath(req.query.next, locale));
   });
 
   // Files need the version only, not its history: one query.

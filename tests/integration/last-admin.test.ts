@@ -1,0 +1,59 @@
+// The site never loses its last administrator (round 3 of the hostile probe, F3 and F4), on a database
+// of its own so that no other test's people count: an invitation never accepted does not count, and
+// two administrators demoting each other at the same moment leave one of them.
+import pg from "pg";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { connectDatabase, type DatabaseConnection } from "#db/client";
+import { migrateDatabase } from "#db/migrate";
+import { insertPerson, type Person } from "#db/people";
+import { changePerson, type AccountContext } from "#workflows/accounts";
+import { testDatabaseUrl } from "../support/app";
+
+const database = `last_admin_test_${process.pid}`;
+let admin: pg.Client;
+let connection: DatabaseConnection;
+let ctx: AccountContext;
+
+beforeAll(async () => {
+  admin = new pg.Client({ connectionString: testDatabaseUrl() });
+  await admin.connect();
+  await admin.query(`create database ${database}`);
+  const url = new URL(testDatabaseUrl());
+  url.pathname = `/${database}`;
+  connection = connectDatabase(url.toString());
+  await migrateDatabase(connection);
+  ctx = { db: connection.db } as AccountContext;
+});
+afterAll(async () => {
+  await connection.close();
+  await admin.query(`drop database ${database} with (force)`);
+  await admin.end();
+});
+
+let counter = 0;
+const person = async (passwordHash: string | null): Promise<Person> =>
+  (await insertPerson(connection.db, { email: `admin${++counter}@x.example`, displayName: `Admin ${counter}`, passwordHash, roles: ["admin"], translationLocales: [], locale: "en" }, null))!;
+/** Every administrator loses the role: a clean start for each test. */
+const noAdmins = () => connection.pool.query("delete from person_roles where role = 'admin'");
+const adminsLeft = async () => Number((await connection.pool.query("select count(*) from person_roles r join people p on p.id = r.person_id where r.role = 'admin' and p.password_hash is not null and p.deactivated_at is null")).rows[0].count);
+
+describe("the last administrator", () => {
+  it("cannot demote themselves while the only other administrator is an invitation never accepted (F4)", async () => {
+    await noAdmins();
+    const real = await person("hash");
+    await person(null);
+    expect(await adminsLeft()).toBe(1);
+    expect(await changePerson(ctx, real.id, { roles: ["editor"] }, real)).toEqual({ ok: false, reason: "last-admin" });
+    expect(await adminsLeft()).toBe(1);
+  });
+
+  it("survives two administrators demoting each other at the same moment, five times over (F3)", async () => {
+    for (let attempt = 0; attempt < 5; attempt++) {
+      await noAdmins();
+      const [a, b] = [await person("hash"), await person("hash")];
+      const outcomes = await Promise.all([changePerson(ctx, b.id, { roles: ["editor"] }, a), changePerson(ctx, a.id, { roles: ["editor"] }, b)]);
+      expect(await adminsLeft(), `attempt ${attempt + 1}`).toBe(1);
+      expect(outcomes.map((o) => o.ok).sort()).toEqual([false, true]);
+    }
+  });
+});
