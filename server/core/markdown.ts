@@ -27,10 +27,38 @@ const allowed: sanitizeHtml.IOptions = {
   },
 };
 
+/** Quotes and lists nest at most this deep: readers never need more, and the renderer recurses once a level. */
+export const maxNesting = 20;
+
+/** How deep a line's quotes and lists go at most: "> > - x" is 3. */
+export function markdownNesting(source: string): number {
+  let deepest = 0;
+  for (const line of source.split("\n")) {
+    const markers = /^(?:[ \t]*(?:>|[-*+](?=[ \t]|$)|\d{1,9}[.)](?=[ \t]|$)))*/.exec(line)![0];
+    const indent = /^[ \t]*/.exec(line)![0].replace(/\t/g, "    ").length;
+    const depth = (markers.match(/>|[-*+]|\d{1,9}[.)]/g)?.length ?? 0) + Math.floor(indent / 2);
+    if (depth > deepest) deepest = depth;
+  }
+  return deepest;
+}
+
+/**
+ * Sanitised HTML of the Markdown. Text nested deeper than `maxNesting` (refused where it is entered)
+ * is shown as plain text, never rendered, so that a stored text cannot overflow the renderer's stack.
+ */
 export function renderMarkdown(source: string): string {
-  const html = marked.parse(source, { async: false });
+  if (markdownNesting(source) > maxNesting) return plainParagraphs(source);
+  let html: string;
+  try {
+    html = marked.parse(source, { async: false });
+  } catch (error) {
+    if (error instanceof RangeError) return plainParagraphs(source);
+    throw error;
+  }
   return sanitizeHtml(html, { ...allowed, allowedAttributes: { a: ["href", "title", "rel"] } });
 }
+
+const plainParagraphs = (source: string) => `<p>${escapeHtml(source)}</p>`;
 
 /** The words of sanitised HTML, without its tags: what a translation's source is compared by. */
 export function textOf(html: string): string {

@@ -3,6 +3,7 @@
 // line breaks only in Markdown), Unicode noncharacters, bidirectional overrides and isolates that
 // reverse text on pages and images, or nothing visible at all. Shared by every contract (zod). Pure.
 import { z } from "zod";
+import { markdownNesting, maxNesting } from "./markdown";
 
 /** C0 and C1 controls; Markdown keeps tab, line feed and carriage return. */
 // eslint-disable-next-line no-control-regex -- finding control characters is the point
@@ -45,11 +46,14 @@ export function lineText(max: number, min = 1) {
     );
 }
 
-/** Markdown a reader sees once rendered: NFC, tabs and line breaks allowed, no other control character. */
+/** Markdown a reader sees once rendered: NFC, tabs and line breaks allowed, no other control character, quotes and lists nested at most 20 deep. */
 export function markdownText(max: number) {
   return z
     .string()
     .max(max)
     .transform((text) => text.normalize("NFC"))
-    .superRefine((text, context) => refine(text, context, true));
+    .superRefine((text, context) => {
+      refine(text, context, true);
+      if (markdownNesting(text) > maxNesting) context.addIssue({ code: "custom", message: `nests quotes or lists more than ${maxNesting} levels deep` });
+    });
 }

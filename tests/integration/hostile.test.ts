@@ -146,6 +146,25 @@ describe("round 3 of the hostile probe (F5, F12): text that no reader should rec
   });
 });
 
+describe("round 3 of the hostile probe (F2): Markdown nested beyond reason", () => {
+  it("the preview answers 400 with the reason for 2000 nested quotes and 1500 nested list markers, never 500", async () => {
+    for (const markdown of [`${"> ".repeat(2000)}deep`, `${"- ".repeat(1500)}deep`]) {
+      const answer = await clients.editor!.request("POST", "/api/preview", { json: { markdown } });
+      expect(answer.status).toBe(400);
+      expect(answer.body.error?.details).toContainEqual({ field: "markdown", message: "nests quotes or lists more than 20 levels deep" });
+    }
+  });
+
+  it("the editor's texts refuse it too, and keep what was saved before", async () => {
+    const { briefId } = await analysedBrief(clients.analyst!, "Deeply nested texts");
+    const brief = async () => (await clients.editor!.request("GET", `/api/briefs/${briefId}`)).body.brief as { rowVersion: number; laySummary: string };
+    const before = await brief();
+    const answer = await clients.editor!.request("PATCH", `/api/briefs/${briefId}`, { json: { rowVersion: before.rowVersion, laySummary: `${"> ".repeat(2000)}deep` } });
+    expect(answer.status).toBe(400);
+    expect((await brief()).laySummary).toBe(before.laySummary);
+  });
+});
+
 describe("what the public files say", () => {
   it("the feed sends titles as text, and a title's markup stays words", async () => {
     await publishedBrief(clients.analyst!, clients.editor!, "Markup <b>bold</b> & more");

@@ -69,8 +69,9 @@ export const accountBody = z
 
 /** PUT /api/translations/:versionId/:locale: the targets to save, by field name (other fields keep theirs). */
 export const saveTranslationBody = z.object({
+  // Every field is read as Markdown may be: a line never nests, and a summary may, up to the limit.
   fields: z
-    .record(z.string().max(200), z.string().max(50_000, "A translated text is limited to 50 000 characters."))
+    .record(z.string().max(200), z.string().max(50_000, "A translated text is limited to 50 000 characters.").pipe(markdownText(50_000)))
     .refine((fields) => Object.keys(fields).length <= 1000, "At most 1000 fields at once."),
 });
 
@@ -128,7 +129,7 @@ export const treatmentNamesBody = z
     grammar: z.record(z.string().min(1).max(200), z.object({ phrase: lineText(200, 0).nullish(), number: z.enum(["singular", "plural"]).optional() }).strict()).optional(),
   })
   .strict();
-export const previewBody = z.object({ markdown: z.string().max(20_000) }).strict();
+export const previewBody = z.object({ markdown: markdownText(20_000) }).strict();
 export { judgementInput as judgementBody, outcomeInput as createOutcomeBody, outcomePatch as patchOutcomeBody };
 /** Judgements of many pairs at once: all saved, or none. */
 export const judgementsBody = z

@@ -1,6 +1,7 @@
 // Markdown is rendered and sanitised on the server: nothing executable gets through.
 import { describe, expect, it } from "vitest";
-import { renderMarkdown } from "#core/markdown";
+import { markdownNesting, renderMarkdown } from "#core/markdown";
+import { markdownText } from "#core/text";
 
 describe("renderMarkdown", () => {
   it("renders ordinary Markdown", () => {
@@ -27,5 +28,24 @@ describe("renderMarkdown", () => {
     expect(html).not.toMatch(/javascript:/i);
     expect(html).toContain("click me");
     expect(html).toContain('<a href="https://example.org" rel="noopener noreferrer">ok</a>');
+  });
+});
+
+describe("Markdown nested beyond reason (round 3 of the hostile probe, F2)", () => {
+  it("counts how deep quotes and lists go", () => {
+    expect(markdownNesting("> > - item")).toBe(3);
+    expect(markdownNesting("- one\n  - two\n    - three")).toBe(3);
+    expect(markdownNesting("Plain text - with a dash")).toBe(0);
+  });
+
+  it("shows 2000 nested quotes and 1500 nested list markers as plain text instead of overflowing the renderer", () => {
+    expect(renderMarkdown(`${"> ".repeat(2000)}deep`)).toMatch(/^<p>(&gt; ){2000}deep<\/p>$/);
+    expect(renderMarkdown(`${"- ".repeat(1500)}deep`)).toMatch(/^<p>(- ){1500}deep<\/p>$/);
+  });
+
+  it("is refused where it is entered, with the reason", () => {
+    const parsed = markdownText(20_000).safeParse(`${"> ".repeat(2000)}deep`);
+    expect(parsed.success).toBe(false);
+    expect(parsed.error!.issues[0]!.message).toBe("nests quotes or lists more than 20 levels deep");
   });
 });
