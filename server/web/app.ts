@@ -84,6 +84,12 @@ export async function createApp(options: AppOptions): Promise<express.Express> {
     const handle = (req: IncomingMessage, res: ServerResponse) => void fastAnswer(req, res).then((answered) => answered || app(req, res), () => app(req, res));
     app.listen = ((...args: Parameters<Server["listen"]>) => createServer(handle).listen(...args)) as typeof app.listen;
   }
+  // Only paths are addresses here: "OPTIONS *", "GET *" and absolute-form targets ("GET http://host/x")
+  // get a 400 that says so, before sessions or pages try to read them (hostile probe round 3, F11).
+  app.use((req, res, next) => {
+    if (req.url.startsWith("/")) return next();
+    res.status(400).type("text/plain").send("The request target must be a path that starts with “/”.");
+  });
   app.use(
     pinoHttp({
       logger,

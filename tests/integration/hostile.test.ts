@@ -2,9 +2,11 @@
 // request gets its 4xx with a message that names what is wrong, never a 500, and nothing partial is
 // stored. (The embargo and cache findings are in public-site.test.ts.)
 import { readFileSync } from "node:fs";
+import http from "node:http";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { demoBriefs } from "#workflows/demo-briefs";
+import { demoPassword } from "#workflows/seed";
 import { slugify } from "#core/slug";
 import { analysedBrief, approve, publishedBrief, rateEveryComparison } from "../support/briefs";
 import { type ApiClient, demoClient } from "../support/client";
@@ -162,6 +164,50 @@ describe("round 3 of the hostile probe (F2): Markdown nested beyond reason", () 
     const answer = await clients.editor!.request("PATCH", `/api/briefs/${briefId}`, { json: { rowVersion: before.rowVersion, laySummary: `${"> ".repeat(2000)}deep` } });
     expect(answer.status).toBe(400);
     expect((await brief()).laySummary).toBe(before.laySummary);
+  });
+});
+
+describe("round 3 of the hostile probe (F11): odd request targets", () => {
+  /** A request with a raw target, as fetch cannot send one. */
+  const rawTarget = (method: string, target: string) =>
+    new Promise<{ status: number; body: string }>((resolve, reject) => {
+      const url = new URL(server.url);
+      const request = http.request({ host: url.hostname, port: url.port, method, path: target }, (response) => {
+        let body = "";
+        response.setEncoding("utf8").on("data", (chunk: string) => (body += chunk)).on("end", () => resolve({ status: response.statusCode!, body }));
+      });
+      request.on("error", reject).end();
+    });
+
+  it.each([
+    ["OPTIONS", "*"],
+    ["GET", "*"],
+    ["GET", "http://evil.example/briefs"],
+    ["POST", "http://evil.example/api/session"],
+  ])("%s %s answers 400 that says why, never 500", async (method, target) => {
+    const answer = await rawTarget(method, target);
+    expect(answer.status).toBe(400);
+    expect(answer.body).toBe("The request target must be a path that starts with “/”.");
+  });
+});
+
+describe("round 3 of the hostile probe (F13): sessions only for people who sign in", () => {
+  it("opening the sign-in page stores no session, and its form still works with the visitor's token", async () => {
+    const page = await get("/sign-in");
+    expect(page.status).toBe(200);
+    const cookies = page.headers.getSetCookie();
+    expect(cookies.join("\n")).not.toMatch(/fairweigh\.session=/);
+    const token = /name="_csrf" value="([^"]+)"/.exec(await page.text())?.[1];
+    expect(token).toBeTruthy();
+    const cookie = cookies.map((line) => line.split(";")[0]).join("; ");
+    const signedIn = await fetch(`${server.url}/api/session`, {
+      method: "POST",
+      headers: { "content-type": "application/x-www-form-urlencoded", cookie },
+      body: new URLSearchParams({ _csrf: token!, email: "analyst@fairweigh.example", password: demoPassword }),
+      redirect: "manual",
+    });
+    expect(signedIn.status).toBe(303);
+    expect(signedIn.headers.getSetCookie().join("\n")).toMatch(/fairweigh\.session=/);
   });
 });
 

@@ -44,17 +44,16 @@ describe("security headers", () => {
 });
 
 describe("the session", () => {
-  it("gets a new id at sign-in, and the id from before signs nobody in", async () => {
+  it("has no session before signing in, so none can be fixed in advance; the visitor cookie signs nobody in", async () => {
     const person = new ApiClient(server.url);
     await person.request("GET", "/api/csrf", { csrf: false });
-    const sessionOf = (client: ApiClient) => /fairweigh\.session=([^;]+)/.exec(client.cookieHeader)?.[1];
-    const before = sessionOf(person);
-    expect(before).toBeTruthy();
+    const cookie = (client: ApiClient, name: string) => new RegExp(`${name.replace(".", "\\.")}=([^;]+)`).exec(client.cookieHeader)?.[1];
+    expect(cookie(person, "fairweigh.session")).toBeUndefined();
+    const visitor = cookie(person, "fairweigh.visitor");
+    expect(visitor).toBeTruthy();
     expect((await person.signIn("analyst@fairweigh.example", demoPassword)).status).toBe(200);
-    const after = sessionOf(person);
-    expect(after).toBeTruthy();
-    expect(after).not.toBe(before);
-    const replay = await fetch(`${server.url}/api/session`, { headers: { cookie: `fairweigh.session=${before}` } });
+    expect(cookie(person, "fairweigh.session")).toBeTruthy();
+    const replay = await fetch(`${server.url}/api/session`, { headers: { cookie: `fairweigh.visitor=${visitor}` } });
     expect(replay.status).toBe(401);
   });
 });

@@ -63,11 +63,21 @@ describe("signing in", () => {
     expect((await client.request("GET", "/api/session")).status).toBe(401);
   });
 
-  it("sets an httpOnly, SameSite=Lax session cookie", async () => {
-    const response = await fetch(`${app.url}/api/csrf`);
-    const cookies = response.headers.getSetCookie().join("\n");
+  it("sets an httpOnly, SameSite=Lax session cookie when someone signs in", async () => {
+    const signedIn = await new ApiClient(app.url).signIn("analyst@fairweigh.example", demoPassword);
+    const cookies = signedIn.headers.getSetCookie().join("\n");
     expect(cookies).toMatch(/fairweigh\.session=[^;]+;.*HttpOnly/i);
     expect(cookies).toMatch(/SameSite=Lax/i);
+  });
+
+  it("stores no session for a reader who only asks for a token (hostile probe round 3, F13; the sign-in page: hostile.test.ts)", async () => {
+    for (const path of ["/api/csrf"]) {
+      const response = await fetch(`${app.url}${path}`);
+      expect(response.status).toBe(200);
+      const cookies = response.headers.getSetCookie().join("\n");
+      expect(cookies, path).not.toMatch(/fairweigh\.session=/);
+      expect(cookies, path).toMatch(/fairweigh\.visitor=[^;]+;.*HttpOnly/i);
+    }
   });
 });
 

@@ -50,9 +50,7 @@ export function apiRoutes({ db, pool, passport, csrf, sessionCookie, queue, publ
   api.use("/health", healthRoutes(pool));
 
   api.get("/csrf", (req, res) => {
-    // Marks the session so that it is stored: the token is bound to the session's id.
-    req.session.csrfIssued = true;
-    res.json({ token: csrf.generateCsrfToken(req, res, { overwrite: false }) });
+    res.json({ token: csrf.issueToken(req, res) });
   });
 
   // Readers' alerts take no token (see subscriptions.ts for why); every route below that changes
@@ -80,10 +78,4 @@ export function apiRoutes({ db, pool, passport, csrf, sessionCookie, queue, publ
 
   api.use((_req, res) => sendError(res, 404, { key: "errors.notFound", message: "There is no such API route." }));
   return api;
-}
-
-declare module "express-session" {
-  interface SessionData {
-    csrfIssued?: boolean;
-  }
 }

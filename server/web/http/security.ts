@@ -48,17 +48,35 @@ export const sessionCookieName = (secureTransport: boolean) => (secureTransport 
 
 export const csrfFormField = "_csrf";
 
+/**
+ * Before signing in, a reader has no session (none is stored for anonymous visits: hostile probe
+ * round 3, F13); the CSRF token of a form is bound instead to this random cookie of the browser.
+ */
+const visitorCookie = (secureTransport: boolean) => (secureTransport ? "__Host-fairweigh.visitor" : "fairweigh.visitor");
+
 export function createCsrf(secret: string, secureTransport: boolean) {
-  return doubleCsrf({
+  const visitor = visitorCookie(secureTransport);
+  const csrf = doubleCsrf({
     getSecret: () => secret,
-    // The token is bound to the session; a new session (after signing in or out) needs a new token.
-    getSessionIdentifier: (req) => req.session.id,
+    // The token is bound to the signed-in session, or before signing in to the visitor cookie; a new
+    // session (after signing in or out) needs a new token.
+    getSessionIdentifier: (req) => (req.user ? req.session.id : `visitor:${String(req.cookies?.[visitor] ?? "")}`),
     cookieName: secureTransport ? "__Host-fairweigh.csrf" : "fairweigh.csrf",
     cookieOptions: { sameSite: "lax", secure: secureTransport, httpOnly: true, path: "/" },
     getCsrfTokenFromRequest: (req) =>
       req.get("x-csrf-token") ?? (typeof req.body?.[csrfFormField] === "string" ? req.body[csrfFormField] : undefined),
     errorConfig: { statusCode: 403, code: "EBADCSRFTOKEN", message: "invalid csrf token" },
   });
+  /** A token for this request's form; an anonymous browser gets its visitor cookie first, and no session is stored. */
+  const issueToken = (req: Request, res: Response): string => {
+    if (!req.user && typeof req.cookies?.[visitor] !== "string") {
+      const id = randomBytes(18).toString("base64url");
+      res.cookie(visitor, id, { sameSite: "lax", secure: secureTransport, httpOnly: true, path: "/", maxAge: 1000 * 60 * 60 * 12 });
+      req.cookies = { ...req.cookies, [visitor]: id };
+    }
+    return csrf.generateCsrfToken(req, res, { overwrite: false });
+  };
+  return { ...csrf, issueToken };
 }
 
 /**

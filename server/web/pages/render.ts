@@ -243,8 +243,7 @@ export async function pageRoutes(options: {
   async function renderAndKeep(req: Request, res: Response, path: string, kept: Kept | null) {
     let csrfToken: string | undefined;
     if (holdsForm(path)) {
-      req.session.csrfIssued = true;
-      csrfToken = csrf.generateCsrfToken(req, res, { overwrite: false });
+      csrfToken = csrf.issueToken(req, res);
     }
     const pageContext = await renderPage({
       urlOriginal: req.originalUrl,
