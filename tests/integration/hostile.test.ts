@@ -211,6 +211,18 @@ describe("round 3 of the hostile probe (F13): sessions only for people who sign 
   });
 });
 
+describe("round 3 of the hostile probe (F7): a query string never reaches the page kept for every reader", () => {
+  it("sends a version's or a brief's address with a query to the address without it, and the kept page names no query", async () => {
+    for (const path of [`/briefs/${small}/v/1`, `/es/briefs/${small}/v/1`, `/briefs/${small}`]) {
+      const answer = await get(`${path}?x=1`);
+      expect(answer.status, path).toBe(301);
+      expect(answer.headers.get("location"), path).toBe(path);
+    }
+    const kept = await (await get(`/briefs/${small}/v/1`)).text();
+    expect(kept).not.toContain("x=1");
+  });
+});
+
 describe("what the public files say", () => {
   it("the feed sends titles as text, and a title's markup stays words", async () => {
     await publishedBrief(clients.analyst!, clients.editor!, "Markup <b>bold</b> & more");

@@ -151,6 +151,9 @@ export async function pageRoutes(options: {
     // A version's page has one address: another spelling of it (percent-encoding, a trailing slash)
     // is sent there, so that each page is rendered and cached once.
     if (parsed && !parsed.canonical) return res.redirect(301, localePath(locale, canonicalVersionPath(parsed)) + query);
+    // A brief's and a version's page take no query: one with a query goes to the page without it, so
+    // that nothing of a request's query can reach the page kept for every reader (hostile probe round 3, F7).
+    if (query && (parsed || parseBriefPath(path))) return res.redirect(301, localePath(locale, path));
     try {
       const memory = memoryCached(req.user, locale, path, query, parsed);
       if (memory) {
