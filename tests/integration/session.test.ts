@@ -91,16 +91,27 @@ describe("CSRF protection", () => {
     expect(response.body.error?.key).toBe("errors.csrf");
   });
 
-  it("refuses a token from another session", async () => {
+  it("refuses a token from another browser, and accepts the browser's own", async () => {
     const first = new ApiClient(app.url);
-    const { body } = await first.request("GET", "/api/csrf");
+    const theirs = String((await first.request("GET", "/api/csrf", { csrf: false })).body.token);
+    // The second browser has cookies of its own (its visitor and CSRF cookies): only the token differs.
     const second = new ApiClient(app.url);
-    const response = await second.request("POST", "/api/session", {
-      json: { email: "analyst@fairweigh.example", password: demoPassword },
-      csrf: false,
-      headers: { "x-csrf-token": String(body.token) },
-    });
-    expect(response.status).toBe(403);
+    const own = String((await second.request("GET", "/api/csrf", { csrf: false })).body.token);
+    expect(own).not.toBe(theirs);
+    const signIn = (token: string) =>
+      second.request("POST", "/api/session", { json: { email: "analyst@fairweigh.example", password: demoPassword }, csrf: false, headers: { "x-csrf-token": token } });
+    expect((await signIn(theirs)).status).toBe(403);
+    expect((await signIn(own)).status).toBe(200);
+  });
+
+  it("refuses a signed-in person's token from before another sign-in", async () => {
+    const person = await demoClient(app.url, "editor");
+    const before = String((await person.request("GET", "/api/csrf", { csrf: false })).body.token);
+    await person.signIn("editor@fairweigh.example", demoPassword);
+    const change = (token: string) => person.request("PATCH", "/api/account", { json: { displayName: "Demo editor" }, csrf: false, headers: { "x-csrf-token": token } });
+    expect((await change(before)).status).toBe(403);
+    const after = String((await person.request("GET", "/api/csrf", { csrf: false })).body.token);
+    expect((await change(after)).status).not.toBe(403);
   });
 });
 
