@@ -6,7 +6,9 @@ import { tmpdir } from "node:os";
 import path from "node:path";
 import pg from "pg";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { slugify } from "#core/slug";
 import { readSnapshot } from "#core/snapshot/upgrade";
+import { demoBriefs } from "#workflows/demo-briefs";
 import { backupDatabase, restoreDatabase } from "../../scripts/lib/backup";
 import { ensureCluster, freePort, type Cluster } from "../../scripts/lib/postgres";
 import { startProductionServer as startServer } from "../../scripts/lib/production-server";
@@ -67,6 +69,24 @@ describe("the database restarted while requests arrive", () => {
     expect(new Set(statuses.filter((status) => status !== 200 && status !== 503))).toEqual(new Set());
     expect(statuses).toContain(503);
     expect((await fetch(`${app.url}/api/health`)).status).toBe(200);
+  }, 60_000);
+});
+
+describe("pages while the database is down (hostile probe round 3, F8)", () => {
+  it("answers 503, never 500, for pages not yet in memory: a search, a topic, a version and a comparison", async () => {
+    const server = await startServer({ databaseUrl: cluster.url, sessionSecret: testSessionSecret });
+    try {
+      const small = slugify(demoBriefs()[0]!.title);
+      expect((await fetch(`${server.url}/briefs/${small}/v/1`)).status).toBe(200);
+      cluster.stop();
+      for (const path of ["/briefs?q=never-searched-before", "/topics/sleep", `/es/briefs/${small}/v/1`, `/fr/briefs/${small}/v/1/compare/light/usual_care`]) {
+        const answer = await fetch(`${server.url}${path}`);
+        expect(answer.status, path).toBe(503);
+      }
+    } finally {
+      cluster = await ensureCluster({ dataDir: path.join(folder, "main"), port, log: quiet });
+      await server.stop();
+    }
   }, 60_000);
 });
 

@@ -12,6 +12,7 @@ import { publicVersionState } from "#db/versions";
 import { localeCookie } from "../public/routes";
 import { siteUrl } from "../http/site-url";
 import type { Database } from "#db/client";
+import { errorAnswer } from "../http/errors";
 import type { createCsrf } from "../http/security";
 import { briefOfPath, canonicalVersionPath, isDeskPath, parseBriefPath, parseVersionPath, surrogateKeys, type VersionPath } from "#core/urls";
 import { admits, pageAccess } from "#core/access";
@@ -260,6 +261,10 @@ export async function pageRoutes(options: {
     });
     const { httpResponse } = pageContext;
     if (!httpResponse) return null;
+    // Vike renders its error page with a 500 when a page's data could not be read; a database that is
+    // down or restarting is the client's 503 instead, as for every other answer (hostile probe round 3, F8).
+    const failure = (pageContext as { errorWhileRendering?: unknown }).errorWhileRendering;
+    if (failure && errorAnswer(failure).status === 503) throw failure;
     const answer = ((pageContext as { data?: unknown }).data ?? {}) as PageAnswer;
     const html = await httpResponse.getBody();
     // helmet has set the full policy with the same nonce; Vike's shorter one would replace it.
