@@ -1,7 +1,7 @@
 // The translation desk: the queue of versions per language, and one version's texts in one language
 // beside their source, with a preview of the Markdown and, where a source changed since it was
 // translated, what changed. Translators save and mark ready; editors also publish.
-import { grammarChoices } from "#core/translation";
+import { grammarChoices } from "#core/grammar";
 import { useState } from "react";
 import { useTranslation as useWords } from "react-i18next";
 import { Link, useParams } from "react-router";

@@ -11,6 +11,9 @@ export type GrammaticalNumber = (typeof grammaticalNumbers)[number];
 export const genders = ["masculine", "feminine"] as const;
 export type Gender = (typeof genders)[number];
 
+/** A translator's choice of gender and number, as the translation's grammar field stores it ("feminine plural"). */
+export const grammarChoices = genders.flatMap((gender) => grammaticalNumbers.map((number) => `${gender} ${number}`));
+
 export interface TreatmentGrammar {
   /** How a sentence names it: with its article where the language needs one. */
   phrase: string;

@@ -100,9 +100,6 @@ export function unfinished(views: FieldView[]): { empty: string[]; stale: string
   };
 }
 
-/** A translator's choice of gender and number, as the grammar field stores it ("feminine plural"). */
-export const grammarChoices = genders.flatMap((gender) => grammaticalNumbers.map((number) => `${gender} ${number}`));
-
 /**
  * Each treatment's grammar for the words of `locale`: the translator's phrase and choice where the
  * translation gives them, else the display name inside a sentence, the source's number, masculine.
