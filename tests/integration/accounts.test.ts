@@ -236,6 +236,9 @@ describe("topic alerts for readers", () => {
     // Asking again answers the same, and sends nothing new.
     const again = await subscribe();
     expect([again.status, await again.text()]).toEqual([202, await first.text()]);
+    // The request is a job: wait until the queue has taken it, or under load it could run after the
+    // unsubscription below and rightly ask to confirm again.
+    await subscribeJobsDone();
 
     const correct = async (note: string) => {
       await approveChange(analyst, editor, briefId);
@@ -266,6 +269,22 @@ describe("topic alerts for readers", () => {
 });
 
 /** A change to a published brief through review again: the editor edits the short take, the analyst submits, the editor approves. */
+/** Until no readers' subscription request waits in the queue (pg-boss's own table). */
+async function subscribeJobsDone() {
+  const db = new pg.Client({ connectionString: testDatabaseUrl() });
+  await db.connect();
+  try {
+    for (let attempt = 0; attempt < 200; attempt++) {
+      const { rows } = await db.query<{ waiting: number }>("select count(*)::int as waiting from pgboss.job where name = 'subscribe' and state in ('created', 'retry', 'active')");
+      if (rows[0]!.waiting === 0) return;
+      await new Promise((resolve) => setTimeout(resolve, 100));
+    }
+    throw new Error("the subscription request was not taken from the queue within 20 s");
+  } finally {
+    await db.end();
+  }
+}
+
 async function approveChange(analyst: ApiClient, editor: ApiClient, briefId: string) {
   const current = await editor.request("GET", `/api/briefs/${briefId}`);
   const rowVersion = (current.body.brief as { rowVersion: number }).rowVersion;
