@@ -1,33 +1,26 @@
 // The site never loses its last administrator (round 3 of the hostile probe, F3 and F4), on a database
 // of its own so that no other test's people count: an invitation never accepted does not count, and
 // two administrators demoting each other at the same moment leave one of them.
-import pg from "pg";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { connectDatabase, type DatabaseConnection } from "#db/client";
 import { migrateDatabase } from "#db/migrate";
 import { insertPerson, type Person } from "#db/people";
 import { changePerson, type AccountContext } from "#workflows/accounts";
-import { testDatabaseUrl } from "../support/app";
+import { ownDatabase } from "../support/app";
 
-const database = `last_admin_test_${process.pid}`;
-let admin: pg.Client;
+let database: Awaited<ReturnType<typeof ownDatabase>>;
 let connection: DatabaseConnection;
 let ctx: AccountContext;
 
 beforeAll(async () => {
-  admin = new pg.Client({ connectionString: testDatabaseUrl() });
-  await admin.connect();
-  await admin.query(`create database ${database}`);
-  const url = new URL(testDatabaseUrl());
-  url.pathname = `/${database}`;
-  connection = connectDatabase(url.toString());
+  database = await ownDatabase("last_admin_test");
+  connection = connectDatabase(database.url);
   await migrateDatabase(connection);
   ctx = { db: connection.db } as AccountContext;
 });
 afterAll(async () => {
   await connection.close();
-  await admin.query(`drop database ${database} with (force)`);
-  await admin.end();
+  await database.drop();
 });
 
 let counter = 0;

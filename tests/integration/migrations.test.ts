@@ -2,14 +2,12 @@
 import { cpSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
-import pg from "pg";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { connectDatabase, type DatabaseConnection } from "#db/client";
 import { migrateDatabase, migrationsFolder } from "#db/migrate";
-import { testDatabaseUrl } from "../support/app";
+import { ownDatabase } from "../support/app";
 
-const database = `migration_test_${process.pid}`;
-let admin: pg.Client;
+let database: Awaited<ReturnType<typeof ownDatabase>>;
 let connection: DatabaseConnection;
 let folderBefore: string;
 
@@ -25,18 +23,13 @@ function migrationsUpTo(tag: string): string {
 }
 
 beforeAll(async () => {
-  admin = new pg.Client({ connectionString: testDatabaseUrl() });
-  await admin.connect();
-  await admin.query(`create database ${database}`);
-  const url = new URL(testDatabaseUrl());
-  url.pathname = `/${database}`;
-  connection = connectDatabase(url.toString());
+  database = await ownDatabase("migration_test");
+  connection = connectDatabase(database.url);
   folderBefore = migrationsUpTo("0007_review-and-withdrawal");
 });
 afterAll(async () => {
   await connection.close();
-  await admin.query(`drop database ${database}`);
-  await admin.end();
+  await database.drop();
   rmSync(folderBefore, { recursive: true, force: true });
 });
 
@@ -73,11 +66,8 @@ describe("0008: thresholds of binary outcomes become differences per 1000 (docs/
 
 describe("0024: the author team and the short take under the product's own names (docs/decisions/0034-product-names.md)", () => {
   it("keeps a brief's author and short take, and moves translated short takes to the new field name", async () => {
-    const named = `migration_names_${process.pid}`;
-    await admin.query(`create database ${named}`);
-    const url = new URL(testDatabaseUrl());
-    url.pathname = `/${named}`;
-    const machine = connectDatabase(url.toString());
+    const named = await ownDatabase("migration_names");
+    const machine = connectDatabase(named.url);
     const before = migrationsUpTo("0023_search-documents");
     try {
       await migrateDatabase(machine, before);
@@ -105,7 +95,7 @@ describe("0024: the author team and the short take under the product's own names
       expect(translation.published_fields).toEqual({ shortTake: "Caminar puede ayudar.", title: "Título" });
     } finally {
       await machine.close();
-      await admin.query(`drop database ${named}`);
+      await named.drop();
       rmSync(before, { recursive: true, force: true });
     }
   });
@@ -113,11 +103,8 @@ describe("0024: the author team and the short take under the product's own names
 
 describe("machines that start at once", () => {
   it("migrate a new database once between them: three at the same moment all start, and every migration is recorded once", async () => {
-    const fresh = `migration_race_${process.pid}`;
-    await admin.query(`create database ${fresh}`);
-    const url = new URL(testDatabaseUrl());
-    url.pathname = `/${fresh}`;
-    const machines = [0, 1, 2].map(() => connectDatabase(url.toString()));
+    const fresh = await ownDatabase("migration_race");
+    const machines = [0, 1, 2].map(() => connectDatabase(fresh.url));
     try {
       await Promise.all(machines.map((machine) => migrateDatabase(machine)));
       const journal = JSON.parse(readFileSync(path.join(migrationsFolder, "meta/_journal.json"), "utf8")) as { entries: unknown[] };
@@ -125,7 +112,7 @@ describe("machines that start at once", () => {
       expect(Number(applied.rows[0]!.count)).toBe(journal.entries.length);
     } finally {
       await Promise.all(machines.map((machine) => machine.close()));
-      await admin.query(`drop database ${fresh}`);
+      await fresh.drop();
     }
   });
 });

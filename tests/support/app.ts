@@ -2,6 +2,7 @@
 import { randomUUID } from "node:crypto";
 import type { AddressInfo } from "node:net";
 import type { Server } from "node:http";
+import pg from "pg";
 import { createApp, type AppOptions } from "#web/app";
 import { connectDatabase, type DatabaseConnection } from "#db/client";
 
@@ -9,6 +10,29 @@ export function testDatabaseUrl(): string {
   const url = process.env.TEST_DATABASE_URL;
   if (!url) throw new Error("TEST_DATABASE_URL is not set: run the tests with `npm test`");
   return url;
+}
+
+/**
+ * A database of a test's own on the test cluster, for a test whose rows nobody else's may touch (a
+ * migration, a count of administrators); `drop` removes it and its connections.
+ */
+export async function ownDatabase(name: string): Promise<{ url: string; drop: () => Promise<void> }> {
+  const admin = new pg.Client({ connectionString: testDatabaseUrl() });
+  await admin.connect();
+  const database = `${name}_${process.pid}`;
+  await admin.query(`create database ${database}`);
+  const url = new URL(testDatabaseUrl());
+  url.pathname = `/${database}`;
+  return {
+    url: url.toString(),
+    drop: async () => {
+      try {
+        await admin.query(`drop database ${database} with (force)`);
+      } finally {
+        await admin.end();
+      }
+    },
+  };
 }
 
 export const testSessionSecret = "a-session-secret-used-only-by-the-tests-0123456789";

@@ -128,7 +128,7 @@ describe("contractions only where a preposition meets an article", () => {
   it("leaves other words alone", () => {
     const parts = (before: string, name: string) => joinParts("fr", [{ text: before, name: false }, { text: name, name: true }]).map((p) => p.text).join("");
     expect(parts("par rapport à ", "l’aide")).toBe("Par rapport à l’aide");
-    expect(parts("plus de ", "lecture")).toBe("Plus de lecture");
+    expect(parts("plus de ", "sommeil")).toBe("Plus de sommeil");
     expect(parts("l’effet de ", "les soins")).toBe("L’effet des soins");
   });
 });
