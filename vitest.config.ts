@@ -1,6 +1,7 @@
 import { defineConfig } from "vitest/config";
 
-// Three kinds of test, each in its own folder; scripts/test.ts provides the database and the build.
+// Four kinds of test, each in its own folder; scripts/test.ts provides the database and the build.
+// The faults (kills, outages, the fuzz) run one file at a time: each stops or kills what it started.
 export default defineConfig({
   test: {
     projects: [
@@ -20,6 +21,15 @@ export default defineConfig({
           testTimeout: 60_000,
           hookTimeout: 60_000,
           // One Chromium at a time on a two-core machine.
+          fileParallelism: false,
+        },
+      },
+      {
+        test: {
+          name: "faults",
+          include: ["tests/faults/**/*.test.ts"],
+          testTimeout: 120_000,
+          hookTimeout: 300_000,
           fileParallelism: false,
         },
       },

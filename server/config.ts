@@ -15,6 +15,8 @@ const environment = z.object({
   SMTP_URL: z.string().regex(/^smtps?:\/\//, { message: "SMTP_URL must start with smtp:// or smtps://" }).optional(),
   /** The first retry delay of a failed e-mail in seconds, doubling each time (tests shorten it). */
   MAIL_RETRY_DELAY_SECONDS: z.coerce.number().int().min(1).max(3600).default(10),
+  /** How long a job of a process that died is held before it is tried again, in seconds (tests shorten it). */
+  JOB_EXPIRY_SECONDS: z.coerce.number().int().min(2).max(3600).default(60),
   /** Development only: the fake SMTP server's folder, shown at /desk/dev/mail. */
   MAIL_FOLDER: z.string().optional(),
   /** Where to POST the surrogate key of a brief whose public pages changed (a CDN's purge endpoint, or a small relay to it). */
@@ -37,6 +39,7 @@ export type ServerConfig = {
   logLevel: z.infer<typeof environment>["LOG_LEVEL"];
   smtpUrl: string | null;
   mailRetryDelaySeconds: number;
+  jobExpirySeconds: number;
   mailFolder: string | null;
   rateLimitNamespace: string;
   workers: number;
@@ -62,6 +65,7 @@ export function readConfig(env: NodeJS.ProcessEnv = process.env): ServerConfig {
     logLevel: value.LOG_LEVEL,
     smtpUrl: value.SMTP_URL ?? null,
     mailRetryDelaySeconds: value.MAIL_RETRY_DELAY_SECONDS,
+    jobExpirySeconds: value.JOB_EXPIRY_SECONDS,
     mailFolder: value.MAIL_FOLDER ?? null,
     rateLimitNamespace: value.RATE_LIMIT_NAMESPACE ?? "",
     workers: value.WORKERS ?? (value.NODE_ENV === "production" ? availableParallelism() : 1),

@@ -19,7 +19,7 @@ export async function startServer(config: ServerConfig, { migrate = true } = {})
   const connection = connectDatabase(config.databaseUrl);
   if (migrate) await migrateDatabase(connection);
   // The job queue runs in the server's process: e-mail is delivered only where SMTP_URL says how.
-  const queue = await startQueue(config.databaseUrl, { ...defaultQueueOptions, retryDelaySeconds: config.mailRetryDelaySeconds }, (error) => console.error("queue:", error.message));
+  const queue = await startQueue(config.databaseUrl, { ...defaultQueueOptions, retryDelaySeconds: config.mailRetryDelaySeconds, expirySeconds: config.jobExpirySeconds }, (error) => console.error("queue:", error.message));
   const mail = { db: connection.db, queue, siteUrl: config.publicUrl };
   await startAccountWorker(mail);
   await startReleaseWorker(mail);

@@ -1,3 +1,4 @@
+import { sql } from "drizzle-orm";
 import { drizzle, type NodePgDatabase } from "drizzle-orm/node-postgres";
 import pg from "pg";
 import * as schema from "./schema";
@@ -20,3 +21,16 @@ export function connectDatabase(url: string): DatabaseConnection {
 
 /** The database or a transaction on it: code that reads and writes works inside either. */
 export type Executor = Database | Parameters<Parameters<Database["transaction"]>[0]>[0];
+
+/**
+ * Runs a statement written with `$1`, `$2`… placeholders (another library's, such as the queue's)
+ * on the database or inside a transaction: each placeholder becomes a bound value again.
+ */
+export function positionalSql(db: Executor) {
+  return async (text: string, values: unknown[]): Promise<{ rows: Record<string, unknown>[] }> => {
+    const parts = text.split(/\$(\d+)/);
+    const chunks = parts.map((part, i) => (i % 2 === 0 ? sql.raw(part) : sql.param(values[Number(part) - 1] ?? null)));
+    const result = await db.execute(sql.join(chunks, sql.raw("")));
+    return { rows: result.rows };
+  };
+}

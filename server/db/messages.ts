@@ -37,8 +37,14 @@ export async function listMessages(db: Executor, limit = 100) {
     .limit(limit);
 }
 
-/** Messages still queued, for the sweep at start-up (a crash between the change and the queue). */
-export async function queuedMessageIds(db: Executor): Promise<string[]> {
-  const rows = await db.select({ id: messages.id }).from(messages).where(eq(messages.state, "queued"));
-  return rows.map((row) => row.id);
+/**
+ * Messages still queued that no job of the queue will deliver: stored by a process without a queue.
+ * (The queue's jobs live in pg-boss's own table, `pgboss.job`; a job still to run is created, retry or active.)
+ */
+export async function unqueuedMessageIds(db: Pick<Database, "execute">, job: string): Promise<string[]> {
+  const rows = await db.execute<{ id: string }>(sql`
+    select m.id from messages m
+    where m.state = 'queued'
+      and not exists (select 1 from pgboss.job j where j.name = ${job} and j.data->>'messageId' = m.id::text and j.state in ('created', 'retry', 'active'))`);
+  return rows.rows.map((row) => row.id);
 }

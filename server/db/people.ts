@@ -157,7 +157,10 @@ export async function activePeopleWithRole(db: Executor, role: Role): Promise<Pe
     .from(people)
     .innerJoin(personRoles, eq(personRoles.personId, people.id))
     .where(and(eq(personRoles.role, role), isNull(people.deactivatedAt), sql`${people.passwordHash} is not null`));
-  return Promise.all(rows.map(({ person }) => withRoles(db, person)));
+  // One after another: inside a transaction the queries share one connection.
+  const found: Person[] = [];
+  for (const { person } of rows) found.push(await withRoles(db, person));
+  return found;
 }
 
 /** How many active administrators there are, so that the last one cannot be removed. */

@@ -1,6 +1,6 @@
 // Readers' topic subscriptions (double opt-in, one-click unsubscribe).
 import { and, eq, gt, isNotNull, isNull, sql } from "drizzle-orm";
-import type { Database } from "./client";
+import type { Database, Executor } from "./client";
 import { subscriptions } from "./schema";
 import { hashToken, newToken } from "#core/tokens";
 
@@ -48,7 +48,7 @@ export async function unsubscribe(db: Database, token: string): Promise<boolean>
 }
 
 /** The confirmed, active subscribers of a topic. */
-export async function subscribersOf(db: Database, topicSlug: string) {
+export async function subscribersOf(db: Executor, topicSlug: string) {
   return db
     .select({ email: subscriptions.email, locale: subscriptions.locale, unsubscribeToken: subscriptions.unsubscribeToken })
     .from(subscriptions)

@@ -261,7 +261,7 @@ export async function listReleasedVersions(db: Database): Promise<ReleasedVersio
 }
 
 /** What an announcement of a version says: its brief, number, release time and note. */
-export async function versionForAnnouncement(db: Database, briefId: string, number: number) {
+export async function versionForAnnouncement(db: Executor, briefId: string, number: number) {
   const [row] = await db
     .select({ ...listedVersion, versionId: briefVersions.id, topic: sql<string>`${briefVersions.listedBrief}->>'topic'` })
     .from(briefVersions)
@@ -271,7 +271,7 @@ export async function versionForAnnouncement(db: Database, briefId: string, numb
 }
 
 /** Claims the announcement of a released version: true for the first caller only. */
-export async function claimAnnouncement(db: Database, versionId: string): Promise<boolean> {
+export async function claimAnnouncement(db: Executor, versionId: string): Promise<boolean> {
   const rows = await db.insert(releaseAnnouncements).values({ versionId }).onConflictDoNothing().returning();
   return rows.length === 1;
 }

@@ -1,15 +1,14 @@
 // People's accounts: invitations, password resets through one-time links, changes by administrators
-// and by the person. Each change and its e-mail are stored in one transaction; the e-mail is handed
-// to the queue after the commit (server/workflows/mail.ts).
+// and by the person. Each change, its e-mail and the job that delivers it are stored in one
+// transaction (server/workflows/mail.ts).
 import { hashPassword, verifyPassword } from "#core/passwords";
 import { invitationMessage, passwordResetMessage } from "#core/mail";
 import type { Role } from "#core/roles";
 import { invitationUrl, passwordResetUrl } from "#core/urls";
-import { insertMessage } from "#db/messages";
 import { activeAdminCount, lockAdministrators, endSessions, findActiveByEmail, findPersonRecord, insertPerson, passwordHashOf, setPasswordHash, updatePerson, type Person } from "#db/people";
 import { consumeToken, issueToken } from "#db/tokens";
 import type { Executor } from "#db/client";
-import { deliver, type MailContext } from "./mail";
+import { queueMail, type MailContext } from "./mail";
 import type { Queue } from "./queue";
 
 export type AccountContext = MailContext;
@@ -17,10 +16,10 @@ export type AccountContext = MailContext;
 const passwordResetJob = "password-reset";
 
 /** A new invitation link for the person (the earlier one stops working) and its e-mail, stored in the caller's transaction. */
-async function storeInvitation(ctx: AccountContext, tx: Executor, person: Person, inviter: Person): Promise<string> {
+async function storeInvitation(ctx: AccountContext, tx: Executor, person: Person, inviter: Person): Promise<void> {
   const { token, expiresAt } = await issueToken(tx, person.id, "invitation");
   const message = invitationMessage({ recipient: person.email, name: person.displayName, inviter: inviter.displayName, roles: person.roles, link: ctx.siteUrl + invitationUrl(token), expires: expiresAt, locale: person.locale });
-  return insertMessage(tx, message);
+  await queueMail(tx, ctx.queue, [message]);
 }
 
 export async function invitePerson(
@@ -31,11 +30,11 @@ export async function invitePerson(
   const outcome = await ctx.db.transaction(async (tx) => {
     const person = await insertPerson(tx, { ...input, passwordHash: null }, inviter.id);
     if (!person) return null;
-    return { person, messageId: await storeInvitation(ctx, tx, person, inviter) };
+    await storeInvitation(ctx, tx, person, inviter);
+    return person;
   });
   if (!outcome) return { ok: false as const, reason: "taken" as const };
-  await deliver(ctx.queue, [outcome.messageId]);
-  return { ok: true as const, person: outcome.person };
+  return { ok: true as const, person: outcome };
 }
 
 /** A new invitation link (the earlier one stops working), while the person has not yet set a password. */
@@ -43,8 +42,7 @@ export async function resendInvitation(ctx: AccountContext, personId: string, in
   const record = await findPersonRecord(ctx.db, personId);
   if (!record) return { ok: false as const, reason: "not-found" as const };
   if (record.passwordSet) return { ok: false as const, reason: "accepted" as const };
-  const messageId = await ctx.db.transaction((tx) => storeInvitation(ctx, tx, record, inviter));
-  await deliver(ctx.queue, [messageId]);
+  await ctx.db.transaction((tx) => storeInvitation(ctx, tx, record, inviter));
   return { ok: true as const };
 }
 
@@ -61,11 +59,10 @@ export async function requestPasswordReset(ctx: AccountContext, email: string): 
 export async function sendPasswordReset(ctx: AccountContext, email: string): Promise<void> {
   const person = await findActiveByEmail(ctx.db, email);
   if (!person) return;
-  const messageId = await ctx.db.transaction(async (tx) => {
+  await ctx.db.transaction(async (tx) => {
     const { token, expiresAt } = await issueToken(tx, person.id, "password-reset");
-    return insertMessage(tx, passwordResetMessage({ recipient: person.email, name: person.displayName, link: ctx.siteUrl + passwordResetUrl(token), expires: expiresAt, locale: person.locale }));
+    await queueMail(tx, ctx.queue, [passwordResetMessage({ recipient: person.email, name: person.displayName, link: ctx.siteUrl + passwordResetUrl(token), expires: expiresAt, locale: person.locale })]);
   });
-  await deliver(ctx.queue, [messageId]);
 }
 
 export async function startAccountWorker(ctx: AccountContext & { queue: Queue }): Promise<void> {

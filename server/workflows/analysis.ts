@@ -28,7 +28,13 @@ export async function storeDataset(db: Database, outcome: OutcomeRow, file: { na
 }
 
 /** An analysed file and its result, stored together with the audit row (`uploadedAt`: when it was sent, for a queued one). */
-async function keepAnalysed(db: Database, outcome: OutcomeRow, file: { name: string; bytes: Buffer; format: Format; actorId: string; uploadedAt?: Date }, parsed: ParsedDataset, result: AnalysisResult) {
+async function keepAnalysed(
+  db: Database,
+  outcome: OutcomeRow,
+  file: { name: string; bytes: Buffer; format: Format; actorId: string; uploadedAt?: Date; pendingId?: string },
+  parsed: ParsedDataset,
+  result: AnalysisResult,
+) {
   const settings = analysisSettings(outcome);
   const { format, actorId } = file;
   const sha256 = createHash("sha256").update(file.bytes).digest("hex");
@@ -43,6 +49,8 @@ async function keepAnalysed(db: Database, outcome: OutcomeRow, file: { name: str
       before: null,
       after: { datasetId: dataset.id, fileName: file.name, sha256, format, resultId: stored.id },
     });
+    // A queued upload leaves the queue's waiting room in the same transaction: a retried job finds it gone.
+    if (file.pendingId) await deletePendingUpload(tx, file.pendingId);
     return { dataset, resultId: stored.id, result, parsed };
   });
 }
@@ -73,9 +81,12 @@ export function isLargeUpload(bytes: Buffer): boolean {
  */
 export async function queueUpload(db: Database, queue: Queue, outcome: OutcomeRow, file: { name: string; bytes: Buffer }, format: Format, actorId: string) {
   await checkFile(file.bytes, format);
-  const pending = await insertPendingUpload(db, { outcomeId: outcome.id, format, fileName: file.name, original: file.bytes, uploadedBy: actorId });
-  await queue.send(analysisJob, { uploadId: pending.id });
-  return pending;
+  // The upload and its job commit together: none waits "analysing" with no job to analyse it.
+  return db.transaction(async (tx) => {
+    const pending = await insertPendingUpload(tx, { outcomeId: outcome.id, format, fileName: file.name, original: file.bytes, uploadedBy: actorId });
+    await queue.send(analysisJob, { uploadId: pending.id }, { in: tx });
+    return pending;
+  });
 }
 
 /**
@@ -91,8 +102,7 @@ export async function startAnalysisWorker(db: Database, queue: Queue): Promise<v
     if (!outcome) return deletePendingUpload(db, upload.id);
     try {
       const { parsed, result } = await parseAndAnalyse(upload.original, upload.format, analysisSettings(outcome));
-      await keepAnalysed(db, outcome, { name: upload.fileName, bytes: upload.original, format: upload.format, actorId: upload.uploadedBy!, uploadedAt: upload.uploadedAt }, parsed, result);
-      await deletePendingUpload(db, upload.id);
+      await keepAnalysed(db, outcome, { name: upload.fileName, bytes: upload.original, format: upload.format, actorId: upload.uploadedBy!, uploadedAt: upload.uploadedAt, pendingId: upload.id }, parsed, result);
     } catch (error) {
       if (!(error instanceof DatasetError)) throw error;
       await refusePendingUpload(db, upload.id, error.issues);

@@ -1,9 +1,11 @@
-// Sending e-mail: a message is stored with the change that asks for it (state "queued"), then a job
-// of the queue delivers it over SMTP with nodemailer, retrying with back-off; every attempt is
-// written to the message (attempts, last error), and the last failed one marks it "failed".
+// Sending e-mail: a message and the job that delivers it are stored in the transaction of the change
+// that asks for it (state "queued"; a transactional outbox, decision 0036), then the job delivers it
+// over SMTP with nodemailer, retrying with back-off; every attempt is written to the message
+// (attempts, last error), and the last failed one marks it "failed".
 import nodemailer from "nodemailer";
-import type { Database } from "#db/client";
-import { findMessage, markAttemptFailed, markSent, queuedMessageIds } from "#db/messages";
+import type { Message } from "#core/mail";
+import type { Database, Executor } from "#db/client";
+import { findMessage, insertMessage, markAttemptFailed, markSent, unqueuedMessageIds } from "#db/messages";
 import type { Queue } from "./queue";
 
 /** What a workflow that sends e-mail needs: the database, the queue (null where none runs) and the site's address for links. */
@@ -16,13 +18,18 @@ export interface MailContext {
 const mailJob = "mail";
 export const senderAddress = "Fairweigh <no-reply@fairweigh.example>";
 
-/** Delivers stored messages: call after the transaction that stored them has committed. */
-export async function deliver(queue: Queue | null, ids: string[]): Promise<void> {
-  // Without a queue (a test app without mail) the messages stay queued, as they would with the server down.
-  for (const id of ids) await queue?.send(mailJob, { messageId: id }, id);
+/**
+ * Stores messages with their delivery jobs in the caller's transaction: they go out if, and only if,
+ * it commits. Without a queue (a test app without mail) they stay queued until a server with one starts.
+ */
+export async function queueMail(tx: Executor, queue: Queue | null, messages: Message[]): Promise<void> {
+  for (const message of messages) {
+    const id = await insertMessage(tx, message);
+    await queue?.send(mailJob, { messageId: id }, { singletonKey: id, in: tx });
+  }
 }
 
-/** Starts delivering: the worker, and a sweep of messages stored but not yet handed to the queue (a crash in between). */
+/** Starts delivering: the worker, and the messages stored where no queue ran (they have no job yet). */
 export async function startMailWorker(queue: Queue, db: Database, smtpUrl: string): Promise<void> {
   const transport = nodemailer.createTransport(smtpUrl);
   await queue.work<{ messageId: string }>(mailJob, async ({ data, retryCount, retryLimit }) => {
@@ -37,5 +44,5 @@ export async function startMailWorker(queue: Queue, db: Database, smtpUrl: strin
     }
     await markSent(db, message.id);
   });
-  await deliver(queue, await queuedMessageIds(db));
+  for (const id of await unqueuedMessageIds(db, mailJob)) await queue.send(mailJob, { messageId: id }, { singletonKey: id });
 }

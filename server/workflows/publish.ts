@@ -1,5 +1,8 @@
 // Publishing: the approved draft is frozen as the brief's next version. Version 1 publishes; later
 // versions correct and need a public note. A release time in the future schedules it (the embargo).
+// The version, the brief's status, the audit row and the alerts with their jobs commit together
+// (decision 0036): a process that dies half-way leaves all of them or none. `alerts` null: publish
+// silently (the demo's seed).
 import type { VersionSnapshot } from "#core/snapshot/schema";
 import { versionUrl } from "#core/urls";
 import { lockBrief, setBriefState } from "#db/briefs";
@@ -7,6 +10,7 @@ import type { Database } from "#db/client";
 import { approvalOf } from "#db/reviews";
 import { insertVersion, lastVersionNumber, moveReleaseTime, releaseTimeOf } from "#db/versions";
 import type { ReadinessItem } from "#core/readiness";
+import { queueAlerts, type AlertContext } from "./alerts";
 import { briefReadiness } from "./readiness";
 import { contentChecksum, draftSnapshot } from "./snapshot";
 
@@ -17,7 +21,7 @@ export type PublishOutcome =
 export type RescheduleOutcome = { ok: true; releaseAt: string } | { ok: false; reason: "not-found" | "released" | "past"; detail: string };
 
 /** An embargoed version's release moves to another future time; once released, it is frozen like any other. */
-export async function rescheduleRelease(db: Database, briefId: string, number: number, releaseAt: Date, actorId: string): Promise<RescheduleOutcome> {
+export async function rescheduleRelease(db: Database, briefId: string, number: number, releaseAt: Date, actorId: string, alerts: AlertContext | null): Promise<RescheduleOutcome> {
   if (releaseAt.getTime() <= Date.now()) return { ok: false, reason: "past", detail: "the new release time must be in the future (publish now instead)" };
   return db.transaction(async (tx) => {
     const brief = await lockBrief(tx, briefId);
@@ -26,11 +30,12 @@ export async function rescheduleRelease(db: Database, briefId: string, number: n
     if (current.getTime() <= Date.now()) return { ok: false, reason: "released", detail: "this version is released and frozen" };
     await moveReleaseTime(tx, briefId, number, releaseAt);
     await setBriefState(tx, brief, {}, { actorId, action: "reschedule", after: { version: number, from: current, releaseAt } });
+    if (alerts) await queueAlerts(alerts, tx, briefId, number, { rescheduled: true });
     return { ok: true, releaseAt: releaseAt.toISOString() };
   });
 }
 
-export async function publishVersion(db: Database, briefId: string, options: { releaseAt?: Date; note?: string }, actorId: string): Promise<PublishOutcome> {
+export async function publishVersion(db: Database, briefId: string, options: { releaseAt?: Date; note?: string }, actorId: string, alerts: AlertContext | null): Promise<PublishOutcome> {
   const readiness = await briefReadiness(db, briefId);
   if (readiness && readiness.blocking.length > 0) return { ok: false, reason: "not-ready", detail: "the draft is not ready to publish", items: readiness.blocking };
   const draft = await draftSnapshot(db, briefId);
@@ -50,6 +55,7 @@ export async function publishVersion(db: Database, briefId: string, options: { r
     await insertVersion(tx, { briefId, number, releaseAt, note, snapshot, createdBy: actorId });
     const status = releaseAt.getTime() > Date.now() ? "scheduled" : number > 1 ? "corrected" : "published";
     await setBriefState(tx, brief, { status }, { actorId, action: "publish", after: { status, version: number, releaseAt } });
+    if (alerts) await queueAlerts(alerts, tx, briefId, number);
     return { ok: true, version: number, url: versionUrl({ slug: brief.slug, version: number }) };
   });
 }

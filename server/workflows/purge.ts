@@ -9,7 +9,7 @@ import type { Queue } from "./queue";
 export const purgeJob = "cdn-purge";
 
 export function requestPurge(queue: Queue, slug: string): Promise<void> {
-  return queue.send(purgeJob, { slug }, `purge:${slug}`);
+  return queue.send(purgeJob, { slug }, { singletonKey: `purge:${slug}` });
 }
 
 /** The body the hook receives: `{"surrogateKeys": ["brief:<slug>"]}`. */

@@ -113,7 +113,7 @@ async function publishDemoBrief(db: Database, demo: ReturnType<typeof demoBriefs
   const steps = [
     await reviewBrief(db, brief.id, { decision: "submitted" }, analystId),
     await reviewBrief(db, brief.id, { decision: "approved", comment: "Fictional demonstration: approved by the demo editor.", acknowledgeWarnings: true }, editorId),
-    await publishVersion(db, brief.id, {}, editorId),
+    await publishVersion(db, brief.id, {}, editorId, null),
   ];
   const refused = steps.find((step) => !step.ok);
   if (refused && !refused.ok) throw new Error(`the demo brief "${demo.title}" could not be published: ${refused.detail}`);

@@ -5,10 +5,10 @@ import { localeOf, localePath } from "#core/locales";
 import { slugify } from "#core/slug";
 import { subscriptionConfirmMessage, topicNoticeMessage, type Message } from "#core/mail";
 import { confirmSubscriptionUrl, oneClickUnsubscribeUrl, versionUrl } from "#core/urls";
-import { insertMessage } from "#db/messages";
 import { requestSubscription, subscribersOf } from "#db/subscriptions";
-import { deliver, type MailContext } from "./mail";
+import { queueMail, type MailContext } from "./mail";
 import type { Queue } from "./queue";
+import type { Executor } from "#db/client";
 
 const subscribeJob = "subscribe";
 
@@ -21,8 +21,7 @@ async function sendConfirmation(ctx: MailContext, { email, topic, locale }: { em
   const started = await requestSubscription(ctx.db, email, slugify(topic), locale);
   if (!started) return;
   const message = subscriptionConfirmMessage({ recipient: email, topic, link: ctx.siteUrl + localePath(localeOf(locale), confirmSubscriptionUrl(started.token)), expires: started.confirmBy, locale });
-  const id = await ctx.db.transaction((tx) => insertMessage(tx, message));
-  await deliver(ctx.queue, [id]);
+  await ctx.db.transaction((tx) => queueMail(tx, ctx.queue, [message]));
 }
 
 export async function startSubscriptionWorker(ctx: MailContext & { queue: Queue }): Promise<void> {
@@ -30,10 +29,10 @@ export async function startSubscriptionWorker(ctx: MailContext & { queue: Queue 
 }
 
 /** The notices of a release to its topic's subscribers, each with its own unsubscribe link. */
-export async function noticesFor(ctx: MailContext, version: { slug: string; title: string; topic: string; number: number; note: string | null }): Promise<Message[]> {
+export async function noticesFor(ctx: Pick<MailContext, "siteUrl">, tx: Executor, version: { slug: string; title: string; topic: string; number: number; note: string | null }): Promise<Message[]> {
   // Each subscriber's link opens the version in the language they subscribed in.
   const link = (locale: string) => ctx.siteUrl + localePath(localeOf(locale), versionUrl({ slug: version.slug, version: version.number }));
-  const subscribers = await subscribersOf(ctx.db, slugify(version.topic));
+  const subscribers = await subscribersOf(tx, slugify(version.topic));
   return subscribers.map((subscriber) =>
     topicNoticeMessage({ recipient: subscriber.email, topic: version.topic, title: version.title, version: version.number, note: version.note, link: link(subscriber.locale), unsubscribeUrl: ctx.siteUrl + oneClickUnsubscribeUrl(subscriber.unsubscribeToken), locale: subscriber.locale }),
   );

@@ -6,6 +6,7 @@ import { createServer } from "node:http";
 import type { AddressInfo } from "node:net";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { publishedBrief } from "../support/briefs";
+import { largeNetwork } from "../support/large-network";
 import { ApiClient, demoClient } from "../support/client";
 import { startProductionServer, type RunningServer } from "../support/production-server";
 
@@ -161,28 +162,6 @@ describe("behind a CDN", () => {
 });
 
 describe("large uploads on the queue", () => {
-  /** An invented binary network: a chain through every treatment, then random pairs (a seeded LCG); `split` cuts it in two parts. */
-  function largeNetwork(treatments: number, studies: number, split = false): string {
-    let seed = 20261202;
-    const next = () => (seed = (seed * 1103515245 + 12345) % 2 ** 31) / 2 ** 31;
-    const name = (i: number) => `t${String(i).padStart(2, "0")}`;
-    const half = Math.floor(treatments / 2);
-    const rows: string[] = [];
-    for (let s = 0; s < studies; s++) {
-      const a = s < treatments - 1 ? s : Math.floor(next() * treatments);
-      let b = s < treatments - 1 ? s + 1 : Math.floor(next() * treatments);
-      if (a === b) b = (b + 1) % treatments;
-      // Split: no study joins the first half to the second.
-      if (split && a < half !== b < half) b = a < half ? (a + 1) % half : half + ((a + 1 - half) % (treatments - half));
-      if (a === b) continue;
-      for (const t of [a, b]) {
-        const total = 80 + Math.floor(next() * 120);
-        rows.push(`S${s},${name(t)},${5 + Math.floor(next() * (total - 10))},${total}`);
-      }
-    }
-    return `study,treatment,events,total\n${rows.join("\n")}\n`;
-  }
-
   it("analyses a large network as a job while the pages keep answering; a refused one leaves the stored data as they were", async () => {
     const created = await analyst.request("POST", "/api/briefs", { json: { title: "A large invented network", topic: "Scale", condition: "Invented condition", population: "Invented people" } });
     const briefId = String(created.body.id);
@@ -195,10 +174,8 @@ describe("large uploads on the queue", () => {
     const upload = await analyst.upload(`/api/outcomes/${outcomeId}/dataset`, { name: "large.csv", bytes: largeNetwork(40, 1200) }, { format: "arm-binary" });
     expect(upload.status).toBe(202);
     expect(upload.body).toMatchObject({ valid: true, analysing: true, fileName: "large.csv" });
-    // The other process answers pages at once meanwhile.
-    const started = Date.now();
+    // The other process answers pages meanwhile (how fast: npm run bench).
     expect((await fetch(`${second.url}/briefs`)).status).toBe(200);
-    expect(Date.now() - started).toBeLessThan(2000);
     const done = await within(60_000, async () => (await state()).state === "current");
     expect(done, "the large upload was not analysed within a minute").not.toBeNull();
     expect((await state()).pending).toBeNull();

@@ -1,7 +1,6 @@
 // Review, publishing, withdrawal and reading frozen versions (docs/decisions/0007-frozen-versions.md,
 // 0009-review-and-withdrawal.md).
 import { Router, type Request } from "express";
-import { afterPublish } from "#workflows/alerts";
 import type { MailContext } from "#workflows/mail";
 import type { z } from "zod";
 import { versionNumberOf } from "#core/urls";
@@ -43,15 +42,6 @@ function refuse(res: Parameters<typeof sendError>[0], reason: Refusal, detail: s
   sendError(res, status, { key, message: `${sentence}${listed}.`, details: items ?? (field && status === 400 ? [{ field, message: detail }] : undefined) });
 }
 
-/** Alerts follow a publish; the version is out whatever becomes of them, so a failure is logged, not answered. */
-async function alert(req: Request, ctx: MailContext, briefId: string, number: number, rescheduled = false) {
-  try {
-    await afterPublish(ctx, briefId, number, { rescheduled });
-  } catch (error) {
-    req.log.error({ err: error }, "release alerts could not be queued");
-  }
-}
-
 export function versionRoutes(db: Database, mail: (req: Request) => MailContext): Router {
   const router = Router();
   router.param("id", rejectMalformedId);
@@ -78,11 +68,8 @@ export function versionRoutes(db: Database, mail: (req: Request) => MailContext)
 
   router.post("/briefs/:id/versions", guard("POST /api/briefs/:id/versions"), validateBody(publishBody), async (req, res) => {
     const body = req.body as z.infer<typeof publishBody>;
-    const outcome = await publishVersion(db, String(req.params.id), { releaseAt: body.releaseAt ? new Date(body.releaseAt) : undefined, note: body.note }, req.user!.id);
-    if (outcome.ok) {
-      await alert(req, mail(req), String(req.params.id), outcome.version);
-      return res.status(201).json({ version: outcome.version, url: outcome.url });
-    }
+    const outcome = await publishVersion(db, String(req.params.id), { releaseAt: body.releaseAt ? new Date(body.releaseAt) : undefined, note: body.note }, req.user!.id, mail(req));
+    if (outcome.ok) return res.status(201).json({ version: outcome.version, url: outcome.url });
     const detail = outcome.reason === "not-found" ? outcome.detail : `the brief cannot be published yet: ${outcome.detail}`;
     refuse(res, outcome.reason, detail, "note", outcome.items);
   });
@@ -90,9 +77,8 @@ export function versionRoutes(db: Database, mail: (req: Request) => MailContext)
   router.put("/briefs/:id/versions/:number/release", guard("PUT /api/briefs/:id/versions/:number/release"), validateBody(rescheduleBody), async (req, res) => {
     const number = versionNumberOf(String(req.params.number));
     if (number === null) return sendError(res, 404, { key: "errors.notFound", message: "There is no such version." });
-    const outcome = await rescheduleRelease(db, String(req.params.id), number, new Date((req.body as RescheduleBody).releaseAt), req.user!.id);
+    const outcome = await rescheduleRelease(db, String(req.params.id), number, new Date((req.body as RescheduleBody).releaseAt), req.user!.id, mail(req));
     if (!outcome.ok) return refuse(res, outcome.reason, outcome.detail, "releaseAt");
-    await alert(req, mail(req), String(req.params.id), number, true);
     res.json({ releaseAt: outcome.releaseAt });
   });
 

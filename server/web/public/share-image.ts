@@ -44,13 +44,14 @@ function fonts(): string[] {
 
 
 /**
- * Words into at most `lines` lines of about `perLine` characters (an average glyph is about half
- * the font size wide in these faces); the last line ends in "…" when text is left over.
+ * Words into at most `lines` lines of at most `perLine` characters; a word longer than a line is
+ * cut across lines. The last line ends in "…" when text is left over.
  */
 export function wrap(text: string, perLine: number, lines: number): string[] {
+  const words = text.split(/\s+/).filter(Boolean).flatMap((word) => word.match(new RegExp(`.{1,${perLine}}`, "gu")) ?? []);
   const out: string[] = [];
   let line = "";
-  for (const word of text.split(/\s+/).filter(Boolean)) {
+  for (const word of words) {
     if (line && (line + " " + word).length > perLine) {
       out.push(line);
       line = word;
@@ -59,7 +60,10 @@ export function wrap(text: string, perLine: number, lines: number): string[] {
   }
   if (out.length < lines && line) out.push(line);
   const used = out.join(" ").length;
-  if (used < text.replace(/\s+/g, " ").trim().length) out[out.length - 1] = `${out[out.length - 1]!.replace(/[\s,.;:]*\S{0,3}$/, "")}…`;
+  if (used < words.join(" ").length) {
+    const last = out[out.length - 1]!;
+    out[out.length - 1] = `${(last.length >= perLine ? last.slice(0, perLine - 1) : last).replace(/[\s,.;:]+$/, "")}…`;
+  }
   return out;
 }
 
@@ -72,47 +76,99 @@ interface ImageText {
   fictional: string | null;
 }
 
-function svgOf(text: ImageText, rtl: boolean): string {
+const margin = 72;
+const textWidth = shareImageSize.width - 2 * margin;
+/**
+ * Characters that fit the text's width at a size: an average glyph of these faces is about half the
+ * font size wide; 0.56 leaves room for wide letters and capitals (measured with the shipped fonts in
+ * tests/unit/public/share-image.test.ts).
+ */
+const perLine = (size: number) => Math.floor(textWidth / (size * 0.56));
+/** The sizes tried in turn, largest first, until the title and the statement fit whole. */
+const sizes = [
+  { title: 56, statement: 34 },
+  { title: 48, statement: 30 },
+  { title: 42, statement: 27 },
+  { title: 36, statement: 24 },
+];
+
+interface Block {
+  lines: string[];
+  size: number;
+  leading: number;
+  /** The first line's baseline. */
+  y: number;
+}
+
+/**
+ * Where the title and the statement go: below the product's name, above the certainty (or the
+ * footer), at the largest sizes at which both fit whole; at the smallest, the statement is cut to the
+ * room left, ending in "…".
+ */
+export function fitText(title: string, statement: string | null, withCertainty: boolean): { title: Block; statement: Block | null } {
+  const top = 140;
+  const bottom = withCertainty ? 470 : 535;
+  const place = (size: { title: number; statement: number }, statementLines: number) => {
+    const titleBlock: Block = { lines: wrap(title, perLine(size.title), 3), size: size.title, leading: 1.2, y: top + 0.9 * size.title };
+    const titleEnd = titleBlock.y + (titleBlock.lines.length - 1) * size.title * 1.2 + 0.25 * size.title;
+    const statementY = titleEnd + 20 + 0.9 * size.statement;
+    const room = Math.max(1, Math.floor((bottom - statementY - 0.25 * size.statement) / (size.statement * 1.3)) + 1);
+    const statementBlock: Block | null = statement === null ? null : { lines: wrap(statement, perLine(size.statement), Math.min(statementLines, room)), size: size.statement, leading: 1.3, y: statementY };
+    const end = statementBlock ? statementBlock.y + (statementBlock.lines.length - 1) * size.statement * 1.3 + 0.25 * size.statement : titleEnd;
+    const whole = !titleBlock.lines.at(-1)!.endsWith("…") && !(statementBlock?.lines.at(-1)!.endsWith("…") ?? false);
+    return { title: titleBlock, statement: statementBlock, fits: whole && end <= bottom };
+  };
+  for (const size of sizes) {
+    const placed = place(size, 8);
+    if (placed.fits) return placed;
+  }
+  return place(sizes.at(-1)!, 8);
+}
+
+/** The image as named parts (drawn in this order), so that a test can measure each one. */
+export function shareImageParts(text: ImageText, rtl: boolean): { name: string; svg: string }[] {
   const { width, height } = shareImageSize;
-  const margin = 72;
   const x = rtl ? width - margin : margin;
   const anchor = rtl ? `text-anchor="end" direction="rtl"` : "";
   const serif = rtl ? "Noto Naskh Arabic" : "Source Serif 4";
   // The shipped Inter file names its family by its weight.
   const sans = rtl ? "Noto Naskh Arabic" : "'Inter SemiBold', Inter";
-  const lines = (content: string[], y: number, size: number, weight: number, family: string, leading = 1.2) =>
-    content.map((line, i) => `<text x="${x}" y="${y + i * size * leading}" font-family="${family}" font-size="${size}" font-weight="${weight}" fill="#1d1a17" ${anchor}>${escapeXml(line)}</text>`).join("");
-  const title = wrap(text.title, 36, 3);
-  let y = 190;
+  const lines = (block: Block, weight: number, family: string) =>
+    block.lines.map((line, i) => `<text x="${x}" y="${block.y + i * block.size * block.leading}" font-family="${family}" font-size="${block.size}" font-weight="${weight}" fill="#1d1a17" ${anchor}>${escapeXml(line)}</text>`).join("");
+  const fitted = fitText(text.title, text.statement, text.certainty !== null);
   const parts = [
-    `<rect width="${width}" height="${height}" fill="#fbf8f3"/>`,
-    `<rect width="${width}" height="14" fill="#6d1f35"/>`,
+    { name: "background", svg: `<rect width="${width}" height="${height}" fill="#fbf8f3"/><rect width="${width}" height="14" fill="#6d1f35"/>` },
     // The product's name is Latin in every language.
-    `<text x="${x}" y="104" font-family="'Inter SemiBold', Inter" font-size="26" font-weight="600" fill="#6d1f35" letter-spacing="2" ${rtl ? `text-anchor="end"` : ""}>${escapeXml(text.kicker)}</text>`,
-    lines(title, y, 56, 600, serif),
+    { name: "kicker", svg: `<text x="${x}" y="104" font-family="'Inter SemiBold', Inter" font-size="26" font-weight="600" fill="#6d1f35" letter-spacing="2" ${rtl ? `text-anchor="end"` : ""}>${escapeXml(text.kicker)}</text>` },
+    { name: "title", svg: lines(fitted.title, 600, serif) },
   ];
-  y += title.length * 56 * 1.2 + 20;
-  if (text.statement) {
-    const statement = wrap(text.statement, 60, 4);
-    parts.push(lines(statement, y, 34, 400, serif, 1.3));
-    y += statement.length * 34 * 1.3;
-  }
+  if (fitted.statement) parts.push({ name: "statement", svg: lines(fitted.statement, 400, serif) });
   if (text.certainty) {
     const filled = certaintySteps(text.certainty.rating);
-    const label = escapeXml(text.certainty.label);
-    // The mark beside the words, on the side the text starts from.
+    // The mark beside the words, on the side the text starts from; the words are cut before it.
+    const label = escapeXml(wrap(text.certainty.label, perLine(30) - 6, 1)[0]!);
     const markX = rtl ? margin : width - margin - 78;
     const steps = [0, 1, 2, 3].map((i) => `<rect x="${markX + i * 21}" y="${height - 110 - (3 + i * 3) * 3 + 9}" width="15" height="${(3 + i * 3) * 3}" fill="${i < filled ? "#6d1f35" : "none"}" stroke="#6d1f35" stroke-width="3"/>`).join("");
-    parts.push(`<text x="${x}" y="${height - 110}" font-family="${sans}" font-size="30" font-weight="600" fill="#6d1f35" ${anchor}>${label}</text>`, steps);
+    parts.push({ name: "certainty", svg: `<text x="${x}" y="${height - 110}" font-family="${sans}" font-size="30" font-weight="600" fill="#6d1f35" ${anchor}>${label}</text>` }, { name: "mark", svg: steps });
   }
-  parts.push(`<text x="${x}" y="${height - 52}" font-family="${sans}" font-size="22" font-weight="600" fill="#5b554d" ${anchor}>${escapeXml(text.footer)}</text>`);
+  parts.push({ name: "footer", svg: `<text x="${x}" y="${height - 52}" font-family="${sans}" font-size="22" font-weight="600" fill="#5b554d" ${anchor}>${escapeXml(wrap(text.footer, perLine(22), 1)[0]!)}</text>` });
   if (text.fictional) {
     // Opposite the product's name, on the top line: never hidden by a long footer.
     const fx = rtl ? margin : width - margin;
-    parts.push(`<text x="${fx}" y="104" font-family="${sans}" font-size="24" font-weight="600" fill="#6d1f35" text-anchor="${rtl ? "start" : "end"}">${escapeXml(text.fictional)}</text>`);
+    parts.push({ name: "fictional", svg: `<text x="${fx}" y="104" font-family="${sans}" font-size="24" font-weight="600" fill="#6d1f35" text-anchor="${rtl ? "start" : "end"}">${escapeXml(text.fictional)}</text>` });
   }
-  return `<svg xmlns="http://www.w3.org/2000/svg" width="${width}" height="${height}" viewBox="0 0 ${width} ${height}">${parts.join("")}</svg>`;
+  return parts;
 }
+
+/** The whole image, or only some of its parts (a test measures each alone). */
+export function shareImageSvg(text: ImageText, rtl: boolean, only?: (name: string) => boolean): string {
+  const { width, height } = shareImageSize;
+  const parts = shareImageParts(text, rtl).filter((part) => !only || only(part.name));
+  return `<svg xmlns="http://www.w3.org/2000/svg" width="${width}" height="${height}" viewBox="0 0 ${width} ${height}">${parts.map((part) => part.svg).join("")}</svg>`;
+}
+
+/** What the renderer needs: the shipped fonts and no others. */
+export const renderOptions = () => ({ font: { fontFiles: fonts(), loadSystemFonts: false, defaultFontFamily: "Source Serif 4" }, fitTo: { mode: "original" as const } });
 
 /**
  * The renderer shapes a line in one face and cannot mix faces within it, and the Arabic face the app
@@ -134,6 +190,7 @@ export function inArabicScript(text: string): string | null {
 }
 
 export type ShareText = ImageText & { alt: string };
+export type { ImageText };
 
 /** The image's words for an Arabic reader, or null when they cannot all be drawn in Arabic script. */
 export function arabicImageText(text: ShareText): ShareText | null {
@@ -184,8 +241,7 @@ export function shareImage(key: string, text: ImageText, rtl: boolean): Promise<
     rendered.set(key, known);
     return known;
   }
-  const svg = svgOf(text, rtl);
-  const promise = renderAsync(svg, { font: { fontFiles: fonts(), loadSystemFonts: false, defaultFontFamily: "Source Serif 4" }, fitTo: { mode: "original" } }).then((image) => Buffer.from(image.asPng()));
+  const promise = renderAsync(shareImageSvg(text, rtl), renderOptions()).then((image) => Buffer.from(image.asPng()));
   promise.catch(() => rendered.delete(key));
   rendered.set(key, promise);
   if (rendered.size > keep) rendered.delete(rendered.keys().next().value!);

@@ -1,21 +1,19 @@
-// Faults: the database restarted under load, the server killed in the middle of a publish, and a
-// backup restored into a fresh cluster. The first and last use a cluster of their own, so that
-// stopping it and comparing its tables meet no other test.
+// Faults: the database restarted under load, pages asked for while it is down, and a backup restored
+// into a fresh cluster. They use a cluster of their own, so that stopping it and comparing its tables
+// meet no other test. (The server killed during a publish: publish-kill.test.ts.)
 import { chmodSync, mkdtempSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import pg from "pg";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { slugify } from "#core/slug";
-import { readSnapshot } from "#core/snapshot/upgrade";
 import { demoBriefs } from "#workflows/demo-briefs";
 import { backupDatabase, restoreDatabase } from "../../scripts/lib/backup";
 import { ensureCluster, freePort, type Cluster } from "../../scripts/lib/postgres";
 import { startProductionServer as startServer } from "../../scripts/lib/production-server";
 import { migrateAndSeed } from "../../scripts/lib/steps";
-import { analysedBrief, approve } from "../support/briefs";
 import { demoClient } from "../support/client";
-import { startTestApp, testDatabaseUrl, testSessionSecret, type TestApp } from "../support/app";
+import { startTestApp, testSessionSecret, type TestApp } from "../support/app";
 
 const quiet = () => {};
 const folder = mkdtempSync(path.join(tmpdir(), "fairweigh-faults-"));
@@ -88,43 +86,6 @@ describe("pages while the database is down (hostile probe round 3, F8)", () => {
       await server.stop();
     }
   }, 60_000);
-});
-
-describe("the server killed during a publish", () => {
-  it("leaves each version whole or absent, never half-made, at every moment of the kill", async () => {
-    const db = new pg.Client({ connectionString: testDatabaseUrl() });
-    await db.connect();
-    try {
-      const seen: string[] = [];
-      // Kills from before the request reaches the database to after it has answered.
-      for (const delay of [0, 5, 15, 30, 60, 90, 120]) {
-        const server = await startServer({ databaseUrl: testDatabaseUrl(), sessionSecret: testSessionSecret });
-        const analyst = await demoClient(server.url, "analyst");
-        const editor = await demoClient(server.url, "editor");
-        const { briefId } = await analysedBrief(analyst, `Killed at ${delay} ms`);
-        await approve(analyst, editor, briefId);
-        await editor.request("GET", "/api/csrf");
-        const statusBefore = (await db.query("select status from briefs where id = $1", [briefId])).rows[0].status as string;
-        const publishing = editor.request("POST", `/api/briefs/${briefId}/versions`, { json: {} }).catch(() => null);
-        await new Promise((resolve) => setTimeout(resolve, delay));
-        await server.kill();
-        await publishing;
-
-        const versions = await db.query("select snapshot from brief_versions where brief_id = $1", [briefId]);
-        const brief = await db.query("select status from briefs where id = $1", [briefId]);
-        const audit = await db.query("select 1 from audit_log where entity_id = $1 and action = 'publish'", [briefId]);
-        const published = versions.rowCount === 1;
-        expect(versions.rowCount, `killed at ${delay} ms`).toBeLessThanOrEqual(1);
-        expect(brief.rows[0].status, `killed at ${delay} ms`).toBe(published ? "published" : statusBefore);
-        expect(audit.rowCount, `killed at ${delay} ms`).toBe(published ? 1 : 0);
-        if (published) expect(readSnapshot(versions.rows[0].snapshot).version).toBe(1);
-        seen.push(`${delay} ms: ${published ? "whole" : "absent"}`);
-      }
-      console.log(`killed during publish: ${seen.join("; ")}`);
-    } finally {
-      await db.end();
-    }
-  }, 120_000);
 });
 
 describe("backup and restore (npm run backup, npm run restore)", () => {
