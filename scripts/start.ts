@@ -1,6 +1,8 @@
 // npm start: a local PostgreSQL cluster under .data/, migrations, the demo seed, a production
 // build, and the server. With DATABASE_URL set, it uses that database and seeds nothing.
-// `npm run dev` does the same with Vite's development server instead of a build.
+// `npm run dev` does the same with Vite's development server instead of a build. FAIRWEIGH_DATA
+// moves the folder of the cluster and the mail (.data/ by default); SKIP_BUILD=1 serves the build
+// already in dist/ (a quick restart; the test of stopping uses both).
 import { spawn } from "node:child_process";
 import path from "node:path";
 import { demoAccounts, demoPassword } from "#workflows/seed";
@@ -10,7 +12,7 @@ import { build, localSecret, log, migrateAndSeed, projectRoot } from "./lib/step
 
 const development = process.argv.includes("--dev");
 const port = Number(process.env.PORT ?? 3000);
-const dataFolder = path.join(projectRoot, ".data");
+const dataFolder = process.env.FAIRWEIGH_DATA ? path.resolve(process.env.FAIRWEIGH_DATA) : path.join(projectRoot, ".data");
 
 let cluster: Cluster | null = null;
 let databaseUrl = process.env.DATABASE_URL;
@@ -28,7 +30,7 @@ if (databaseUrl) {
 
 try {
   await migrateAndSeed(databaseUrl, cluster !== null);
-  if (!development) build();
+  if (!development && process.env.SKIP_BUILD !== "1") build();
 } catch (error) {
   console.error(error instanceof Error ? error.message : error);
   cluster?.stop();
@@ -79,10 +81,13 @@ function stop(signal: NodeJS.Signals) {
 process.on("SIGINT", () => stop("SIGINT"));
 process.on("SIGTERM", () => stop("SIGTERM"));
 
-server.on("exit", (code) => {
+server.on("exit", async (code) => {
+  log(stopping ? "The web server has stopped" : `The web server ended by itself (exit code ${code})`);
+  await mailbox?.stop();
   if (cluster) {
     log("Stopping PostgreSQL");
     cluster.stop();
+    log("PostgreSQL has stopped");
   }
   process.exit(stopping ? 0 : (code ?? 1));
 });

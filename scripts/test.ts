@@ -1,6 +1,7 @@
 // npm test: type check and lint, then a throw-away PostgreSQL cluster, a production build, and every
-// test suite (unit, integration against the real database, browser in Debian's Chromium). The
-// cluster is removed afterwards, also when a step fails. Extra arguments go to vitest.
+// test suite (unit, integration against the real database, browser in Debian's Chromium, and the
+// faults: kills, outages, the fuzz). The cluster is removed afterwards, also when a step fails. Extra
+// arguments go to vitest (`npm run test:faults` passes `--project faults`).
 import { spawnSync } from "node:child_process";
 import { chmodSync, existsSync, mkdtempSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";

@@ -1,7 +1,9 @@
 // Hostile input by property-based tests (fast-check, fixed seed so a failure replays): malformed CSV
 // to the upload route, random JSON to every API route that takes a body, random path segments in every
-// public address. Always an answer below 500, a 4xx that says what is wrong, and nothing stored from
-// a refused upload. The counts below are the number of requests each property makes.
+// public address, and any method with odd headers at every route. Always an answer below 500, a 4xx
+// that says what is wrong, and nothing stored from a refused upload. The counts below are the number
+// of requests each property makes.
+import { request } from "node:http";
 import fc from "fast-check";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { admits, apiAccess, fileAccess, pageAccess, readers, type AccessRule } from "#core/access";
@@ -13,7 +15,7 @@ import { ApiClient, demoClient } from "../support/client";
 import { startProductionServer, type RunningServer } from "../support/production-server";
 
 const seed = 20261202;
-const runs = { csv: 120, jsonPerRoute: 40, paths: 300 };
+const runs = { csv: 120, jsonPerRoute: 40, paths: 300, methodsAndHeaders: 600 };
 
 let server: RunningServer;
 const clients = new Map<string, ApiClient>();
@@ -166,4 +168,58 @@ describe("random path segments in every public address", () => {
     );
     console.log(`random paths: statuses seen ${[...statuses].sort().join(", ")}`);
   }, 120_000);
+});
+
+// ---------------------------------------------------------------------------------------------------
+// Any method and odd headers at every route
+
+const method = fc.constantFrom("GET", "HEAD", "POST", "PUT", "PATCH", "DELETE", "OPTIONS", "TRACE", "PROPFIND", "MKCOL", "LOCK", "PURGE", "SEARCH");
+/** Headers a careless or hostile client sends: broken negotiation, junk validators and ranges, odd cookies and bodies of the wrong type. */
+const oddHeaders: fc.Arbitrary<Record<string, string>> = fc.record(
+  {
+    "accept-language": fc.oneof(fc.string({ maxLength: 40 }), fc.constantFrom("*", "xx-YY;q=2", "ar;q=abc, es;q=", ";;;", "es".repeat(2000), "zh-Hant-TW-u-nu-hanidec")),
+    accept: fc.constantFrom("*/*", "text/html", "application/json", "image/png", "nonsense", "text/*;q=0", ""),
+    "if-none-match": fc.oneof(fc.string({ maxLength: 30 }).map((text) => `"${text}"`), fc.constantFrom("*", "W/", '"', "W/\"x\", \"y")),
+    "if-modified-since": fc.constantFrom("yesterday", "Thu, 01 Jan 1970 00:00:00 GMT", "Sat, 31 Dec 9999 23:59:59 GMT", ""),
+    range: fc.constantFrom("bytes=0-0", "bytes=-1", "bytes=999999999-", "bytes=5-1", "lines=1-2", "bytes=0-1,2-3,4-5"),
+    cookie: fc.oneof(fc.string({ maxLength: 60 }).map((text) => text.replace(/[^\x20-\x7e]/g, "")), fc.constantFrom("fairweigh.sid=s%3Aforged.sig", "fairweigh.sid=", "fairweigh.visitor=%", "a=" + "b".repeat(3000), "=;=;=")),
+    "content-type": fc.constantFrom("application/json", "application/json; charset=latin1", "text/plain", "multipart/form-data", "multipart/form-data; boundary=", "application/x-www-form-urlencoded", "application/xml"),
+    "x-csrf-token": fc.oneof(fc.string({ maxLength: 40 }).map((text) => text.replace(/[^\x20-\x7e]/g, "")), fc.constant("")),
+    "x-forwarded-for": fc.constantFrom("1.2.3.4", "::1", "not-an-address", "1.2.3.4, 5.6.7.8", ""),
+    "x-forwarded-proto": fc.constantFrom("https", "http", "gopher", ""),
+  },
+  { requiredKeys: [] },
+);
+const oddBody = fc.oneof(fc.constant(""), fc.constant("{"), fc.string({ maxLength: 200 }), fc.constant("a=1&a=2&_csrf=x"), fc.constant("--x\r\nContent-Disposition: form-data; name=\"file\"\r\n\r\n1\r\n--x--"));
+
+/** One request through node:http, which sends any method and header as given (fetch refuses some). */
+function rawRequest(url: string, options: { method: string; headers: Record<string, string>; body: string }): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const req = request(url, { method: options.method, headers: options.headers }, (res) => {
+      res.resume();
+      res.on("end", () => resolve(res.statusCode ?? 0));
+    });
+    req.on("error", reject);
+    if (options.body && options.method !== "GET" && options.method !== "HEAD") req.write(options.body);
+    req.end();
+  });
+}
+
+describe("any method and odd headers at every route", () => {
+  it(`${runs.methodsAndHeaders} requests across every API route, page and file: never a 500`, async () => {
+    const slug = slugify(demoBriefs()[0]!.title);
+    const values: Record<string, string> = { id: draft.briefId, number: "1", treatment: "self_help", comparator: "no_contact", slug, a: "light", b: "usual_care", format: "ris", file: "results.csv", locale: "es", token: "x".repeat(43), personId: draft.briefId };
+    const addresses = [...Object.keys(apiAccess), ...Object.keys(pageAccess), ...Object.keys(fileAccess)].map((route) => route.split(" ")[1]!.replace(/:(\w+)/g, (_, name: string) => values[name] ?? "x").replace("*", "x"));
+    const statuses = new Map<number, number>();
+    await fc.assert(
+      fc.asyncProperty(fc.constantFrom(...addresses), method, oddHeaders, oddBody, fc.constantFrom(...clients.keys()), async (address, verb, headers, body, reader) => {
+        const cookie = headers.cookie ?? clients.get(reader)!.cookieHeader;
+        const status = await rawRequest(`${server.url}${address}`, { method: verb, headers: { ...headers, ...(cookie ? { cookie } : {}) }, body });
+        statuses.set(status, (statuses.get(status) ?? 0) + 1);
+        expect(status, `${verb} ${address} ${JSON.stringify(headers).slice(0, 300)}`).toBeLessThan(500);
+      }),
+      { seed, numRuns: runs.methodsAndHeaders },
+    );
+    console.log(`methods and headers: statuses seen ${JSON.stringify(Object.fromEntries([...statuses].sort(([a], [b]) => a - b)))}`);
+  }, 300_000);
 });
