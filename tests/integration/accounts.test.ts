@@ -142,16 +142,13 @@ describe("deactivation", () => {
     expect((await new ApiClient(server.url).signIn(email, "a long enough password")).status).toBe(401);
   });
 
-  it("never leaves the site without an active administrator, and nobody deactivates themselves", async () => {
+  // The last administrator's rule needs a database where the count is known: last-admin.test.ts.
+  it("nobody deactivates themselves", async () => {
     const me = (await admin.request("GET", "/api/session")).body.person as { id: string };
-    expect((await admin.request("PATCH", `/api/people/${me.id}`, { json: { active: false } })).body.error?.key).toBe("errors.people.self");
-    const people = (await admin.request("GET", "/api/people")).body.people as { id: string; roles: string[]; active: boolean }[];
-    const admins = people.filter((p) => p.roles.includes("admin") && p.active);
-    if (admins.length === 1) {
-      const answer = await admin.request("PATCH", `/api/people/${me.id}`, { json: { roles: ["editor"] } });
-      expect(answer.status).toBe(409);
-      expect(answer.body.error?.key).toBe("errors.people.lastAdmin");
-    }
+    const answer = await admin.request("PATCH", `/api/people/${me.id}`, { json: { active: false } });
+    expect(answer.status).toBe(409);
+    expect(answer.body.error?.key).toBe("errors.people.self");
+    expect(((await admin.request("GET", "/api/session")).body.person as { id: string }).id).toBe(me.id);
   });
 });
 

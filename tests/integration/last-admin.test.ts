@@ -1,12 +1,15 @@
 // The site never loses its last administrator (round 3 of the hostile probe, F3 and F4), on a database
-// of its own so that no other test's people count: an invitation never accepted does not count, and
-// two administrators demoting each other at the same moment leave one of them.
+// of its own so that no other test's people count and each test sets up exactly the administrators it
+// needs: the only one is refused, an invitation never accepted does not count, and two administrators
+// demoting each other at the same moment leave one of them.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { connectDatabase, type DatabaseConnection } from "#db/client";
 import { migrateDatabase } from "#db/migrate";
 import { insertPerson, type Person } from "#db/people";
 import { changePerson, type AccountContext } from "#workflows/accounts";
-import { ownDatabase } from "../support/app";
+import { hashPassword } from "#core/passwords";
+import { ownDatabase, startTestApp } from "../support/app";
+import { ApiClient } from "../support/client";
 
 let database: Awaited<ReturnType<typeof ownDatabase>>;
 let connection: DatabaseConnection;
@@ -47,6 +50,23 @@ describe("the last administrator", () => {
       const outcomes = await Promise.all([changePerson(ctx, b.id, { roles: ["editor"] }, a), changePerson(ctx, a.id, { roles: ["editor"] }, b)]);
       expect(await adminsLeft(), `attempt ${attempt + 1}`).toBe(1);
       expect(outcomes.map((o) => o.ok).sort()).toEqual([false, true]);
+    }
+  });
+
+  it("through the API: the only administrator, demoting themselves, is refused with 409 and the reason's key", async () => {
+    await noAdmins();
+    const only = await person(await hashPassword("a long enough password"));
+    expect(await adminsLeft()).toBe(1);
+    const app = await startTestApp(database.url);
+    try {
+      const client = new ApiClient(app.url);
+      expect((await client.signIn(only.email, "a long enough password")).status).toBe(200);
+      const answer = await client.request("PATCH", `/api/people/${only.id}`, { json: { roles: ["editor"] } });
+      expect(answer.status).toBe(409);
+      expect(answer.body.error?.key).toBe("errors.people.lastAdmin");
+      expect(await adminsLeft()).toBe(1);
+    } finally {
+      await app.close();
     }
   });
 });

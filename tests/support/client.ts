@@ -3,7 +3,8 @@ import { demoPassword } from "#workflows/seed";
 
 export class ApiClient {
   private cookies = new Map<string, string>();
-  private csrfToken: string | null = null;
+  /** One token for the session, fetched once even when the first changes go out at the same moment. */
+  private csrfToken: Promise<string> | null = null;
 
   constructor(public baseUrl: string) {}
 
@@ -27,8 +28,8 @@ export class ApiClient {
   ) {
     const headers: Record<string, string> = { accept: "application/json", ...options.headers };
     if (options.csrf ?? method !== "GET") {
-      this.csrfToken ??= await this.fetchCsrfToken();
-      headers["x-csrf-token"] = this.csrfToken;
+      this.csrfToken ??= this.fetchCsrfToken();
+      headers["x-csrf-token"] = await this.csrfToken;
     }
     if (options.json !== undefined) headers["content-type"] = "application/json";
     const cookie = this.cookieHeader;
