@@ -32,8 +32,10 @@ interface ModelExpected {
     network: ExpectedEstimate;
     direct: (ExpectedEstimate & { studies: number }) | null;
     indirect: ExpectedEstimate | null;
+    /** Only in the files computed by compute-binary.R. */
+    incoherence?: { z: number; p: number } | null;
   }[];
-  ranking: { pScore: Record<string, number> };
+  ranking: { pScore: Record<string, number>; sucra?: Record<string, number>; sucraDraws?: number };
 }
 
 function closeTo(actual: number | undefined, expected: number, relative: number, what: string) {
@@ -41,15 +43,18 @@ function closeTo(actual: number | undefined, expected: number, relative: number,
   expect(error, `${what}: ${actual} vs ${expected}`).toBeLessThanOrEqual(relative);
 }
 
-const cases: { file: string; format: Format; measure: Measure; better: Better; source: string }[] = [
-  { file: "hasselblad1998", format: "arm-binary", measure: "OR", better: "higher", source: "Hasselblad 1998 smoking cessation, metafor 3.8-1" },
-  { file: "senn2013", format: "arm-continuous", measure: "MD", better: "lower", source: "Senn et al. 2013 HbA1c, metafor 3.8-1" },
+const cases: { file: string; data: string; format: Format; measure: Measure; better: Better; source: string }[] = [
+  { file: "hasselblad1998", data: "hasselblad1998", format: "arm-binary", measure: "OR", better: "higher", source: "Hasselblad 1998 smoking cessation, metafor 3.8-1" },
+  { file: "senn2013", data: "senn2013", format: "arm-continuous", measure: "MD", better: "lower", source: "Senn et al. 2013 HbA1c, metafor 3.8-1" },
+  // The same open smoking data as a risk ratio and a risk difference (compute-binary.R in that folder).
+  { file: "hasselblad1998-rr", data: "hasselblad1998", format: "arm-binary", measure: "RR", better: "higher", source: "Hasselblad 1998 as RR, metafor 3.8-1" },
+  { file: "hasselblad1998-rd", data: "hasselblad1998", format: "arm-binary", measure: "RD", better: "higher", source: "Hasselblad 1998 as RD, metafor 3.8-1" },
 ];
 
-for (const { file, format, measure, better, source } of cases) {
+for (const { file, data, format, measure, better, source } of cases) {
   describe(`${file} (${source})`, () => {
     const expected = JSON.parse(readFileSync(path.join(referenceFolder, `${file}.expected.json`), "utf8")) as Expected;
-    const dataset = parseDataset(readFileSync(path.join(referenceFolder, `${file}.csv`)), format);
+    const dataset = parseDataset(readFileSync(path.join(referenceFolder, `${data}.csv`)), format);
     const results: Record<"fixed" | "random", AnalysisResult> = {
       fixed: analyse(dataset, { measure, model: "fixed", reference: expected.reference, better }),
       random: analyse(dataset, { measure, model: "random", reference: expected.reference, better }),
@@ -112,6 +117,31 @@ for (const { file, format, measure, better, source } of cases) {
           closeTo(results[model].ranking.pScore[treatment], score, tolerance, `P-score of ${treatment}`);
         }
       });
+
+      if (modelExpected.comparisons.some((pair) => pair.incoherence !== undefined)) {
+        it(`${model}: the incoherence z and two-sided p of every pair with direct and indirect evidence match (§5)`, () => {
+          for (const pair of modelExpected.comparisons) {
+            const actual = comparisonOf(results[model], pair.treatment, pair.comparator)!.incoherence;
+            if (!pair.incoherence) {
+              expect(actual, `${pair.treatment} vs ${pair.comparator}`).toBeNull();
+              continue;
+            }
+            closeTo(actual?.z, pair.incoherence.z, tolerance, `${pair.treatment} vs ${pair.comparator} z`);
+            closeTo(actual?.p, pair.incoherence.p, tolerance, `${pair.treatment} vs ${pair.comparator} p`);
+          }
+        });
+      }
+
+      if (modelExpected.ranking.sucra) {
+        // R's SUCRA from 100 000 draws of its own generator against ours from 10 000 seeded draws: two
+        // Monte Carlo estimates of one value, whose difference has a standard deviation of at most
+        // √(0.25/10 000 + 0.25/100 000) ≈ 0.0052; 0.02 is about four of them.
+        it(`${model}: SUCRA from draws agrees with R's own draws within Monte Carlo error (§6)`, () => {
+          for (const [treatment, sucra] of Object.entries(modelExpected.ranking.sucra!)) {
+            expect(Math.abs(results[model].ranking.sucra[treatment]! - sucra), `SUCRA of ${treatment}: ${results[model].ranking.sucra[treatment]} vs ${sucra}`).toBeLessThanOrEqual(0.02);
+          }
+        });
+      }
     }
   });
 }
