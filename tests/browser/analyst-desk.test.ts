@@ -4,6 +4,8 @@ import { expect, it } from "vitest";
 import { en } from "../support/words";
 import { demoPassword } from "#workflows/seed";
 import { withServerAndBrowser } from "../support/browser";
+import { draftBrief } from "../support/briefs";
+import { demoClient } from "../support/client";
 
 const hasselblad = path.resolve(__dirname, "../fixtures/reference/hasselblad1998.csv");
 
@@ -64,15 +66,16 @@ it("goes from a CSV file to a forest plot and a certainty judgement, with a vali
   expect(errors).toEqual([]);
 });
 
-// Uses the brief the test above created (tests in a file run in order).
 it("lets an editor write the lay summary with a sanitised preview", async () => {
+  // A brief of its own, made through the API as an analyst would: this test needs no other before it.
+  await draftBrief(await demoClient(setup.server.url, "analyst"), "Texts to preview (browser test)");
   const context = await setup.browser.newContext();
   const page = await context.newPage();
   await page.goto(`${setup.server.url}/sign-in`);
   await page.fill("input[name=email]", "editor@fairweigh.example");
   await page.fill("input[name=password]", demoPassword);
   await Promise.all([page.waitForURL(`${setup.server.url}/desk`), page.click("button[type=submit]")]);
-  await page.getByRole("link", { name: "Support to stop smoking (browser test)" }).click();
+  await page.getByRole("link", { name: "Texts to preview (browser test)" }).click();
   const form = page.getByRole("form", { name: en.desk.texts });
   await form.getByLabel(en.desk.laySummary).fill("Group counselling **probably** helps. <script>window.hacked = 1</script>");
   await form.getByRole("button", { name: en.desk.preview }).click();

@@ -138,8 +138,13 @@ describe("role checks", () => {
 
 describe("sessions in PostgreSQL", () => {
   it("survive a restart of the server", async () => {
-    const client = await demoClient(app.url, "translator");
+    // Signed in on a server that is then stopped, with its database pool: nothing of the session
+    // lives on in a process, only in PostgreSQL.
+    const first = await startTestApp();
+    const client = await demoClient(first.url, "translator");
     const cookies = client.cookieHeader;
+    await first.close();
+    expect(await fetch(`${first.url}/api/health`).then(() => "answered", () => "stopped")).toBe("stopped");
 
     const restarted = await startTestApp();
     try {
