@@ -2,7 +2,7 @@
 // It never seeds: demo content is only for the local cluster that scripts/start.ts manages.
 import cluster from "node:cluster";
 import type { Server } from "node:http";
-import { createApp } from "#web/app";
+import { createApp, logDestination } from "#web/app";
 import { readConfig, type ServerConfig } from "./config";
 import { connectDatabase } from "#db/client";
 import { migrateDatabase } from "#db/migrate";
@@ -13,6 +13,9 @@ import { startAnalysisWorker } from "#workflows/analysis";
 import { startAccountWorker } from "#workflows/accounts";
 import { startReleaseWorker } from "#workflows/alerts";
 import { startSubscriptionWorker } from "#workflows/subscriptions";
+
+/** The exit code of a process whose output pipe is gone (EX_IOERR of sysexits.h). */
+const outputGone = 74;
 
 /** `migrate: false` in the processes of a cluster, whose primary migrated once before forking them. */
 export async function startServer(config: ServerConfig, { migrate = true } = {}): Promise<{ url: string; close(): Promise<void> }> {
@@ -28,7 +31,13 @@ export async function startServer(config: ServerConfig, { migrate = true } = {})
   await startAnalysisWorker(connection.db, queue);
   if (config.smtpUrl) await startMailWorker(queue, connection.db, config.smtpUrl);
   else console.warn("SMTP_URL is not set: e-mails are stored and wait in the queue until it is.");
+  // The request log's own stream fails like standard output when its reader is gone (see below).
+  const log = logDestination(config.logLevel);
+  log.on("error", (error: NodeJS.ErrnoException) => {
+    if (error.code === "EPIPE") process.exit(outputGone);
+  });
   const app = await createApp({
+    logDestination: log,
     queue,
     db: connection.db,
     pool: connection.pool,
@@ -80,6 +89,12 @@ async function runCluster(config: ServerConfig): Promise<void> {
   });
   cluster.on("exit", (worker, code, signal) => {
     if (stopping) return;
+    // The processes share one output: when a process finds it gone, so has this one (whose console
+    // ignores the failed writes), and nobody is left to read or to stop them.
+    if (code === outputGone) {
+      stop();
+      return;
+    }
     console.error(`a server process (${worker.process.pid}) ended (${signal ?? code}): starting another`);
     fork();
   });
@@ -103,6 +118,13 @@ async function runCluster(config: ServerConfig): Promise<void> {
 
 const isEntryPoint = import.meta.url === `file://${process.argv[1]}`;
 if (isEntryPoint) {
+  // Whatever read this process's output is gone (a supervisor killed without stopping it): every log
+  // line would fail with EPIPE, over and over, at full CPU. Nobody is left to serve; the process ends.
+  for (const stream of [process.stdout, process.stderr]) {
+    stream.on("error", (error: NodeJS.ErrnoException) => {
+      if (error.code === "EPIPE") process.exit(outputGone);
+    });
+  }
   const config = readConfig();
   if (cluster.isPrimary && config.workers > 1) {
     await runCluster(config);
@@ -110,6 +132,9 @@ if (isEntryPoint) {
     const server = await startServer(config, { migrate: !cluster.isWorker });
     if (cluster.isPrimary) console.log(`Fairweigh is serving ${server.url}`);
     const stop = async () => {
+      // A clean stop waits for requests under way and the queue; with the database gone that could be
+      // forever, so after ten seconds the process ends anyway (what was committed is safe).
+      setTimeout(() => process.exit(1), 10_000).unref();
       await server.close();
       process.exit(0);
     };

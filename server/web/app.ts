@@ -31,6 +31,8 @@ export interface AppOptions {
   production: boolean;
   secureTransport: boolean;
   logLevel: pino.LevelWithSilent;
+  /** Where log lines go (the server's entry point watches it for a vanished reader); standard output by default. */
+  logDestination?: pino.DestinationStream;
   /** The address readers use, for permalinks; by default the one each request came to. */
   publicUrl?: string;
   /** Leave out the pages (integration tests of the API need no build). */
@@ -48,6 +50,11 @@ export interface AppOptions {
   onVersionsChanged?: (slug: string) => void;
 }
 
+/** Standard output, written asynchronously (a buffered stream, flushed on exit): a request does not wait for its log line. */
+export function logDestination(logLevel: pino.LevelWithSilent) {
+  return pino.destination({ sync: false, minLength: logLevel === "silent" ? 0 : 4096 });
+}
+
 export async function createApp(options: AppOptions): Promise<express.Express> {
   const { db, pool, sessionSecret, production, secureTransport, logLevel } = options;
   const app = express();
@@ -55,8 +62,7 @@ export async function createApp(options: AppOptions): Promise<express.Express> {
   // Behind a proxy in production the client's address comes from X-Forwarded-For; locally there is none.
   app.set("trust proxy", secureTransport ? 1 : false);
 
-  // Written asynchronously (a buffered stream, flushed on exit): a request does not wait for its log line.
-  const logger = pino({ level: logLevel }, pino.destination({ sync: false, minLength: logLevel === "silent" ? 0 : 4096 }));
+  const logger = pino({ level: logLevel }, options.logDestination ?? logDestination(logLevel));
   const csrf = createCsrf(sessionSecret, secureTransport);
   const pages =
     options.pages === false

@@ -1,6 +1,7 @@
 // Faults: the database restarted under load, pages asked for while it is down, and a backup restored
 // into a fresh cluster. They use a cluster of their own, so that stopping it and comparing its tables
 // meet no other test. (The server killed during a publish: publish-kill.test.ts.)
+import { execSync, spawn } from "node:child_process";
 import { chmodSync, mkdtempSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
@@ -11,7 +12,7 @@ import { demoBriefs } from "#workflows/demo-briefs";
 import { backupDatabase, restoreDatabase } from "../../scripts/lib/backup";
 import { ensureCluster, freePort, type Cluster } from "../../scripts/lib/postgres";
 import { startProductionServer as startServer } from "../../scripts/lib/production-server";
-import { migrateAndSeed } from "../../scripts/lib/steps";
+import { migrateAndSeed, projectRoot } from "../../scripts/lib/steps";
 import { demoClient } from "../support/client";
 import { startTestApp, testSessionSecret, type TestApp } from "../support/app";
 
@@ -100,6 +101,55 @@ describe("pages while the database is down (hostile probe round 3, F8)", () => {
       await server.stop();
     }
   }, 60_000);
+});
+
+describe("a server whose supervisor vanished", () => {
+  it("ends, workers and all, once its output is gone, instead of spinning on failed writes", async () => {
+    const server = spawn(process.execPath, ["--import", "tsx", "server/index.ts"], {
+      cwd: projectRoot,
+      env: { ...process.env, NODE_ENV: "production", DATABASE_URL: cluster.url, SESSION_SECRET: testSessionSecret, PORT: String(await freePort()), WORKERS: "2", LOG_LEVEL: "info" },
+      stdio: ["ignore", "pipe", "pipe"],
+    });
+    const exited = new Promise<number | null>((resolve) => server.once("exit", (code) => resolve(code)));
+    let output = "";
+    server.stdout!.on("data", (chunk: Buffer) => (output += chunk.toString()));
+    for (let i = 0; i < 300 && !output.includes("Fairweigh is serving"); i++) await new Promise((resolve) => setTimeout(resolve, 100));
+    // The primary's children that are server processes (tsx may have started a helper of its own).
+    const workers = execSync(`ps -o pid=,args= --ppid ${server.pid}`)
+      .toString()
+      .split("\n")
+      .filter((line) => line.includes("server/index.ts"))
+      .map((line) => Number(line.trim().split(/\s+/)[0]));
+    expect(workers).toHaveLength(2);
+    // The supervisor is killed outright: nobody reads the output any more. Readers keep coming, and
+    // each request's log line meets the closed pipe once the log's buffer is written.
+    server.stdout!.destroy();
+    server.stderr!.destroy();
+    const url = output.match(/http:\/\/[\d.:]+/)![0];
+    let running = true;
+    const readers = (async () => {
+      while (running) await fetch(`${url}/api/health`).catch(() => null);
+    })();
+    try {
+      const code = await Promise.race([exited, new Promise<"running">((resolve) => setTimeout(() => resolve("running"), 30_000))]);
+      running = false;
+      await readers;
+      expect(code, "the primary still runs 30 s later").not.toBe("running");
+      await new Promise((resolve) => setTimeout(resolve, 1000));
+      const alive = workers.filter((pid) => {
+        try {
+          process.kill(pid, 0);
+          return true;
+        } catch {
+          return false;
+        }
+      });
+      expect(alive, "workers left running").toEqual([]);
+    } finally {
+      running = false;
+      if (server.exitCode === null) server.kill("SIGKILL");
+    }
+  }, 90_000);
 });
 
 describe("backup and restore (npm run backup, npm run restore)", () => {

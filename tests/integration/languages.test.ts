@@ -122,9 +122,9 @@ describe("every public page type in every language", () => {
     {
       page: "/topics/sleep",
       status: 200,
-      es: { h1: "Tema: Sleep", h2: ["Alertas por correo sobre Sleep"] },
-      fr: { h1: "Thème : Sleep", h2: ["Alertes par courriel sur Sleep"] },
-      ar: { h1: "الموضوع: Sleep", h2: ["تنبيهات بالبريد عن Sleep"] },
+      es: { h1: "Tema: Sueño", h2: ["Alertas por correo sobre Sueño"] },
+      fr: { h1: "Thème : Sommeil", h2: ["Alertes par courriel sur Sommeil"] },
+      ar: { h1: "الموضوع: النوم", h2: ["تنبيهات بالبريد عن النوم"] },
     },
     {
       page: `/briefs/${small}`,
