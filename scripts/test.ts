@@ -1,8 +1,8 @@
 // npm test: type check and lint, then a throw-away PostgreSQL cluster, a production build, and the
 // test suites (unit, integration against the real database, browser in Debian's Chromium). The
 // cluster is removed afterwards, also when a step fails. Extra arguments go to vitest; `npm run
-// test:faults` passes `--project faults` (kills, outages, the fuzz: ten minutes on their own, run by
-// .ci/run after npm test, docs/decisions/0036).
+// test:faults` passes `--project faults` (kills, outages, the fuzz: they run alone, after npm test in
+// .ci/run, docs/decisions/0036).
 import { spawnSync } from "node:child_process";
 import { chmodSync, existsSync, mkdtempSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
