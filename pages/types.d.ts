@@ -14,7 +14,7 @@ declare global {
       db?: Database;
       /** The released briefs in a language, kept in memory between changes; on the server only. */
       catalogue?: (locale: Locale) => Promise<CatalogueView>;
-      /** For pages with a form that posts without JavaScript; see server/pages.ts. */
+      /** For pages with a form that posts without JavaScript; see server/web/pages/render.ts. */
       csrfToken?: string;
       /** The address readers use, for permalinks and citations (no trailing slash). */
       siteUrl?: string;

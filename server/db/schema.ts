@@ -253,7 +253,7 @@ export const analysisResults = pgTable(
   (table) => [index("analysis_results_outcome_idx").on(table.outcomeId, table.createdAt)],
 );
 
-/** The analyst's certainty judgements for one comparison of an outcome (server/grade/assess.ts). */
+/** The analyst's certainty judgements for one comparison of an outcome (server/core/grade/assess.ts). */
 export const certaintyJudgements = pgTable(
   "certainty_judgements",
   {

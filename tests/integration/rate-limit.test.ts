@@ -1,4 +1,4 @@
-// The sign-in rate limit: more than five failed sign-ins within a minute are refused (server/http/security.ts).
+// The sign-in rate limit: more than five failed sign-ins within a minute are refused (server/web/http/security.ts).
 // A server of its own, so that the failures counted here do not meet other tests.
 import { afterAll, beforeAll, expect, it } from "vitest";
 import { demoPassword } from "#workflows/seed";
