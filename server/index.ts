@@ -17,6 +17,16 @@ import { startSubscriptionWorker } from "#workflows/subscriptions";
 /** The exit code of a process whose output pipe is gone (EX_IOERR of sysexits.h). */
 const outputGone = 74;
 
+/**
+ * Whatever read this output is gone (a supervisor killed without stopping the server): every log line
+ * would fail with EPIPE, over and over, at full CPU. Nobody is left to serve; the process ends.
+ */
+function endWhenOutputGone(stream: NodeJS.EventEmitter): void {
+  stream.on("error", (error: NodeJS.ErrnoException) => {
+    if (error.code === "EPIPE") process.exit(outputGone);
+  });
+}
+
 /** `migrate: false` in the processes of a cluster, whose primary migrated once before forking them. */
 export async function startServer(config: ServerConfig, { migrate = true } = {}): Promise<{ url: string; close(): Promise<void> }> {
   const connection = connectDatabase(config.databaseUrl);
@@ -31,11 +41,9 @@ export async function startServer(config: ServerConfig, { migrate = true } = {})
   await startAnalysisWorker(connection.db, queue);
   if (config.smtpUrl) await startMailWorker(queue, connection.db, config.smtpUrl);
   else console.warn("SMTP_URL is not set: e-mails are stored and wait in the queue until it is.");
-  // The request log's own stream fails like standard output when its reader is gone (see below).
+  // The request log writes to standard output through a stream of its own, which fails the same way.
   const log = logDestination(config.logLevel);
-  log.on("error", (error: NodeJS.ErrnoException) => {
-    if (error.code === "EPIPE") process.exit(outputGone);
-  });
+  endWhenOutputGone(log);
   const app = await createApp({
     logDestination: log,
     queue,
@@ -118,13 +126,8 @@ async function runCluster(config: ServerConfig): Promise<void> {
 
 const isEntryPoint = import.meta.url === `file://${process.argv[1]}`;
 if (isEntryPoint) {
-  // Whatever read this process's output is gone (a supervisor killed without stopping it): every log
-  // line would fail with EPIPE, over and over, at full CPU. Nobody is left to serve; the process ends.
-  for (const stream of [process.stdout, process.stderr]) {
-    stream.on("error", (error: NodeJS.ErrnoException) => {
-      if (error.code === "EPIPE") process.exit(outputGone);
-    });
-  }
+  endWhenOutputGone(process.stdout);
+  endWhenOutputGone(process.stderr);
   const config = readConfig();
   if (cluster.isPrimary && config.workers > 1) {
     await runCluster(config);

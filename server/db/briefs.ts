@@ -1,7 +1,7 @@
 // Briefs in the database: created by analysts, changed only with the row version the writer read.
-import { and, asc, desc, eq, inArray, like, sql } from "drizzle-orm";
+import { and, asc, desc, eq, inArray, like } from "drizzle-orm";
 import { recordAudit } from "./audit";
-import type { Database, Executor } from "./client";
+import { transactionLock, type Database, type Executor } from "./client";
 import { briefs, briefVersions, outcomes, treatmentNames } from "./schema";
 import { slugify } from "#core/slug";
 import { analysisStatus, latestTreatments } from "./analyses";
@@ -27,7 +27,7 @@ export async function createBrief(db: Database, fields: BriefFields & { demo?: b
     const base = slugify(fields.title);
     // Briefs of the same title created at once take their addresses one after another (a lock on the
     // base address for this transaction), so each finds the others' and none collides.
-    await tx.execute(sql`select pg_advisory_xact_lock(hashtext(${`brief-slug:${base}`}))`);
+    await transactionLock(tx, `brief-slug:${base}`);
     const taken = new Set((await tx.select({ slug: briefs.slug }).from(briefs).where(like(briefs.slug, `${base}%`))).map((r) => r.slug));
     let slug = base;
     for (let n = 2; taken.has(slug); n++) slug = `${base}-${n}`;

@@ -23,6 +23,14 @@ export function connectDatabase(url: string): DatabaseConnection {
 export type Executor = Database | Parameters<Parameters<Database["transaction"]>[0]>[0];
 
 /**
+ * Makes the rest of the transaction wait for any other transaction holding the lock of this name (a
+ * PostgreSQL advisory lock, released with the transaction): changes that read then write take turns.
+ */
+export async function transactionLock(tx: Executor, name: string): Promise<void> {
+  await tx.execute(sql`select pg_advisory_xact_lock(hashtext(${name}))`);
+}
+
+/**
  * Runs a statement written with `$1`, `$2`… placeholders (another library's, such as the queue's)
  * on the database or inside a transaction: each placeholder becomes a bound value again.
  */

@@ -1,6 +1,6 @@
 // People and their roles: the only place that reads or writes the people tables.
-import { and, eq, isNotNull, isNull, sql } from "drizzle-orm";
-import type { Database } from "./client";
+import { and, eq, inArray, isNotNull, isNull, sql } from "drizzle-orm";
+import { transactionLock, type Database, type Executor as Transaction } from "./client";
 import { people, personRoles, sessions } from "./schema";
 import { recordAudit } from "./audit";
 import { hashPassword } from "#core/passwords";
@@ -156,14 +156,13 @@ export async function activePeopleWithRole(db: Executor, role: Role): Promise<Pe
     .select({ person: people })
     .from(people)
     .innerJoin(personRoles, eq(personRoles.personId, people.id))
-    .where(and(eq(personRoles.role, role), isNull(people.deactivatedAt), sql`${people.passwordHash} is not null`));
-  // One after another: inside a transaction the queries share one connection.
-  const found: Person[] = [];
-  for (const { person } of rows) found.push(await withRoles(db, person));
-  return found;
+    .where(and(eq(personRoles.role, role), isNull(people.deactivatedAt), isNotNull(people.passwordHash)));
+  // Everyone's roles in one query, not one query a person.
+  const ids = rows.map(({ person }) => person.id);
+  const roleRows = ids.length > 0 ? await db.select().from(personRoles).where(inArray(personRoles.personId, ids)) : [];
+  return rows.map(({ person }) => personOf(person, roleRows.filter((r) => r.personId === person.id).map((r) => r.role)));
 }
 
-/** How many active administrators there are, so that the last one cannot be removed. */
 /**
  * Administrators who can act: not deactivated, and able to sign in (an invitation never accepted has
  * no password yet, so it cannot stand in for the last administrator).
@@ -177,15 +176,12 @@ export async function activeAdminCount(db: Executor): Promise<number> {
   return row?.count ?? 0;
 }
 
-/** The key of the transaction-level advisory lock under which administrators' roles change (any number of ours). */
-const administratorsLock = 20_261_204;
-
 /**
  * Changes to people take turns for the rest of the transaction: two administrators demoting each other
  * at once would each count the other and leave none. The lock ends with the transaction.
  */
-export async function lockAdministrators(tx: Executor): Promise<void> {
-  await tx.select({ locked: sql`pg_advisory_xact_lock(${administratorsLock})` }).from(sql`(select 1) as one`);
+export async function lockAdministrators(tx: Transaction): Promise<void> {
+  await transactionLock(tx, "administrators");
 }
 
 function personOf(row: typeof people.$inferSelect, roles: Role[]): Person {
