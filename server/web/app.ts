@@ -86,10 +86,19 @@ export async function createApp(options: AppOptions): Promise<express.Express> {
     };
     const listener = listenForVersionChanges(options.pool, changed, (error) => logger.warn({ err: error }, "listening for version changes"));
     app.locals.stopListening = () => listener.stop();
-    const { fastAnswer } = pages;
-    const handle = (req: IncomingMessage, res: ServerResponse) => void fastAnswer(req, res).then((answered) => answered || app(req, res), () => app(req, res));
-    app.listen = ((...args: Parameters<Server["listen"]>) => createServer(handle).listen(...args)) as typeof app.listen;
   }
+  const fastAnswer = pages?.fastAnswer;
+  const handle = fastAnswer ? (req: IncomingMessage, res: ServerResponse) => void fastAnswer(req, res).then((answered) => answered || app(req, res), () => app(req, res)) : app;
+  app.listen = ((...args: Parameters<Server["listen"]>) => {
+    const server = createServer(handle);
+    // An idle connection is kept longer than a cache or proxy in front keeps its own (Varnish's
+    // backend_idle_timeout is 60 s by default), so that the side that sends the next request is the
+    // side that closes first; otherwise a request can meet a socket the server is closing and get
+    // no answer at all. Headers must be allowed to take at least as long.
+    server.keepAliveTimeout = 65_000;
+    server.headersTimeout = 66_000;
+    return server.listen(...args);
+  }) as typeof app.listen;
   // Only paths are addresses here: "OPTIONS *", "GET *" and absolute-form targets ("GET http://host/x")
   // get a 400 that says so, before sessions or pages try to read them (hostile probe round 3, F11).
   app.use((req, res, next) => {
@@ -113,11 +122,21 @@ export async function createApp(options: AppOptions): Promise<express.Express> {
   app.use(cookieParser());
 
   const PgStore = connectPgSimple(session);
+  const store = new PgStore({ pool, tableName: "session", createTableIfMissing: false, pruneSessionInterval: 60 * 15 });
+  // A rolling session is touched after the answer has begun, so a failed touch (the database gone
+  // for a moment) would end an answer already under way and the reader would get nothing at all.
+  // The session stays valid until its old expiry, so a touch that fails is logged and let go.
+  const touch = store.touch.bind(store);
+  store.touch = (sid, stored, done) =>
+    touch(sid, stored, (error?: unknown) => {
+      if (error) logger.warn({ err: error }, "a session could not be kept alive");
+      done?.();
+    });
   app.use(
     session({
       name: sessionCookieName(secureTransport),
       secret: sessionSecret,
-      store: new PgStore({ pool, tableName: "session", createTableIfMissing: false, pruneSessionInterval: 60 * 15 }),
+      store,
       resave: false,
       saveUninitialized: false,
       rolling: true,
