@@ -1,7 +1,7 @@
-// Who may use each address: one table for the API routes, the public files and the pages. The
-// routes take their role check from it (`guard` in server/web/auth/require-role.ts), docs/roles.md is
-// rendered from it (`npm run docs:roles`), and tests/integration/role-matrix.test.ts requests every
-// entry as every role and enumerates the router and the pages folder, so that none is missing.
+// Who may use each address of the public site: its files and its pages (the JSON API's routes state
+// theirs in its route table, server/web/api/routes.ts). docs/roles.md is rendered from these tables
+// and that one (`npm run docs:roles`), and tests/integration/role-matrix.test.ts requests every entry
+// as every role and enumerates the routers and the pages folder, so that none is missing.
 import { roleNames, type Role } from "./roles";
 
 /** Anyone (no account), anyone signed in, or a person holding at least one of the roles. */
@@ -15,74 +15,9 @@ export interface AccessRule {
   also?: string;
 }
 
-const desk = ["analyst", "editor", "translator", "admin"] as const satisfies readonly Role[];
-const embargo = "A version before its release (under embargo) answers 404 to all but press and editor.";
-
-/** Every route of the JSON API under /api. */
-export const apiAccess = {
-  "GET /api/health": { who: "anyone", does: "whether the server and its database answer" },
-  "GET /api/csrf": { who: "anyone", does: "a CSRF token for the session (every change needs one)" },
-  "GET /api/session": { who: "signed-in", does: "who is signed in" },
-  "POST /api/session": { who: "anyone", does: "sign in (rate limited)" },
-  "DELETE /api/session": { who: "anyone", does: "sign out: the session ends on the server" },
-  "GET /api/people": { who: ["admin"], does: "the people, their roles and locales, active or not" },
-  "POST /api/people": { who: ["admin"], does: "invite a person by e-mail with roles (and, for translators, locales)" },
-  "PATCH /api/people/:id": {
-    who: ["admin"],
-    does: "change a person's roles, locales, or deactivate them (their sessions end at once)",
-    also: "Never one's own deactivation, never the last active administrator.",
-  },
-  "POST /api/people/:id/invitation": { who: ["admin"], does: "send an invitation again (the earlier link stops working)" },
-  "GET /api/messages": { who: ["admin"], does: "the e-mails sent and their delivery state" },
-  "GET /api/dev/mail": { who: "signed-in", does: "the messages the development mailbox kept, with their bodies", also: "Development only (`npm run dev`): 404 in production." },
-  "GET /api/audit": { who: ["admin"], does: "the audit log: every change with who, when, what, before and after; filtered and paged" },
-  "PATCH /api/account": { who: "signed-in", does: "change one's own name, time zone, password, and (press) the topics that alert one" },
-  "POST /api/password-reset": { who: "anyone", does: "ask for a password reset link (the same answer for every address; rate limited)" },
-  "POST /api/subscriptions": { who: "anyone", does: "ask for e-mail alerts on a topic (a confirmation link goes out; the same answer for every address; rate limited; no CSRF token)" },
-  "POST /api/subscriptions/confirm": { who: "anyone", does: "confirm alerts from the link (double opt-in)" },
-  "POST /api/subscriptions/unsubscribe": { who: "anyone", does: "stop alerts: one click from the mail program (RFC 8058) or the unsubscribe page" },
-  "POST /api/account/password": { who: "anyone", does: "set a password from a one-time invitation or reset link (rate limited)" },
-  "GET /api/briefs": { who: desk, does: "list the briefs in the desk, drafts included" },
-  "POST /api/briefs": { who: ["analyst"], does: "create a brief" },
-  "GET /api/briefs/:id": { who: desk, does: "read a draft brief with its outcomes" },
-  "PATCH /api/briefs/:id": {
-    who: ["analyst", "editor"],
-    does: "change a brief's title, topic, condition, population, author team; its texts",
-    also: "The lay summary and short take need the role editor.",
-  },
-  "PUT /api/briefs/:id/treatments": { who: ["analyst"], does: "name the treatments of the brief's data" },
-  "POST /api/preview": { who: desk, does: "render Markdown as the public page would" },
-  "POST /api/briefs/:id/outcomes": { who: ["analyst"], does: "add an outcome" },
-  "POST /api/briefs/:id/reviews": {
-    who: ["analyst", "editor"],
-    does: "submit a draft for review or recall the submission; return or approve it",
-    also: "Returning and approving need the role editor, and never one's own submission.",
-  },
-  "GET /api/briefs/:id/readiness": { who: desk, does: "the draft's publish-readiness checklist" },
-  "GET /api/briefs/:id/reviews": { who: desk, does: "the draft's review history" },
-  "POST /api/briefs/:id/versions": { who: ["editor"], does: "publish, schedule (embargo) or correct an approved draft" },
-  "PUT /api/briefs/:id/versions/:number/release": { who: ["editor"], does: "move an embargoed version's release time" },
-  "POST /api/briefs/:id/withdrawal": { who: ["editor"], does: "withdraw a published brief" },
-  "GET /api/translations": { who: ["translator", "editor"], does: "the translation queue: each brief's newest version and the state of each language one may translate" },
-  "GET /api/translations/:versionId/:locale": { who: ["translator", "editor"], does: "a version's texts in one language beside their source, with what changed at source", also: "Translators: only the languages assigned to them (403 otherwise)." },
-  "PUT /api/translations/:versionId/:locale": { who: ["translator", "editor"], does: "save a translation's texts (it becomes a draft again)", also: "Translators: only their languages. The version's snapshot is never written." },
-  "POST /api/translations/:versionId/:locale/ready": { who: ["translator", "editor"], does: "mark a translation ready for an editor (refused while a field is empty or its source changed)", also: "Translators: only their languages." },
-  "POST /api/translations/:versionId/:locale/publish": { who: ["editor"], does: "publish a ready translation: readers of that language see it, with its publication time; the findings do not change" },
-  "GET /api/press-room": { who: ["press", "editor"], does: "the press room: embargoed and recent versions" },
-  "GET /api/topics": { who: "anyone", does: "the topics of the released briefs" },
-  "POST /api/press-enquiries": { who: ["press"], does: "ask the editors a question from the press room (stored, and e-mailed to each editor)" },
-  "GET /api/briefs/:slug/versions/:number": { who: "anyone", does: "read a released version's frozen snapshot", also: embargo },
-  "PATCH /api/outcomes/:id": { who: ["analyst"], does: "change an outcome's settings" },
-  "DELETE /api/outcomes/:id": { who: ["analyst"], does: "remove an outcome" },
-  "PUT /api/outcomes/:id/dataset": { who: ["analyst"], does: "upload an outcome's data (CSV)" },
-  "POST /api/outcomes/:id/analysis": { who: ["analyst"], does: "analyse an outcome's data again with the current engine" },
-  "GET /api/outcomes/:id/result": { who: desk, does: "the outcome's analysis" },
-  "GET /api/outcomes/:id/certainty": { who: desk, does: "the outcome's certainty judgements and suggestions" },
-  "PUT /api/outcomes/:id/certainty/:treatment/:comparator": { who: ["analyst"], does: "record certainty for one comparison" },
-  "PUT /api/outcomes/:id/certainty": { who: ["analyst"], does: "record certainty for many comparisons at once" },
-} as const satisfies Record<string, AccessRule>;
-
-export type ApiRoute = keyof typeof apiAccess;
+/** Everyone who works in the desk, except the press. */
+export const desk = ["analyst", "editor", "translator", "admin"] as const satisfies readonly Role[];
+export const embargo = "A version before its release (under embargo) answers 404 to all but press and editor.";
 
 /** The public site's files beside its pages (server/web/public/routes.ts). */
 export const fileAccess = {
@@ -108,6 +43,7 @@ export const pageAccess = {
   "GET /briefs/:slug/v/:number": { who: "anyone", does: "one version of a brief", also: embargo },
   "GET /briefs/:slug/v/:number/compare/:a/:b": { who: "anyone", does: "one comparison of one version", also: embargo },
   "GET /topics/:slug": { who: "anyone", does: "the briefs of a topic" },
+  "GET /data": { who: "anyone", does: "data for reuse: the open JSON, its stability promise, license and citation" },
   "GET /sign-in": { who: "anyone", does: "the sign-in form" },
   "GET /password-reset": { who: "anyone", does: "ask for a password reset link" },
   "GET /password-reset/:token": { who: "anyone", does: "choose a new password from a reset link" },
@@ -147,21 +83,21 @@ function table(rules: Record<string, AccessRule>): string {
   return [header, rule, ...rows].join("\n");
 }
 
-/** docs/roles.md, rendered from the tables above. */
-export function rolesDocument(): string {
+/** docs/roles.md, rendered from the tables above and the API's route table. */
+export function rolesDocument(apiRules: Record<string, AccessRule>): string {
   return `# Who may do what
 
-<!-- Rendered from server/core/access.ts by \`npm run docs:roles\`; a test fails when they differ. -->
+<!-- Rendered from server/web/api/routes.ts and server/core/access.ts by \`npm run docs:roles\`; a test fails when they differ. -->
 
-Roles are checked on the server for every route: each route takes its rule from
-\`server/core/access.ts\`, and \`tests/integration/role-matrix.test.ts\` requests every address below as
+Roles are checked on the server for every route: each API route takes its rule from its entry in
+\`server/web/api/routes.ts\`, the files and pages from \`server/core/access.ts\`, and \`tests/integration/role-matrix.test.ts\` requests every address below as
 every reader and expects ✓ to pass the role check and · to be refused (401 for a reader who is not
 signed in, 403 for a role that may not). The interface only hides what a person could not do anyway.
 A person may hold several roles; an address admits a person who holds any one of the roles it names.
 
 ## The API
 
-${table(apiAccess)}
+${table(apiRules)}
 
 ## Files on the public site
 

@@ -23,6 +23,7 @@ const segment = encodeURIComponent;
 export const homeUrl = () => "/";
 export const feedUrl = () => "/feed.xml";
 export const sitemapUrl = () => "/sitemap.xml";
+export const dataUrl = () => "/data";
 export const topicUrl = (topicSlug: string) => `/topics/${segment(topicSlug)}`;
 export const briefUrl = (slug: string) => `/briefs/${segment(slug)}`;
 export const versionUrl = (at: VersionAddress) => `${briefUrl(at.slug)}/v/${at.version}`;

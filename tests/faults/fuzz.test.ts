@@ -6,7 +6,8 @@
 import { request } from "node:http";
 import fc from "fast-check";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { admits, apiAccess, fileAccess, pageAccess, readers, type AccessRule } from "#core/access";
+import { admits, fileAccess, pageAccess, readers, type AccessRule } from "#core/access";
+import { apiRoutes } from "#web/api/routes";
 import { formats } from "#core/nma/types";
 import { slugify } from "#core/slug";
 import { demoBriefs } from "#workflows/demo-briefs";
@@ -103,7 +104,7 @@ const hostileJson: fc.Arbitrary<string> = fc.oneof(
   fc.constantFrom("{", "null", "123", '"text"', '{"__proto__":{"admin":true}}', '{"constructor":{"prototype":{}}}', "\u0000"),
 );
 
-const withBody = Object.entries(apiAccess).filter(([route]) => !route.startsWith("GET ") && !route.startsWith("DELETE "));
+const withBody = Object.entries(apiRoutes).filter(([route]) => !route.startsWith("GET ") && !route.startsWith("DELETE "));
 
 /** A reader the route admits, so that the body is read rather than refused at the door. */
 function admittedReader(rule: AccessRule): string {
@@ -209,7 +210,7 @@ describe("any method and odd headers at every route", () => {
   it(`${runs.methodsAndHeaders} requests across every API route, page and file: never a 500`, async () => {
     const slug = slugify(demoBriefs()[0]!.title);
     const values: Record<string, string> = { id: draft.briefId, number: "1", treatment: "self_help", comparator: "no_contact", slug, a: "light", b: "usual_care", format: "ris", file: "results.csv", locale: "es", token: "x".repeat(43), personId: draft.briefId };
-    const addresses = [...Object.keys(apiAccess), ...Object.keys(pageAccess), ...Object.keys(fileAccess)].map((route) => route.split(" ")[1]!.replace(/:(\w+)/g, (_, name: string) => values[name] ?? "x").replace("*", "x"));
+    const addresses = [...Object.keys(apiRoutes), ...Object.keys(pageAccess), ...Object.keys(fileAccess)].map((route) => route.split(" ")[1]!.replace(/:(\w+)/g, (_, name: string) => values[name] ?? "x").replace("*", "x"));
     const statuses = new Map<number, number>();
     await fc.assert(
       fc.asyncProperty(fc.constantFrom(...addresses), method, oddHeaders, oddBody, fc.constantFrom(...clients.keys()), async (address, verb, headers, body, reader) => {

@@ -150,6 +150,13 @@ describe("every public page type in every language", () => {
     { page: "/sign-in", status: 200, es: { h1: "Iniciar sesión", h2: [] }, fr: { h1: "Se connecter", h2: [] }, ar: { h1: "تسجيل الدخول", h2: [] } },
     { page: "/password-reset", status: 200, es: { h1: "Restablecer la contraseña", h2: [] }, fr: { h1: "Réinitialiser votre mot de passe", h2: [] }, ar: { h1: "إعادة تعيين كلمة المرور", h2: [] } },
     { page: "/subscriptions/done?what=sent", status: 200, es: { h1: "Alertas por correo", h2: [] }, fr: { h1: "Alertes par courriel", h2: [] }, ar: { h1: "التنبيهات بالبريد", h2: [] } },
+    {
+      page: "/data",
+      status: 200,
+      es: { h1: "Datos para reutilizar", h2: ["Qué se puede leer", "Qué no cambia", "Licencia y cita"] },
+      fr: { h1: "Données à réutiliser", h2: ["Ce que l’on peut lire", "Ce qui ne change pas", "Licence et citation"] },
+      ar: { h1: "بيانات لإعادة الاستخدام", h2: ["ما يمكن قراءته", "ما لا يتغير", "الترخيص والاستشهاد"] },
+    },
     { page: "/no-such-page", status: 404, es: { h1: "Página no encontrada", h2: [] }, fr: { h1: "Page introuvable", h2: [] }, ar: { h1: "الصفحة غير موجودة", h2: [] } },
   ];
   const headings = (html: string, level: "h1" | "h2") => [...html.matchAll(new RegExp(`<${level}[^>]*>([\\s\\S]*?)</${level}>`, "g"))].map((match) => textOf(match[1]!).trim());

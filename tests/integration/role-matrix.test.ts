@@ -1,6 +1,7 @@
 // The role matrix: every address requested as every reader (nobody signed in, then each role alone)
 // against the production build, and compared with the policy written out a second time below, by
-// hand from the product's roles — not read from server/core/access.ts, the table the server enforces.
+// hand from the product's roles — not read from the tables the server enforces (server/web/api/routes.ts,
+// server/core/access.ts).
 // A refused reader gets 401 (or, for a page, the way to sign in) when not signed in and 403 otherwise;
 // an admitted one gets the answer written beside it, and what an admitted read shows is checked. The
 // server's table must say the same as this policy (it renders docs/roles.md), and the router and the
@@ -8,7 +9,8 @@
 import { readdirSync, readFileSync, statSync } from "node:fs";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { admits, apiAccess, fileAccess, pageAccess, readers, rolesDocument, type AccessRule } from "#core/access";
+import { admits, fileAccess, pageAccess, readers, rolesDocument, type AccessRule } from "#core/access";
+import { apiRoutes } from "#web/api/routes";
 import { slugify } from "#core/slug";
 import { createApp, projectRoot } from "#web/app";
 import { connectDatabase } from "#db/client";
@@ -25,8 +27,10 @@ const demo = { slug: slugify(demoBriefs()[0]!.title), topic: slugify(demoBriefs(
  * One request per address, built so that it changes nothing: ids that match no brief (404 once the
  * role check passes) and empty bodies (400). Sign-out comes last, as it ends the reader's session.
  */
-const apiRequests: Record<keyof typeof apiAccess, { path: string; json?: unknown }> = {
+const apiRequests: Record<keyof typeof apiRoutes, { path: string; json?: unknown }> = {
   "GET /api/health": { path: "/api/health" },
+  "GET /api/openapi.json": { path: "/api/openapi.json" },
+  "GET /api/releases": { path: "/api/releases" },
   "GET /api/csrf": { path: "/api/csrf" },
   "GET /api/session": { path: "/api/session" },
   "POST /api/session": { path: "/api/session", json: {} },
@@ -99,6 +103,7 @@ const siteRequests: Record<keyof typeof fileAccess | keyof typeof pageAccess, st
   "GET /briefs/:slug/v/:number": version,
   "GET /briefs/:slug/v/:number/compare/:a/:b": comparison,
   "GET /topics/:slug": `/topics/${demo.topic}`,
+  "GET /data": "/data",
   "GET /sign-in": "/sign-in",
   "GET /password-reset": "/password-reset",
   "GET /password-reset/:token": `/password-reset/${"x".repeat(43)}`,
@@ -123,8 +128,10 @@ const siteRequests: Record<keyof typeof fileAccess | keyof typeof pageAccess, st
 const no = "no";
 type Cell = typeof no | number | readonly number[];
 const limited = [400, 429] as const;
-const policy: Record<keyof typeof apiAccess | keyof typeof fileAccess | keyof typeof pageAccess, readonly [Cell, Cell, Cell, Cell, Cell, Cell]> = {
+const policy: Record<keyof typeof apiRoutes | keyof typeof fileAccess | keyof typeof pageAccess, readonly [Cell, Cell, Cell, Cell, Cell, Cell]> = {
   "GET /api/health": [200, 200, 200, 200, 200, 200],
+  "GET /api/openapi.json": [200, 200, 200, 200, 200, 200],
+  "GET /api/releases": [200, 200, 200, 200, 200, 200],
   "GET /api/csrf": [200, 200, 200, 200, 200, 200],
   "GET /api/session": [no, 200, 200, 200, 200, 200],
   "POST /api/session": [limited, limited, limited, limited, limited, limited],
@@ -192,6 +199,7 @@ const policy: Record<keyof typeof apiAccess | keyof typeof fileAccess | keyof ty
   "GET /briefs/:slug/v/:number": [200, 200, 200, 200, 200, 200],
   "GET /briefs/:slug/v/:number/compare/:a/:b": [200, 200, 200, 200, 200, 200],
   "GET /topics/:slug": [200, 200, 200, 200, 200, 200],
+  "GET /data": [200, 200, 200, 200, 200, 200],
   "GET /sign-in": [200, 200, 200, 200, 200, 200],
   "GET /password-reset": [200, 200, 200, 200, 200, 200],
   "GET /password-reset/:token": [200, 200, 200, 200, 200, 200],
@@ -204,7 +212,7 @@ const policy: Record<keyof typeof apiAccess | keyof typeof fileAccess | keyof ty
 };
 
 /** What an admitted read must show (its body), by route; the reader's name decides what is visible. */
-const shows: Partial<Record<keyof typeof apiAccess, (body: Record<string, unknown>, reader: string) => void>> = {
+const shows: Partial<Record<keyof typeof apiRoutes, (body: Record<string, unknown>, reader: string) => void>> = {
   "GET /api/health": (body) => expect(body.status).toBe("ok"),
   "GET /api/session": (body, reader) => expect((body.person as { roles: string[] }).roles).toEqual([reader]),
   "GET /api/people": (body) => expect((body.people as { roles: string[] }[]).some((person) => person.roles.includes("admin"))).toBe(true),
@@ -260,14 +268,14 @@ describe("every address as every reader", () => {
       for (const [route, request] of Object.entries(apiRequests)) {
         const method = route.split(" ")[0]!;
         const answer = await client.request(method, request.path, request.json === undefined ? {} : { json: request.json });
-        expectAccess(route as keyof typeof apiAccess, reader, answer.status, null);
-        if (answer.status === 200) shows[route as keyof typeof apiAccess]?.(answer.body, reader.name);
+        expectAccess(route as keyof typeof apiRoutes, reader, answer.status, null);
+        if (answer.status === 200) shows[route as keyof typeof apiRoutes]?.(answer.body, reader.name);
         cases += 1;
       }
       // Signing out ended the session: a new one for the tests below.
       await signInAs(reader);
     }
-    expect(cases).toBe(readers.length * Object.keys(apiAccess).length);
+    expect(cases).toBe(readers.length * Object.keys(apiRoutes).length);
   });
 
   it("the pages and files of the public site", async () => {
@@ -330,7 +338,7 @@ describe("the table is complete and the documentation is the table", () => {
     try {
       const app = await createApp({ db: connection.db, pool: connection.pool, sessionSecret: testSessionSecret, production: false, secureTransport: false, logLevel: "silent", pages: false });
       const routes = routesOf((app as unknown as { router: { stack: unknown[] } }).router);
-      expect(new Set(routes)).toEqual(new Set([...Object.keys(apiAccess), ...Object.keys(fileAccess)]));
+      expect(new Set(routes)).toEqual(new Set([...Object.keys(apiRoutes), ...Object.keys(fileAccess)]));
     } finally {
       await connection.close();
     }
@@ -342,7 +350,7 @@ describe("the table is complete and the documentation is the table", () => {
   });
 
   it("the server's access table admits exactly whom the hand-written policy admits", () => {
-    const table: Record<string, AccessRule> = { ...apiAccess, ...fileAccess, ...pageAccess };
+    const table: Record<string, AccessRule> = { ...apiRoutes, ...fileAccess, ...pageAccess };
     expect(new Set(Object.keys(policy))).toEqual(new Set(Object.keys(table)));
     for (const [route, cells] of Object.entries(policy)) {
       for (const [i, reader] of readers.entries()) expect(admits(table[route]!.who, reader.roles), `${route} as ${reader.name}`).toBe(cells[i] !== no);
@@ -350,11 +358,11 @@ describe("the table is complete and the documentation is the table", () => {
   });
 
   it("every address of the table has its request in this test", () => {
-    expect(new Set(Object.keys(apiRequests))).toEqual(new Set(Object.keys(apiAccess)));
+    expect(new Set(Object.keys(apiRequests))).toEqual(new Set(Object.keys(apiRoutes)));
     expect(new Set(Object.keys(siteRequests))).toEqual(new Set([...Object.keys(fileAccess), ...Object.keys(pageAccess)]));
   });
 
   it("docs/roles.md is rendered from the table (npm run docs:roles)", () => {
-    expect(readFileSync(path.join(projectRoot, "docs/roles.md"), "utf8")).toBe(rolesDocument());
+    expect(readFileSync(path.join(projectRoot, "docs/roles.md"), "utf8")).toBe(rolesDocument(apiRoutes));
   });
 });

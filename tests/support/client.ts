@@ -1,4 +1,6 @@
-// A small HTTP client for the tests that keeps cookies like a browser and sends the CSRF token.
+// A small HTTP client for the tests that keeps cookies like a browser and sends the CSRF token, and
+// checks every successful API answer against its route's answer schema in the route table.
+import { answerIssues, routeOf } from "#web/api/routes";
 import { demoPassword } from "#workflows/seed";
 
 export class ApiClient {
@@ -52,6 +54,9 @@ export class ApiClient {
     } catch {
       // not JSON: keep the text
     }
+    const route = response.ok && path.startsWith("/api/") ? routeOf(method, path) : null;
+    const issues = route ? answerIssues(route, body) : [];
+    if (issues.length > 0) throw new Error(`${method} ${path} answered ${response.status} with a body that does not fit the schema of ${route}: ${issues.slice(0, 5).join("; ")}`);
     return { status: response.status, headers: response.headers, body: body as Record<string, unknown> & { error?: { key: string; message: string; details?: unknown } } };
   }
 

@@ -92,6 +92,11 @@ export const pressEnquiryBody = z.object({
   briefSlug: z.string().trim().max(200).nullish().transform((slug) => slug || null),
 });
 
+export const subscribeBody = z.object({ email: z.string().trim().toLowerCase().email("Enter an e-mail address.").max(320), topic: z.string().trim().min(1).max(200), locale: z.string().max(10).optional() });
+
+/** A one-time link's token, sent back from its page. */
+export const tokenBody = z.object({ token: z.string().max(200) });
+
 export const passwordResetBody = z.object({ email: z.string().trim().min(1, "Enter your e-mail address.").max(320) });
 
 export const newPasswordBody = z.object({ token: z.string().max(200), password: newPassword });

@@ -4,12 +4,12 @@
 import { readdirSync, readFileSync } from "node:fs";
 import path from "node:path";
 import { Router } from "express";
-import { guard } from "../auth/require-role";
+import { handle } from "./handle";
 import { sendError } from "../http/errors";
 
 export function devRoutes(mailFolder: string | null): Router {
   const router = Router();
-  router.get("/dev/mail", guard("GET /api/dev/mail"), (_req, res) => {
+  handle(router, "GET /api/dev/mail", (_req, res) => {
     if (!mailFolder) return sendError(res, 404, { key: "errors.notFound", message: "The development mailbox exists only in development (npm run dev)." });
     let files: string[] = [];
     try {

@@ -6,6 +6,8 @@ import type { Database } from "#db/client";
 import { sendError } from "../http/errors";
 import type { createCsrf, LimitStore } from "../http/security";
 import { briefRoutes } from "./briefs";
+import { reuseRoutes } from "./reuse";
+import { handle } from "./handle";
 import { healthRoutes } from "./health";
 import { outcomeRoutes } from "./outcomes";
 import { versionRoutes } from "./versions";
@@ -15,7 +17,7 @@ import { accountRoutes } from "./account";
 import { subscriptionRoutes } from "./subscriptions";
 import { devRoutes } from "./dev";
 import { translationRoutes } from "./translations";
-import { siteUrl } from "../http/site-url";
+import { siteUrl, type AddressedRequest } from "../http/site-url";
 import type { Queue } from "#workflows/queue";
 import type { AccountContext } from "#workflows/accounts";
 
@@ -37,7 +39,7 @@ export interface ApiDependencies {
 }
 
 export function apiRoutes({ db, pool, passport, csrf, sessionCookie, queue, publicUrl, mailFolder, limitStore }: ApiDependencies): Router {
-  const accounts = (req: Request): AccountContext => ({ db, queue, siteUrl: siteUrl(req, publicUrl) });
+  const accounts = (req: AddressedRequest): AccountContext => ({ db, queue, siteUrl: siteUrl(req, publicUrl) });
   const api = Router();
   // Answers depend on who asks (drafts, the press room, embargoed versions): no shared cache keeps them.
   api.use((_req, res, next) => {
@@ -47,9 +49,9 @@ export function apiRoutes({ db, pool, passport, csrf, sessionCookie, queue, publ
   api.use(express.json({ limit: "1mb" }));
   api.use(express.urlencoded({ extended: false, limit: "64kb" }));
 
-  api.use("/health", healthRoutes(pool));
+  api.use(healthRoutes(pool));
 
-  api.get("/csrf", (req, res) => {
+  handle(api, "GET /api/csrf", (req, res) => {
     res.json({ token: csrf.issueToken(req, res) });
   });
 
@@ -67,7 +69,7 @@ export function apiRoutes({ db, pool, passport, csrf, sessionCookie, queue, publ
     });
   });
 
-  api.use("/session", sessionRoutes(db, passport, sessionCookie, limitStore));
+  api.use(sessionRoutes(db, passport, sessionCookie, limitStore));
   api.use(peopleRoutes(accounts));
   api.use(accountRoutes(accounts, limitStore));
   api.use(devRoutes(mailFolder));
@@ -75,6 +77,7 @@ export function apiRoutes({ db, pool, passport, csrf, sessionCookie, queue, publ
   api.use(versionRoutes(db, accounts));
   api.use(outcomeRoutes(db, queue));
   api.use(translationRoutes(db));
+  api.use(reuseRoutes(db, publicUrl));
 
   api.use((_req, res) => sendError(res, 404, { key: "errors.notFound", message: "There is no such API route." }));
   return api;

@@ -11,9 +11,8 @@ import { analyseAgain, formatFitsOutcome, isLargeUpload, queueUpload, storeDatas
 import type { Queue } from "#workflows/queue";
 import { judgeComparisons, outcomeCertainty, type JudgementOutcome } from "#workflows/certainty";
 import { changeOutcomeSettings } from "#workflows/outcome-settings";
-import { guard } from "../auth/require-role";
-import { fieldIssues, rejectMalformedId, sendError, validateBody } from "../http/errors";
-import { judgementBody, judgementsBody, patchOutcomeBody, type JudgementBody, type JudgementsBody } from "./contract";
+import { handle } from "./handle";
+import { fieldIssues, sendError } from "../http/errors";
 
 const maximumUploadBytes = 5 * 1024 * 1024;
 
@@ -25,12 +24,11 @@ const upload = multer({
 /** `queue`: where large uploads are analysed; without one (a test's API alone), every upload is analysed at once. */
 export function outcomeRoutes(db: Database, queue: Queue | null): Router {
   const router = Router();
-  router.param("id", rejectMalformedId);
 
-  router.patch("/outcomes/:id", guard("PATCH /api/outcomes/:id"), validateBody(patchOutcomeBody), async (req, res) => {
-    const { rowVersion, ...changes } = req.body as z.infer<typeof patchOutcomeBody>;
+  handle(router, "PATCH /api/outcomes/:id", async (req, res) => {
+    const { rowVersion, ...changes } = req.body;
     try {
-      const update = await changeOutcomeSettings(db, String(req.params.id), rowVersion, changes, req.user!.id);
+      const update = await changeOutcomeSettings(db, req.params.id, rowVersion, changes, req.user!.id);
       if (update.ok) return res.json({ outcome: update.outcome });
       if (update.reason === "not-found") return sendError(res, 404, { key: "errors.notFound", message: "There is no such outcome." });
       if (update.reason === "invalid") {
@@ -50,12 +48,12 @@ export function outcomeRoutes(db: Database, queue: Queue | null): Router {
     }
   });
 
-  router.delete("/outcomes/:id", guard("DELETE /api/outcomes/:id"), async (req, res) => {
-    if (!(await deleteOutcome(db, String(req.params.id), req.user!.id))) return sendError(res, 404, { key: "errors.notFound", message: "There is no such outcome." });
+  handle(router, "DELETE /api/outcomes/:id", async (req, res) => {
+    if (!(await deleteOutcome(db, req.params.id, req.user!.id))) return sendError(res, 404, { key: "errors.notFound", message: "There is no such outcome." });
     res.status(204).end();
   });
 
-  router.put("/outcomes/:id/dataset", guard("PUT /api/outcomes/:id/dataset"), (req, res, next) => {
+  handle(router, "PUT /api/outcomes/:id/dataset", (req, res, next) => {
     upload.single("file")(req, res, (error: unknown) => {
       if (!error) return next();
       const tooLarge = error instanceof multer.MulterError && error.code === "LIMIT_FILE_SIZE";
@@ -65,7 +63,7 @@ export function outcomeRoutes(db: Database, queue: Queue | null): Router {
       });
     });
   }, async (req, res) => {
-    const outcome = await findOutcome(db, String(req.params.id));
+    const outcome = await findOutcome(db, req.params.id);
     if (!outcome) return sendError(res, 404, { key: "errors.notFound", message: "There is no such outcome." });
     const format = z.enum(formats).safeParse(req.body?.format);
     if (!format.success) {
@@ -104,8 +102,8 @@ export function outcomeRoutes(db: Database, queue: Queue | null): Router {
     }
   });
 
-  router.post("/outcomes/:id/analysis", guard("POST /api/outcomes/:id/analysis"), async (req, res) => {
-    const outcome = await findOutcome(db, String(req.params.id));
+  handle(router, "POST /api/outcomes/:id/analysis", async (req, res) => {
+    const outcome = await findOutcome(db, req.params.id);
     if (!outcome) return sendError(res, 404, { key: "errors.notFound", message: "There is no such outcome." });
     try {
       const rerun = await analyseAgain(db, outcome, req.user!.id);
@@ -117,16 +115,16 @@ export function outcomeRoutes(db: Database, queue: Queue | null): Router {
     }
   });
 
-  router.get("/outcomes/:id/result", guard("GET /api/outcomes/:id/result"), async (req, res) => {
-    const stored = await latestResult(db, String(req.params.id));
+  handle(router, "GET /api/outcomes/:id/result", async (req, res) => {
+    const stored = await latestResult(db, req.params.id);
     if (!stored) return sendError(res, 404, noResult);
     res.json(stored.result);
   });
 
   const noResult = { key: "errors.noResult", message: "This outcome has no analysis yet: upload its data first." };
 
-  router.get("/outcomes/:id/certainty", guard("GET /api/outcomes/:id/certainty"), async (req, res) => {
-    const outcome = await findOutcome(db, String(req.params.id));
+  handle(router, "GET /api/outcomes/:id/certainty", async (req, res) => {
+    const outcome = await findOutcome(db, req.params.id);
     const comparisons = outcome ? await outcomeCertainty(db, outcome) : null;
     if (!comparisons) return sendError(res, 404, noResult);
     res.json({ comparisons });
@@ -150,20 +148,20 @@ export function outcomeRoutes(db: Database, queue: Queue | null): Router {
     });
   }
 
-  router.put("/outcomes/:id/certainty/:treatment/:comparator", guard("PUT /api/outcomes/:id/certainty/:treatment/:comparator"), validateBody(judgementBody), async (req, res) => {
-    const outcome = await findOutcome(db, String(req.params.id));
+  handle(router, "PUT /api/outcomes/:id/certainty/:treatment/:comparator", async (req, res) => {
+    const outcome = await findOutcome(db, req.params.id);
     if (!outcome) return sendError(res, 404, noResult);
-    const pair = { treatment: String(req.params.treatment), comparator: String(req.params.comparator) };
-    const judged = await judgeComparisons(db, outcome, [{ ...pair, judgement: req.body as JudgementBody }], req.user!.id);
+    const pair = { treatment: req.params.treatment, comparator: req.params.comparator };
+    const judged = await judgeComparisons(db, outcome, [{ ...pair, judgement: req.body }], req.user!.id);
     if (!judged.ok) return refuseJudgement(res, judged);
     res.json({ comparison: judged.comparisons[0] });
   });
 
   // Many pairs at once (the desk's bulk actions): all are saved, or none.
-  router.put("/outcomes/:id/certainty", guard("PUT /api/outcomes/:id/certainty"), validateBody(judgementsBody), async (req, res) => {
-    const outcome = await findOutcome(db, String(req.params.id));
+  handle(router, "PUT /api/outcomes/:id/certainty", async (req, res) => {
+    const outcome = await findOutcome(db, req.params.id);
     if (!outcome) return sendError(res, 404, noResult);
-    const judged = await judgeComparisons(db, outcome, (req.body as JudgementsBody).judgements, req.user!.id);
+    const judged = await judgeComparisons(db, outcome, req.body.judgements, req.user!.id);
     if (!judged.ok) return refuseJudgement(res, judged);
     res.json({ comparisons: judged.comparisons });
   });

@@ -1,8 +1,8 @@
 // Signing in and out. The same route serves the JSON API and the sign-in page's HTML form:
 // a form post is answered with a redirect, so that signing in works without JavaScript.
-import { Router, type NextFunction, type Request, type Response } from "express";
+import { Router } from "express";
 import type { AppPassport } from "../auth/passport";
-import { guard } from "../auth/require-role";
+import { handle } from "./handle";
 import { isFormPost } from "../http/forms";
 import { recordAudit } from "#db/audit";
 import type { Database } from "#db/client";
@@ -10,8 +10,6 @@ import { fieldIssues, sendError } from "../http/errors";
 import { signInRateLimits, tooManyAttempts, type LimitStore } from "../http/security";
 import type { Person } from "#db/people";
 import { credentialsBody } from "./contract";
-
-
 
 /** Where a form sign-in goes next: only a path on this site, so the form cannot redirect elsewhere. */
 function safeNext(value: unknown): string {
@@ -25,7 +23,7 @@ function signInPage(error: string, next: string): string {
 export function sessionRoutes(db: Database, passport: AppPassport, sessionCookie: string, limitStore: LimitStore): Router {
   const router = Router();
 
-  router.get("/", guard("GET /api/session"), (req, res) => {
+  handle(router, "GET /api/session", (req, res) => {
     res.json({ person: req.user });
   });
 
@@ -33,7 +31,7 @@ export function sessionRoutes(db: Database, passport: AppPassport, sessionCookie
     isFormPost(req) ? res.redirect(303, signInPage("too-many", safeNext(req.body?.next))) : tooManyAttempts(res),
   );
 
-  router.post("/", ...limited, (req: Request, res: Response, next: NextFunction) => {
+  handle(router, "POST /api/session", ...limited, (req, res, next) => {
     const form = isFormPost(req);
     const parsed = credentialsBody.safeParse(req.body ?? {});
     if (!parsed.success) {
@@ -49,7 +47,7 @@ export function sessionRoutes(db: Database, passport: AppPassport, sessionCookie
       if (error) return next(error);
       if (!person) {
         res.locals.signInFailed = true;
-        if (form) return res.redirect(303, signInPage("invalid", safeNext(req.body.next)));
+        if (form) return res.redirect(303, signInPage("invalid", safeNext(req.body?.next)));
         return sendError(res, 401, {
           key: "errors.signIn.invalid",
           message: "That e-mail and password do not match an account.",
@@ -58,13 +56,13 @@ export function sessionRoutes(db: Database, passport: AppPassport, sessionCookie
       req.logIn(person, async (loginError) => {
         if (loginError) return next(loginError);
         await recordAudit(db, { actorId: person.id, action: "sign-in", entity: "session", entityId: person.id, before: null, after: null });
-        if (form) return res.redirect(303, safeNext(req.body.next));
+        if (form) return res.redirect(303, safeNext(req.body?.next));
         res.json({ person });
       });
     })(req, res, next);
   });
 
-  router.delete("/", (req, res, next) => {
+  handle(router, "DELETE /api/session", (req, res, next) => {
     const person = req.user;
     req.logOut((error) => {
       if (error) return next(error);

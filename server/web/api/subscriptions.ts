@@ -3,7 +3,6 @@
 // unsubscribe (RFC 8058) posts without one. Nothing here acts for a signed-in person: a forged
 // subscription only sends a confirmation link (double opt-in), and the tokens authorise the rest.
 import { Router, type Request, type Response } from "express";
-import { z } from "zod";
 import { localeOf, localePath } from "#core/locales";
 import { topicsOf } from "#core/search";
 import { wellFormedToken } from "#core/tokens";
@@ -11,20 +10,21 @@ import { confirmSubscription, unsubscribe } from "#db/subscriptions";
 import { listReleasedBriefs } from "#db/versions";
 import { askToSubscribe } from "#workflows/subscriptions";
 import type { MailContext } from "#workflows/mail";
-import { guard } from "../auth/require-role";
+import { handle } from "./handle";
+import type { AddressedRequest } from "../http/site-url";
 import { isFormPost } from "../http/forms";
 import { fieldIssues, sendError } from "../http/errors";
 import { linkLimits, mailRequestLimits, type LimitStore } from "../http/security";
+import { subscribeBody } from "./contract";
 
-const subscribeBody = z.object({ email: z.string().trim().toLowerCase().email("Enter an e-mail address.").max(320), topic: z.string().trim().min(1).max(200), locale: z.string().max(10).optional() });
 const done = (what: string) => `/subscriptions/done?what=${what}`;
 
-export function subscriptionRoutes(context: (req: Request) => MailContext, limitStore: LimitStore): Router {
+export function subscriptionRoutes(context: (req: AddressedRequest) => MailContext, limitStore: LimitStore): Router {
   const router = Router();
   const limited = (req: Request, res: Response) => (isFormPost(req) ? res.redirect(303, done("too-many")) : sendError(res, 429, { key: "errors.account.tooMany", message: "Too many requests from here: wait ten minutes, then try again." }));
 
   // The same answer whether or not the address is subscribed already.
-  router.post("/subscriptions", guard("POST /api/subscriptions"), ...mailRequestLimits(limitStore, "subscriptions", limited), async (req, res) => {
+  handle(router, "POST /api/subscriptions", ...mailRequestLimits(limitStore, "subscriptions", limited), async (req, res) => {
     const parsed = subscribeBody.safeParse(req.body ?? {});
     const topics = parsed.success ? topicsOf(await listReleasedBriefs(context(req).db)) : [];
     const topic = parsed.success ? topics.find((t) => t.name === parsed.data.topic || t.slug === parsed.data.topic) : undefined;
@@ -39,7 +39,7 @@ export function subscriptionRoutes(context: (req: Request) => MailContext, limit
   });
 
   // Like the account links: only links that did not work count, per client address.
-  router.post("/subscriptions/confirm", guard("POST /api/subscriptions/confirm"), ...linkLimits(limitStore, "subscription-confirm", limited), async (req, res) => {
+  handle(router, "POST /api/subscriptions/confirm", ...linkLimits(limitStore, "subscription-confirm", limited), async (req, res) => {
     const token = req.body?.token;
     const topic = wellFormedToken(token) ? await confirmSubscription(context(req).db, token) : null;
     if (!topic) res.locals.linkRefused = true;
@@ -50,7 +50,7 @@ export function subscriptionRoutes(context: (req: Request) => MailContext, limit
 
   // RFC 8058: the mail program posts "List-Unsubscribe=One-Click" to the address in the header, whose
   // query holds the token; the unsubscribe page's form sends the token in the body.
-  router.post("/subscriptions/unsubscribe", guard("POST /api/subscriptions/unsubscribe"), async (req, res) => {
+  handle(router, "POST /api/subscriptions/unsubscribe", async (req, res) => {
     const token = typeof req.query.token === "string" ? req.query.token : req.body?.token;
     if (wellFormedToken(token)) await unsubscribe(context(req).db, token);
     if (isFormPost(req) && req.body?.["List-Unsubscribe"] !== "One-Click") return res.redirect(303, done("unsubscribed"));

@@ -1,19 +1,19 @@
 // Review, publishing, withdrawal and reading frozen versions (docs/decisions/0007-frozen-versions.md,
 // 0009-review-and-withdrawal.md).
-import { Router, type Request } from "express";
+import { Router } from "express";
 import type { MailContext } from "#workflows/mail";
-import type { z } from "zod";
+
 import { versionNumberOf } from "#core/urls";
-import { guard } from "../auth/require-role";
+import { handle } from "./handle";
+import type { AddressedRequest } from "../http/site-url";
 import { reviewBrief, reviewHistory, withdrawBrief } from "#workflows/review";
-import { listPressRoom, listReleasedBriefs, readVersion } from "#db/versions";
-import { topicsOf } from "#core/search";
+import { listPressRoom } from "#db/versions";
 import type { ReadinessItem } from "#core/readiness";
 import { publishVersion, rescheduleRelease } from "#workflows/publish";
 import { briefReadiness } from "#workflows/readiness";
 import type { Database } from "#db/client";
-import { rejectMalformedId, sendError, validateBody } from "../http/errors";
-import { pressEnquiryBody, publishBody, rescheduleBody, reviewBody, withdrawalBody, type RescheduleBody } from "./contract";
+import { sendError } from "../http/errors";
+
 import { askEditors } from "#workflows/press";
 
 /** The HTTP status and message key for each reason a step is refused. */
@@ -42,75 +42,60 @@ function refuse(res: Parameters<typeof sendError>[0], reason: Refusal, detail: s
   sendError(res, status, { key, message: `${sentence}${listed}.`, details: items ?? (field && status === 400 ? [{ field, message: detail }] : undefined) });
 }
 
-export function versionRoutes(db: Database, mail: (req: Request) => MailContext): Router {
+export function versionRoutes(db: Database, mail: (req: AddressedRequest) => MailContext): Router {
   const router = Router();
-  router.param("id", rejectMalformedId);
 
-  router.post("/briefs/:id/reviews", guard("POST /api/briefs/:id/reviews"), validateBody(reviewBody), async (req, res) => {
-    const step = req.body as z.infer<typeof reviewBody>;
+  handle(router, "POST /api/briefs/:id/reviews", async (req, res) => {
+    const step = req.body;
     if ((step.decision === "approved" || step.decision === "returned") && !req.user!.roles.includes("editor")) {
       return sendError(res, 403, { key: "errors.roleRequired", message: "Returning or approving a brief needs the role editor.", details: { required: ["editor"] } });
     }
-    const outcome = await reviewBrief(db, String(req.params.id), step, req.user!.id);
+    const outcome = await reviewBrief(db, req.params.id, step, req.user!.id);
     if (!outcome.ok) return refuse(res, outcome.reason, outcome.detail, "comment", "items" in outcome ? outcome.items : undefined);
     res.status(201).json({ decision: outcome.decision, status: outcome.status });
   });
 
-  router.get("/briefs/:id/readiness", guard("GET /api/briefs/:id/readiness"), async (req, res) => {
-    const readiness = await briefReadiness(db, String(req.params.id));
+  handle(router, "GET /api/briefs/:id/readiness", async (req, res) => {
+    const readiness = await briefReadiness(db, req.params.id);
     if (!readiness) return sendError(res, 404, { key: "errors.notFound", message: "There is no such brief." });
     res.json(readiness);
   });
 
-  router.get("/briefs/:id/reviews", guard("GET /api/briefs/:id/reviews"), async (req, res) => {
-    res.json(await reviewHistory(db, String(req.params.id)));
+  handle(router, "GET /api/briefs/:id/reviews", async (req, res) => {
+    res.json(await reviewHistory(db, req.params.id));
   });
 
-  router.post("/briefs/:id/versions", guard("POST /api/briefs/:id/versions"), validateBody(publishBody), async (req, res) => {
-    const body = req.body as z.infer<typeof publishBody>;
-    const outcome = await publishVersion(db, String(req.params.id), { releaseAt: body.releaseAt ? new Date(body.releaseAt) : undefined, note: body.note }, req.user!.id, mail(req));
+  handle(router, "POST /api/briefs/:id/versions", async (req, res) => {
+    const body = req.body;
+    const outcome = await publishVersion(db, req.params.id, { releaseAt: body.releaseAt ? new Date(body.releaseAt) : undefined, note: body.note }, req.user!.id, mail(req));
     if (outcome.ok) return res.status(201).json({ version: outcome.version, url: outcome.url });
     const detail = outcome.reason === "not-found" ? outcome.detail : `the brief cannot be published yet: ${outcome.detail}`;
     refuse(res, outcome.reason, detail, "note", outcome.items);
   });
 
-  router.put("/briefs/:id/versions/:number/release", guard("PUT /api/briefs/:id/versions/:number/release"), validateBody(rescheduleBody), async (req, res) => {
-    const number = versionNumberOf(String(req.params.number));
+  handle(router, "PUT /api/briefs/:id/versions/:number/release", async (req, res) => {
+    const number = versionNumberOf(req.params.number);
     if (number === null) return sendError(res, 404, { key: "errors.notFound", message: "There is no such version." });
-    const outcome = await rescheduleRelease(db, String(req.params.id), number, new Date((req.body as RescheduleBody).releaseAt), req.user!.id, mail(req));
+    const outcome = await rescheduleRelease(db, req.params.id, number, new Date(req.body.releaseAt), req.user!.id, mail(req));
     if (!outcome.ok) return refuse(res, outcome.reason, outcome.detail, "releaseAt");
     res.json({ releaseAt: outcome.releaseAt });
   });
 
-  router.post("/briefs/:id/withdrawal", guard("POST /api/briefs/:id/withdrawal"), validateBody(withdrawalBody), async (req, res) => {
-    const outcome = await withdrawBrief(db, String(req.params.id), (req.body as z.infer<typeof withdrawalBody>).reason, req.user!.id);
+  handle(router, "POST /api/briefs/:id/withdrawal", async (req, res) => {
+    const outcome = await withdrawBrief(db, req.params.id, req.body.reason, req.user!.id);
     if (!outcome.ok) return refuse(res, outcome.reason, outcome.detail);
     res.json({ status: "withdrawn" });
   });
 
-  // The topics of the released briefs (the press choose which alert them).
-  router.get("/topics", guard("GET /api/topics"), async (_req, res) => {
-    res.json({ topics: topicsOf(await listReleasedBriefs(db)) });
-  });
-
   // A reporter's question to the editors, by e-mail through the queue.
-  router.post("/press-enquiries", guard("POST /api/press-enquiries"), validateBody(pressEnquiryBody), async (req, res) => {
-    await askEditors(mail(req), req.user!, req.body as z.infer<typeof pressEnquiryBody>);
+  handle(router, "POST /api/press-enquiries", async (req, res) => {
+    await askEditors(mail(req), req.user!, req.body);
     res.status(201).json({ sent: true });
   });
 
   // The press room: embargoed versions and the latest releases, for reporters and editors.
-  router.get("/press-room", guard("GET /api/press-room"), async (_req, res) => {
+  handle(router, "GET /api/press-room", async (_req, res) => {
     res.json({ versions: await listPressRoom(db) });
-  });
-
-  // Public once released; before that only for the press and editors. An embargoed version answers
-  // 404 like one that does not exist, so its existence does not leak.
-  router.get("/briefs/:slug/versions/:number", async (req, res) => {
-    const number = versionNumberOf(String(req.params.number));
-    const found = number === null ? null : await readVersion(db, String(req.params.slug), number, req.user?.roles ?? []);
-    if (found === null) return sendError(res, 404, { key: "errors.notFound", message: "There is no such published version." });
-    res.json(found.snapshot);
   });
 
   return router;

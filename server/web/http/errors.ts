@@ -51,31 +51,6 @@ export function validateBody<T extends z.ZodType>(schema: T) {
   };
 }
 
-/** Validates req.query; the parsed value is left in res.locals.query (req.query is read-only in Express 5). */
-export function validateQuery<T extends z.ZodType>(schema: T) {
-  return (req: Request, res: Response, next: NextFunction) => {
-    const parsed = schema.safeParse(req.query);
-    if (!parsed.success) {
-      sendError(res, 400, {
-        key: "errors.invalidQuery",
-        message: `The query is not valid: ${fieldIssues(parsed.error).map((i) => `${i.field}: ${i.message}`).join("; ")}`,
-        details: fieldIssues(parsed.error),
-      });
-      return;
-    }
-    res.locals.query = parsed.data;
-    next();
-  };
-}
-
-const uuid = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
-
-/** For router.param("id"): an id that is not a UUID names nothing, so it is a 404, not a database error. */
-export function rejectMalformedId(_req: Request, res: Response, next: NextFunction, id: string): void {
-  if (!uuid.test(id)) return sendError(res, 404, { key: "errors.notFound", message: `There is nothing with the id ${id}.` });
-  next();
-}
-
 /** PostgreSQL's SQLSTATE codes that a request caused (bad input, a clash), and the answer each gets. */
 const databaseRefusals: Record<string, { status: number; key: string; message: string }> = {
   "22021": { status: 400, key: "errors.invalidText", message: "A text holds a character that cannot be stored (such as a NUL byte)." },

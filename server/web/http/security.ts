@@ -144,3 +144,28 @@ export function linkLimits(store: LimitStore, route: string, onLimited: (req: Re
     }),
   ];
 }
+
+/**
+ * The public reads for outside use (the route table's `reuse`, docs/data.md): any site may read them
+ * from a browser (CORS without credentials, so a reader's cookie never travels with them), with the
+ * ETag and rate-limit headers visible to it; 600 a minute from one address (common practice for a
+ * public read API), counted in each process's memory, not the database, so that a read writes nothing.
+ */
+export const reuseHeaders: RequestHandler[] = [
+  (_req, res, next) => {
+    res.set({ "Access-Control-Allow-Origin": "*", "Access-Control-Expose-Headers": "ETag, RateLimit, RateLimit-Policy, Retry-After" });
+    next();
+  },
+  rateLimit({
+    windowMs: 60_000,
+    limit: 600,
+    standardHeaders: "draft-8",
+    legacyHeaders: false,
+    handler: (_req, res) => sendError(res, 429, { key: "errors.tooManyReads", message: "More than 600 requests a minute from one address: wait a minute, then try again." }),
+  }),
+];
+
+/** A public answer that every reader gets alike, which caches may keep for `seconds`. */
+export function sharedFor(res: Response, seconds: number): void {
+  res.set("Cache-Control", `public, max-age=${seconds}`);
+}
