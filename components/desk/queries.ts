@@ -1,8 +1,8 @@
 // TanStack Query hooks: the only place the desk's screens get their data from.
 import { useInfiniteQuery, useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import type { Format } from "#core/nma/types";
+import type { TranslationLocale } from "#core/locales";
 import type {
-  ApiAnswers,
   AuditQuery,
   AccountBody,
   PressEnquiryBody,
@@ -14,15 +14,13 @@ import type {
   JudgementsBody,
   PatchOutcomeBody,
   PublishBody,
-  Result,
   ReviewBody,
   RescheduleBody,
-  ReviewHistory,
   UploadReport,
   WithdrawalBody,
   SaveTranslationBody,
 } from "#web/api/contract";
-import { ApiError, callApi, forgetCsrfToken } from "./api";
+import { ApiError, call, forgetCsrfToken } from "./api";
 
 /** Every query's key, in one place: a mutation invalidates exactly what it changed. */
 export const queryKeys = {
@@ -45,7 +43,7 @@ export function useSignedInPerson() {
     queryKey: queryKeys.session,
     queryFn: async () => {
       try {
-        return (await callApi<ApiAnswers["session"]>("GET", "/api/session")).person;
+        return (await call("GET /api/session")).person;
       } catch (error) {
         if (error instanceof ApiError && error.status === 401) return null;
         throw error;
@@ -57,7 +55,7 @@ export function useSignedInPerson() {
 export function useSignOut() {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: () => callApi<void>("DELETE", "/api/session"),
+    mutationFn: () => call("DELETE /api/session"),
     onSuccess: () => {
       forgetCsrfToken();
       queryClient.setQueryData(queryKeys.session, null);
@@ -66,13 +64,13 @@ export function useSignOut() {
 }
 
 export function useBriefs() {
-  return useQuery({ queryKey: queryKeys.briefs, queryFn: async () => (await callApi<ApiAnswers["briefs"]>("GET", "/api/briefs")).briefs });
+  return useQuery({ queryKey: queryKeys.briefs, queryFn: async () => (await call("GET /api/briefs")).briefs });
 }
 
 export function useBrief(id: string) {
   return useQuery({
     queryKey: queryKeys.brief(id),
-    queryFn: async () => (await callApi<ApiAnswers["brief"]>("GET", `/api/briefs/${id}`)).brief,
+    queryFn: async () => (await call("GET /api/briefs/:id", { params: { id } })).brief,
     // While a large upload is analysed on the queue, ask again every two seconds until its result is in.
     refetchInterval: (query) => (query.state.data?.outcomes.some((o) => o.analysis.pending?.state === "analysing") ? 2000 : false),
   });
@@ -81,7 +79,7 @@ export function useBrief(id: string) {
 export function useCreateBrief() {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (fields: CreateBriefBody) => callApi<ApiAnswers["createdBrief"]>("POST", "/api/briefs", fields),
+    mutationFn: (fields: CreateBriefBody) => call("POST /api/briefs", { body: fields }),
     onSuccess: () => queryClient.invalidateQueries({ queryKey: queryKeys.briefs }),
   });
 }
@@ -89,7 +87,7 @@ export function useCreateBrief() {
 export function useCreateOutcome(briefId: string) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (fields: CreateOutcomeBody) => callApi<ApiAnswers["outcome"]>("POST", `/api/briefs/${briefId}/outcomes`, fields),
+    mutationFn: (fields: CreateOutcomeBody) => call("POST /api/briefs/:id/outcomes", { params: { id: briefId }, body: fields }),
     onSuccess: () => queryClient.invalidateQueries({ queryKey: queryKeys.brief(briefId) }),
   });
 }
@@ -97,7 +95,7 @@ export function useCreateOutcome(briefId: string) {
 export function useUpdateOutcome(briefId: string, outcomeId: string) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (fields: PatchOutcomeBody) => callApi<ApiAnswers["outcome"]>("PATCH", `/api/outcomes/${outcomeId}`, fields),
+    mutationFn: (fields: PatchOutcomeBody) => call("PATCH /api/outcomes/:id", { params: { id: outcomeId }, body: fields }),
     onSettled: () => {
       void queryClient.invalidateQueries({ queryKey: queryKeys.brief(briefId) });
       void queryClient.invalidateQueries({ queryKey: queryKeys.certainty(outcomeId) });
@@ -109,7 +107,7 @@ export function useUpdateOutcome(briefId: string, outcomeId: string) {
 export function useDeleteOutcome(briefId: string, outcomeId: string) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: () => callApi<void>("DELETE", `/api/outcomes/${outcomeId}`),
+    mutationFn: () => call("DELETE /api/outcomes/:id", { params: { id: outcomeId } }),
     onSuccess: () => queryClient.invalidateQueries({ queryKey: queryKeys.brief(briefId) }),
   });
 }
@@ -118,7 +116,7 @@ export function useDeleteOutcome(briefId: string, outcomeId: string) {
 export function useAnalyseAgain(briefId: string, outcomeId: string) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: () => callApi<{ resultId: string }>("POST", `/api/outcomes/${outcomeId}/analysis`),
+    mutationFn: () => call("POST /api/outcomes/:id/analysis", { params: { id: outcomeId } }),
     onSuccess: () => {
       void queryClient.invalidateQueries({ queryKey: queryKeys.brief(briefId) });
       void queryClient.invalidateQueries({ queryKey: queryKeys.certainty(outcomeId) });
@@ -136,7 +134,7 @@ export function useUploadDataset(briefId: string, outcomeId: string) {
       form.set("format", format);
       form.set("file", file);
       try {
-        return await callApi<UploadReport>("PUT", `/api/outcomes/${outcomeId}/dataset`, form);
+        return await call("PUT /api/outcomes/:id/dataset", { params: { id: outcomeId }, body: form });
       } catch (error) {
         if (error instanceof ApiError && error.status === 422) return error.payload as UploadReport;
         throw error;
@@ -152,13 +150,13 @@ export function useUploadDataset(briefId: string, outcomeId: string) {
 }
 
 export function useResult(outcomeId: string) {
-  return useQuery({ queryKey: queryKeys.result(outcomeId), queryFn: () => callApi<Result>("GET", `/api/outcomes/${outcomeId}/result`) });
+  return useQuery({ queryKey: queryKeys.result(outcomeId), queryFn: () => call("GET /api/outcomes/:id/result", { params: { id: outcomeId } }) });
 }
 
 export function useCertainty(outcomeId: string) {
   return useQuery({
     queryKey: queryKeys.certainty(outcomeId),
-    queryFn: async () => (await callApi<ApiAnswers["certainty"]>("GET", `/api/outcomes/${outcomeId}/certainty`)).comparisons,
+    queryFn: async () => (await call("GET /api/outcomes/:id/certainty", { params: { id: outcomeId } })).comparisons,
   });
 }
 
@@ -166,7 +164,7 @@ export function useSaveJudgement(outcomeId: string) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: ({ treatment, comparator, judgement }: { treatment: string; comparator: string; judgement: JudgementBody }) =>
-      callApi<ApiAnswers["judged"]>("PUT", `/api/outcomes/${outcomeId}/certainty/${encodeURIComponent(treatment)}/${encodeURIComponent(comparator)}`, judgement),
+      call("PUT /api/outcomes/:id/certainty/:treatment/:comparator", { params: { id: outcomeId, treatment, comparator }, body: judgement }),
     onSuccess: () => queryClient.invalidateQueries({ queryKey: queryKeys.certainty(outcomeId) }),
   });
 }
@@ -175,7 +173,7 @@ export function useSaveJudgement(outcomeId: string) {
 export function useSaveJudgements(outcomeId: string) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (judgements: JudgementsBody["judgements"]) => callApi<ApiAnswers["judgedMany"]>("PUT", `/api/outcomes/${outcomeId}/certainty`, { judgements }),
+    mutationFn: (judgements: JudgementsBody["judgements"]) => call("PUT /api/outcomes/:id/certainty", { params: { id: outcomeId }, body: { judgements } }),
     onSuccess: () => queryClient.invalidateQueries({ queryKey: queryKeys.certainty(outcomeId) }),
   });
 }
@@ -184,7 +182,7 @@ export function useNameTreatments(briefId: string) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (body: { names: Record<string, string>; grammar: Record<string, { phrase: string | null; number: "singular" | "plural" }> }) =>
-      callApi<ApiAnswers["treatments"]>("PUT", `/api/briefs/${briefId}/treatments`, body),
+      call("PUT /api/briefs/:id/treatments", { params: { id: briefId }, body }),
     onSuccess: () => queryClient.invalidateQueries({ queryKey: queryKeys.brief(briefId) }),
   });
 }
@@ -196,7 +194,7 @@ export function useTreatmentName(briefId: string): (label: string) => string {
 }
 
 export function previewMarkdown(markdown: string): Promise<string> {
-  return callApi<ApiAnswers["preview"]>("POST", "/api/preview", { markdown }).then((r) => r.html);
+  return call("POST /api/preview", { body: { markdown } }).then((r) => r.html);
 }
 
 /** Saves the editor's texts; a 409 means someone else saved first: the brief is reloaded to show their change. */
@@ -204,17 +202,17 @@ export function useSaveTexts(briefId: string) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: ({ rowVersion, ...texts }: { rowVersion: number; laySummary: string; shortTake: string }) =>
-      callApi<ApiAnswers["patchedBrief"]>("PATCH", `/api/briefs/${briefId}`, { rowVersion, ...texts }),
+      call("PATCH /api/briefs/:id", { params: { id: briefId }, body: { rowVersion, ...texts } }),
     onSettled: () => queryClient.invalidateQueries({ queryKey: queryKeys.brief(briefId) }),
   });
 }
 
 export function useReadiness(briefId: string) {
-  return useQuery({ queryKey: queryKeys.readiness(briefId), queryFn: () => callApi<ApiAnswers["readiness"]>("GET", `/api/briefs/${briefId}/readiness`) });
+  return useQuery({ queryKey: queryKeys.readiness(briefId), queryFn: () => call("GET /api/briefs/:id/readiness", { params: { id: briefId } }) });
 }
 
 export function useReviews(briefId: string) {
-  return useQuery({ queryKey: queryKeys.reviews(briefId), queryFn: () => callApi<ReviewHistory>("GET", `/api/briefs/${briefId}/reviews`) });
+  return useQuery({ queryKey: queryKeys.reviews(briefId), queryFn: () => call("GET /api/briefs/:id/reviews", { params: { id: briefId } }) });
 }
 
 /** Review, publishing and withdrawal all change the brief's status and its review history. */
@@ -234,34 +232,34 @@ function useReleaseStep<T, R>(briefId: string, step: (body: T) => Promise<R>) {
 }
 
 export function useReviewStep(briefId: string) {
-  return useReleaseStep(briefId, (body: ReviewBody) => callApi<ApiAnswers["reviewStep"]>("POST", `/api/briefs/${briefId}/reviews`, body));
+  return useReleaseStep(briefId, (body: ReviewBody) => call("POST /api/briefs/:id/reviews", { params: { id: briefId }, body }));
 }
 
 export function usePublish(briefId: string) {
-  return useReleaseStep(briefId, (body: PublishBody) => callApi<ApiAnswers["published"]>("POST", `/api/briefs/${briefId}/versions`, body));
+  return useReleaseStep(briefId, (body: PublishBody) => call("POST /api/briefs/:id/versions", { params: { id: briefId }, body }));
 }
 
 export function useReschedule(briefId: string, version: number) {
-  return useReleaseStep(briefId, (body: RescheduleBody) => callApi<ApiAnswers["rescheduled"]>("PUT", `/api/briefs/${briefId}/versions/${version}/release`, body));
+  return useReleaseStep(briefId, (body: RescheduleBody) => call("PUT /api/briefs/:id/versions/:number/release", { params: { id: briefId, number: String(version) }, body }));
 }
 
 export function useWithdraw(briefId: string) {
-  return useReleaseStep(briefId, (body: WithdrawalBody) => callApi<ApiAnswers["withdrawn"]>("POST", `/api/briefs/${briefId}/withdrawal`, body));
+  return useReleaseStep(briefId, (body: WithdrawalBody) => call("POST /api/briefs/:id/withdrawal", { params: { id: briefId }, body }));
 }
 
 export function usePressRoom() {
-  return useQuery({ queryKey: queryKeys.pressRoom, queryFn: async () => (await callApi<ApiAnswers["pressRoom"]>("GET", "/api/press-room")).versions });
+  return useQuery({ queryKey: queryKeys.pressRoom, queryFn: async () => (await call("GET /api/press-room")).versions });
 }
 
 export function usePeople() {
-  return useQuery({ queryKey: queryKeys.people, queryFn: async () => (await callApi<ApiAnswers["people"]>("GET", "/api/people")).people });
+  return useQuery({ queryKey: queryKeys.people, queryFn: async () => (await call("GET /api/people")).people });
 }
 
 /** The e-mails and their states, asked again every two seconds while one is still waiting to be sent. */
 export function useMessages() {
   return useQuery({
     queryKey: queryKeys.messages,
-    queryFn: async () => (await callApi<ApiAnswers["messages"]>("GET", "/api/messages")).messages,
+    queryFn: async () => (await call("GET /api/messages")).messages,
     refetchInterval: (query) => (query.state.data?.some((message) => message.state === "queued") ? 2000 : false),
   });
 }
@@ -275,9 +273,9 @@ function usePeopleMutation<T>(call: (input: T) => Promise<unknown>) {
   });
 }
 
-export const useInvite = () => usePeopleMutation((body: InviteBody) => callApi<ApiAnswers["person"]>("POST", "/api/people", body));
-export const useChangePerson = () => usePeopleMutation(({ id, ...body }: ChangePersonBody & { id: string }) => callApi<ApiAnswers["person"]>("PATCH", `/api/people/${id}`, body));
-export const useResendInvitation = () => usePeopleMutation((id: string) => callApi<unknown>("POST", `/api/people/${id}/invitation`));
+export const useInvite = () => usePeopleMutation((body: InviteBody) => call("POST /api/people", { body }));
+export const useChangePerson = () => usePeopleMutation(({ id, ...body }: ChangePersonBody & { id: string }) => call("PATCH /api/people/:id", { params: { id }, body }));
+export const useResendInvitation = () => usePeopleMutation((id: string) => call("POST /api/people/:id/invitation", { params: { id } }));
 
 /** The audit log, newest first, a page at a time (the cursor is the last entry's id). */
 export function useAudit(filter: Omit<AuditQuery, "before">) {
@@ -285,8 +283,7 @@ export function useAudit(filter: Omit<AuditQuery, "before">) {
     queryKey: queryKeys.audit(filter),
     initialPageParam: null as number | null,
     queryFn: ({ pageParam }) => {
-      const query = new URLSearchParams(Object.entries({ ...filter, before: pageParam ?? undefined }).filter(([, v]) => v !== undefined && v !== "").map(([k, v]) => [k, String(v)]));
-      return callApi<ApiAnswers["audit"]>("GET", `/api/audit?${query}`);
+      return call("GET /api/audit", { query: { ...filter, before: pageParam ?? undefined } });
     },
     getNextPageParam: (page) => page.next,
   });
@@ -296,24 +293,24 @@ export function useAudit(filter: Omit<AuditQuery, "before">) {
 export function useUpdateAccount() {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (body: AccountBody) => callApi<ApiAnswers["session"]>("PATCH", "/api/account", body),
+    mutationFn: (body: AccountBody) => call("PATCH /api/account", { body }),
     onSuccess: ({ person }) => queryClient.setQueryData(queryKeys.session, person),
   });
 }
 
 export function useAskEditors() {
-  return useMutation({ mutationFn: (body: PressEnquiryBody) => callApi<unknown>("POST", "/api/press-enquiries", body) });
+  return useMutation({ mutationFn: (body: PressEnquiryBody) => call("POST /api/press-enquiries", { body }) });
 }
 
 export function useTopics() {
-  return useQuery({ queryKey: ["topics"], queryFn: async () => (await callApi<ApiAnswers["topics"]>("GET", "/api/topics")).topics });
+  return useQuery({ queryKey: ["topics"], queryFn: async () => (await call("GET /api/topics")).topics });
 }
 
 /** The development mailbox (404 outside development, shown as the error). */
 export function useDevMail() {
   return useQuery({
     queryKey: ["dev-mail"],
-    queryFn: async () => (await callApi<{ messages: { to: string; subject: string; text: string; receivedAt: string }[] }>("GET", "/api/dev/mail")).messages,
+    queryFn: async () => (await call("GET /api/dev/mail")).messages,
     refetchInterval: 3000,
     retry: false,
   });
@@ -321,25 +318,26 @@ export function useDevMail() {
 
 /** The translation desk's queue: each brief's newest version and the state of each language this person may translate. */
 export function useTranslationQueue() {
-  return useQuery({ queryKey: ["translations"], queryFn: () => callApi<ApiAnswers["translationQueue"]>("GET", "/api/translations") });
+  return useQuery({ queryKey: ["translations"], queryFn: () => call("GET /api/translations") });
 }
 
+/** `locale` comes from the desk's address as typed; the server answers 404 for one that is not a translation language. */
 export function useTranslation(versionId: string, locale: string) {
   return useQuery({
     queryKey: ["translation", versionId, locale],
-    queryFn: async () => (await callApi<ApiAnswers["translation"]>("GET", `/api/translations/${versionId}/${locale}`)).translation,
+    queryFn: async () => (await call("GET /api/translations/:versionId/:locale", { params: { versionId, locale: locale as TranslationLocale } })).translation,
   });
 }
 
 /** Save, mark ready or publish: each answers with the translation as it now stands. */
-export function useTranslationStep(versionId: string, locale: string) {
+export function useTranslationStep(versionId: string, locale: TranslationLocale) {
   const queryClient = useQueryClient();
-  const path = `/api/translations/${versionId}/${locale}`;
+  const params = { versionId, locale };
   return useMutation({
     mutationFn: (step: { save: SaveTranslationBody } | { ready: true } | { publish: true }) =>
       "save" in step
-        ? callApi<ApiAnswers["translation"]>("PUT", path, step.save)
-        : callApi<ApiAnswers["translation"]>("POST", `${path}/${"ready" in step ? "ready" : "publish"}`),
+        ? call("PUT /api/translations/:versionId/:locale", { params, body: step.save })
+        : "ready" in step ? call("POST /api/translations/:versionId/:locale/ready", { params }) : call("POST /api/translations/:versionId/:locale/publish", { params }),
     onSuccess: ({ translation }) => {
       queryClient.setQueryData(["translation", versionId, locale], translation);
       void queryClient.invalidateQueries({ queryKey: ["translations"] });

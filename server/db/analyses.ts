@@ -76,7 +76,7 @@ export async function latestTreatments(db: Executor, outcomeId: string): Promise
 async function pendingSince(db: Executor, outcomeId: string, since: Date | null) {
   const pending = await latestPendingUpload(db, outcomeId);
   if (!pending || (since && pending.uploadedAt <= since)) return null;
-  return { fileName: pending.fileName, state: pending.state, issues: (pending.issues as DatasetIssue[] | null) ?? [] };
+  return { fileName: pending.fileName, state: pending.state, issues: pending.issues ?? [] };
 }
 
 export async function analysisStatus(db: Executor, outcome: OutcomeRow) {

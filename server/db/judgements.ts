@@ -8,7 +8,7 @@ import { pairKey } from "#core/pairs";
 
 export async function loadJudgements(db: Executor, outcomeId: string): Promise<Map<string, ComparisonJudgement>> {
   const rows = await db.select().from(certaintyJudgements).where(eq(certaintyJudgements.outcomeId, outcomeId));
-  return new Map(rows.map((row) => [pairKey(row.treatment, row.comparator), row.judgement as ComparisonJudgement]));
+  return new Map(rows.map((row) => [pairKey(row.treatment, row.comparator), row.judgement]));
 }
 
 /** One judgement, with its audit row; inside the caller's transaction when it passes one. */

@@ -1,6 +1,11 @@
 // The database schema. drizzle-kit turns changes here into SQL files in drizzle/;
 // a migration is never edited after it has been applied anywhere.
 import { sql } from "drizzle-orm";
+import type { ComparisonJudgement } from "#core/grade/assess";
+import type { AnalysisResult } from "#core/nma/analyse";
+import type { AnalysisOptions, DatasetIssue, ParsedDataset } from "#core/nma/types";
+import type { VersionSnapshot } from "#core/snapshot/schema";
+import type { PublishedFields, StoredFields } from "#core/translation";
 import {
   bigserial,
   check,
@@ -125,8 +130,9 @@ export const auditLog = pgTable(
     action: text("action").notNull(),
     entity: text("entity").notNull(),
     entityId: text("entity_id").notNull(),
-    before: jsonb("before"),
-    after: jsonb("after"),
+    /** The entity as it was and became: any entity's shape, shown as stored. */
+    before: jsonb("before").$type<unknown>(),
+    after: jsonb("after").$type<unknown>(),
   },
   (table) => [index("audit_log_entity_idx").on(table.entity, table.entityId)],
 );
@@ -226,7 +232,7 @@ export const datasets = pgTable(
     original: bytea("original").notNull(),
     sha256: text("sha256").notNull(),
     /** The parsed studies, as the engine read them. */
-    parsed: jsonb("parsed").notNull(),
+    parsed: jsonb("parsed").$type<ParsedDataset>().notNull(),
     uploadedBy: uuid("uploaded_by").references(() => people.id),
     uploadedAt: timestamp("uploaded_at", { withTimezone: true }).notNull().defaultNow(),
   },
@@ -246,8 +252,9 @@ export const analysisResults = pgTable(
       .references(() => datasets.id),
     engineVersion: text("engine_version").notNull(),
     inputChecksum: text("input_checksum").notNull(),
-    settings: jsonb("settings").notNull(),
-    result: jsonb("result").notNull(),
+    settings: jsonb("settings").$type<AnalysisOptions>().notNull(),
+    /** The engine's result, as the engine of `engineVersion` wrote it (the input checksum includes that version). */
+    result: jsonb("result").$type<AnalysisResult>().notNull(),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   },
   (table) => [index("analysis_results_outcome_idx").on(table.outcomeId, table.createdAt)],
@@ -263,7 +270,7 @@ export const certaintyJudgements = pgTable(
     /** The pair in the order the result lists it (sorted treatment labels). */
     treatment: text("treatment").notNull(),
     comparator: text("comparator").notNull(),
-    judgement: jsonb("judgement").notNull(),
+    judgement: jsonb("judgement").$type<ComparisonJudgement>().notNull(),
     updatedBy: uuid("updated_by").references(() => people.id),
     updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
   },
@@ -286,16 +293,19 @@ export const briefVersions = pgTable(
     releaseAt: timestamp("release_at", { withTimezone: true }).notNull(),
     /** The public correction note of a version after the first. */
     note: text("note"),
-    snapshot: jsonb("snapshot").notNull(),
+    /** Any shape a version was ever frozen in: read it through readSnapshot (server/core/snapshot/upgrade.ts). */
+    snapshot: jsonb("snapshot").$type<unknown>().notNull(),
     /**
      * What lists, search and the feed read: the frozen brief's description and its treatments, a few
      * hundred bytes beside a snapshot of up to megabytes. PostgreSQL computes them from the snapshot,
      * so they cannot drift from it (docs/decisions/0019-listing-beside-the-snapshot.md).
      */
     listedBrief: jsonb("listed_brief")
+      .$type<VersionSnapshot["brief"]>()
       .notNull()
       .generatedAlwaysAs(sql`snapshot -> 'brief'`),
     listedTreatments: jsonb("listed_treatments")
+      .$type<VersionSnapshot["treatments"]>()
       .notNull()
       .generatedAlwaysAs(sql`snapshot -> 'treatments'`),
     createdBy: uuid("created_by").references(() => people.id),
@@ -387,8 +397,8 @@ export const versionTranslations = pgTable(
       .references(() => briefVersions.id),
     locale: text("locale").notNull(),
     state: text("state", { enum: ["draft", "ready", "published"] }).notNull(),
-    fields: jsonb("fields").notNull(),
-    publishedFields: jsonb("published_fields"),
+    fields: jsonb("fields").$type<StoredFields>().notNull(),
+    publishedFields: jsonb("published_fields").$type<PublishedFields>(),
     publishedAt: timestamp("published_at", { withTimezone: true }),
     updatedBy: uuid("updated_by").references(() => people.id),
     updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
@@ -432,7 +442,7 @@ export const pendingUploads = pgTable(
     uploadedBy: uuid("uploaded_by").references(() => people.id),
     uploadedAt: timestamp("uploaded_at", { withTimezone: true }).notNull().defaultNow(),
     state: text("state", { enum: ["analysing", "refused"] }).notNull(),
-    issues: jsonb("issues"),
+    issues: jsonb("issues").$type<DatasetIssue[]>(),
   },
   (table) => [index("pending_uploads_outcome_idx").on(table.outcomeId, table.uploadedAt), check("pending_uploads_state", sql`${table.state} in ('analysing', 'refused')`)],
 );

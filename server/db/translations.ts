@@ -39,8 +39,8 @@ export async function translatableVersion(db: Database, versionId: string): Prom
 
 const shape = (row: typeof versionTranslations.$inferSelect): StoredTranslation => ({
   state: row.state,
-  fields: row.fields as StoredFields,
-  publishedFields: (row.publishedFields as PublishedFields | null) ?? null,
+  fields: row.fields,
+  publishedFields: row.publishedFields ?? null,
   publishedAt: row.publishedAt?.toISOString() ?? null,
   updatedAt: row.updatedAt.toISOString(),
 });
@@ -96,7 +96,7 @@ export async function publishedTranslation(db: Database, versionId: string, loca
     .select({ fields: versionTranslations.publishedFields, publishedAt: versionTranslations.publishedAt })
     .from(versionTranslations)
     .where(and(eq(versionTranslations.versionId, versionId), eq(versionTranslations.locale, locale)));
-  return row?.fields && row.publishedAt ? { fields: row.fields as PublishedFields, publishedAt: row.publishedAt.toISOString() } : null;
+  return row?.fields && row.publishedAt ? { fields: row.fields, publishedAt: row.publishedAt.toISOString() } : null;
 }
 
 /**

@@ -199,7 +199,7 @@ export async function listReleasedBriefs(db: Database, locale: Locale = defaultL
       .select({ versionId: versionTranslations.versionId, fields: sql<Record<string, string>>`jsonb_build_object('title', ${versionTranslations.publishedFields} -> 'title', 'topic', ${versionTranslations.publishedFields} -> 'topic', 'condition', ${versionTranslations.publishedFields} -> 'condition', 'population', ${versionTranslations.publishedFields} -> 'population')` })
       .from(versionTranslations)
       .where(and(eq(versionTranslations.locale, locale), inArray(versionTranslations.versionId, rows.map((row) => row.versionId))));
-    for (const { versionId, fields } of found) if (fields) translations.set(versionId, fields as Record<string, string>);
+    for (const { versionId, fields } of found) if (fields) translations.set(versionId, fields);
   }
   return rows
     .sort((a, b) => b.releaseAt.getTime() - a.releaseAt.getTime())

@@ -115,7 +115,7 @@ export async function rerunLatest(db: Executor, outcome: OutcomeRow): Promise<{ 
   const dataset = await latestDataset(db, outcome.id);
   if (!dataset) return null;
   const settings = analysisSettings(outcome);
-  const stored = await recordResult(db, outcome.id, dataset, settings, await analyseParsed(dataset.parsed as ParsedDataset, settings));
+  const stored = await recordResult(db, outcome.id, dataset, settings, await analyseParsed(dataset.parsed, settings));
   return { resultId: stored.id };
 }
 

@@ -13,7 +13,7 @@ export const thresholdsOf = (outcome: OutcomeRow) => ({ small: outcome.threshold
 
 /** Every comparison of the outcome's latest result with its ratings, suggestions and what is pending; null without a result. */
 export async function outcomeCertainty(db: Database, outcome: OutcomeRow, result?: AnalysisResult): Promise<ComparisonCertainty[] | null> {
-  const analysed = result ?? ((await latestResult(db, outcome.id))?.result as AnalysisResult | undefined);
+  const analysed = result ?? (await latestResult(db, outcome.id))?.result;
   if (!analysed) return null;
   return assessCertainty(analysed, await loadJudgements(db, outcome.id), thresholdsOf(outcome), outcome.baselineRisk);
 }

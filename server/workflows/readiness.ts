@@ -1,6 +1,5 @@
 // The publish-readiness checklist of a draft (server/core/readiness.ts) from what is stored now.
 import { concludeOutcome } from "#core/grade/conclusions";
-import type { AnalysisResult } from "#core/nma/analyse";
 import { readinessOf, type Readiness } from "#core/readiness";
 import { latestResult } from "#db/analyses";
 import { briefWithOutcomes } from "#db/briefs";
@@ -15,7 +14,7 @@ export async function briefReadiness(db: Database, briefId: string): Promise<Rea
   const outcomes = [];
   for (const outcome of brief.outcomes) {
     const current = outcome.analysis.state === "current";
-    const result = current ? ((await latestResult(db, outcome.id))?.result as AnalysisResult | undefined) ?? null : null;
+    const result = current ? (await latestResult(db, outcome.id))?.result ?? null : null;
     const certainty = result ? await outcomeCertainty(db, outcome, result) : null;
     const groups = result && certainty ? concludeOutcome(result, certainty, { name: outcome.name, baselineRisk: outcome.baselineRisk, thresholds: thresholdsOf(outcome), names }).groups : null;
     outcomes.push({ name: outcome.name, current, result, certainty, groups });

@@ -1,7 +1,6 @@
 // Demo content for a local cluster. Only scripts/start.ts and the test set-up call this, and
 // only against the cluster they manage: a server given an outside DATABASE_URL never seeds.
 import { assessCertainty } from "#core/grade/assess";
-import type { AnalysisResult } from "#core/nma/analyse";
 import type { Role } from "#core/roles";
 import { createBrief, findBriefByTitle, nameTreatments, updateBrief } from "#db/briefs";
 import type { Database } from "#db/client";
@@ -91,7 +90,7 @@ async function publishDemoBrief(db: Database, demo: ReturnType<typeof demoBriefs
     const format = spec.kind === "binary" ? "arm-binary" : "arm-continuous";
     const { result } = await storeDataset(db, outcome, { name: "fictional-demo.csv", bytes: Buffer.from(spec.csv) }, format, analystId);
     const none = { levels: 0 as const, reason: "" };
-    for (const comparison of assessCertainty(result as AnalysisResult, new Map(), spec.thresholds, spec.baselineRisk)) {
+    for (const comparison of assessCertainty(result, new Map(), spec.thresholds, spec.baselineRisk)) {
       await saveJudgement(
         db,
         { outcomeId: outcome.id, treatment: comparison.treatment, comparator: comparison.comparator },

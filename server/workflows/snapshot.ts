@@ -4,8 +4,6 @@
 import { createHash } from "node:crypto";
 import { concludeOutcome } from "#core/grade/conclusions";
 import { renderMarkdown } from "#core/markdown";
-import type { AnalysisResult } from "#core/nma/analyse";
-import type { ParsedDataset } from "#core/nma/types";
 import { outcomeFacts } from "#core/snapshot/facts";
 import { draftSnapshotSchema, snapshotSchemaVersion, type DraftSnapshot } from "#core/snapshot/schema";
 import { analysisSettings, latestDataset, latestResult } from "#db/analyses";
@@ -25,9 +23,9 @@ export async function draftSnapshot(db: Database, briefId: string): Promise<Draf
   const names = Object.fromEntries(brief.treatments.map((t) => [t.label, t.displayName]));
   const outcomes = [];
   for (const outcome of brief.outcomes) {
-    const result = (await latestResult(db, outcome.id))!.result as AnalysisResult;
+    const result = (await latestResult(db, outcome.id))!.result;
     const dataset = (await latestDataset(db, outcome.id))!;
-    const parsed = dataset.parsed as ParsedDataset;
+    const parsed = dataset.parsed;
     const thresholds = thresholdsOf(outcome);
     const certainty = (await outcomeCertainty(db, outcome, result))!;
     outcomes.push({

@@ -11,7 +11,8 @@ import type { AnalysisResult } from "#core/nma/analyse";
 import type { DatasetIssue } from "#core/nma/types";
 import { outcomeInput, outcomePatch } from "#core/outcome";
 import type { Readiness } from "#core/readiness";
-import type { Topic } from "#core/search";
+import type { ReleasedBrief, Topic } from "#core/search";
+import type { VersionSnapshot } from "#core/snapshot/schema";
 import { reviewDecisions } from "#core/status";
 import { locales, translationLocales, type TranslationLocale } from "#core/locales";
 import { roleNames } from "#core/roles";
@@ -200,29 +201,64 @@ export type UploadReport =
   | { valid: true; analysing: true; uploadId: string; fileName: string }
   | { valid: false; error: { key: string; message: string }; issues: DatasetIssue[] };
 
-export interface ApiAnswers {
-  session: { person: SignedInPerson };
-  briefs: { briefs: BriefSummary[] };
-  brief: { brief: BriefDetail };
-  createdBrief: { id: string; slug: string };
-  patchedBrief: { brief: BriefSummary };
-  treatments: { treatments: BriefDetail["treatments"] };
-  preview: { html: string };
-  outcome: { outcome: Outcome };
-  certainty: { comparisons: Certainty[] };
-  judged: { comparison: Certainty };
-  judgedMany: { comparisons: Certainty[] };
-  reviewStep: { decision: ReviewBody["decision"]; status: string };
-  published: { version: number; url: string };
-  withdrawn: { status: "withdrawn" };
-  rescheduled: { releaseAt: string };
-  pressRoom: { versions: PressRoomVersion[] };
-  people: { people: PersonRecord[] };
-  person: { person: PersonRecord };
-  messages: { messages: Json<Awaited<ReturnType<typeof listMessages>>> };
-  topics: { topics: Topic[] };
-  audit: Json<Awaited<ReturnType<typeof listAudit>>> & { actions: string[] };
-  readiness: Readiness;
-  translationQueue: { locales: TranslationLocale[]; versions: TranslationQueueEntry[] };
-  translation: { translation: Translation };
+type Sent = { sent: true };
+type Translated = { translation: Translation };
+
+/**
+ * What each route of the route table (routes.ts) answers on success, as the server's own types say
+ * (204: undefined). The desk's client is typed from it; a check of types at the end of routes.ts requires each
+ * to fit its route's answer schema, so the schema checked at run time and this type cannot part.
+ */
+export interface RouteAnswers {
+  "GET /api/health": { status: "ok" | "degraded"; database: "ok" | "unreachable" };
+  "GET /api/openapi.json": { openapi: "3.1.0" } & Record<string, unknown>;
+  "GET /api/csrf": { token: string };
+  "GET /api/session": { person: SignedInPerson };
+  "POST /api/session": { person: SignedInPerson };
+  "DELETE /api/session": undefined;
+  "GET /api/people": { people: PersonRecord[] };
+  "POST /api/people": { person: PersonRecord };
+  "PATCH /api/people/:id": { person: PersonRecord };
+  "POST /api/people/:id/invitation": Sent;
+  "GET /api/messages": { messages: Json<Awaited<ReturnType<typeof listMessages>>> };
+  "GET /api/dev/mail": { messages: { to: string; subject: string; text: string; receivedAt: string }[] };
+  "GET /api/audit": Json<Awaited<ReturnType<typeof listAudit>>> & { actions: string[] };
+  "PATCH /api/account": { person: SignedInPerson };
+  "POST /api/password-reset": Sent;
+  "POST /api/subscriptions": Sent;
+  "POST /api/subscriptions/confirm": { confirmed: true };
+  "POST /api/subscriptions/unsubscribe": { unsubscribed: true };
+  "POST /api/account/password": { done: true };
+  "GET /api/briefs": { briefs: BriefSummary[] };
+  "POST /api/briefs": { id: string; slug: string };
+  "GET /api/briefs/:id": { brief: BriefDetail };
+  "PATCH /api/briefs/:id": { brief: BriefSummary };
+  "PUT /api/briefs/:id/treatments": { treatments: BriefDetail["treatments"] };
+  "POST /api/preview": { html: string };
+  "POST /api/briefs/:id/outcomes": { outcome: Outcome };
+  "POST /api/briefs/:id/reviews": { decision: ReviewBody["decision"]; status: string };
+  "GET /api/briefs/:id/readiness": Readiness;
+  "GET /api/briefs/:id/reviews": ReviewHistory;
+  "POST /api/briefs/:id/versions": { version: number; url: string };
+  "PUT /api/briefs/:id/versions/:number/release": { releaseAt: string };
+  "POST /api/briefs/:id/withdrawal": { status: "withdrawn" };
+  "GET /api/translations": { locales: TranslationLocale[]; versions: TranslationQueueEntry[] };
+  "GET /api/translations/:versionId/:locale": Translated;
+  "PUT /api/translations/:versionId/:locale": Translated;
+  "POST /api/translations/:versionId/:locale/ready": Translated;
+  "POST /api/translations/:versionId/:locale/publish": Translated;
+  "GET /api/press-room": { versions: PressRoomVersion[] };
+  "GET /api/topics": { topics: Topic[] };
+  "GET /api/releases": { briefs: (ReleasedBrief & { page: string; snapshot: string })[] };
+  "POST /api/press-enquiries": Sent;
+  "GET /api/briefs/:slug/versions/:number": VersionSnapshot;
+  "PATCH /api/outcomes/:id": { outcome: Outcome };
+  "DELETE /api/outcomes/:id": undefined;
+  /** 422 with the file's issues is an error answer: its payload is the third kind of UploadReport. */
+  "PUT /api/outcomes/:id/dataset": Extract<UploadReport, { valid: true }>;
+  "POST /api/outcomes/:id/analysis": { resultId: string };
+  "GET /api/outcomes/:id/result": Result;
+  "GET /api/outcomes/:id/certainty": { comparisons: Certainty[] };
+  "PUT /api/outcomes/:id/certainty/:treatment/:comparator": { comparison: Certainty };
+  "PUT /api/outcomes/:id/certainty": { comparisons: Certainty[] };
 }

@@ -6,6 +6,7 @@
 // every answer they receive against its schema (tests/support/client.ts). Browser-safe, like contract.ts.
 import { z } from "zod";
 import { desk, embargo, type AccessRule } from "#core/access";
+import type { RouteAnswers } from "./contract";
 import { translationLocales } from "#core/locales";
 import { roleNames } from "#core/roles";
 import { versionSnapshotSchema } from "#core/snapshot/schema";
@@ -204,3 +205,12 @@ export function routeOf(method: string, path: string): ApiRoute | null {
   const literals = (route: ApiRoute) => route.split("/").filter((part) => !part.startsWith(":")).length;
   return candidates.sort((a, b) => literals(b) - literals(a))[0] ?? null;
 }
+
+// Each route's answer type in the contract (contract.ts, what the server's own functions return)
+// fits its answer schema here: the check the tests make at run time and the type the desk reads
+// cannot part. A route that does not fit is named by the type checker.
+// The open objects' "any other field" is left out of the comparison (an interface has no such entry).
+type Closed<T> = T extends readonly (infer U)[] ? Closed<U>[] : T extends object ? { [K in keyof T as string extends K ? never : K]: Closed<T[K]> } : T;
+type AnswerOf<K extends ApiRoute> = (typeof apiRoutes)[K] extends { answer: infer Schema extends z.ZodType } ? Closed<z.output<Schema>> : undefined;
+type Misfit = { [K in ApiRoute]: RouteAnswers[K] extends AnswerOf<K> ? never : K }[ApiRoute];
+export const everyAnswerFitsItsSchema: [Misfit] extends [never] ? true : Misfit = true;
