@@ -10,7 +10,8 @@ const root = path.dirname(fileURLToPath(import.meta.url));
 
 /**
  * The layers along the data's path, lowest first; a layer imports only from itself and those below.
- * The desk and the pages' components may use the API contract and types of the web layer.
+ * The desk and the pages' components may use the API contract and route table (both browser-safe)
+ * and types of the web layer.
  */
 const layers = [
   { name: "core", folder: "server/core", alias: "#core", may: ["core"] },
@@ -49,7 +50,7 @@ const respectLayers = {
       const target = targetOf(file, specifier);
       const to = target && layerOfPath(target.file);
       if (!from || !to) return;
-      const allowed = from.may.includes(to.name) || (from.name === "components" && to.name === "web" && (typeOnly || target.file.startsWith("server/web/api/contract")));
+      const allowed = from.may.includes(to.name) || (from.name === "components" && to.name === "web" && (typeOnly || /^server\/web\/api\/(contract|routes)(\.ts)?$/.test(target.file)));
       if (!allowed) return report(`The ${from.name} layer may not import from the ${to.name} layer ("${specifier}"): lower layers never import higher ones (docs/decisions/0015-layers.md).`);
       if (from.name !== to.name && !target.aliased) report(`"${specifier}" reaches into the ${to.name} layer by a relative path: import it as ${to.alias}/….`);
     }

@@ -1,7 +1,7 @@
 // /desk/account: one's own name, the time zone of one's e-mails, and one's password.
 import type { FormEvent } from "react";
 import { useTranslation } from "react-i18next";
-import type { SignedInPerson } from "./api";
+import { may, type SignedInPerson } from "./api";
 import { Field, formValues, inputClass, SubmitRow } from "./forms";
 import { useTopics, useUpdateAccount } from "./queries";
 import { languageNames, localeOf, locales } from "#core/locales";
@@ -11,7 +11,8 @@ export function AccountScreen({ person }: { person: SignedInPerson }) {
   const details = useUpdateAccount();
   const password = useUpdateAccount();
   const zones = ["UTC", ...Intl.supportedValuesOf("timeZone")];
-  const press = person.roles.includes("press");
+  // Topic alerts are for the press: they say when an embargoed brief is ready for them.
+  const press = may(person, "POST /api/press-enquiries");
   const topics = useTopics();
 
   function onDetails(event: FormEvent<HTMLFormElement>) {

@@ -14,7 +14,7 @@ import { ResultsScreen } from "./ResultsScreen";
 import { useSignedInPerson, useSignOut } from "./queries";
 import { TranslationEditor, TranslationQueue } from "./TranslationsScreen";
 import { loadTranslations } from "../i18n";
-import { setErrorWords } from "./api";
+import { may, setErrorWords } from "./api";
 import { localeOf, textDirection } from "#core/locales";
 
 export function DeskApp() {
@@ -78,18 +78,18 @@ function DeskRoutes({ person }: { person: NonNullable<ReturnType<typeof useSigne
   return (
     <Routes>
       <Route index element={<DeskHome person={person} />} />
-      <Route path="briefs/:briefId" element={<BriefScreen personId={person.id} canAnalyse={person.roles.includes("analyst")} canEdit={person.roles.includes("editor")} />} />
+      <Route path="briefs/:briefId" element={<BriefScreen personId={person.id} canAnalyse={may(person, "POST /api/briefs/:id/outcomes")} canEdit={may(person, "POST /api/briefs/:id/versions")} />} />
       <Route path="briefs/:briefId/outcomes/:outcomeId" element={<ResultsScreen />} />
-      <Route path="briefs/:briefId/outcomes/:outcomeId/certainty" element={<CertaintyScreen canJudge={person.roles.includes("analyst")} />} />
-      {person.roles.includes("admin") ? <Route path="people" element={<PeopleScreen selfId={person.id} />} /> : null}
-      {person.roles.includes("admin") ? <Route path="audit" element={<AuditScreen />} /> : null}
+      <Route path="briefs/:briefId/outcomes/:outcomeId/certainty" element={<CertaintyScreen canJudge={may(person, "PUT /api/outcomes/:id/certainty")} />} />
+      {may(person, "GET /api/people") ? <Route path="people" element={<PeopleScreen selfId={person.id} />} /> : null}
+      {may(person, "GET /api/audit") ? <Route path="audit" element={<AuditScreen />} /> : null}
       <Route path="account" element={<AccountScreen person={person} />} />
       <Route path="dev/mail" element={<DevMailScreen />} />
-      {person.roles.includes("translator") || person.roles.includes("editor") ? <Route path="translations" element={<TranslationQueue />} /> : null}
-      {person.roles.includes("translator") || person.roles.includes("editor") ? (
-        <Route path="translations/:versionId/:locale" element={<TranslationEditor canPublish={person.roles.includes("editor")} />} />
+      {may(person, "GET /api/translations") ? <Route path="translations" element={<TranslationQueue />} /> : null}
+      {may(person, "GET /api/translations/:versionId/:locale") ? (
+        <Route path="translations/:versionId/:locale" element={<TranslationEditor canPublish={may(person, "POST /api/translations/:versionId/:locale/publish")} />} />
       ) : null}
-      {person.roles.includes("press") || person.roles.includes("editor") ? <Route path="press" element={<PressRoom canAsk={person.roles.includes("press")} />} /> : null}
+      {may(person, "GET /api/press-room") ? <Route path="press" element={<PressRoom canAsk={may(person, "POST /api/press-enquiries")} />} /> : null}
       <Route path="*" element={<p>{t("desk.notFound")}</p>} />
     </Routes>
   );

@@ -1,6 +1,6 @@
 import { useTranslation } from "react-i18next";
 import { Link, useNavigate } from "react-router";
-import type { SignedInPerson } from "./api";
+import { may, type SignedInPerson } from "./api";
 import { BriefList } from "./BriefList";
 import { NewBriefForm } from "./NewBriefForm";
 import { PressRoom } from "./PressRoom";
@@ -9,8 +9,8 @@ import { useBriefs, useCreateBrief } from "./queries";
 export function DeskHome({ person }: { person: SignedInPerson }) {
   const { t } = useTranslation();
   const navigate = useNavigate();
-  const staff = person.roles.some((role) => role !== "press");
-  const briefs = useBriefs();
+  const staff = may(person, "GET /api/briefs");
+  const briefs = useBriefs(staff);
   const createBrief = useCreateBrief();
   return (
     <>
@@ -30,18 +30,18 @@ export function DeskHome({ person }: { person: SignedInPerson }) {
           {briefs.data ? <BriefList briefs={briefs.data} /> : <p aria-live="polite">{t("desk.loading")}</p>}
         </section>
       ) : null}
-      {person.roles.includes("admin") ? (
+      {may(person, "GET /api/people") ? (
         <p className="mt-8 font-sans">
           <Link to="/people">{t("desk.people.link")}</Link> · <Link to="/audit">{t("desk.audit.link")}</Link>
         </p>
       ) : null}
-      {person.roles.includes("translator") || person.roles.includes("editor") ? (
+      {may(person, "GET /api/translations") ? (
         <p className="mt-8 font-sans">
           <Link to="/translations">{t("desk.translations.link")}</Link>
         </p>
       ) : null}
-      {person.roles.includes("press") || person.roles.includes("editor") ? <PressRoom canAsk={person.roles.includes("press")} /> : null}
-      {person.roles.includes("analyst") ? (
+      {may(person, "GET /api/press-room") ? <PressRoom canAsk={may(person, "POST /api/press-enquiries")} /> : null}
+      {may(person, "POST /api/briefs") ? (
         <section className="mt-10 border-t border-rule pt-6">
           <h2 className="mb-4 text-xl font-semibold">{t("desk.newBrief")}</h2>
           <NewBriefForm

@@ -2,8 +2,10 @@
 // built from the parameters the table names, same-origin cookies, JSON, and the CSRF token on every
 // request that changes state (see docs/api.md). The answer is typed from the contract.
 import type { z } from "zod";
+import { admits } from "#core/access";
+import type { Role } from "#core/roles";
 import type { RouteAnswers } from "#web/api/contract";
-import type { ApiRoute, apiRoutes } from "#web/api/routes";
+import { apiRoutes, type ApiRoute } from "#web/api/routes";
 export type { SignedInPerson } from "#web/api/contract";
 
 export class ApiError extends Error {
@@ -33,6 +35,14 @@ async function fetchCsrfToken(): Promise<string> {
   const response = await fetch("/api/csrf", { credentials: "same-origin" });
   const body = (await response.json()) as { token: string };
   return body.token;
+}
+
+/**
+ * Whether this person may call the route, by the rule the server enforces (the route table): the
+ * desk shows a screen, a link or a query only to those who may use it.
+ */
+export function may(person: { roles: readonly Role[] }, route: ApiRoute): boolean {
+  return admits(apiRoutes[route].who, person.roles);
 }
 
 type Spec<K extends ApiRoute> = (typeof apiRoutes)[K];

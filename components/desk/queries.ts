@@ -63,8 +63,9 @@ export function useSignOut() {
   });
 }
 
-export function useBriefs() {
-  return useQuery({ queryKey: queryKeys.briefs, queryFn: async () => (await call("GET /api/briefs")).briefs });
+/** `enabled`: false for a person who may not list the briefs (the press), so the desk never asks. */
+export function useBriefs(enabled = true) {
+  return useQuery({ queryKey: queryKeys.briefs, queryFn: async () => (await call("GET /api/briefs")).briefs, enabled });
 }
 
 export function useBrief(id: string) {

@@ -6,24 +6,13 @@ import { Cite } from "@citation-js/core";
 import "@citation-js/plugin-bibtex";
 import "@citation-js/plugin-ris";
 import { xml2js } from "xml-js";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import { slugify } from "#core/slug";
 import { demoBriefs } from "#workflows/demo-briefs";
 import { analysedBrief, approve, publishedBrief } from "../support/briefs";
-import { type ApiClient, demoClient } from "../support/client";
-import { startProductionServer, type RunningServer } from "../support/production-server";
+import { withProductionServer } from "../support/production-server";
 
-let server: RunningServer;
-const clients: Record<string, ApiClient> = {};
-beforeAll(async () => {
-  server = await startProductionServer();
-  for (const role of ["analyst", "editor", "press"]) {
-    clients[role] = await demoClient(server.url, role);
-  }
-}, 60_000);
-afterAll(async () => {
-  await server.stop();
-});
+const { server, clients } = withProductionServer(["analyst", "editor", "press"]);
 
 const get = (path: string, headers: Record<string, string> = {}) => fetch(`${server.url}${path}`, { headers, redirect: "manual" });
 const small = slugify(demoBriefs()[0]!.title);

@@ -3,23 +3,12 @@
 // listed), and asks the editor to acknowledge warnings; a changed suggestion sends a judgement back
 // to pending; the public page states the thresholds on their scale and never shows an unrated
 // comparison as rated.
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import type { Certainty } from "#web/api/contract";
 import { analysedBrief, approve, draftBrief, rateEveryComparison } from "../support/briefs";
-import { type ApiClient, demoClient } from "../support/client";
-import { startProductionServer, type RunningServer } from "../support/production-server";
+import { withProductionServer } from "../support/production-server";
 
-let server: RunningServer;
-const clients: Record<string, ApiClient> = {};
-beforeAll(async () => {
-  server = await startProductionServer();
-  for (const role of ["analyst", "editor"]) {
-    clients[role] = await demoClient(server.url, role);
-  }
-}, 60_000);
-afterAll(async () => {
-  await server.stop();
-});
+const { server, clients } = withProductionServer(["analyst", "editor"]);
 
 const submit = (briefId: string) => clients.analyst!.request("POST", `/api/briefs/${briefId}/reviews`, { json: { decision: "submitted" } });
 const approveAs = (briefId: string, acknowledgeWarnings?: boolean) => clients.editor!.request("POST", `/api/briefs/${briefId}/reviews`, { json: { decision: "approved", acknowledgeWarnings } });

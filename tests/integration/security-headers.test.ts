@@ -1,19 +1,13 @@
 // Security headers and the session's life, checked on the production build: a content security
 // policy without inline scripts, no framing, no X-Powered-By, HSTS behind HTTPS, a new session id at
 // sign-in (against session fixation, OWASP's session management guidance).
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import { demoPassword } from "#workflows/seed";
 import { startTestApp } from "../support/app";
 import { ApiClient } from "../support/client";
-import { startProductionServer, type RunningServer } from "../support/production-server";
+import { withProductionServer } from "../support/production-server";
 
-let server: RunningServer;
-beforeAll(async () => {
-  server = await startProductionServer();
-}, 60_000);
-afterAll(async () => {
-  await server.stop();
-});
+const { server } = withProductionServer();
 
 describe("security headers", () => {
   it("a page and an API answer forbid inline scripts and framing, and do not name the server's framework", async () => {
