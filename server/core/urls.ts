@@ -126,6 +126,23 @@ export function parseBriefPath(path: string): string | null {
   return slug !== null && briefUrl(slug) === path ? slug : null;
 }
 
+/** The slug of a topic's page /topics/:slug; null for anything else. */
+export function parseTopicPath(path: string): string | null {
+  const match = /^\/topics\/([^/]+)$/.exec(path);
+  return match ? decoded(match[1]!) : null;
+}
+
+/** The list pages (home, search, a topic): their data is the catalogue's, and their query names a page of its own. */
+export const isListPath = (path: string) => path === homeUrl() || path === searchUrl() || parseTopicPath(path) !== null;
+
+/** One-time links' pages and the sign-in and reset forms: they post without JavaScript, so they carry a CSRF token. */
+export const holdsForm = (path: string) => path === "/sign-in" || path === passwordResetUrl() || isLinkPage(path, `${passwordResetUrl()}/`) || isLinkPage(path, invitationUrl(""));
+/** A one-time link's page: its prefix and one segment, the token. */
+const isLinkPage = (path: string, prefix: string) => path.startsWith(prefix) && /^[^/]+$/.test(path.slice(prefix.length));
+
+/** The pages that exist in every language: all but the desk and a draft's preview, which follow the person signed in. */
+export const negotiates = (path: string) => !isDeskPath(path) && !path.startsWith(previewUrl(""));
+
 /** The address a version path is canonically spelled as. */
 export const canonicalVersionPath = (parsed: VersionPath) => (parsed.kind === "version" ? versionUrl(parsed.at) : comparisonUrl(parsed.at));
 

@@ -42,7 +42,7 @@ export interface CachedPage {
   caching: "version" | "revalidate";
   /**
    * The headers of an answer from memory (security headers, type, caching, ETag), taken from the
-   * first such answer the full way gave: later ones are written from here (render.ts, fastPath).
+   * first such answer the full way gave: later ones are written from here (render.ts, answer-from-cache.ts).
    */
   ready?: Record<string, string | number | string[]>;
 }

@@ -1,32 +1,22 @@
-// Server-side rendering of the pages/ folder by Vike, the built assets, and the HTTP caching of
-// public pages: released versions from memory with an ETag, other public pages revalidated.
+// The pages/ folder rendered by Vike, and the built assets: the wiring of the public pages' way
+// through the server. A reader's language and a page's one address come first (redirects); then a
+// page kept in memory is answered from there (cache-policy.ts, answer-from-cache.ts), and anything
+// else is rendered, and kept where it may be (render-and-keep.ts). Anonymous readers of kept pages
+// are answered before Express runs at all (fastAnswer).
 import path from "node:path";
 import type { IncomingMessage, ServerResponse } from "node:http";
-import accepts from "accepts";
 import express, { Router, type Request, type Response } from "express";
-import fresh from "fresh";
-import { createDevMiddleware, renderPage } from "vike/server";
+import { createDevMiddleware } from "vike/server";
 import { defaultLocale, isLocale, localePath, negotiateLocale, splitLocale, type Locale } from "#core/locales";
-import { mayReadEmbargoed } from "#core/roles";
-import { publicVersionState } from "#db/versions";
 import { localeCookie } from "../public/routes";
-import { siteUrl } from "../http/site-url";
 import type { Database } from "#db/client";
-import { errorAnswer } from "../http/errors";
 import type { createCsrf } from "../http/security";
-import { briefOfPath, canonicalVersionPath, isDeskPath, parseBriefPath, parseVersionPath, surrogateKeys, type VersionPath } from "#core/urls";
+import { briefOfPath, canonicalVersionPath, isDeskPath, isListPath, negotiates, parseBriefPath, parseVersionPath, surrogateKeys } from "#core/urls";
 import { admits, pageAccess } from "#core/access";
-import { encode, etagOf, PageCache, StateMemo, type CachedPage, type Encodings } from "./page-cache";
-import { Catalogue, catalogueKey } from "./catalogue";
-
-/** Pages whose HTML carries a CSRF token, because they hold a form that posts without JavaScript. */
-const holdsForm = (path: string) => path === "/sign-in" || path === "/password-reset" || /^\/(password-reset|invitation)\/[^/]+$/.test(path);
-
-/** The pages that exist in every language: all but the desk and a draft's preview, which follow the person signed in. */
-const negotiates = (path: string) => !isDeskPath(path) && !path.startsWith("/preview/");
-
-/** The list pages: their data is the catalogue's, and a search's or a page's query is part of their address. */
-const isListPath = (path: string) => path === "/" || path === "/briefs" || /^\/topics\/[^/]+$/.test(path);
+import type { CachedPage } from "./page-cache";
+import { answerFromCache } from "./answer-from-cache";
+import { cacheControl, pageMemory } from "./cache-policy";
+import { renderAndKeep, type Rendered } from "./render-and-keep";
 
 /** The language a reader chose on the site (the cookie), else the first of ours their browser asks for, else English. */
 function readerLocale(chosen: unknown, acceptLanguage: string | undefined): Locale {
@@ -43,31 +33,6 @@ function cookieValue(header: string, name: string): string | undefined {
   return undefined;
 }
 
-/**
- * What a page's +data may say about its HTTP answer: a status other than 200 (410 for a withdrawn
- * brief) and how it may be cached — "version" for a released version (frozen), "revalidate" for a
- * public page that changes (the latest version, lists), "private" for what only some may see.
- */
-export interface PageAnswer {
-  httpStatus?: number;
-  caching?: "version" | "revalidate" | "private";
-  /** For a version's pages: what may still change on a frozen page (newer versions, withdrawal), as one string. */
-  cacheState?: string;
-}
-
-/** Where a public page is kept in memory, and the state it is checked against on every hit. */
-interface Kept {
-  cache: PageCache;
-  key: string;
-  state: () => Promise<string | null>;
-}
-
-const cacheControl = {
-  version: "public, max-age=3600",
-  revalidate: "public, no-cache",
-  private: "private, no-store",
-} as const;
-
 export async function pageRoutes(options: {
   root: string;
   production: boolean;
@@ -81,11 +46,7 @@ export async function pageRoutes(options: {
 }): Promise<{ router: Router; fastAnswer: (req: IncomingMessage, res: ServerResponse) => Promise<boolean>; forget: (slug: string) => void }> {
   const { root, production, csrf, db, publicUrl, sessionCookie, onFastAnswer } = options;
   const router = Router();
-  const cache = new PageCache();
-  // The list pages apart, in less memory: a flood of distinct searches cannot push out versions' pages.
-  const lists = new PageCache(16 * 1024 * 1024, "quick");
-  const states = new StateMemo<string | null>();
-  const catalogue = new Catalogue(db, states);
+  const { keptAt, forget, catalogue } = pageMemory(db);
   const rendering = new Map<string, Promise<CachedPage | null>>();
   if (production) {
     // Built assets carry a content hash in their name, so they can be cached for a year.
@@ -99,7 +60,7 @@ export async function pageRoutes(options: {
     router.use(devMiddleware);
   }
 
-  function send(req: Request, res: Response, page: Omit<CachedPage, "state" | "encodings" | "caching"> & ({ html: string; encodings?: never } | { encodings: Encodings }), caching: keyof typeof cacheControl) {
+  function send(req: Request, res: Response, page: CachedPage | Rendered["page"], caching: keyof typeof cacheControl) {
     for (const [name, value] of page.headers) res.setHeader(name, value);
     const policy = res.getHeader("content-security-policy");
     const nonce = res.locals.cspNonce as string;
@@ -119,17 +80,11 @@ export async function pageRoutes(options: {
       const perAnswer = new Set(["date", "vary", "set-cookie", "content-length", "content-encoding"]);
       (page as CachedPage).ready = Object.fromEntries(Object.entries(res.getHeaders()).filter(([name]) => !perAnswer.has(name))) as CachedPage["ready"];
     }
+    // Already compressed: the compression middleware leaves an answer with a Content-Encoding alone.
+    if ("encodings" in page) return answerFromCache(req, res, page, {});
     if (caching !== "private" && page.status === 200 && req.fresh) return res.status(304).end();
     // The type is among Vike's headers: HTML for pages, JSON for client navigation's pageContext.
-    res.status(page.status);
-    if (!page.encodings) return res.send(page.html);
-    // Already compressed: the compression middleware leaves an answer with a Content-Encoding alone.
-    const encoding = req.acceptsEncodings("br", "gzip", "identity") || "identity";
-    const body = page.encodings[encoding as keyof Encodings] ?? page.encodings.identity;
-    res.vary("Accept-Encoding");
-    if (encoding !== "identity") res.setHeader("Content-Encoding", encoding);
-    res.setHeader("Content-Length", body.length);
-    res.end(req.method === "HEAD" ? undefined : body);
+    res.status(page.status).send(page.html);
   }
 
   router.use(async (req, res, next) => {
@@ -156,7 +111,7 @@ export async function pageRoutes(options: {
     // that nothing of a request's query can reach the page kept for every reader (hostile probe round 3, F7).
     if (query && (parsed || parseBriefPath(path))) return res.redirect(301, localePath(locale, path));
     try {
-      const memory = memoryCached(req.user, locale, path, query, parsed);
+      const memory = keptAt(req.user, locale, path, query, parsed);
       if (memory) {
         const cached = memory.cache.get(memory.key);
         if (cached) {
@@ -171,7 +126,7 @@ export async function pageRoutes(options: {
           if (entry) return send(req, res, entry, entry.caching);
         }
       }
-      const rendered = renderAndKeep(req, res, path, memory);
+      const rendered = renderAndKeep({ db, csrf, catalogue, publicUrl }, req, res, path, memory);
       if (memory) rendering.set(memory.key, rendered.then((result) => result?.entry ?? null));
       const result = await rendered.finally(() => memory && rendering.delete(memory.key));
       if (!result) return next();
@@ -205,87 +160,13 @@ export async function pageRoutes(options: {
     if (negotiated && readerLocale(cookieValue(cookies, localeCookie), req.headers["accept-language"]) !== defaultLocale) return false;
     const parsed = parseVersionPath(path);
     if (parsed && !parsed.canonical) return false;
-    const memory = memoryCached(undefined, locale, path, query, parsed);
+    const memory = keptAt(undefined, locale, path, query, parsed);
     const cached = memory?.cache.get(memory.key);
     if (!memory || !cached?.ready || (await memory.state()) !== cached.state) return false;
-    const vary = negotiated ? "Accept-Language, Cookie, Accept-Encoding" : "Accept-Encoding";
-    // The same freshness and encoding rules as the full way's req.fresh and req.acceptsEncodings (Express's own packages).
-    if (cached.status === 200 && fresh(req.headers, { etag: cached.etag })) {
-      res.writeHead(304, { ...cached.ready, vary });
-      res.end();
-    } else {
-      const encoding = (accepts(req).encodings("br", "gzip", "identity") || "identity") as keyof Encodings;
-      const body = cached.encodings[encoding];
-      res.writeHead(cached.status, { ...cached.ready, vary, ...(encoding === "identity" ? {} : { "content-encoding": encoding }), "content-length": body.length });
-      res.end(req.method === "HEAD" ? undefined : body);
-    }
+    answerFromCache(req, res, cached, negotiated ? { ...cached.ready, vary: "Accept-Language, Cookie" } : cached.ready);
     onFastAnswer?.(req, res);
     return true;
   }
 
-  /**
-   * The public pages kept in memory, with the state each is checked against on every hit: a released
-   * version's pages and a brief's latest address (against the brief's state), and the list pages
-   * (against the catalogue's). Only a reader who sees what the public sees shares them: the press and
-   * editors also see embargoed versions in a page's history.
-   */
-  function memoryCached(reader: Request["user"], locale: Locale, path: string, query: string, version: VersionPath | null): Kept | null {
-    if (mayReadEmbargoed(reader?.roles ?? [])) return null;
-    if (isListPath(path)) return { cache: lists, key: PageCache.key(locale, path + query), state: () => catalogue.state() };
-    const key = PageCache.key(locale, path);
-    if (version) {
-      const { slug, version: number } = version.at;
-      return { cache, key, state: () => states.get(`${slug}/${number}`, () => publicVersionState(db, slug, number)) };
-    }
-    const latest = parseBriefPath(path);
-    // The latest address shows the newest released version: the same state, read from version 1 on.
-    if (latest) return { cache, key, state: () => states.get(`${latest}/latest`, () => publicVersionState(db, latest, 1)) };
-    return null;
-  }
-
-  /** Renders the page; one that says how it may be cached in memory is kept where `kept` says. */
-  async function renderAndKeep(req: Request, res: Response, path: string, kept: Kept | null) {
-    let csrfToken: string | undefined;
-    if (holdsForm(path)) {
-      csrfToken = csrf.issueToken(req, res);
-    }
-    const pageContext = await renderPage({
-      urlOriginal: req.originalUrl,
-      headersOriginal: req.headers,
-      cspNonce: res.locals.cspNonce as string,
-      person: req.user ?? null,
-      db,
-      catalogue: (locale: Locale) => catalogue.briefs(locale),
-      csrfToken,
-      siteUrl: siteUrl(req, publicUrl),
-    });
-    const { httpResponse } = pageContext;
-    if (!httpResponse) return null;
-    // Vike renders its error page with a 500 when a page's data could not be read; a database that is
-    // down or restarting is the client's 503 instead, as for every other answer (hostile probe round 3, F8).
-    const failure = (pageContext as { errorWhileRendering?: unknown }).errorWhileRendering;
-    if (failure && errorAnswer(failure).status === 503) throw failure;
-    const answer = ((pageContext as { data?: unknown }).data ?? {}) as PageAnswer;
-    const html = await httpResponse.getBody();
-    // helmet has set the full policy with the same nonce; Vike's shorter one would replace it.
-    const headers = httpResponse.headers.filter(([name]) => name.toLowerCase() !== "content-security-policy") as [string, string][];
-    const nonce = res.locals.cspNonce as string;
-    // The tag leaves the nonce out: every process renders the page with a nonce of its own, and a
-    // reader (or a CDN) revalidating with one process's tag must get its 304 from any other.
-    const page = { html, etag: etagOf(html.replaceAll(nonce, "")), status: answer.httpStatus ?? httpResponse.statusCode, headers, nonce };
-    const caching = httpResponse.statusCode >= 400 && !answer.httpStatus ? "private" : (answer.caching ?? "private");
-    if (kept && caching !== "private" && answer.cacheState !== undefined) {
-      const entry: CachedPage = { etag: page.etag, status: page.status, headers, nonce: page.nonce, encodings: encode(html, kept.cache.effort), state: answer.cacheState, caching };
-      kept.cache.set(kept.key, entry);
-      return { page, caching, entry };
-    }
-    return { page, caching, entry: null };
-  }
-
-  /** What this process remembers of a brief's versions and of the catalogue, dropped when the database announces a change to them. */
-  const forget = (slug: string) => {
-    states.forget(`${slug}/`);
-    states.forget(catalogueKey);
-  };
   return { router, fastAnswer, forget };
 }

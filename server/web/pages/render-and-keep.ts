@@ -1,0 +1,62 @@
+// Renders a page with Vike, and keeps in memory a page that says it may be kept (cache-policy.ts).
+import type { Request, Response } from "express";
+import { renderPage } from "vike/server";
+import type { Locale } from "#core/locales";
+import { holdsForm } from "#core/urls";
+import type { Database } from "#db/client";
+import { errorAnswer } from "../http/errors";
+import type { createCsrf } from "../http/security";
+import { siteUrl } from "../http/site-url";
+import type { Catalogue } from "./catalogue";
+import type { cacheControl, Kept, PageAnswer } from "./cache-policy";
+import { encode, etagOf, type CachedPage } from "./page-cache";
+
+export interface RenderContext {
+  db: Database;
+  csrf: ReturnType<typeof createCsrf>;
+  catalogue: Catalogue;
+  publicUrl?: string;
+}
+
+/** A rendered page: its HTML and headers, how it may be cached, and the entry kept in memory, if it was. */
+export interface Rendered {
+  page: { html: string; etag: string; status: number; headers: [string, string][]; nonce: string };
+  caching: keyof typeof cacheControl;
+  entry: CachedPage | null;
+}
+
+export async function renderAndKeep(context: RenderContext, req: Request, res: Response, path: string, kept: Kept | null): Promise<Rendered | null> {
+  const { db, csrf, catalogue, publicUrl } = context;
+  const csrfToken = holdsForm(path) ? csrf.issueToken(req, res) : undefined;
+  const pageContext = await renderPage({
+    urlOriginal: req.originalUrl,
+    headersOriginal: req.headers,
+    cspNonce: res.locals.cspNonce as string,
+    person: req.user ?? null,
+    db,
+    catalogue: (locale: Locale) => catalogue.briefs(locale),
+    csrfToken,
+    siteUrl: siteUrl(req, publicUrl),
+  });
+  const { httpResponse } = pageContext;
+  if (!httpResponse) return null;
+  // Vike renders its error page with a 500 when a page's data could not be read; a database that is
+  // down or restarting is the client's 503 instead, as for every other answer (hostile probe round 3, F8).
+  const failure = (pageContext as { errorWhileRendering?: unknown }).errorWhileRendering;
+  if (failure && errorAnswer(failure).status === 503) throw failure;
+  const answer = ((pageContext as { data?: unknown }).data ?? {}) as PageAnswer;
+  const html = await httpResponse.getBody();
+  // helmet has set the full policy with the same nonce; Vike's shorter one would replace it.
+  const headers = httpResponse.headers.filter(([name]) => name.toLowerCase() !== "content-security-policy") as [string, string][];
+  const nonce = res.locals.cspNonce as string;
+  // The tag leaves the nonce out: every process renders the page with a nonce of its own, and a
+  // reader (or a CDN) revalidating with one process's tag must get its 304 from any other.
+  const page = { html, etag: etagOf(html.replaceAll(nonce, "")), status: answer.httpStatus ?? httpResponse.statusCode, headers, nonce };
+  const caching = httpResponse.statusCode >= 400 && !answer.httpStatus ? "private" : (answer.caching ?? "private");
+  if (kept && caching !== "private" && answer.cacheState !== undefined) {
+    const entry: CachedPage = { etag: page.etag, status: page.status, headers, nonce: page.nonce, encodings: encode(html, kept.cache.effort), state: answer.cacheState, caching };
+    kept.cache.set(kept.key, entry);
+    return { page, caching, entry };
+  }
+  return { page, caching, entry: null };
+}
