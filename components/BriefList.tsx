@@ -20,7 +20,7 @@ export function BriefList({ briefs, testId = "released-briefs" }: { briefs: Rele
             <a href={intl.href(briefUrl(brief.slug))} className="text-ink decoration-rule hover:decoration-accent">{brief.title}</a>
           </h3>
           <p className="mt-1 font-sans text-sm text-muted">
-            {t("home.version", { version: brief.version, date: date.format(new Date(brief.releasedAt)) })}
+            {t("home.version", { version: brief.version, date: date.format(new Date(brief.releaseAt)) })}
             {brief.demo ? <span className="ms-3 border border-accent px-2 py-0.5 text-accent">{t("home.demo")}</span> : null}
             {brief.withdrawn ? <span className="ms-3 border border-ink px-2 py-0.5 text-ink">{t("home.withdrawn")}</span> : null}
           </p>

@@ -11,7 +11,8 @@ export interface ReleasedBrief {
   demo: boolean;
   withdrawn: boolean;
   version: number;
-  releasedAt: string;
+  /** When that version was released: the same name as the version's own release time everywhere. */
+  releaseAt: string;
 }
 
 /** Results per page of the search page: its cost stays the same however large the catalogue. */

@@ -216,7 +216,7 @@ export async function listReleasedBriefs(db: Database, locale: Locale = defaultL
         demo: brief.demo,
         withdrawn: row.withdrawnAt !== null,
         version: row.version,
-        releasedAt: row.releaseAt.toISOString(),
+        releaseAt: row.releaseAt.toISOString(),
       };
     });
 }

@@ -100,7 +100,7 @@ const released = z.object({
   demo: z.boolean().describe("fictional demonstration data"),
   withdrawn: z.boolean(),
   version: z.number().int().positive().describe("the newest released version"),
-  releasedAt: isoTime,
+  releaseAt: isoTime,
   page: z.string().describe("the version's page on this site"),
   snapshot: z.string().describe("the version's frozen snapshot: GET /api/briefs/{slug}/versions/{number}"),
 });
