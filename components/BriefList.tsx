@@ -1,8 +1,8 @@
 // A list of released briefs: topic, title linked to the latest version, version and date, and
 // whether it is fictional demonstration data or withdrawn.
 import { useTranslation } from "react-i18next";
-import type { ReleasedBrief } from "#core/search";
-import { briefUrl, topicUrl } from "#core/urls";
+import type { ReleasedBrief } from "#core/publication/search";
+import { briefUrl, topicUrl } from "#core/publication/urls";
 import { useIntl } from "./i18n";
 
 export function BriefList({ briefs, testId = "released-briefs" }: { briefs: ReleasedBrief[]; testId?: string }) {

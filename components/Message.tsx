@@ -3,10 +3,10 @@
 // where it belongs (Unicode bidirectional algorithm, UAX #9).
 import { Fragment } from "react";
 import { useTranslation } from "react-i18next";
-import { messageParts, type MessageValues as Values } from "#core/message";
+import { messageParts, type MessageValues as Values } from "#core/languages/message";
 import { useLocale } from "./i18n";
 
-export { messageText } from "#core/message";
+export { messageText } from "#core/languages/message";
 
 export function Message({ message }: { message: { key: string; values: Values } }) {
   const { t } = useTranslation();

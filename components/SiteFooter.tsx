@@ -1,6 +1,6 @@
 import { useTranslation } from "react-i18next";
 import { HealthCaution } from "./HealthCaution";
-import { dataUrl, feedUrl, searchUrl } from "#core/urls";
+import { dataUrl, feedUrl, searchUrl } from "#core/publication/urls";
 import { useIntl } from "./i18n";
 
 export function SiteFooter() {

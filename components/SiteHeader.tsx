@@ -1,7 +1,7 @@
 import { useTranslation } from "react-i18next";
 import { usePageContext } from "vike-react/usePageContext";
-import { languageNames, locales } from "#core/locales";
-import { homeUrl, isDeskPath, languageChoiceUrl } from "#core/urls";
+import { languageNames, locales } from "#core/languages/locales";
+import { homeUrl, isDeskPath, languageChoiceUrl } from "#core/publication/urls";
 import { useIntl } from "./i18n";
 
 export function SiteHeader() {

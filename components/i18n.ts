@@ -5,11 +5,11 @@
 import i18next, { type i18n, type Resource } from "i18next";
 import { initReactI18next, useTranslation } from "react-i18next";
 import type { PageContext } from "vike/types";
-import { isDeskPath } from "#core/urls";
-import { formatNumber } from "#core/effects";
-import { defaultLocale, intlLocale, localeOf, localePath, locales, type Locale } from "#core/locales";
+import { isDeskPath } from "#core/publication/urls";
+import { formatNumber } from "#core/publication/effects";
+import { defaultLocale, intlLocale, localeOf, localePath, locales, type Locale } from "#core/languages/locales";
 
-export { defaultLocale, locales, textDirection, type Locale } from "#core/locales";
+export { defaultLocale, locales, textDirection, type Locale } from "#core/languages/locales";
 
 export type Namespace = "public" | "desk";
 type Strings = Record<string, unknown>;
@@ -85,7 +85,7 @@ export function useIntl() {
   const intl = intlLocale(locale);
   return {
     locale,
-    /** An unprefixed address (from server/core/urls.ts) in the page's locale. */
+    /** An unprefixed address (from server/core/publication/urls.ts) in the page's locale. */
     href: (path: string) => localePath(locale, path),
     date: (options: Intl.DateTimeFormatOptions) => new Intl.DateTimeFormat(intl, options),
     /** A fixed count of decimals: "0.73" in en, "0,73" in es and fr. */

@@ -1,7 +1,7 @@
 // On every public page: the same page in each language (hreflang, with English as x-default), so
 // that search engines and readers find the one in theirs.
 import { usePageContext } from "vike-react/usePageContext";
-import { alternates } from "#core/urls";
+import { alternates } from "#core/publication/urls";
 
 export default function Head() {
   const pageContext = usePageContext();

@@ -2,7 +2,7 @@
 // pages/ folder serves every language (docs/decisions/0023-locale-addresses.md).
 import type { PageContext } from "vike/types";
 import { modifyUrl } from "vike/modifyUrl";
-import { splitLocale } from "#core/locales";
+import { splitLocale } from "#core/languages/locales";
 
 export default function onBeforeRoute(pageContext: PageContext) {
   const { locale, path } = splitLocale(pageContext.urlParsed.pathname);

@@ -1,4 +1,4 @@
-import type { Locale } from "#core/locales";
+import type { Locale } from "#core/languages/locales";
 import type { Database } from "#db/client";
 import type { Person } from "#db/people";
 import type { CatalogueView } from "#web/pages/catalogue";

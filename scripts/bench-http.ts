@@ -16,7 +16,7 @@ import { request } from "node:http";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import autocannon from "autocannon";
-import { slugify } from "#core/slug";
+import { slugify } from "#core/publication/slug";
 import { demoBriefs } from "#workflows/demo-briefs";
 import { demoPassword } from "#workflows/seed";
 import { ensureCluster, freePort, type Cluster } from "./lib/postgres";

@@ -8,7 +8,7 @@ import { tmpdir } from "node:os";
 import path from "node:path";
 import autocannon from "autocannon";
 import pg from "pg";
-import { slugify } from "#core/slug";
+import { slugify } from "#core/publication/slug";
 import { demoBriefs } from "#workflows/demo-briefs";
 import { ensureCluster, freePort, type Cluster } from "./lib/postgres";
 import { residentMiB, startProductionServer, type RunningServer } from "./lib/production-server";

@@ -2,7 +2,7 @@
 // the API and works with JavaScript turned off.
 import { useTranslation } from "react-i18next";
 import { usePageContext } from "vike-react/usePageContext";
-import { passwordResetUrl } from "#core/urls";
+import { passwordResetUrl } from "#core/publication/urls";
 
 const knownErrors = new Set(["password", "link", "too-many", "expired"]);
 

@@ -8,7 +8,7 @@ import { SubscribeForm } from "../SubscribeForm";
 import { VersionBanners } from "./Notices";
 import { OutcomeSection } from "./OutcomeSection";
 import { VersionHistory } from "./VersionHistory";
-import { downloadUrl, topicUrl } from "#core/urls";
+import { downloadUrl, topicUrl } from "#core/publication/urls";
 import { useIntl } from "../i18n";
 
 export function BriefPage({ data }: { data: BriefPageData }) {

@@ -2,7 +2,7 @@
 // the direct certainty and its steps, the indirect certainty and its loop, which one the network
 // estimate started from, then its own steps down to the published rating.
 import { useTranslation } from "react-i18next";
-import type { ComparisonOutcomeView } from "#core/brief-page";
+import type { ComparisonOutcomeView } from "#core/publication/brief-page";
 import { useIntl } from "../i18n";
 
 type Path = NonNullable<ComparisonOutcomeView["path"]>;

@@ -1,7 +1,7 @@
 // "Cite this": the formatted reference with its access date, the permalink, and the files for
 // reference managers. The reference itself is formatted on the server by the citation library.
 import { useTranslation } from "react-i18next";
-import { citationUrl, type ComparisonAddress, type VersionAddress } from "#core/urls";
+import { citationUrl, type ComparisonAddress, type VersionAddress } from "#core/publication/urls";
 import { useIntl } from "../i18n";
 
 export function CiteBlock({ heading, reference, accessed, permalink, citing }: { heading: string; reference: string; accessed: string; permalink: string; citing: VersionAddress | ComparisonAddress }) {

@@ -2,7 +2,7 @@
 // the relative and absolute effect with 95% CI, the certainty in words with its footnoted reasons,
 // and the direct, indirect and network evidence side by side.
 import { useTranslation } from "react-i18next";
-import type { ComparisonOutcomeView } from "#core/brief-page";
+import type { ComparisonOutcomeView } from "#core/publication/brief-page";
 import type { ComparisonPageData } from "#web/pages/page-data";
 import { HealthCaution } from "../HealthCaution";
 import { CertaintyMark } from "./CertaintyMark";
@@ -10,9 +10,9 @@ import { CertaintyPath } from "./CertaintyPath";
 import { CiteBlock } from "./CiteBlock";
 import { EmbedCode } from "./EmbedCode";
 import { ImportantStudies } from "./ImportantStudies";
-import { formatInterval } from "#core/effects";
+import { formatInterval } from "#core/publication/effects";
 import { VersionBanners } from "./Notices";
-import { comparisonUrl, versionUrl } from "#core/urls";
+import { comparisonUrl, versionUrl } from "#core/publication/urls";
 import { Message } from "../Message";
 import { useIntl } from "../i18n";
 

@@ -2,7 +2,7 @@
 // one-line listener that sets its height from the card's postMessage, ready to copy.
 import { useState } from "react";
 import { useTranslation } from "react-i18next";
-import { embedHeightMessage, embedUrl, type ComparisonAddress } from "#core/urls";
+import { embedHeightMessage, embedUrl, type ComparisonAddress } from "#core/publication/urls";
 import { useIntl } from "../i18n";
 
 export function EmbedCode({ at, permalink, title, outcomes }: { at: ComparisonAddress; permalink: string; title: string; outcomes: number }) {

@@ -1,7 +1,7 @@
 // The groups of an outcome (METHODS.md §9): what the evidence supports, with certainty in words.
 // Never a ranking: treatments within a group are listed alphabetically.
 import { useTranslation } from "react-i18next";
-import type { OutcomeView } from "#core/brief-page";
+import type { OutcomeView } from "#core/publication/brief-page";
 import { Message } from "../Message";
 
 export function GroupList({ outcome }: { outcome: OutcomeView }) {

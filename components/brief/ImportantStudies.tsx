@@ -2,7 +2,7 @@
 // words first with its number beside, and its risk of bias in words. Importances are the loss of
 // precision without the study (Rücker et al. 2020), not shares: the page says so.
 import { useTranslation } from "react-i18next";
-import type { ComparisonOutcomeView } from "#core/brief-page";
+import type { ComparisonOutcomeView } from "#core/publication/brief-page";
 import { riskOfBiasShareKey } from "#core/nma/risk-of-bias";
 import { useIntl } from "../i18n";
 

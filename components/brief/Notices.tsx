@@ -1,8 +1,8 @@
 // The notices above a version's content: fictional data, the language of its texts, withdrawal,
 // embargo, a newer version.
 import { useTranslation } from "react-i18next";
-import type { BriefHeader, PageState } from "#core/brief-page";
-import { briefUrl } from "#core/urls";
+import type { BriefHeader, PageState } from "#core/publication/brief-page";
+import { briefUrl } from "#core/publication/urls";
 import { useIntl } from "../i18n";
 
 /** Everything shown above a version's content, for its brief page and its comparison pages. */

@@ -2,17 +2,17 @@
 // the reference as a forest plot with its table, the network of trials, the league table on demand,
 // the rank-score explainer, and the methods of this outcome.
 import { useTranslation } from "react-i18next";
-import type { OutcomeView } from "#core/brief-page";
+import type { OutcomeView } from "#core/publication/brief-page";
 import { ForestPlot } from "../charts/ForestPlot";
 import { LeagueTable } from "../charts/LeagueTable";
 import { NetworkDiagram } from "../charts/NetworkDiagram";
 import { CertaintyMark } from "./CertaintyMark";
-import { formatInterval } from "#core/effects";
+import { formatInterval } from "#core/publication/effects";
 import { GroupList } from "./GroupList";
 import { RankScores } from "./RankScores";
 import { RiskOfBiasEvidence } from "./RiskOfBiasEvidence";
-import { flipInterval, pairFinder } from "#core/pairs";
-import { comparisonUrl, type VersionAddress } from "#core/urls";
+import { flipInterval, pairFinder } from "#core/publication/pairs";
+import { comparisonUrl, type VersionAddress } from "#core/publication/urls";
 import { Message } from "../Message";
 import { useIntl } from "../i18n";
 

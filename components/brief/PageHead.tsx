@@ -1,9 +1,9 @@
 // The head of a version's pages: canonical permalink, citation meta tags for reference managers,
 // Open Graph and Twitter cards, and schema.org JSON-LD. Title and description come from +title and
 // +description (vike-react also writes them as og:title and og:description).
-import { feedUrl, oembedUrl } from "#core/urls";
+import { feedUrl, oembedUrl } from "#core/publication/urls";
 import { usePageContext } from "vike-react/usePageContext";
-import { localePath } from "#core/locales";
+import { localePath } from "#core/languages/locales";
 export interface HeadFacts {
   title: string;
   siteUrl: string;

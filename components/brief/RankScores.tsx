@@ -1,7 +1,7 @@
 // Rank scores, collapsed by default and only beside the three reasons they are not proof
 // (PRODUCT.md). A <details> element, so it opens without JavaScript. Listed alphabetically.
 import { useTranslation } from "react-i18next";
-import type { OutcomeView } from "#core/brief-page";
+import type { OutcomeView } from "#core/publication/brief-page";
 import { rankCautionKeys } from "#core/grade/rank-explainer";
 import { useIntl } from "../i18n";
 

@@ -2,7 +2,7 @@
 // in words and numbers, and a bar whose parts differ by pattern and label as well as shade, so that
 // colour is never the only cue.
 import { useTranslation } from "react-i18next";
-import type { OutcomeView } from "#core/brief-page";
+import type { OutcomeView } from "#core/publication/brief-page";
 import { useIntl } from "../i18n";
 
 const levels = ["low", "someConcerns", "high", "notAssessed"] as const;

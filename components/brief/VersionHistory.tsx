@@ -1,7 +1,7 @@
 // Every version of a brief with its release date and correction note; the one shown is marked.
 import { useTranslation } from "react-i18next";
-import type { VersionEntry } from "#core/brief-page";
-import { versionUrl } from "#core/urls";
+import type { VersionEntry } from "#core/publication/brief-page";
+import { versionUrl } from "#core/publication/urls";
 import { useIntl } from "../i18n";
 
 export function VersionHistory({ slug, history, current }: { slug: string; history: VersionEntry[]; current: number }) {

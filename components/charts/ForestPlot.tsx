@@ -4,7 +4,7 @@ import { Group } from "@visx/group";
 import { scaleLinear } from "@visx/scale";
 import { Line } from "@visx/shape";
 import { useTranslation } from "react-i18next";
-import { formatInterval, formatTick, isRatio } from "#core/effects";
+import { formatInterval, formatTick, isRatio } from "#core/publication/effects";
 import type { Measure } from "#core/nma/types";
 import { axisTicks } from "./scale";
 import { textDirection, useIntl } from "../i18n";

@@ -1,6 +1,6 @@
 // The league table: every treatment against every other, row vs column, with its 95% CI.
 import { useTranslation } from "react-i18next";
-import { formatInterval } from "#core/effects";
+import { formatInterval } from "#core/publication/effects";
 import type { Measure } from "#core/nma/types";
 import { useIntl } from "../i18n";
 

@@ -1,5 +1,5 @@
 // The axis of a chart of effects: ratios (OR, RR) tick at round ratios on a log axis.
-import { isRatio } from "#core/effects";
+import { isRatio } from "#core/publication/effects";
 import type { Measure } from "#core/nma/types";
 
 /** Round ratios read better than e^k on a log axis: 0.5, 1, 2, 4 rather than 1.65 or 2.72. */

@@ -4,7 +4,7 @@ import { useTranslation } from "react-i18next";
 import { may, type SignedInPerson } from "./api";
 import { Field, formValues, inputClass, SubmitRow } from "./forms";
 import { useTopics, useUpdateAccount } from "./queries";
-import { languageNames, localeOf, locales } from "#core/locales";
+import { languageNames, localeOf, locales } from "#core/languages/locales";
 
 export function AccountScreen({ person }: { person: SignedInPerson }) {
   const { t } = useTranslation();

@@ -5,7 +5,7 @@ import { Link, useParams } from "react-router";
 import type { ComparisonCertainty, ComparisonJudgement } from "#core/grade/assess";
 import { ratings, type Downgrade, type Rating, type Suggestion } from "#core/grade/certainty";
 import type { RiskOfBiasShares } from "#core/nma/risk-of-bias";
-import { formatInterval } from "#core/effects";
+import { formatInterval } from "#core/publication/effects";
 import { comparisonOf } from "#core/nma/comparison";
 import { buttonClass, inputClass } from "./forms";
 import { useCertainty, useResult, useSaveJudgement, useSaveJudgements } from "./queries";

@@ -15,7 +15,7 @@ import { useSignedInPerson, useSignOut } from "./queries";
 import { TranslationEditor, TranslationQueue } from "./TranslationsScreen";
 import { loadTranslations } from "../i18n";
 import { may, setErrorWords } from "./api";
-import { localeOf, textDirection } from "#core/locales";
+import { localeOf, textDirection } from "#core/languages/locales";
 
 export function DeskApp() {
   const [queryClient] = useState(() => new QueryClient({ defaultOptions: { queries: { retry: 1 } } }));

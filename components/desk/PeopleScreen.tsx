@@ -2,8 +2,8 @@
 // deactivation, and the delivery state of the e-mails sent.
 import type { FormEvent } from "react";
 import { useTranslation } from "react-i18next";
-import { roleNames, type Role } from "#core/roles";
-import { translationLocales } from "#core/locales";
+import { roleNames, type Role } from "#core/access/roles";
+import { translationLocales } from "#core/languages/locales";
 import { Field, inputClass, SubmitRow } from "./forms";
 import { useChangePerson, useInvite, useMessages, usePeople, useResendInvitation } from "./queries";
 

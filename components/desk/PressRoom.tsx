@@ -3,7 +3,7 @@
 import { useTranslation } from "react-i18next";
 import { useAskEditors, usePressRoom } from "./queries";
 import { Field, formValues, inputClass, SubmitRow } from "./forms";
-import { versionUrl } from "#core/urls";
+import { versionUrl } from "#core/publication/urls";
 import { useIntl } from "../i18n";
 
 /** The press room's contact form: a question to the editors, who answer by e-mail. */

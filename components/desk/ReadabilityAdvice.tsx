@@ -1,9 +1,9 @@
-// The plain-language check beside a text the public will read (server/core/readability.ts): a
+// The plain-language check beside a text the public will read (server/core/editorial/readability.ts): a
 // reading-ease figure with its formula and source named, the longest sentences, and the terms lay
 // readers trip on with a plainer phrasing. Advice only: it never stops anyone from saving.
 import { useTranslation } from "react-i18next";
-import type { Locale } from "#core/locales";
-import { longSentenceWords, readability } from "#core/readability";
+import type { Locale } from "#core/languages/locales";
+import { longSentenceWords, readability } from "#core/editorial/readability";
 
 export function ReadabilityAdvice({ text, locale }: { text: string; locale: Locale }) {
   const { t } = useTranslation();

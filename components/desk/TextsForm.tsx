@@ -78,7 +78,7 @@ export function TextsForm({
       </form>
       {preview ? (
         <div className="mt-6 border border-rule bg-white p-5" data-testid="texts-preview">
-          {/* The HTML comes from the server's Markdown renderer, which sanitises it (server/core/markdown.ts). */}
+          {/* The HTML comes from the server's Markdown renderer, which sanitises it (server/core/editorial/markdown.ts). */}
           <div className="space-y-3 text-lg leading-relaxed" dangerouslySetInnerHTML={{ __html: preview.laySummary }} />
           <div className="mt-4 space-y-2" dangerouslySetInnerHTML={{ __html: preview.shortTake }} />
         </div>

@@ -1,11 +1,11 @@
 // The translation desk: the queue of versions per language, and one version's texts in one language
 // beside their source, with a preview of the Markdown and, where a source changed since it was
 // translated, what changed. Translators save and mark ready; editors also publish.
-import { grammarChoices } from "#core/grammar";
+import { grammarChoices } from "#core/languages/grammar";
 import { useState } from "react";
 import { useTranslation as useWords } from "react-i18next";
 import { Link, useParams } from "react-router";
-import { languageNames, textDirection, type Locale } from "#core/locales";
+import { languageNames, textDirection, type Locale } from "#core/languages/locales";
 import type { Translation } from "#web/api/contract";
 import { ReadabilityAdvice } from "./ReadabilityAdvice";
 import { buttonClass, inputClass } from "./forms";

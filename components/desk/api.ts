@@ -2,8 +2,8 @@
 // built from the parameters the table names, same-origin cookies, JSON, and the CSRF token on every
 // request that changes state (see docs/api.md). The answer is typed from the contract.
 import type { z } from "zod";
-import { admits } from "#core/access";
-import type { Role } from "#core/roles";
+import { admits } from "#core/access/access";
+import type { Role } from "#core/access/roles";
 import type { RouteAnswers } from "#web/api/contract";
 import { apiRoutes, type ApiRoute } from "#web/api/routes";
 export type { SignedInPerson } from "#web/api/contract";

@@ -1,7 +1,7 @@
 // TanStack Query hooks: the only place the desk's screens get their data from.
 import { useInfiniteQuery, useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import type { Format } from "#core/nma/types";
-import type { TranslationLocale } from "#core/locales";
+import type { TranslationLocale } from "#core/languages/locales";
 import type {
   AuditQuery,
   AccountBody,

@@ -2,7 +2,7 @@
 // names (PostgreSQL full-text search, server/db/versions.ts) in the reader's language and the
 // original, a page of results at a time.
 import type { PageContextServer } from "vike/types";
-import { briefsOfTopic, pageOf } from "#core/search";
+import { briefsOfTopic, pageOf } from "#core/publication/search";
 import { searchReleasedSlugs } from "#db/versions";
 
 export async function data(pageContext: PageContextServer) {

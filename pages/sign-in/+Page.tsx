@@ -1,6 +1,6 @@
 import { useTranslation } from "react-i18next";
 import { usePageContext } from "vike-react/usePageContext";
-import { passwordResetUrl } from "#core/urls";
+import { passwordResetUrl } from "#core/publication/urls";
 
 const knownErrors = new Set(["invalid", "missing", "too-many", "expired"]);
 

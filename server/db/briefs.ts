@@ -3,7 +3,7 @@ import { and, asc, desc, eq, inArray, like } from "drizzle-orm";
 import { recordAudit } from "./audit";
 import { transactionLock, type Database, type Executor } from "./client";
 import { briefs, briefVersions, outcomes, treatmentNames } from "./schema";
-import { slugify } from "#core/slug";
+import { slugify } from "#core/publication/slug";
 import { analysisStatus, latestTreatments } from "./analyses";
 
 export type BriefRow = typeof briefs.$inferSelect;
@@ -84,7 +84,7 @@ export async function briefWithOutcomes(db: Database, id: string) {
   return { ...brief, outcomes: withStatus, treatments, latestVersion: latest?.number ?? 0, embargoedUntil };
 }
 
-/** How a sentence names a treatment and its number (server/core/grammar.ts); left out, they stay as they were. */
+/** How a sentence names a treatment and its number (server/core/languages/grammar.ts); left out, they stay as they were. */
 export type TreatmentGrammarInput = Record<string, { phrase?: string | null; number?: "singular" | "plural" }>;
 
 /** Sets the names readers see for treatment labels of the data; an empty name falls back to the label. */

@@ -2,7 +2,7 @@
 import { desc, eq, sql } from "drizzle-orm";
 import type { Database } from "./client";
 import { messages } from "./schema";
-import type { Message } from "#core/mail";
+import type { Message } from "#core/languages/mail";
 
 type Executor = Pick<Database, "insert" | "update" | "select">;
 

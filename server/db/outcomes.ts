@@ -1,6 +1,6 @@
 // Outcomes of a brief: what was measured, how it is analysed and what counts as a small, moderate or large effect.
 import { and, eq, sql } from "drizzle-orm";
-import type { OutcomeInput } from "#core/outcome";
+import type { OutcomeInput } from "#core/editorial/outcome";
 import { recordAudit } from "./audit";
 import type { Database, Executor } from "./client";
 import { analysisResults, certaintyJudgements, datasets, outcomes, pendingUploads } from "./schema";

@@ -3,8 +3,8 @@ import { and, eq, inArray, isNotNull, isNull, sql } from "drizzle-orm";
 import { transactionLock, type Database, type Executor as Transaction } from "./client";
 import { people, personRoles, sessions } from "./schema";
 import { recordAudit } from "./audit";
-import { hashPassword } from "#core/passwords";
-import type { Role } from "#core/roles";
+import { hashPassword } from "#core/access/passwords";
+import type { Role } from "#core/access/roles";
 
 type Executor = Pick<Database, "select" | "insert" | "update" | "delete" | "query">;
 

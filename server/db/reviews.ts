@@ -1,6 +1,6 @@
 // The review steps of briefs: reading and writing brief_reviews.
 import { and, desc, eq, gt } from "drizzle-orm";
-import type { ReviewDecision } from "#core/status";
+import type { ReviewDecision } from "#core/editorial/status";
 import type { Executor } from "./client";
 import { briefReviews, briefVersions, people } from "./schema";
 

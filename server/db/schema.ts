@@ -5,7 +5,7 @@ import type { ComparisonJudgement } from "#core/grade/assess";
 import type { AnalysisResult } from "#core/nma/analyse";
 import type { AnalysisOptions, DatasetIssue, ParsedDataset } from "#core/nma/types";
 import type { VersionSnapshot } from "#core/snapshot/schema";
-import type { PublishedFields, StoredFields } from "#core/translation";
+import type { PublishedFields, StoredFields } from "#core/languages/translation";
 import {
   bigserial,
   check,
@@ -25,8 +25,8 @@ import {
   uuid,
   varchar,
 } from "drizzle-orm/pg-core";
-import { roleNames } from "#core/roles";
-import { briefStatuses, reviewDecisions } from "#core/status";
+import { roleNames } from "#core/access/roles";
+import { briefStatuses, reviewDecisions } from "#core/editorial/status";
 
 export const role = pgEnum("role", roleNames);
 
@@ -182,7 +182,7 @@ export const treatmentNames = pgTable(
       .references(() => briefs.id),
     label: text("label").notNull(),
     displayName: text("display_name").notNull(),
-    /** How an English sentence names it ("usual care"); null: the display name, in lower case where it starts as a word (server/core/grammar.ts). */
+    /** How an English sentence names it ("usual care"); null: the display name, in lower case where it starts as a word (server/core/languages/grammar.ts). */
     phrase: text("phrase"),
     /** Grammatical number, for the verb of a statement ("sessions … increase"). */
     number: text("number", { enum: ["singular", "plural"] }).notNull().default("singular"),

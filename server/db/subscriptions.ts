@@ -2,7 +2,7 @@
 import { and, eq, gt, isNotNull, isNull, sql } from "drizzle-orm";
 import type { Database, Executor } from "./client";
 import { subscriptions } from "./schema";
-import { hashToken, newToken } from "#core/tokens";
+import { hashToken, newToken } from "#core/access/tokens";
 
 /** How long a confirmation link works (common practice). */
 const confirmLifetimeMs = 7 * 24 * 3600 * 1000;

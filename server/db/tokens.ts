@@ -1,8 +1,8 @@
-// One-time account links (invitations, password resets), stored as hashes (server/core/tokens.ts).
+// One-time account links (invitations, password resets), stored as hashes (server/core/access/tokens.ts).
 import { and, eq, gt, isNull, sql } from "drizzle-orm";
 import type { Database } from "./client";
 import { accountTokens } from "./schema";
-import { hashToken, newToken, tokenLifetimeMs, type TokenPurpose } from "#core/tokens";
+import { hashToken, newToken, tokenLifetimeMs, type TokenPurpose } from "#core/access/tokens";
 
 type Executor = Pick<Database, "insert" | "update">;
 

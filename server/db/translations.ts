@@ -1,8 +1,8 @@
 // Translations of released versions, one row per version and language (schema: versionTranslations).
 import { and, desc, eq, inArray, isNull, lt, sql } from "drizzle-orm";
-import { isTranslationLocale, type Locale, type TranslationLocale } from "#core/locales";
-import { grammaticalSnapshot } from "#core/grammar";
-import { translatedSnapshot, translatedTopic, versionGrammar, type PublishedFields, type StoredFields } from "#core/translation";
+import { isTranslationLocale, type Locale, type TranslationLocale } from "#core/languages/locales";
+import { grammaticalSnapshot } from "#core/languages/grammar";
+import { translatedSnapshot, translatedTopic, versionGrammar, type PublishedFields, type StoredFields } from "#core/languages/translation";
 import type { VersionSnapshot } from "#core/snapshot/schema";
 import { readSnapshot } from "#core/snapshot/upgrade";
 import type { Database, Executor } from "./client";
@@ -105,7 +105,7 @@ export async function publishedTranslation(db: Database, versionId: string, loca
  * The generated words (statements, groups, cautions) come from locales/, not from here.
  */
 export async function inLanguage(db: Database, versionId: string, original: VersionSnapshot, locale: Locale) {
-  // Statements and group labels name treatments as a sentence of the language does (server/core/grammar.ts).
+  // Statements and group labels name treatments as a sentence of the language does (server/core/languages/grammar.ts).
   const source = grammaticalSnapshot(original, locale, versionGrammar(original, locale, null));
   if (!isTranslationLocale(locale)) return { snapshot: source, topic: original.brief.topic, translation: null };
   const published = await publishedTranslation(db, versionId, locale);

@@ -1,13 +1,13 @@
 // Versions of briefs: a version is a frozen snapshot of a brief — data, results, certainty, groups —
 // written once and never changed (the database refuses it too). Reading them for their readers.
 import { and, desc, eq, gte, inArray, isNull, lte, sql } from "drizzle-orm";
-import { mayReadEmbargoed, type Role } from "#core/roles";
-import { defaultLocale, type Locale } from "#core/locales";
+import { mayReadEmbargoed, type Role } from "#core/access/roles";
+import { defaultLocale, type Locale } from "#core/languages/locales";
 import type { Database, Executor } from "./client";
 import { briefs, briefVersions, releaseAnnouncements, versionTranslations } from "./schema";
-import { slugify } from "#core/slug";
-import type { VersionEntry } from "#core/brief-page";
-import type { ReleasedBrief } from "#core/search";
+import { slugify } from "#core/publication/slug";
+import type { VersionEntry } from "#core/publication/brief-page";
+import type { ReleasedBrief } from "#core/publication/search";
 import type { VersionSnapshot } from "#core/snapshot/schema";
 import { readSnapshot } from "#core/snapshot/upgrade";
 

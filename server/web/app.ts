@@ -13,7 +13,7 @@ import type pg from "pg";
 import type { Queue } from "#workflows/queue";
 import { apiRoutes } from "./api";
 import { createPassport } from "./auth/passport";
-import { addressable } from "#core/urls";
+import { addressable } from "#core/publication/urls";
 import type { Database } from "#db/client";
 import { listenForVersionChanges } from "#db/notices";
 import { PostgresRateLimitStore } from "#db/rate-limits";

@@ -1,10 +1,10 @@
 // People's accounts: invitations, password resets through one-time links, changes by administrators
 // and by the person. Each change, its e-mail and the job that delivers it are stored in one
 // transaction (server/workflows/mail.ts).
-import { hashPassword, verifyPassword } from "#core/passwords";
-import { invitationMessage, passwordResetMessage } from "#core/mail";
-import type { Role } from "#core/roles";
-import { invitationUrl, passwordResetUrl } from "#core/urls";
+import { hashPassword, verifyPassword } from "#core/access/passwords";
+import { invitationMessage, passwordResetMessage } from "#core/languages/mail";
+import type { Role } from "#core/access/roles";
+import { invitationUrl, passwordResetUrl } from "#core/publication/urls";
 import { activeAdminCount, lockAdministrators, endSessions, findActiveByEmail, findPersonRecord, insertPerson, passwordHashOf, setPasswordHash, updatePerson, type Person } from "#db/people";
 import { consumeToken, issueToken } from "#db/tokens";
 import type { Executor } from "#db/client";

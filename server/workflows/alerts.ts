@@ -4,9 +4,9 @@
 // publishing transaction (decision 0036): the messages with their delivery jobs, and for a scheduled
 // version the job that waits for its release time (a moved release time adds another). Each release
 // is announced once (`release_announcements`), in the same transaction as its messages.
-import { pressAlertMessage, releaseAlertMessage, translationRequestMessage } from "#core/mail";
-import { slugify } from "#core/slug";
-import { versionUrl } from "#core/urls";
+import { pressAlertMessage, releaseAlertMessage, translationRequestMessage } from "#core/languages/mail";
+import { slugify } from "#core/publication/slug";
+import { versionUrl } from "#core/publication/urls";
 import type { Executor } from "#db/client";
 import { activePeopleWithRole, type Person } from "#db/people";
 import { claimAnnouncement, versionForAnnouncement } from "#db/versions";

@@ -1,7 +1,7 @@
 // The demonstration briefs in Spanish, French and Arabic: our own translations of the invented
 // English texts in ./demo-briefs.ts, labelled fictional in each language like the originals. Field
-// names are those of server/core/translation.ts; a treatment is named by its label in the data.
-import type { TranslationLocale } from "#core/locales";
+// names are those of server/core/languages/translation.ts; a treatment is named by its label in the data.
+import type { TranslationLocale } from "#core/languages/locales";
 
 type Texts = Record<string, string>;
 
@@ -110,7 +110,7 @@ Les groupes ci-dessous disent quelles options les données probantes soutiennent
   },
 };
 
-/** How a sentence of the language names each treatment, and its gender and number (server/core/grammar.ts). */
+/** How a sentence of the language names each treatment, and its gender and number (server/core/languages/grammar.ts). */
 function grammar(byLabel: Record<string, [phrase: string, genderAndNumber: string]>): Texts {
   return Object.fromEntries(Object.entries(byLabel).flatMap(([label, [phrase, choice]]) => [[`treatmentPhrase:${label}`, phrase], [`treatmentGrammar:${label}`, choice]]));
 }

@@ -3,7 +3,7 @@
 // over SMTP with nodemailer, retrying with back-off; every attempt is written to the message
 // (attempts, last error), and the last failed one marks it "failed".
 import nodemailer from "nodemailer";
-import type { Message } from "#core/mail";
+import type { Message } from "#core/languages/mail";
 import type { Database, Executor } from "#db/client";
 import { findMessage, insertMessage, markAttemptFailed, markSent, unqueuedMessageIds } from "#db/messages";
 import type { Queue } from "./queue";

@@ -1,7 +1,7 @@
-// Changing an outcome's settings: checked whole (server/core/outcome.ts), written only if nobody
+// Changing an outcome's settings: checked whole (server/core/editorial/outcome.ts), written only if nobody
 // changed the outcome since the writer read it, and the analysis of its current data re-run with the
 // new settings in the same transaction. When the data cannot be analysed that way, nothing changes.
-import { outcomeInput, type OutcomeInput } from "#core/outcome";
+import { outcomeInput, type OutcomeInput } from "#core/editorial/outcome";
 import type { z } from "zod";
 import { recordAudit } from "#db/audit";
 import type { Database } from "#db/client";

@@ -1,6 +1,6 @@
 // The press room's contact form: the question is stored, and each editor gets it by e-mail with the
 // reporter as Reply-To, in one transaction with the jobs that deliver them.
-import { pressEnquiryMessage } from "#core/mail";
+import { pressEnquiryMessage } from "#core/languages/mail";
 import { activePeopleWithRole, type Person } from "#db/people";
 import { insertEnquiry } from "#db/press";
 import { queueMail, type MailContext } from "./mail";

@@ -4,12 +4,12 @@
 // (decision 0036): a process that dies half-way leaves all of them or none. `alerts` null: publish
 // silently (the demo's seed).
 import type { VersionSnapshot } from "#core/snapshot/schema";
-import { versionUrl } from "#core/urls";
+import { versionUrl } from "#core/publication/urls";
 import { lockBrief, setBriefState } from "#db/briefs";
 import type { Database } from "#db/client";
 import { approvalOf } from "#db/reviews";
 import { insertVersion, lastVersionNumber, moveReleaseTime, releaseTimeOf } from "#db/versions";
-import type { ReadinessItem } from "#core/readiness";
+import type { ReadinessItem } from "#core/editorial/readiness";
 import { queueAlerts, type AlertContext } from "./alerts";
 import { briefReadiness } from "./readiness";
 import { contentChecksum, draftSnapshot } from "./snapshot";

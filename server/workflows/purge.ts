@@ -3,7 +3,7 @@
 // that a CDN in front drops every page and file of that brief at once (docs/operations.md). Each
 // process hears the change (server/db/notices.ts); the queue's singleton key makes one job of their
 // requests, and a refused purge is tried again like an e-mail.
-import { surrogateKeys } from "#core/urls";
+import { surrogateKeys } from "#core/publication/urls";
 import type { Queue } from "./queue";
 
 export const purgeJob = "cdn-purge";

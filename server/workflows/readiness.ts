@@ -1,6 +1,6 @@
-// The publish-readiness checklist of a draft (server/core/readiness.ts) from what is stored now.
+// The publish-readiness checklist of a draft (server/core/editorial/readiness.ts) from what is stored now.
 import { concludeOutcome } from "#core/grade/conclusions";
-import { readinessOf, type Readiness } from "#core/readiness";
+import { readinessOf, type Readiness } from "#core/editorial/readiness";
 import { latestResult } from "#db/analyses";
 import { briefWithOutcomes } from "#db/briefs";
 import type { Database } from "#db/client";

@@ -1,12 +1,12 @@
-// Review and withdrawal of a brief: the rules of server/core/review.ts applied to the stored draft,
+// Review and withdrawal of a brief: the rules of server/core/editorial/review.ts applied to the stored draft,
 // each step in one transaction with its audit row (docs/decisions/0009-review-and-withdrawal.md).
 import { lockBrief, setBriefState } from "#db/briefs";
 import type { Database } from "#db/client";
 import { approvalOf, insertReviewStep, latestReview, latestSubmitter, reviewSteps } from "#db/reviews";
 import { hasVersion } from "#db/versions";
-import { refuseReviewStep, statusAfterReview, type ReviewRefusal } from "#core/review";
-import type { ReviewDecision } from "#core/status";
-import type { ReadinessItem } from "#core/readiness";
+import { refuseReviewStep, statusAfterReview, type ReviewRefusal } from "#core/editorial/review";
+import type { ReviewDecision } from "#core/editorial/status";
+import type { ReadinessItem } from "#core/editorial/readiness";
 import { briefReadiness } from "./readiness";
 import { contentChecksum, draftSnapshot } from "./snapshot";
 
@@ -15,9 +15,9 @@ export type ReviewOutcome =
   | ({ ok: false } & (ReviewRefusal | { reason: "not-found" | "not-ready" | "warnings"; detail: string; items?: ReadinessItem[] }));
 
 /**
- * An approval vouches for a draft that is ready (server/core/readiness.ts): every blocking item is
+ * An approval vouches for a draft that is ready (server/core/editorial/readiness.ts): every blocking item is
  * refused with the list, and the approving editor acknowledges the warnings — those about the texts'
- * claims (server/core/claims.ts) with a reason, given as the review's comment.
+ * claims (server/core/editorial/claims.ts) with a reason, given as the review's comment.
  */
 export async function reviewBrief(db: Database, briefId: string, step: { decision: ReviewDecision; comment?: string; acknowledgeWarnings?: boolean }, actorId: string): Promise<ReviewOutcome> {
   const readiness = step.decision === "approved" ? await briefReadiness(db, briefId) : null;

@@ -1,7 +1,7 @@
 // Demo content for a local cluster. Only scripts/start.ts and the test set-up call this, and
 // only against the cluster they manage: a server given an outside DATABASE_URL never seeds.
 import { assessCertainty } from "#core/grade/assess";
-import type { Role } from "#core/roles";
+import type { Role } from "#core/access/roles";
 import { createBrief, findBriefByTitle, nameTreatments, updateBrief } from "#db/briefs";
 import type { Database } from "#db/client";
 import { saveJudgement } from "#db/judgements";
@@ -13,7 +13,7 @@ import { publishVersion } from "./publish";
 import { reviewBrief } from "./review";
 import { demoTranslations } from "./demo-translations";
 import { markTranslationReady, publishTranslationOf, saveTranslationDraft } from "./translations";
-import { translationLocales } from "#core/locales";
+import { translationLocales } from "#core/languages/locales";
 import { newestVersionId, readTranslation } from "#db/translations";
 
 export const demoPassword = "fairweigh-demo";

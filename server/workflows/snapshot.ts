@@ -3,7 +3,7 @@
 // against the declared contract (server/core/snapshot/schema.ts) before anyone approves or freezes it.
 import { createHash } from "node:crypto";
 import { concludeOutcome } from "#core/grade/conclusions";
-import { renderMarkdown } from "#core/markdown";
+import { renderMarkdown } from "#core/editorial/markdown";
 import { outcomeFacts } from "#core/snapshot/facts";
 import { draftSnapshotSchema, snapshotSchemaVersion, type DraftSnapshot } from "#core/snapshot/schema";
 import { analysisSettings, latestDataset, latestResult } from "#db/analyses";

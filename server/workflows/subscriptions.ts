@@ -1,10 +1,10 @@
 // Readers' topic alerts: a request queues a job (so the answer reveals nothing about who subscribed),
 // the job sends a confirmation link unless the address is already subscribed; releases in the topic
 // are announced to confirmed subscribers (server/workflows/alerts.ts calls `noticesFor`).
-import { localeOf, localePath } from "#core/locales";
-import { slugify } from "#core/slug";
-import { subscriptionConfirmMessage, topicNoticeMessage, type Message } from "#core/mail";
-import { confirmSubscriptionUrl, oneClickUnsubscribeUrl, versionUrl } from "#core/urls";
+import { localeOf, localePath } from "#core/languages/locales";
+import { slugify } from "#core/publication/slug";
+import { subscriptionConfirmMessage, topicNoticeMessage, type Message } from "#core/languages/mail";
+import { confirmSubscriptionUrl, oneClickUnsubscribeUrl, versionUrl } from "#core/publication/urls";
 import { requestSubscription, subscribersOf } from "#db/subscriptions";
 import { queueMail, type MailContext } from "./mail";
 import type { Queue } from "./queue";

@@ -1,9 +1,9 @@
 // The translation desk's work on a version in one language: read it beside its source, save the
 // working copy, mark it ready, publish it. Each change is audited in its own transaction; the
 // version's frozen snapshot is only ever read.
-import type { TranslationLocale } from "#core/locales";
-import { fieldViews, sourceFields, storedAfterSave, unfinished, type FieldView, type PublishedFields, type StoredFields } from "#core/translation";
-import { mayReadEmbargoed } from "#core/roles";
+import type { TranslationLocale } from "#core/languages/locales";
+import { fieldViews, sourceFields, storedAfterSave, unfinished, type FieldView, type PublishedFields, type StoredFields } from "#core/languages/translation";
+import { mayReadEmbargoed } from "#core/access/roles";
 import { recordAudit } from "#db/audit";
 import type { Database } from "#db/client";
 import type { Person } from "#db/people";

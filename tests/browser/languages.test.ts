@@ -2,7 +2,7 @@
 // screenshots in test-results/screenshots/ to look at), axe-core on the Arabic and Spanish pages, the
 // language switcher, and a translator's whole path from the queue to a published Spanish summary.
 import { describe, expect, it } from "vitest";
-import { slugify } from "#core/slug";
+import { slugify } from "#core/publication/slug";
 import { demoBriefs } from "#workflows/demo-briefs";
 import { keepScreenshot, seriousViolations, signedIn, withServerAndBrowser } from "../support/browser";
 import { publishedBrief } from "../support/briefs";

@@ -3,7 +3,7 @@
 // widths (written to test-results/screenshots/ to be looked at).
 import { describe, expect, it } from "vitest";
 import { en } from "../support/words";
-import { slugify } from "#core/slug";
+import { slugify } from "#core/publication/slug";
 import { demoBriefs } from "#workflows/demo-briefs";
 import { keepScreenshot, seriousViolations, withServerAndBrowser } from "../support/browser";
 

@@ -3,7 +3,7 @@
 import { createServer, type Server } from "node:http";
 import type { AddressInfo } from "node:net";
 import { afterAll, beforeAll, expect, it } from "vitest";
-import { slugify } from "#core/slug";
+import { slugify } from "#core/publication/slug";
 import { demoBriefs } from "#workflows/demo-briefs";
 import { keepScreenshot, signedIn, withServerAndBrowser } from "../support/browser";
 import { en } from "../support/words";

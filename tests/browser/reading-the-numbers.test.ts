@@ -3,7 +3,7 @@
 // number in Arabic reads with its minus sign before the digits. Sentences are written out by hand
 // from the fictional demo brief's frozen findings.
 import { describe, expect, it } from "vitest";
-import { slugify } from "#core/slug";
+import { slugify } from "#core/publication/slug";
 import { demoBriefs } from "#workflows/demo-briefs";
 import { keepScreenshot, withServerAndBrowser } from "../support/browser";
 

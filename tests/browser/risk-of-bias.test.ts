@@ -3,7 +3,7 @@
 // important studies and an outcome's evidence by risk of bias. Screenshots in test-results/screenshots/.
 import path from "node:path";
 import { expect, it } from "vitest";
-import { slugify } from "#core/slug";
+import { slugify } from "#core/publication/slug";
 import { demoBriefs } from "#workflows/demo-briefs";
 import { en } from "../support/words";
 import { keepScreenshot, seriousViolations, signedIn, withServerAndBrowser } from "../support/browser";

@@ -6,10 +6,10 @@
 import { request } from "node:http";
 import fc from "fast-check";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { admits, fileAccess, pageAccess, readers, type AccessRule } from "#core/access";
+import { admits, fileAccess, pageAccess, readers, type AccessRule } from "#core/access/access";
 import { apiRoutes } from "#web/api/routes";
 import { formats } from "#core/nma/types";
-import { slugify } from "#core/slug";
+import { slugify } from "#core/publication/slug";
 import { demoBriefs } from "#workflows/demo-briefs";
 import { analysedBrief } from "../support/briefs";
 import { ApiClient, demoClient } from "../support/client";

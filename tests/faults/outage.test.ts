@@ -7,7 +7,7 @@ import { tmpdir } from "node:os";
 import path from "node:path";
 import pg from "pg";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { slugify } from "#core/slug";
+import { slugify } from "#core/publication/slug";
 import { demoBriefs } from "#workflows/demo-briefs";
 import { backupDatabase, restoreDatabase } from "../../scripts/lib/backup";
 import { ensureCluster, freePort, type Cluster } from "../../scripts/lib/postgres";

@@ -2,7 +2,7 @@
 // the same path as real ones: upload, analysis, certainty, publication.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { demoBriefs } from "#workflows/demo-briefs";
-import { slugify } from "#core/slug";
+import { slugify } from "#core/publication/slug";
 import { snapshotSchemaVersion } from "#core/snapshot/schema";
 import { readSnapshot } from "#core/snapshot/upgrade";
 import { briefReadiness } from "#workflows/readiness";

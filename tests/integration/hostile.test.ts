@@ -7,7 +7,7 @@ import path from "node:path";
 import { describe, expect, it } from "vitest";
 import { demoBriefs } from "#workflows/demo-briefs";
 import { demoPassword } from "#workflows/seed";
-import { slugify } from "#core/slug";
+import { slugify } from "#core/publication/slug";
 import { analysedBrief, approve, publishedBrief, rateEveryComparison } from "../support/briefs";
 import { demoClient } from "../support/client";
 import { withProductionServer } from "../support/production-server";
@@ -226,7 +226,7 @@ describe("what the public files say", () => {
     const answer = await clients.analyst!.request("POST", "/api/briefs", { json: { title: "Two\r\nTY  - GEN\r\nlines", topic: "T", condition: "C", population: "P" } });
     expect(answer.status).toBe(400);
     expect(answer.body.error?.details).toContainEqual({ field: "title", message: "contains a control character or a line break" });
-    // Files still keep every field on one line (tests/unit/public/citations.test.ts).
+    // Files still keep every field on one line (tests/unit/web/public/citations.test.ts).
   });
 });
 

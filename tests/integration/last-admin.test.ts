@@ -7,7 +7,7 @@ import { connectDatabase, type DatabaseConnection } from "#db/client";
 import { migrateDatabase } from "#db/migrate";
 import { insertPerson, type Person } from "#db/people";
 import { changePerson, type AccountContext } from "#workflows/accounts";
-import { hashPassword } from "#core/passwords";
+import { hashPassword } from "#core/access/passwords";
 import { ownDatabase, startTestApp } from "../support/app";
 import { ApiClient } from "../support/client";
 

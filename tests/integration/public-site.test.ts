@@ -7,7 +7,7 @@ import "@citation-js/plugin-bibtex";
 import "@citation-js/plugin-ris";
 import { xml2js } from "xml-js";
 import { describe, expect, it } from "vitest";
-import { slugify } from "#core/slug";
+import { slugify } from "#core/publication/slug";
 import { demoBriefs } from "#workflows/demo-briefs";
 import { analysedBrief, approve, publishedBrief } from "../support/briefs";
 import { withProductionServer } from "../support/production-server";

@@ -1,7 +1,7 @@
 // Comparisons that travel: the card other sites frame, oEmbed 1.0 and the share images, against the
 // production build and the test cluster.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { slugify } from "#core/slug";
+import { slugify } from "#core/publication/slug";
 import { demoBriefs } from "#workflows/demo-briefs";
 import { publishedBrief } from "../support/briefs";
 import { type ApiClient, demoClient } from "../support/client";

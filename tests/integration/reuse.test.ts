@@ -2,7 +2,7 @@
 // OpenAPI document, readable from any site, with an ETag, cacheable only when every reader gets the
 // same answer.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { slugify } from "#core/slug";
+import { slugify } from "#core/publication/slug";
 import { demoBriefs } from "#workflows/demo-briefs";
 import { startTestApp, type TestApp } from "../support/app";
 import { publishedBrief } from "../support/briefs";

@@ -1,7 +1,7 @@
 // The role matrix: every address requested as every reader (nobody signed in, then each role alone)
 // against the production build, and compared with the policy written out a second time below, by
 // hand from the product's roles — not read from the tables the server enforces (server/web/api/routes.ts,
-// server/core/access.ts).
+// server/core/access/access.ts).
 // A refused reader gets 401 (or, for a page, the way to sign in) when not signed in and 403 otherwise;
 // an admitted one gets the answer written beside it, and what an admitted read shows is checked. The
 // server's table must say the same as this policy (it renders docs/roles.md), and the router and the
@@ -9,9 +9,9 @@
 import { readdirSync, readFileSync, statSync } from "node:fs";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { admits, fileAccess, pageAccess, readers, rolesDocument, type AccessRule } from "#core/access";
+import { admits, fileAccess, pageAccess, readers, rolesDocument, type AccessRule } from "#core/access/access";
 import { apiRoutes } from "#web/api/routes";
-import { slugify } from "#core/slug";
+import { slugify } from "#core/publication/slug";
 import { createApp, projectRoot } from "#web/app";
 import { connectDatabase } from "#db/client";
 import { demoBriefs } from "#workflows/demo-briefs";

@@ -3,7 +3,7 @@ import { useTranslation } from "react-i18next";
 import { useData } from "vike-react/useData";
 import { BriefList } from "#components/BriefList";
 import type { Data } from "./+data";
-import { searchUrl } from "#core/urls";
+import { searchUrl } from "#core/publication/urls";
 import { useIntl } from "#components/i18n";
 
 export default function Page() {

@@ -2,7 +2,7 @@
 // filtered by the topic, pages through the rest).
 import { render } from "vike/abort";
 import type { PageContextServer } from "vike/types";
-import { briefsOfTopic, pageOf } from "#core/search";
+import { briefsOfTopic, pageOf } from "#core/publication/search";
 
 export async function data(pageContext: PageContextServer) {
   const { briefs: all, topics, state } = await pageContext.catalogue!(pageContext.locale);

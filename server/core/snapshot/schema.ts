@@ -142,7 +142,7 @@ export const draftSnapshotSchema = z.object({
   schemaVersion: z.literal(snapshotSchemaVersion),
   // authorTeam: optional, so versions frozen before it read as before (the product's name as author).
   brief: z.object({ slug: text, title: text, topic: text, condition: text, population: text, demo: z.boolean(), authorTeam: text.nullable().optional() }),
-  /** `phrase` and `number`: how an English sentence names it (server/core/grammar.ts); absent in versions frozen before. */
+  /** `phrase` and `number`: how an English sentence names it (server/core/languages/grammar.ts); absent in versions frozen before. */
   treatments: z.array(z.object({ label: text, displayName: text, phrase: text.nullable().optional(), number: z.enum(["singular", "plural"]).optional() })),
   texts: z.object({ laySummaryHtml: text, shortTakeHtml: text }),
   outcomes: z.array(outcomeSnapshot),

@@ -3,8 +3,8 @@
 // /invitation/:token, answering a form post with a redirect so that they work without JavaScript.
 import { Router, type Request, type Response } from "express";
 
-import { passwordResetUrl } from "#core/urls";
-import { wellFormedToken } from "#core/tokens";
+import { passwordResetUrl } from "#core/publication/urls";
+import { wellFormedToken } from "#core/access/tokens";
 import { changeOwnAccount, requestPasswordReset, setPasswordWithToken, type AccountContext } from "#workflows/accounts";
 import { handle } from "./handle";
 import type { AddressedRequest } from "../http/site-url";

@@ -5,7 +5,7 @@ import { handle } from "./handle";
 import { briefWithOutcomes, createBrief, findBrief, listBriefs, nameTreatments, updateBrief } from "#db/briefs";
 import { createOutcome } from "#db/outcomes";
 
-import { renderMarkdown } from "#core/markdown";
+import { renderMarkdown } from "#core/editorial/markdown";
 import type { Database } from "#db/client";
 import { sendError } from "../http/errors";
 

@@ -3,19 +3,19 @@
 // desk's data hooks alike. Answer types are derived from what the stores and workflows return, as
 // JSON carries it (dates become strings), so the desk cannot drift from the server. Browser-safe:
 // it imports zod and the pure core at run time, and only types from the layers below.
-import { lineText, markdownText } from "#core/text";
+import { lineText, markdownText } from "#core/editorial/text";
 import { z } from "zod";
 import type { ComparisonCertainty } from "#core/grade/assess";
 import { judgementInput } from "#core/grade/judgement";
 import type { AnalysisResult } from "#core/nma/analyse";
 import type { DatasetIssue } from "#core/nma/types";
-import { outcomeInput, outcomePatch } from "#core/outcome";
-import type { Readiness } from "#core/readiness";
-import type { ReleasedBrief, Topic } from "#core/search";
+import { outcomeInput, outcomePatch } from "#core/editorial/outcome";
+import type { Readiness } from "#core/editorial/readiness";
+import type { ReleasedBrief, Topic } from "#core/publication/search";
 import type { VersionSnapshot } from "#core/snapshot/schema";
-import { reviewDecisions } from "#core/status";
-import { locales, translationLocales, type TranslationLocale } from "#core/locales";
-import { roleNames } from "#core/roles";
+import { reviewDecisions } from "#core/editorial/status";
+import { locales, translationLocales, type TranslationLocale } from "#core/languages/locales";
+import { roleNames } from "#core/access/roles";
 import type { briefWithOutcomes, listBriefs } from "#db/briefs";
 import type { OutcomeRow } from "#db/outcomes";
 import type { Person, PersonRecord } from "#db/people";
@@ -105,7 +105,7 @@ export const newPasswordBody = z.object({ token: z.string().max(200), password: 
 /** A row version as the database stores it (PostgreSQL's integer). */
 export const rowVersion = z.number().int().positive().max(2_147_483_647);
 
-// Every text a reader sees goes through one normaliser (server/core/text.ts): NFC, no control,
+// Every text a reader sees goes through one normaliser (server/core/editorial/text.ts): NFC, no control,
 // noncharacter or bidirectional control character, something visible.
 const briefFields = {
   title: lineText(300),

@@ -4,7 +4,7 @@
 // checked against their schemas, then the handlers, which receive them parsed and typed.
 import type { NextFunction, Request, Response, Router } from "express";
 import type { z } from "zod";
-import { admits } from "#core/access";
+import { admits } from "#core/access/access";
 import { fieldIssues, sendError, validateBody } from "../http/errors";
 import { reuseHeaders } from "../http/security";
 import { apiRoutes, type ApiRoute, type RouteSpec } from "./routes";

@@ -3,8 +3,8 @@
 // gets the same answer for a released version, so caches may keep it; an embargoed one is only for
 // the press and editors, kept by nobody.
 import { Router } from "express";
-import { topicsOf } from "#core/search";
-import { briefUrl, versionUrl, versionNumberOf } from "#core/urls";
+import { topicsOf } from "#core/publication/search";
+import { briefUrl, versionUrl, versionNumberOf } from "#core/publication/urls";
 import type { Database } from "#db/client";
 import { listReleasedBriefs, readVersion } from "#db/versions";
 import { sendError } from "../http/errors";

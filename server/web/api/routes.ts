@@ -5,12 +5,12 @@
 // (openapi.ts), the desk's client is typed (components/desk/api.ts), and the integration tests check
 // every answer they receive against its schema (tests/support/client.ts). Browser-safe, like contract.ts.
 import { z } from "zod";
-import { desk, embargo, type AccessRule } from "#core/access";
+import { desk, embargo, type AccessRule } from "#core/access/access";
 import type { RouteAnswers } from "./contract";
-import { translationLocales } from "#core/locales";
-import { roleNames } from "#core/roles";
+import { translationLocales } from "#core/languages/locales";
+import { roleNames } from "#core/access/roles";
 import { versionSnapshotSchema } from "#core/snapshot/schema";
-import { reviewDecisions } from "#core/status";
+import { reviewDecisions } from "#core/editorial/status";
 import {
   accountBody,
   auditQuery,

@@ -3,9 +3,9 @@
 // unsubscribe (RFC 8058) posts without one. Nothing here acts for a signed-in person: a forged
 // subscription only sends a confirmation link (double opt-in), and the tokens authorise the rest.
 import { Router, type Request, type Response } from "express";
-import { localeOf, localePath } from "#core/locales";
-import { topicsOf } from "#core/search";
-import { wellFormedToken } from "#core/tokens";
+import { localeOf, localePath } from "#core/languages/locales";
+import { topicsOf } from "#core/publication/search";
+import { wellFormedToken } from "#core/access/tokens";
 import { confirmSubscription, unsubscribe } from "#db/subscriptions";
 import { listReleasedBriefs } from "#db/versions";
 import { askToSubscribe } from "#workflows/subscriptions";

@@ -3,8 +3,8 @@
 // languages assigned to them; editors in all. The frozen snapshot is never written.
 import { Router, type Response } from "express";
 
-import { isTranslationLocale, translationLocales, type TranslationLocale } from "#core/locales";
-import { mayReadEmbargoed } from "#core/roles";
+import { isTranslationLocale, translationLocales, type TranslationLocale } from "#core/languages/locales";
+import { mayReadEmbargoed } from "#core/access/roles";
 import type { Database } from "#db/client";
 import { translationQueue } from "#db/translations";
 import { markTranslationReady, publishTranslationOf, readTranslationView, saveTranslationDraft } from "#workflows/translations";

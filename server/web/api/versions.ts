@@ -3,12 +3,12 @@
 import { Router } from "express";
 import type { MailContext } from "#workflows/mail";
 
-import { versionNumberOf } from "#core/urls";
+import { versionNumberOf } from "#core/publication/urls";
 import { handle } from "./handle";
 import type { AddressedRequest } from "../http/site-url";
 import { reviewBrief, reviewHistory, withdrawBrief } from "#workflows/review";
 import { listPressRoom } from "#db/versions";
-import type { ReadinessItem } from "#core/readiness";
+import type { ReadinessItem } from "#core/editorial/readiness";
 import { publishVersion, rescheduleRelease } from "#workflows/publish";
 import { briefReadiness } from "#workflows/readiness";
 import type { Database } from "#db/client";

@@ -4,7 +4,7 @@ import { Passport } from "passport";
 import { Strategy as LocalStrategy } from "passport-local";
 import type { Database } from "#db/client";
 import { findCredentials, findPersonById, type Person } from "#db/people";
-import { verifyPassword } from "#core/passwords";
+import { verifyPassword } from "#core/access/passwords";
 
 declare global {
   // eslint-disable-next-line @typescript-eslint/no-namespace

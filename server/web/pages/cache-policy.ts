@@ -1,9 +1,9 @@
 // What of the public pages is kept in memory, under which key, and checked against which state; how
 // long browsers and caches in front may keep each kind of page (docs/decisions/0010-public-pages-and-caching.md).
 import type { Request } from "express";
-import type { Locale } from "#core/locales";
-import { mayReadEmbargoed } from "#core/roles";
-import { isListPath, parseBriefPath, type VersionPath } from "#core/urls";
+import type { Locale } from "#core/languages/locales";
+import { mayReadEmbargoed } from "#core/access/roles";
+import { isListPath, parseBriefPath, type VersionPath } from "#core/publication/urls";
 import type { Database } from "#db/client";
 import { publicVersionState } from "#db/versions";
 import { Catalogue, catalogueKey } from "./catalogue";

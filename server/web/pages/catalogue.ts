@@ -1,8 +1,8 @@
 // What the list pages show (the newest released version of each brief, in each language), kept in
 // memory while the catalogue's state stays the same: a list page asks the database one small question
 // every two seconds, or after a change notice, instead of reading every brief on every request.
-import type { Locale } from "#core/locales";
-import { topicsOf, type ReleasedBrief, type Topic } from "#core/search";
+import type { Locale } from "#core/languages/locales";
+import { topicsOf, type ReleasedBrief, type Topic } from "#core/publication/search";
 import type { Database } from "#db/client";
 import { catalogueState, listReleasedBriefs } from "#db/versions";
 import type { StateMemo } from "./page-cache";

@@ -2,18 +2,18 @@
 // this reader may see, shape it for the page, format its citation, and say how it may be cached.
 import { render } from "vike/abort";
 import type { PageContextServer } from "vike/types";
-import { briefContent, comparisonContent, type BriefView, type ComparisonView, type PageState } from "#core/brief-page";
-import { localeOf, localePath, locales } from "#core/locales";
+import { briefContent, comparisonContent, type BriefView, type ComparisonView, type PageState } from "#core/publication/brief-page";
+import { localeOf, localePath, locales } from "#core/languages/locales";
 import { inLanguage } from "#db/translations";
-import { mayReadEmbargoed } from "#core/roles";
-import { admits, pageAccess } from "#core/access";
+import { mayReadEmbargoed } from "#core/access/roles";
+import { admits, pageAccess } from "#core/access/access";
 import type { VersionSnapshot } from "#core/snapshot/schema";
 import { cacheState, readPublicVersion, versionHistory, type PublicVersion } from "#db/versions";
 import { draftSnapshot } from "#workflows/snapshot";
-import { grammaticalSnapshot } from "#core/grammar";
-import { versionGrammar } from "#core/translation";
-import { wordsOf } from "#core/words";
-import { comparisonUrl, versionNumberOf, versionUrl } from "#core/urls";
+import { grammaticalSnapshot } from "#core/languages/grammar";
+import { versionGrammar } from "#core/languages/translation";
+import { wordsOf } from "#core/languages/words";
+import { comparisonUrl, versionNumberOf, versionUrl } from "#core/publication/urls";
 import { formattedReference } from "../public/citations";
 
 function pageState(page: PublicVersion): PageState {

@@ -1,8 +1,8 @@
 // Renders a page with Vike, and keeps in memory a page that says it may be kept (cache-policy.ts).
 import type { Request, Response } from "express";
 import { renderPage } from "vike/server";
-import type { Locale } from "#core/locales";
-import { holdsForm } from "#core/urls";
+import type { Locale } from "#core/languages/locales";
+import { holdsForm } from "#core/publication/urls";
 import type { Database } from "#db/client";
 import { errorAnswer } from "../http/errors";
 import type { createCsrf } from "../http/security";

@@ -5,8 +5,8 @@ import { Cite } from "@citation-js/core";
 import "@citation-js/plugin-bibtex";
 import "@citation-js/plugin-csl";
 import "@citation-js/plugin-ris";
-import { splitLocale, type Locale } from "#core/locales";
-import type { CitationFormat } from "#core/urls";
+import { splitLocale, type Locale } from "#core/languages/locales";
+import type { CitationFormat } from "#core/publication/urls";
 
 export interface CitationInput {
   title: string;
@@ -51,7 +51,7 @@ export function cslItem(input: CitationInput) {
   };
 }
 
-export type { CitationFormat } from "#core/urls";
+export type { CitationFormat } from "#core/publication/urls";
 
 export const citationMedia: Record<CitationFormat, string> = {
   ris: "application/x-research-info-systems",

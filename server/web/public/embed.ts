@@ -4,14 +4,14 @@
 // label, and a link back to the exact version. Its styles are inline and it needs no script; one
 // small script only tells the framing page its height (postMessage) for auto-sizing.
 import type { TFunction } from "i18next";
-import { briefContent, comparisonContent } from "#core/brief-page";
-import { formatInterval } from "#core/effects";
+import { briefContent, comparisonContent } from "#core/publication/brief-page";
+import { formatInterval } from "#core/publication/effects";
 import { certaintySteps, type Rating } from "#core/grade/certainty";
-import { intlLocale, textDirection, type Locale } from "#core/locales";
-import { messageText } from "#core/message";
+import { intlLocale, textDirection, type Locale } from "#core/languages/locales";
+import { messageText } from "#core/languages/message";
 import type { VersionSnapshot } from "#core/snapshot/schema";
 import { escapeXml } from "./feed";
-import { embedHeightMessage } from "#core/urls";
+import { embedHeightMessage } from "#core/publication/urls";
 
 /** Card widths the layout is made for (the 320–720 px); oEmbed answers clamp to them. */
 export const cardWidth = { min: 320, max: 720, default: 560 } as const;

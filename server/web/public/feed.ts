@@ -2,12 +2,12 @@
 // feed package because titles and summaries must be plain text (type="text"): a brief's title is
 // the editor's words, and as HTML a feed reader would run whatever markup it held.
 import type { TFunction } from "i18next";
-import { localePath, type Locale } from "#core/locales";
-import { notXmlChar } from "#core/text";
-import { versionUrl } from "#core/urls";
+import { localePath, type Locale } from "#core/languages/locales";
+import { notXmlChar } from "#core/editorial/text";
+import { versionUrl } from "#core/publication/urls";
 import type { ReleasedVersion } from "#db/versions";
 
-/** Text as XML carries it: the five special characters escaped, and what XML 1.0 forbids dropped (server/core/text.ts). */
+/** Text as XML carries it: the five special characters escaped, and what XML 1.0 forbids dropped (server/core/editorial/text.ts). */
 export function escapeXml(text: string): string {
   return text.replace(notXmlChar, "").replace(/[<>&'"]/g, (c) => `&#${c.charCodeAt(0)};`);
 }

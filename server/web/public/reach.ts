@@ -5,9 +5,9 @@
 // not offer it (docs/decisions/0028-reach.md).
 import { Router, type Request, type Response } from "express";
 import { z } from "zod";
-import { defaultLocale, localePath, splitLocale, type Locale } from "#core/locales";
-import { embedUrl, pageUrl, surrogateKeys, parseBriefPath, parseVersionPath, shareImageUrl, versionNumberOf, type ComparisonAddress, type VersionAddress } from "#core/urls";
-import { wordsOf } from "#core/words";
+import { defaultLocale, localePath, splitLocale, type Locale } from "#core/languages/locales";
+import { embedUrl, pageUrl, surrogateKeys, parseBriefPath, parseVersionPath, shareImageUrl, versionNumberOf, type ComparisonAddress, type VersionAddress } from "#core/publication/urls";
+import { wordsOf } from "#core/languages/words";
 import type { Database } from "#db/client";
 import { inLanguage } from "#db/translations";
 import { readPublicVersion, readVersion } from "#db/versions";

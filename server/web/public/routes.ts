@@ -2,11 +2,11 @@
 // and robots.txt. Everything comes from released, frozen versions; embargoed ones answer 404 to
 // all but the press and editors, exactly as their pages do.
 import { Router, type Request, type Response } from "express";
-import { comparisonContent } from "#core/brief-page";
-import { defaultLocale, isLocale, localePath, locales, splitLocale, type Locale } from "#core/locales";
-import { alternates, briefUrl, surrogateKeys, comparisonUrl, feedUrl, homeUrl, searchUrl, sitemapUrl, versionNumberOf, versionUrl } from "#core/urls";
+import { comparisonContent } from "#core/publication/brief-page";
+import { defaultLocale, isLocale, localePath, locales, splitLocale, type Locale } from "#core/languages/locales";
+import { alternates, briefUrl, surrogateKeys, comparisonUrl, feedUrl, homeUrl, searchUrl, sitemapUrl, versionNumberOf, versionUrl } from "#core/publication/urls";
 import { listReleasedVersions, readVersion } from "#db/versions";
-import { wordsOf } from "#core/words";
+import { wordsOf } from "#core/languages/words";
 import type { Database } from "#db/client";
 import { citationFile, citationMedia, type CitationFormat, type CitationInput } from "./citations";
 import { downloads } from "./downloads";

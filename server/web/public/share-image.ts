@@ -9,10 +9,10 @@ import { tmpdir } from "node:os";
 import path from "node:path";
 import { renderAsync } from "@resvg/resvg-js";
 import type { TFunction } from "i18next";
-import { briefContent, comparisonContent } from "#core/brief-page";
+import { briefContent, comparisonContent } from "#core/publication/brief-page";
 import { certaintySteps, type Rating } from "#core/grade/certainty";
-import { messageText } from "#core/message";
-import type { Locale } from "#core/locales";
+import { messageText } from "#core/languages/message";
+import type { Locale } from "#core/languages/locales";
 import type { VersionSnapshot } from "#core/snapshot/schema";
 import { escapeXml } from "./feed";
 import { sfntFromWoff } from "./woff";
@@ -81,7 +81,7 @@ const textWidth = shareImageSize.width - 2 * margin;
 /**
  * Characters that fit the text's width at a size: an average glyph of these faces is about half the
  * font size wide; 0.56 leaves room for wide letters and capitals (measured with the shipped fonts in
- * tests/unit/public/share-image.test.ts).
+ * tests/unit/web/public/share-image.test.ts).
  */
 const perLine = (size: number) => Math.floor(textWidth / (size * 0.56));
 /** The sizes tried in turn, largest first, until the title and the statement fit whole. */

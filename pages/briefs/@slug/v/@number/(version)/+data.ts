@@ -1,6 +1,6 @@
 // /briefs/:slug/v/:n — one version, for ever: what reporters cite.
 import type { PageContextServer } from "vike/types";
-import { versionNumberOf } from "#core/urls";
+import { versionNumberOf } from "#core/publication/urls";
 import { briefPageData } from "#web/pages/page-data";
 
 export async function data(pageContext: PageContextServer) {
