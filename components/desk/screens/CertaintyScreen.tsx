@@ -8,7 +8,7 @@ import type { RiskOfBiasShares } from "#core/nma/risk-of-bias";
 import { formatInterval } from "#core/publication/effects";
 import { comparisonOf } from "#core/nma/comparison";
 import { buttonClass, inputClass } from "./forms";
-import { useCertainty, useResult, useSaveJudgement, useSaveJudgements } from "./queries";
+import { useCertainty, useResult, useSaveJudgement, useSaveJudgements } from "../queries";
 
 const domains = ["riskOfBias", "inconsistency", "indirectness", "publicationBias"] as const;
 /** The bulk form's value for "each pair's own risk-of-bias suggestion". */

@@ -1,7 +1,7 @@
 // /desk/dev/mail: what the development mailbox received, so a developer can follow an invitation or a
 // reset link without a real mail server. The API answers 404 outside development.
 import { useTranslation } from "react-i18next";
-import { useDevMail } from "./queries";
+import { useDevMail } from "../queries";
 
 export function DevMailScreen() {
   const { t } = useTranslation();

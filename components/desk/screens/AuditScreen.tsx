@@ -3,8 +3,8 @@
 import { useState } from "react";
 import { useTranslation } from "react-i18next";
 import { Field, inputClass } from "./forms";
-import { useAudit, useBriefs, usePeople } from "./queries";
-import { useIntl } from "../i18n";
+import { useAudit, useBriefs, usePeople } from "../queries";
+import { useIntl } from "../../i18n";
 
 export function AuditScreen() {
   const { t } = useTranslation();

@@ -3,10 +3,10 @@
 import { useTranslation } from "react-i18next";
 import { Link, useParams } from "react-router";
 import { comparisonOf } from "#core/nma/comparison";
-import { ForestPlot } from "../charts/ForestPlot";
-import { LeagueTable } from "../charts/LeagueTable";
-import { NetworkDiagram } from "../charts/NetworkDiagram";
-import { useResult, useTreatmentName } from "./queries";
+import { ForestPlot } from "../../charts/ForestPlot";
+import { LeagueTable } from "../../charts/LeagueTable";
+import { NetworkDiagram } from "../../charts/NetworkDiagram";
+import { useResult, useTreatmentName } from "../queries";
 
 export function ResultsScreen() {
   const { t } = useTranslation();

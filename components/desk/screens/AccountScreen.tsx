@@ -1,9 +1,9 @@
 // /desk/account: one's own name, the time zone of one's e-mails, and one's password.
 import type { FormEvent } from "react";
 import { useTranslation } from "react-i18next";
-import { may, type SignedInPerson } from "./api";
+import { may, type SignedInPerson } from "../api";
 import { Field, formValues, inputClass, SubmitRow } from "./forms";
-import { useTopics, useUpdateAccount } from "./queries";
+import { useTopics, useUpdateAccount } from "../queries";
 import { languageNames, localeOf, locales } from "#core/languages/locales";
 
 export function AccountScreen({ person }: { person: SignedInPerson }) {

@@ -1,10 +1,10 @@
 import { useTranslation } from "react-i18next";
 import { Link, useNavigate } from "react-router";
-import { may, type SignedInPerson } from "./api";
+import { may, type SignedInPerson } from "../api";
 import { BriefList } from "./BriefList";
 import { NewBriefForm } from "./NewBriefForm";
 import { PressRoom } from "./PressRoom";
-import { useBriefs, useCreateBrief } from "./queries";
+import { useBriefs, useCreateBrief } from "../queries";
 
 export function DeskHome({ person }: { person: SignedInPerson }) {
   const { t } = useTranslation();

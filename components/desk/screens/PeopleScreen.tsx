@@ -5,7 +5,7 @@ import { useTranslation } from "react-i18next";
 import { roleNames, type Role } from "#core/access/roles";
 import { translationLocales } from "#core/languages/locales";
 import { Field, inputClass, SubmitRow } from "./forms";
-import { useChangePerson, useInvite, useMessages, usePeople, useResendInvitation } from "./queries";
+import { useChangePerson, useInvite, useMessages, usePeople, useResendInvitation } from "../queries";
 
 /** The roles and, for translators, the locales: checkboxes shared by the invitation and the change forms. */
 function RoleAndLocaleChoices({ roles, locales }: { roles: readonly string[]; locales: readonly string[] }) {

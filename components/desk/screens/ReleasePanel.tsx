@@ -4,10 +4,10 @@
 import { useState } from "react";
 import { useTranslation } from "react-i18next";
 import { buttonClass, Field, formValues, inputClass } from "./forms";
-import { usePublish, useReadiness, useReschedule, useReviews, useReviewStep, useWithdraw } from "./queries";
+import { usePublish, useReadiness, useReschedule, useReviews, useReviewStep, useWithdraw } from "../queries";
 import type { BriefDetail, ReviewBody } from "#web/api/contract";
 import { previewUrl } from "#core/publication/urls";
-import { useIntl } from "../i18n";
+import { useIntl } from "../../i18n";
 
 export function ReleasePanel({ brief, personId, canEdit, canSubmit }: { brief: BriefDetail; personId: string; canEdit: boolean; canSubmit: boolean }) {
   const { t } = useTranslation();

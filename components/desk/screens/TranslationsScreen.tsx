@@ -9,8 +9,8 @@ import { languageNames, textDirection, type Locale } from "#core/languages/local
 import type { Translation } from "#web/api/contract";
 import { ReadabilityAdvice } from "./ReadabilityAdvice";
 import { buttonClass, inputClass } from "./forms";
-import { previewMarkdown, useTranslation, useTranslationQueue, useTranslationStep } from "./queries";
-import { useIntl } from "../i18n";
+import { previewMarkdown, useTranslation, useTranslationQueue, useTranslationStep } from "../queries";
+import { useIntl } from "../../i18n";
 
 export function TranslationQueue() {
   const { t } = useWords();

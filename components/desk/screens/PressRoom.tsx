@@ -1,10 +1,10 @@
 // The press room: embargoed versions (readable by the press before their release) and the latest
 // releases, each with its page and its release time.
 import { useTranslation } from "react-i18next";
-import { useAskEditors, usePressRoom } from "./queries";
+import { useAskEditors, usePressRoom } from "../queries";
 import { Field, formValues, inputClass, SubmitRow } from "./forms";
 import { versionUrl } from "#core/publication/urls";
-import { useIntl } from "../i18n";
+import { useIntl } from "../../i18n";
 
 /** The press room's contact form: a question to the editors, who answer by e-mail. */
 function AskEditors({ briefs }: { briefs: { slug: string; title: string }[] }) {
