@@ -1,5 +1,6 @@
 // Uploaded data sets and engine results of outcomes. A stored result carries the engine version and a
 // checksum of everything it was computed from, so a stale result shows as stale.
+import { readStoredResult } from "#core/nma/stored-result";
 import { createHash } from "node:crypto";
 import { and, desc, eq, sql } from "drizzle-orm";
 import { engineVersion, type AnalysisResult } from "#core/nma/analyse";
@@ -51,13 +52,14 @@ export async function latestDataset(db: Executor, outcomeId: string) {
   return (await db.query.datasets.findFirst({ where: eq(datasets.outcomeId, outcomeId), orderBy: desc(datasets.uploadedAt) })) ?? null;
 }
 
+/** The outcome's latest result, if this engine version wrote it (server/core/nma/stored-result.ts). */
 export async function latestResult(db: Executor, outcomeId: string) {
-  return (
-    (await db.query.analysisResults.findFirst({
-      where: eq(analysisResults.outcomeId, outcomeId),
-      orderBy: desc(analysisResults.createdAt),
-    })) ?? null
-  );
+  const row = await db.query.analysisResults.findFirst({
+    where: eq(analysisResults.outcomeId, outcomeId),
+    orderBy: desc(analysisResults.createdAt),
+  });
+  const result = row ? readStoredResult(row) : null;
+  return row && result ? { ...row, result } : null;
 }
 
 /** The treatment labels of the outcome's latest result, without loading the whole result. */

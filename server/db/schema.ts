@@ -2,7 +2,6 @@
 // a migration is never edited after it has been applied anywhere.
 import { sql } from "drizzle-orm";
 import type { ComparisonJudgement } from "#core/grade/assess";
-import type { AnalysisResult } from "#core/nma/analyse";
 import type { AnalysisOptions, DatasetIssue, ParsedDataset } from "#core/nma/types";
 import type { VersionSnapshot } from "#core/snapshot/schema";
 import type { PublishedFields, StoredFields } from "#core/languages/translation";
@@ -253,8 +252,8 @@ export const analysisResults = pgTable(
     engineVersion: text("engine_version").notNull(),
     inputChecksum: text("input_checksum").notNull(),
     settings: jsonb("settings").$type<AnalysisOptions>().notNull(),
-    /** The engine's result, as the engine of `engineVersion` wrote it (the input checksum includes that version). */
-    result: jsonb("result").$type<AnalysisResult>().notNull(),
+    /** The engine's result, in the shape of the engine of `engineVersion`: read it through readStoredResult (server/core/nma/stored-result.ts). */
+    result: jsonb("result").$type<unknown>().notNull(),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   },
   (table) => [index("analysis_results_outcome_idx").on(table.outcomeId, table.createdAt)],

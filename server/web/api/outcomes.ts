@@ -121,7 +121,8 @@ export function outcomeRoutes(db: Database, queue: Queue | null): Router {
     res.json(stored.result);
   });
 
-  const noResult = { key: "errors.noResult", message: "This outcome has no analysis yet: upload its data first." };
+  // A result of an earlier engine version counts as none (server/core/nma/stored-result.ts).
+  const noResult = { key: "errors.noResult", message: "This outcome has no analysis by the current engine: upload its data, or analyse it again." };
 
   handle(router, "GET /api/outcomes/:id/certainty", async (req, res) => {
     const outcome = await findOutcome(db, req.params.id);
