@@ -11,7 +11,7 @@ import { formatInterval } from "#core/publication/effects";
 import { GroupList } from "./GroupList";
 import { RankScores } from "./RankScores";
 import { RiskOfBiasEvidence } from "./RiskOfBiasEvidence";
-import { flipInterval, pairFinder } from "#core/publication/pairs";
+import { flipInterval, pairFinder } from "#core/nma/pairs";
 import { comparisonUrl, type VersionAddress } from "#core/publication/urls";
 import { Message } from "../Message";
 import { useIntl } from "../i18n";

@@ -4,7 +4,7 @@ import { recordAudit } from "./audit";
 import type { Executor } from "./client";
 import { certaintyJudgements } from "./schema";
 import type { ComparisonJudgement } from "#core/grade/assess";
-import { pairKey } from "#core/publication/pairs";
+import { pairKey } from "#core/nma/pairs";
 
 export async function loadJudgements(db: Executor, outcomeId: string): Promise<Map<string, ComparisonJudgement>> {
   const rows = await db.select().from(certaintyJudgements).where(eq(certaintyJudgements.outcomeId, outcomeId));

@@ -2,7 +2,7 @@
 // in, ratings, suggestions and what still needs a judgement out (METHODS.md §8). Pure.
 import type { AnalysisResult } from "../nma/analyse";
 import { decisionScale, type Thresholds } from "./decision-scale";
-import { pairKey } from "../publication/pairs";
+import { pairKey } from "../nma/pairs";
 import {
   directCertainty,
   dominantLoop,

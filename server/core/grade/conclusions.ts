@@ -7,7 +7,7 @@ import type { AnalysisResult } from "../nma/analyse";
 import { comparisonOf } from "../nma/comparison";
 import type { ComparisonCertainty } from "./assess";
 import { decisionScale, hasThresholds, type Thresholds } from "./decision-scale";
-import { pairKey } from "../publication/pairs";
+import { pairKey } from "../nma/pairs";
 import type { Rating } from "./certainty";
 import { groupByMagnitude, groupTreatments, type TreatmentGroup } from "./groups";
 import { rankExplainer, type RankExplainer } from "./rank-explainer";

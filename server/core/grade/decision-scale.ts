@@ -2,7 +2,7 @@
 // in absolute terms): for a binary outcome, the difference per 1000 people at the outcome's baseline
 // risk (§7), each CI bound mapped the same way; for a continuous outcome, its own units (the mean
 // difference). Never the analysis scale (log OR). Pure.
-import type { Interval } from "../publication/pairs";
+import type { Interval } from "../nma/pairs";
 import { absoluteEffect, treatmentRisk } from "../nma/absolute";
 import type { AnalysisResult } from "../nma/analyse";
 import { comparisonOf } from "../nma/comparison";

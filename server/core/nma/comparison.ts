@@ -1,6 +1,6 @@
 // One comparison read from a result in either direction. Kept apart from the engine so that pages
 // and the desk can use it without loading the engine's numerical packages.
-import { flipInterval, pairFinder } from "../publication/pairs";
+import { flipInterval, pairFinder } from "./pairs";
 import type { AnalysisResult, Comparison } from "./analyse";
 import type { Estimate } from "./types";
 

@@ -1,7 +1,7 @@
 // Reading and validating the three CSV formats of METHODS.md §1. Every broken rule becomes an
 // issue naming the line, the column and the rule; up to `issueCap` are reported together.
 import { parse } from "csv-parse/sync";
-import { pairKey } from "../publication/pairs";
+import { pairKey } from "./pairs";
 import {
   DatasetError,
   type BinaryArm,

@@ -4,7 +4,7 @@
 // or not assessed; and the suggested levels for GRADE's risk-of-bias domain, common practice with
 // no single source: the level carrying the largest share (low 0, some concerns 1, high 2; a tie
 // goes to the worse level), no suggestion when more than half of the weight is not assessed.
-import { pairKey } from "../publication/pairs";
+import { pairKey } from "./pairs";
 import type { ArmEffects, RiskOfBias } from "./types";
 
 export interface RiskOfBiasShares {

@@ -6,7 +6,7 @@
 import type { Rating } from "../grade/certainty";
 import type { Firmness } from "../grade/groups";
 import type { Measure } from "../nma/types";
-import { flipInterval, pairFinder, type Interval } from "./pairs";
+import { flipInterval, pairFinder, type Interval } from "../nma/pairs";
 import type { CertaintyPathFacts, Footnote, Message, OutcomeSnapshot, PairFacts, Reading, VersionSnapshot } from "../snapshot/schema";
 import { slugify } from "./slug";
 

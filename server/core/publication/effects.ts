@@ -3,7 +3,7 @@
 // reader's locale (Intl: a decimal comma in es and fr, Latin digits in ar, decision 0024).
 import { intlLocale, type Locale } from "../languages/locales";
 import type { Measure } from "../nma/types";
-import type { Interval } from "./pairs";
+import type { Interval } from "../nma/pairs";
 
 export const isRatio = (measure: Measure) => measure === "OR" || measure === "RR";
 

@@ -7,7 +7,7 @@ import { certaintyPath } from "../grade/path";
 import type { ComparisonCertainty } from "../grade/assess";
 import { z975, type AnalysisResult } from "../nma/analyse";
 import { directParticipants } from "../nma/participants";
-import { pairKey } from "../publication/pairs";
+import { pairKey } from "../nma/pairs";
 import { riskOfBiasShareKey } from "../nma/risk-of-bias";
 import type { Estimate, ParsedStudy } from "../nma/types";
 import type { OutcomeSnapshot } from "./schema";

@@ -5,7 +5,7 @@ import { assessCertainty, type ComparisonJudgement } from "#core/grade/assess";
 import { certaintyPath } from "#core/grade/path";
 import { analyse } from "#core/nma/analyse";
 import { parseDataset } from "#core/nma/parse";
-import { pairKey } from "#core/publication/pairs";
+import { pairKey } from "#core/nma/pairs";
 import { indirectOnlyPairs, sixOptionsCsv, withoutLoop } from "#tests/support/six-options";
 
 const result = analyse(parseDataset(Buffer.from(sixOptionsCsv), "arm-binary"), { measure: "OR", model: "fixed", reference: "placebo", better: "higher", draws: 200 });

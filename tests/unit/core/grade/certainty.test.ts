@@ -97,7 +97,7 @@ describe("assessing every comparison of an outcome (METHODS.md §8)", async () =
   const { assessCertainty } = await import("#core/grade/assess");
   const { analyse } = await import("#core/nma/analyse");
   const { parseDataset } = await import("#core/nma/parse");
-  const { pairKey } = await import("#core/publication/pairs");
+  const { pairKey } = await import("#core/nma/pairs");
   // The hand-worked triangle of tests/unit/core/nma/worked-example.test.ts: every pair has direct evidence.
   const csv = "study,treatment1,treatment2,estimate,se\nS1,B,A,1.0,0.5\nS2,C,A,2.0,0.5\nS3,C,B,0.5,1.0\n";
   const result = analyse(parseDataset(csv, "contrast"), { measure: "MD", model: "fixed", reference: "A", better: "higher" });
