@@ -18,6 +18,8 @@ export const smokingExpected = JSON.parse(readFileSync(path.join(folder, "hassel
 
 export function smokingBlocks() {
   const { studies } = armEffects(parseDataset(readFileSync(path.join(folder, "hasselblad1998.csv")), "arm-binary").studies, "OR");
-  const others = treatmentsOf(studies).filter((t) => t !== smokingExpected.reference);
-  return { blocks: studyBlocks(studies, (t) => others.indexOf(t)), parameters: others.length };
+  const treatments = treatmentsOf(studies);
+  const others = treatments.filter((t) => t !== smokingExpected.reference);
+  const columnOf = (t: string) => others.indexOf(t); // −1 for the reference
+  return { blocks: studyBlocks(studies, columnOf), parameters: others.length, treatments, columnOf };
 }
