@@ -1,24 +1,13 @@
 // Comparisons that travel: the card other sites frame, oEmbed 1.0 and the share images, against the
 // production build and the test cluster.
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import { slugify } from "#core/publication/slug";
 import { demoBriefs } from "#workflows/demo-briefs";
 import { publishedBrief } from "../support/briefs";
-import { type ApiClient, demoClient } from "../support/client";
-import { startProductionServer, type RunningServer } from "../support/production-server";
+import { withProductionServer } from "../support/production-server";
 import { en } from "../support/words";
 
-let server: RunningServer;
-let analyst: ApiClient;
-let editor: ApiClient;
-beforeAll(async () => {
-  server = await startProductionServer();
-  analyst = await demoClient(server.url, "analyst");
-  editor = await demoClient(server.url, "editor");
-}, 60_000);
-afterAll(async () => {
-  await server.stop();
-});
+const { server, clients } = withProductionServer(["analyst", "editor"]);
 
 const small = slugify(demoBriefs()[0]!.title);
 const comparison = `/briefs/${small}/v/1/compare/combined/usual_care`;
@@ -82,14 +71,14 @@ describe("oEmbed 1.0", () => {
   });
 
   it("gives 404 for an address that is not released (embargoed, withdrawn, unknown or another site's), and 501 for XML", async () => {
-    const embargoed = await publishedBrief(analyst, editor, "Embargoed for oEmbed", new Date(Date.now() + 48 * 3600 * 1000).toISOString());
+    const embargoed = await publishedBrief(clients.analyst!, clients.editor!, "Embargoed for oEmbed", new Date(Date.now() + 48 * 3600 * 1000).toISOString());
     expect((await oembed(`${server.url}/briefs/${embargoed.slug}/v/1/compare/grp_counseling/no_contact`)).status).toBe(404);
     expect((await get(`/embed/briefs/${embargoed.slug}/v/1/compare/grp_counseling/no_contact`)).status).toBe(404);
     expect((await get(`/briefs/${embargoed.slug}/v/1/share.png`)).status).toBe(404);
 
-    const withdrawn = await publishedBrief(analyst, editor, "Withdrawn for oEmbed");
+    const withdrawn = await publishedBrief(clients.analyst!, clients.editor!, "Withdrawn for oEmbed");
     expect((await oembed(`${server.url}/briefs/${withdrawn.slug}/v/1/compare/grp_counseling/no_contact`)).status).toBe(200);
-    expect((await editor.request("POST", `/api/briefs/${withdrawn.briefId}/withdrawal`, { json: { reason: "A trial in the data was retracted." } })).status).toBe(200);
+    expect((await clients.editor!.request("POST", `/api/briefs/${withdrawn.briefId}/withdrawal`, { json: { reason: "A trial in the data was retracted." } })).status).toBe(200);
     expect((await oembed(`${server.url}/briefs/${withdrawn.slug}/v/1/compare/grp_counseling/no_contact`)).status).toBe(404);
     // A card already embedded says it was withdrawn and why, without its findings.
     const card = await get(`/embed/briefs/${withdrawn.slug}/v/1/compare/grp_counseling/no_contact`);

@@ -3,29 +3,18 @@
 // (tests/fixtures/reference/hasselblad1998-rob.csv, labelled as invented in that folder's README).
 import { readFileSync } from "node:fs";
 import path from "node:path";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { beforeAll, describe, expect, it } from "vitest";
 import type { Certainty } from "#web/api/contract";
 import { analysedBrief, approve, draftBrief } from "../support/briefs";
-import { type ApiClient, demoClient } from "../support/client";
-import { startProductionServer, type RunningServer } from "../support/production-server";
+import { withProductionServer } from "../support/production-server";
 
 const robCsv = readFileSync(path.resolve(__dirname, "../fixtures/reference/hasselblad1998-rob.csv"));
 // metafor 3.8-1 + base R on the same file, random effects (hasselblad1998-rob.expected.json).
 const expected = JSON.parse(readFileSync(path.resolve(__dirname, "../fixtures/reference/hasselblad1998-rob.expected.json"), "utf8"));
 
-let server: RunningServer;
-let analyst: ApiClient;
-let editor: ApiClient;
-beforeAll(async () => {
-  server = await startProductionServer();
-  analyst = await demoClient(server.url, "analyst");
-  editor = await demoClient(server.url, "editor");
-}, 60_000);
-afterAll(async () => {
-  await server.stop();
-});
+const { server, clients } = withProductionServer(["analyst", "editor"]);
 
-const certaintyOf = async (outcomeId: string) => (await analyst.request("GET", `/api/outcomes/${outcomeId}/certainty`)).body.comparisons as unknown as Certainty[];
+const certaintyOf = async (outcomeId: string) => (await clients.analyst!.request("GET", `/api/outcomes/${outcomeId}/certainty`)).body.comparisons as unknown as Certainty[];
 const clean = { levels: 0, reason: "" };
 const judgement = (riskOfBias: { levels: number; reason: string }) => ({
   direct: { riskOfBias, inconsistency: clean, indirectness: clean, publicationBias: clean },
@@ -35,52 +24,52 @@ const judgement = (riskOfBias: { levels: number; reason: string }) => ({
 
 describe("the risk_of_bias column on upload", () => {
   it("counts the studies per level in the validation report", async () => {
-    const { outcomeId } = await draftBrief(analyst, "Judged trials, upload", robCsv);
-    const again = await analyst.upload(`/api/outcomes/${outcomeId}/dataset`, { name: "rob.csv", bytes: robCsv }, { format: "arm-binary" });
+    const { outcomeId } = await draftBrief(clients.analyst!, "Judged trials, upload", robCsv);
+    const again = await clients.analyst!.upload(`/api/outcomes/${outcomeId}/dataset`, { name: "rob.csv", bytes: robCsv }, { format: "arm-binary" });
     expect(again.status).toBe(200);
     expect(again.body.riskOfBias).toEqual({ low: 12, someConcerns: 6, high: 3, notAssessed: 3 });
   });
 
   it("refuses a study whose rows disagree, naming the row, and keeps the data stored before byte for byte", async () => {
-    const { outcomeId } = await draftBrief(analyst, "Judged trials, refused", robCsv);
-    const before = await analyst.request("GET", `/api/outcomes/${outcomeId}/result`);
+    const { outcomeId } = await draftBrief(clients.analyst!, "Judged trials, refused", robCsv);
+    const before = await clients.analyst!.request("GET", `/api/outcomes/${outcomeId}/result`);
     const broken = robCsv.toString().replace("S002,ind_counseling,23,140,low", "S002,ind_counseling,23,140,high");
-    const response = await analyst.upload(`/api/outcomes/${outcomeId}/dataset`, { name: "broken.csv", bytes: broken }, { format: "arm-binary" });
+    const response = await clients.analyst!.upload(`/api/outcomes/${outcomeId}/dataset`, { name: "broken.csv", bytes: broken }, { format: "arm-binary" });
     expect(response.status).toBe(422);
     expect(response.body.issues).toEqual([expect.objectContaining({ rule: "risk-of-bias-differs", row: 5, column: "risk_of_bias", facts: { study: "S002", first: "low" } })]);
-    const after = await analyst.request("GET", `/api/outcomes/${outcomeId}/result`);
+    const after = await clients.analyst!.request("GET", `/api/outcomes/${outcomeId}/result`);
     expect(JSON.stringify(after.body)).toBe(JSON.stringify(before.body));
   });
 });
 
 describe("the risk-of-bias suggestion in the certainty assessment", () => {
-  it("suggests the level carrying the largest share, lets the analyst confirm it without a reason and asks one to depart", async () => {
-    const { outcomeId } = await draftBrief(analyst, "Judged trials, certainty", robCsv);
+  it("suggests the level carrying the largest share, lets the clients.analyst! confirm it without a reason and asks one to depart", async () => {
+    const { outcomeId } = await draftBrief(clients.analyst!, "Judged trials, certainty", robCsv);
     const pair = (await certaintyOf(outcomeId)).find((c) => c.treatment === "no_contact" && c.comparator === "self_help")!;
     // Random effects: 61.6% of the direct weight has some concerns (reference file), so one level down.
     const share = expected.random.comparisons.find((c: { treatment: string; comparator: string }) => c.treatment === "no_contact" && c.comparator === "self_help").riskOfBias.someConcerns;
     expect(pair.suggestions.riskOfBias).toEqual({ levels: 1, because: { key: "certainty.riskOfBias.someConcerns", values: { share: Math.round(100 * share) } } });
 
     const at = `/api/outcomes/${outcomeId}/certainty/no_contact/self_help`;
-    const departed = await analyst.request("PUT", at, { json: judgement({ levels: 0, reason: "" }) });
+    const departed = await clients.analyst!.request("PUT", at, { json: judgement({ levels: 0, reason: "" }) });
     expect(departed.status).toBe(400);
     expect(departed.body.error?.details).toEqual([expect.objectContaining({ field: "riskOfBias.reason" })]);
 
-    const confirmed = await analyst.request("PUT", at, { json: judgement({ levels: 1, reason: "" }) });
+    const confirmed = await clients.analyst!.request("PUT", at, { json: judgement({ levels: 1, reason: "" }) });
     expect(confirmed.status).toBe(200);
     expect(confirmed.body.comparison).toMatchObject({ direct: "moderate" });
 
-    const overridden = await analyst.request("PUT", at, { json: judgement({ levels: 0, reason: "The trials with concerns had blinded outcome assessment" }) });
+    const overridden = await clients.analyst!.request("PUT", at, { json: judgement({ levels: 0, reason: "The trials with concerns had blinded outcome assessment" }) });
     expect(overridden.status).toBe(200);
     expect(overridden.body.comparison).toMatchObject({ direct: "high" });
   });
 
   it("applies in bulk: every pair takes its own suggestion, all or none", async () => {
-    const { outcomeId } = await draftBrief(analyst, "Judged trials, in bulk", robCsv);
+    const { outcomeId } = await draftBrief(clients.analyst!, "Judged trials, in bulk", robCsv);
     const comparisons = await certaintyOf(outcomeId);
     const withDirect = comparisons.filter((c) => c.pending.includes("direct"));
     const judgements = withDirect.map((c) => ({ treatment: c.treatment, comparator: c.comparator, judgement: judgement({ levels: c.suggestions.riskOfBias?.levels ?? 0, reason: "" }) }));
-    const saved = await analyst.request("PUT", `/api/outcomes/${outcomeId}/certainty`, { json: { judgements } });
+    const saved = await clients.analyst!.request("PUT", `/api/outcomes/${outcomeId}/certainty`, { json: { judgements } });
     expect(saved.status).toBe(200);
     const after = await certaintyOf(outcomeId);
     for (const c of after.filter((x) => withDirect.some((w) => w.treatment === x.treatment && w.comparator === x.comparator))) {
@@ -93,9 +82,9 @@ describe("the risk-of-bias suggestion in the certainty assessment", () => {
 describe("the public pages", () => {
   let slug = "";
   beforeAll(async () => {
-    const brief = await analysedBrief(analyst, "Judged trials, in public", undefined, robCsv);
-    await approve(analyst, editor, brief.briefId);
-    expect((await editor.request("POST", `/api/briefs/${brief.briefId}/versions`, { json: {} })).status).toBe(201);
+    const brief = await analysedBrief(clients.analyst!, "Judged trials, in public", undefined, robCsv);
+    await approve(clients.analyst!, clients.editor!, brief.briefId);
+    expect((await clients.editor!.request("POST", `/api/briefs/${brief.briefId}/versions`, { json: {} })).status).toBe(201);
     slug = brief.slug;
   }, 60_000);
 
