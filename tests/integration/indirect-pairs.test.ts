@@ -1,15 +1,14 @@
 // A six-option network in which nine of fifteen pairs were never compared in a trial, uploaded, rated
 // as the analysts would confirm the suggestions and published: every comparison goes out with a
 // certainty, and its page shows the arithmetic without contradicting itself (METHODS.md §8 steps 4–5).
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { beforeAll, describe, expect, it } from "vitest";
 import type { Certainty } from "#web/api/contract";
 import { approve, rateEveryComparison } from "../support/briefs";
-import { ApiClient, demoClient } from "../support/client";
-import { startProductionServer, type RunningServer } from "../support/production-server";
+import { ApiClient } from "../support/client";
+import { withProductionServer } from "../support/production-server";
 import { indirectOnlyPairs, sixOptionsCsv, sixOptionsNames, withoutLoop } from "../support/six-options";
 
-let server: RunningServer;
-const clients: Record<string, ApiClient> = {};
+const { server, clients } = withProductionServer(["analyst", "editor"]);
 let slug = "";
 let outcomeId = "";
 let briefId = "";
@@ -17,8 +16,6 @@ let briefId = "";
 const key = (a: string, b: string) => [a, b].sort().join("|");
 
 beforeAll(async () => {
-  server = await startProductionServer();
-  for (const role of ["analyst", "editor"]) clients[role] = await demoClient(server.url, role);
   const analyst = clients.analyst!;
   const created = await analyst.request("POST", "/api/briefs", { json: { title: `Six options ${Date.now()}`, topic: "Sleep", condition: "Poor sleep", population: "Adults (invented)" } });
   briefId = String(created.body.id);
@@ -30,9 +27,6 @@ beforeAll(async () => {
   expect((await analyst.upload(`/api/outcomes/${outcomeId}/dataset`, { name: "six.csv", bytes: Buffer.from(sixOptionsCsv) }, { format: "arm-binary" })).status).toBe(200);
   expect((await analyst.request("PUT", `/api/briefs/${briefId}/treatments`, { json: { names: sixOptionsNames } })).status).toBe(200);
 }, 60_000);
-afterAll(async () => {
-  await server.stop();
-});
 
 describe("a network with pairs no trial compared", () => {
   it("asks for every wholly indirect pair's indirect certainty, and for none of their incoherence", async () => {

@@ -10,21 +10,16 @@ import { slugify } from "#core/publication/slug";
 import { demoBriefs } from "#workflows/demo-briefs";
 import { testDatabaseUrl } from "../support/app";
 import { approve, publishedBrief } from "../support/briefs";
-import { ApiClient, demoClient } from "../support/client";
-import { startProductionServer, type RunningServer } from "../support/production-server";
+import { withProductionServer } from "../support/production-server";
 import type { Translation } from "#web/api/contract";
 
-let server: RunningServer;
+const { server, clients } = withProductionServer(["analyst", "editor", "translator"]);
 let pool: pg.Pool;
-const clients: Record<string, ApiClient> = {};
-beforeAll(async () => {
-  server = await startProductionServer();
+beforeAll(() => {
   pool = new pg.Pool({ connectionString: testDatabaseUrl(), max: 2 });
-  for (const role of ["analyst", "editor", "translator"]) clients[role] = await demoClient(server.url, role);
-}, 60_000);
+});
 afterAll(async () => {
   await pool.end();
-  await server.stop();
 });
 
 const get = (address: string, headers: Record<string, string> = {}) => fetch(`${server.url}${address}`, { headers, redirect: "manual" });
