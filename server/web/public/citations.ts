@@ -64,13 +64,23 @@ export function citationFile(input: CitationInput, format: CitationFormat): stri
   if (format === "json") return `${JSON.stringify([item], null, 2)}\n`;
   // citation-js makes its own keys (author, year, first title word), which repeat across versions and
   // comparisons: each file carries the item's id instead, unique per brief, version and comparison.
-  if (format === "bib") return new Cite(item).format("bibtex").replace(/^(@\w+\{)[^,\n]*,/, `$1${item.id},`);
+  if (format === "bib") {
+    // citation-js writes the day into the month ("month = {dec 4}"), which BibTeX reads as no month:
+    // the month macro ("dec"), and the whole date in biblatex's date field.
+    const released = new Date(input.releaseAt).toISOString().slice(0, 10);
+    return new Cite(item)
+      .format("bibtex")
+      .replace(/^(@\w+\{)[^,\n]*,/, `$1${item.id},`)
+      .replace(/^(\s*)month = \{(\w{3})[^}]*\},$/m, `$1month = $2,\n$1date = {${released}},`);
+  }
   // citation-js folds RIS values every 70 characters; reference managers read the continuation as a
   // new value or join it with a space, which breaks permalinks. Each value is joined back whole.
   return new Cite(item)
     .format("ris")
     .replace(/\n(?![A-Z][A-Z0-9] {2}- |$)/g, "")
-    .replace(/^ID {2}- .*$/m, `ID  - ${item.id}`);
+    .replace(/^ID {2}- .*$/m, `ID  - ${item.id}`)
+    // RIS dates are YYYY/MM/DD/: citation-js leaves the month and day unpadded ("2026/3/5/").
+    .replace(/^(DA|Y2) {2}- (\d{4})\/(\d{1,2})\/(\d{1,2})\//gm, (_, tag: string, year: string, month: string, day: string) => `${tag}  - ${year}/${month.padStart(2, "0")}/${day.padStart(2, "0")}/`);
 }
 
 /** The reference as a reader copies it (APA style); the page adds the access date in its own words. */

@@ -23,4 +23,15 @@ describe("citation files", () => {
   it("drop control characters from the title", () => {
     expect(citationFile({ ...input, title: "A\u0001B\u000bC" }, "ris")).toMatch(/^TI {2}- A B C$/m);
   });
+
+  it("date a version as reference managers read dates: RIS YYYY/MM/DD/, BibTeX's month macro and the whole date", () => {
+    const early = { ...input, author: "Sleep Evidence Group", releaseAt: "2026-03-05T09:00:00.000Z", accessed: new Date("2026-04-01T10:00:00Z") };
+    const ris = citationFile(early, "ris");
+    expect(ris).toMatch(/^DA {2}- 2026\/03\/05\/$/m);
+    expect(ris).toMatch(/^Y2 {2}- 2026\/04\/01\/$/m);
+    const bib = citationFile(early, "bib");
+    expect(bib).toMatch(/^\tmonth = mar,$/m);
+    expect(bib).toMatch(/^\tdate = \{2026-03-05\},$/m);
+    expect(bib).toMatch(/^\tyear = \{2026\},$/m);
+  });
 });
