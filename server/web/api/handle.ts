@@ -5,7 +5,7 @@
 import type { NextFunction, Request, Response, Router } from "express";
 import type { z } from "zod";
 import { admits } from "#core/access/access";
-import { fieldIssues, sendError, validateBody } from "../http/errors";
+import { fieldIssues, issueList, sendError, validateBody } from "../http/errors";
 import { reuseHeaders } from "../http/security";
 import { apiRoutes, type ApiRoute, type RouteSpec } from "./routes";
 
@@ -33,7 +33,7 @@ function paramsCheck(schema: z.ZodType) {
     const parsed = schema.safeParse(req.params);
     if (parsed.success) return next();
     const issues = fieldIssues(parsed.error);
-    sendError(res, 404, { key: "errors.notFound", message: `There is nothing at this address (${issues.map((issue) => `${issue.field}: ${issue.message}`).join("; ")}).`, details: issues });
+    sendError(res, 404, { key: "errors.notFound", message: `There is nothing at this address (${issueList(issues, "address")}).`, details: issues });
   };
 }
 
@@ -43,7 +43,7 @@ function queryCheck(schema: z.ZodType) {
     const parsed = schema.safeParse(req.query);
     if (!parsed.success) {
       const issues = fieldIssues(parsed.error);
-      return sendError(res, 400, { key: "errors.invalidQuery", message: `The query is not valid: ${issues.map((issue) => `${issue.field}: ${issue.message}`).join("; ")}`, details: issues });
+      return sendError(res, 400, { key: "errors.invalidQuery", message: `The query is not valid: ${issueList(issues, "query")}`, details: issues });
     }
     Object.defineProperty(req, "query", { value: parsed.data, enumerable: true });
     next();

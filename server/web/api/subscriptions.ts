@@ -13,7 +13,7 @@ import type { MailContext } from "#workflows/mail";
 import { handle } from "./handle";
 import type { AddressedRequest } from "../http/site-url";
 import { isFormPost } from "../http/forms";
-import { fieldIssues, sendError } from "../http/errors";
+import { fieldIssues, issueList, sendError } from "../http/errors";
 import { linkLimits, mailRequestLimits, type LimitStore } from "../http/security";
 import { subscribeBody } from "./contract";
 
@@ -31,7 +31,7 @@ export function subscriptionRoutes(context: (req: AddressedRequest) => MailConte
     if (!parsed.success || !topic) {
       if (isFormPost(req)) return res.redirect(303, done("invalid"));
       const details = parsed.success ? [{ field: "topic", message: "no released brief has this topic" }] : fieldIssues(parsed.error);
-      return sendError(res, 400, { key: "errors.invalidRequest", message: `Send an e-mail address and the topic of a released brief: ${details.map((d) => `${d.field}: ${d.message}`).join("; ")}`, details });
+      return sendError(res, 400, { key: "errors.invalidRequest", message: `Send an e-mail address and the topic of a released brief: ${issueList(details, "body")}`, details });
     }
     await askToSubscribe(context(req), { email: parsed.data.email, topic: topic.name, locale: localeOf(parsed.data.locale) });
     if (isFormPost(req)) return res.redirect(303, localePath(localeOf(parsed.data.locale), done("sent")));

@@ -17,6 +17,11 @@ export function fieldIssues(error: z.ZodError) {
   return error.issues.map((issue) => ({ field: issue.path.join("."), message: issue.message }));
 }
 
+/** The issues in one line of an error message, "field: what is wrong; …"; `whole` names an issue of the whole. */
+export function issueList(issues: { field: string; message: string }[], whole: string): string {
+  return issues.map((issue) => `${issue.field || whole}: ${issue.message}`).join("; ");
+}
+
 /** The path of the first text holding a NUL byte, which PostgreSQL cannot store; null when there is none. */
 export function nulPath(value: unknown, path: string[] = [], depth = 0): string | null {
   if (typeof value === "string") return value.includes("\u0000") ? path.join(".") || "body" : null;
@@ -41,7 +46,7 @@ export function validateBody<T extends z.ZodType>(schema: T) {
     if (!parsed.success) {
       sendError(res, 400, {
         key: "errors.invalidRequest",
-        message: `The request body is not valid: ${fieldIssues(parsed.error).map((i) => `${i.field || "body"}: ${i.message}`).join("; ")}`,
+        message: `The request body is not valid: ${issueList(fieldIssues(parsed.error), "body")}`,
         details: fieldIssues(parsed.error),
       });
       return;
