@@ -27,6 +27,8 @@ export const dataUrl = () => "/data";
 export const topicUrl = (topicSlug: string) => `/topics/${segment(topicSlug)}`;
 export const briefUrl = (slug: string) => `/briefs/${segment(slug)}`;
 export const versionUrl = (at: VersionAddress) => `${briefUrl(at.slug)}/v/${at.version}`;
+/** A released version's frozen snapshot as JSON, in the API for reuse (docs/data.md). */
+export const snapshotUrl = (at: VersionAddress) => `/api${briefUrl(at.slug)}/versions/${at.version}`;
 export const comparisonUrl = (at: ComparisonAddress) => `${versionUrl(at)}/compare/${segment(at.treatment)}/${segment(at.comparator)}`;
 /** One-time account links (server/core/access/tokens.ts), and the form that asks for a reset link. */
 export const invitationUrl = (token: string) => `/invitation/${segment(token)}`;

@@ -4,7 +4,7 @@
 // the press and editors, kept by nobody.
 import { Router } from "express";
 import { topicsOf } from "#core/publication/search";
-import { briefUrl, versionUrl, versionNumberOf } from "#core/publication/urls";
+import { snapshotUrl, versionNumberOf, versionUrl } from "#core/publication/urls";
 import type { Database } from "#db/client";
 import { listReleasedBriefs, readVersion } from "#db/versions";
 import { sendError } from "../http/errors";
@@ -30,8 +30,8 @@ export function reuseRoutes(db: Database, publicUrl: string | undefined): Router
     res.json({
       briefs: briefs.map((brief) => ({
         ...brief,
-        page: versionUrl({ slug: brief.slug, version: brief.version }),
-        snapshot: `/api${briefUrl(brief.slug)}/versions/${brief.version}`,
+        page: versionUrl(brief),
+        snapshot: snapshotUrl(brief),
       })),
     });
   });
