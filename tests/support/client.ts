@@ -1,6 +1,6 @@
 // A small HTTP client for the tests that keeps cookies like a browser and sends the CSRF token, and
 // checks every successful API answer against its route's answer schema in the route table.
-import { answerIssues, routeOf } from "#web/api/routes";
+import { answerIssues, routeOf } from "./route-answers";
 import { demoPassword } from "#workflows/seed";
 
 export class ApiClient {

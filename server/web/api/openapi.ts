@@ -27,6 +27,7 @@ function operation(route: string, spec: RouteSpec): JsonSchema {
   const [method] = route.split(" ") as [string];
   const roles = spec.who === "anyone" ? "Anyone, without an account." : spec.who === "signed-in" ? "Anyone signed in." : `Signed in with the role ${spec.who.join(" or ")}.`;
   const changes = method !== "GET";
+  const needsToken = changes && spec.csrf !== false;
   const status = String(spec.status ?? 200);
   const responses: Record<string, unknown> = {
     [status]: spec.answer ? { description: spec.does, content: { "application/json": { schema: schemaOf(spec.answer, "output") } } } : { description: spec.does },
@@ -35,7 +36,7 @@ function operation(route: string, spec: RouteSpec): JsonSchema {
   if (spec.who !== "anyone") responses["401"] = error("Not signed in.");
   if (Array.isArray(spec.who)) responses["403"] = error("Signed in without a role this route needs.");
   if (spec.params) responses["404"] = error("Nothing at this address.");
-  if (changes && route !== "POST /api/subscriptions" && route !== "POST /api/subscriptions/unsubscribe") responses["403"] ??= error("The CSRF token is missing or does not match.");
+  if (needsToken) responses["403"] ??= error("The CSRF token is missing or does not match.");
   responses["503"] = error("The database is unreachable for a moment: try again.");
   const body = spec.multipart
     ? { required: true, content: { "multipart/form-data": { schema: { type: "object", required: ["file", "format"], properties: { file: { type: "string", contentMediaType: "text/csv" }, format: { enum: [...formats] } } } } } }
@@ -47,7 +48,7 @@ function operation(route: string, spec: RouteSpec): JsonSchema {
     summary: spec.does,
     description: [roles, spec.also, spec.reuse ? "For reuse outside the site: CORS open to any origin, an ETag, and the public rate limit (docs/data.md)." : null].filter(Boolean).join(" "),
     tags: [spec.reuse ? "data for reuse" : spec.who === "anyone" ? "public" : "desk"],
-    parameters: [...parameters(spec.params, "path"), ...parameters(spec.query, "query"), ...(changes && spec.who !== "anyone" ? [{ name: "x-csrf-token", in: "header", required: true, schema: { type: "string" }, description: "From GET /api/csrf." }] : [])],
+    parameters: [...parameters(spec.params, "path"), ...parameters(spec.query, "query"), ...(needsToken ? [{ name: "x-csrf-token", in: "header", required: true, schema: { type: "string" }, description: "From GET /api/csrf." }] : [])],
     ...(body ? { requestBody: body } : {}),
     responses,
     ...(spec.who === "anyone" ? {} : { security: [{ session: [] }] }),

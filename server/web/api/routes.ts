@@ -3,7 +3,7 @@
 // and answer. From it: the Express routes are registered with typed requests and their role check
 // (server/web/api/handle.ts), docs/roles.md's API table is rendered, /api/openapi.json is generated
 // (openapi.ts), the desk's client is typed (components/desk/api.ts), and the integration tests check
-// every answer they receive against its schema (tests/support/client.ts). Browser-safe, like contract.ts.
+// every answer they receive against its schema (tests/support/route-answers.ts). Browser-safe, like contract.ts.
 import { z } from "zod";
 import { desk, embargo, type AccessRule } from "#core/access/access";
 import type { RouteAnswers } from "./contract";
@@ -50,6 +50,8 @@ export interface RouteSpec extends AccessRule {
   /** The success status and the schema of its JSON answer (204: no body). */
   status?: 200 | 201 | 202 | 204;
   answer?: z.ZodType;
+  /** A change that takes no CSRF token (readers' alerts: server/web/api/subscriptions.ts says why); every other change needs one. */
+  csrf?: false;
   /** A public read for outside use: CORS, ETag and the public rate limit (docs/data.md). */
   reuse?: true;
 }
@@ -130,9 +132,9 @@ export const apiRoutes = {
   "GET /api/audit": { who: ["admin"], does: "the audit log: every change with who, when, what, before and after; filtered and paged", query: auditQuery, answer: z.object({ entries: z.array(z.looseObject({ id: z.number().int(), action: z.string() })), next: z.number().int().nullable(), actions: z.array(z.string()) }) },
   "PATCH /api/account": { who: "signed-in", does: "change one's own name, time zone, password, and (press) the topics that alert one", body: accountBody, answer: z.object({ person }) },
   "POST /api/password-reset": { who: "anyone", does: "ask for a password reset link (the same answer for every address; rate limited)", body: passwordResetBody, form: true, status: 202, answer: sent },
-  "POST /api/subscriptions": { who: "anyone", does: "ask for e-mail alerts on a topic (a confirmation link goes out; the same answer for every address; rate limited; no CSRF token)", body: subscribeBody, form: true, status: 202, answer: sent },
-  "POST /api/subscriptions/confirm": { who: "anyone", does: "confirm alerts from the link (double opt-in)", body: tokenBody, form: true, answer: z.object({ confirmed: z.literal(true) }) },
-  "POST /api/subscriptions/unsubscribe": { who: "anyone", does: "stop alerts: one click from the mail program (RFC 8058) or the unsubscribe page", query: tokenBody.partial(), body: tokenBody.partial(), form: true, answer: z.object({ unsubscribed: z.literal(true) }) },
+  "POST /api/subscriptions": { who: "anyone", does: "ask for e-mail alerts on a topic (a confirmation link goes out; the same answer for every address; rate limited; no CSRF token)", body: subscribeBody, form: true, csrf: false, status: 202, answer: sent },
+  "POST /api/subscriptions/confirm": { who: "anyone", does: "confirm alerts from the link (double opt-in)", body: tokenBody, form: true, csrf: false, answer: z.object({ confirmed: z.literal(true) }) },
+  "POST /api/subscriptions/unsubscribe": { who: "anyone", does: "stop alerts: one click from the mail program (RFC 8058) or the unsubscribe page", query: tokenBody.partial(), body: tokenBody.partial(), form: true, csrf: false, answer: z.object({ unsubscribed: z.literal(true) }) },
   "POST /api/account/password": { who: "anyone", does: "set a password from a one-time invitation or reset link (rate limited)", body: newPasswordBody, form: true, answer: z.object({ done: z.literal(true) }) },
   "GET /api/briefs": { who: desk, does: "list the briefs in the desk, drafts included", answer: z.object({ briefs: z.array(briefSummary) }) },
   "POST /api/briefs": { who: ["analyst"], does: "create a brief", body: createBriefBody, status: 201, answer: z.object({ id: uuid, slug: z.string() }) },
@@ -183,28 +185,6 @@ export const apiRoutes = {
 } as const satisfies Record<string, RouteSpec>;
 
 export type ApiRoute = keyof typeof apiRoutes;
-
-/** The issues of an answer that does not fit its route's schema; [] when it fits or the route has none. */
-export function answerIssues(route: ApiRoute, body: unknown): string[] {
-  const spec: RouteSpec = apiRoutes[route];
-  if (!spec.answer) return [];
-  const parsed = spec.answer.safeParse(body);
-  return parsed.success ? [] : parsed.error.issues.map((issue) => `${issue.path.join(".") || "answer"}: ${issue.message}`);
-}
-
-/** The route a request to this method and path reaches, if any ("/api/briefs/1234…" → "GET /api/briefs/:id"). */
-export function routeOf(method: string, path: string): ApiRoute | null {
-  const segments = path.split("?")[0]!.split("/");
-  const candidates = (Object.keys(apiRoutes) as ApiRoute[]).filter((route) => {
-    const [routeMethod, routePath] = route.split(" ") as [string, string];
-    if (routeMethod !== method.toUpperCase()) return false;
-    const parts = routePath.split("/");
-    return parts.length === segments.length && parts.every((part, i) => part.startsWith(":") || part === segments[i]);
-  });
-  // A literal segment wins over a parameter ("/api/briefs/:id/reviews" is not "/api/briefs/:slug/…").
-  const literals = (route: ApiRoute) => route.split("/").filter((part) => !part.startsWith(":")).length;
-  return candidates.sort((a, b) => literals(b) - literals(a))[0] ?? null;
-}
 
 // Each route's answer type in the contract (contract.ts, what the server's own functions return)
 // fits its answer schema here: the check the tests make at run time and the type the desk reads

@@ -3,7 +3,8 @@
 import { Validator } from "@seriousme/openapi-schema-validator";
 import { describe, expect, it } from "vitest";
 import { openApiDocument } from "#web/api/openapi";
-import { apiRoutes, routeOf } from "#web/api/routes";
+import { apiRoutes } from "#web/api/routes";
+import { routeOf } from "#tests/support/route-answers";
 
 type Operation = { parameters: { name: string; in: string }[]; responses: Record<string, { content?: Record<string, unknown> }>; security?: unknown[]; requestBody?: unknown };
 const document = openApiDocument("http://fairweigh.example") as { openapi: string; paths: Record<string, Record<string, Operation>> };
@@ -35,6 +36,12 @@ describe("/api/openapi.json", () => {
 
     const audit = document.paths["/api/audit"]!.get!;
     expect(audit.parameters.map((parameter) => `${parameter.in} ${parameter.name}`)).toEqual(["query person", "query action", "query brief", "query before", "query limit"]);
+    // Every change needs the CSRF token but the readers' alerts (mounted before the check, index.ts).
+    const withoutToken = Object.entries(document.paths).flatMap(([address, operations]) =>
+      Object.entries(operations).filter(([method, operation]) => method !== "get" && !operation.parameters.some((parameter) => parameter.name === "x-csrf-token")).map(([method]) => `${method.toUpperCase()} ${address}`),
+    );
+    expect(withoutToken.sort()).toEqual(["POST /api/subscriptions", "POST /api/subscriptions/confirm", "POST /api/subscriptions/unsubscribe"]);
+    expect(document.paths["/api/session"]!.post!.parameters.map((parameter) => parameter.name)).toEqual(["x-csrf-token"]);
     expect(document.paths["/api/outcomes/{id}/dataset"]!.put!.requestBody).toMatchObject({ content: { "multipart/form-data": { schema: { required: ["file", "format"] } } } });
   });
 });
