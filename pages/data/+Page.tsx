@@ -18,9 +18,9 @@ export default function Page() {
         {reads.map(({ text, address }) => (
           <li key={address}>
             <p>{t(text)}</p>
-            {/* Addresses read left to right in every language. */}
-            <p dir="ltr" className="mt-1 overflow-x-auto font-mono text-sm">
-              {address.includes("{") ? <code>GET {address}</code> : <a href={address}><code>GET {address}</code></a>}
+            {/* An address reads left to right in every language, and sits under its description (right-aligned in Arabic). */}
+            <p className="mt-1 overflow-x-auto font-mono text-sm">
+              {address.includes("{") ? <code dir="ltr">GET {address}</code> : <a href={address}><code dir="ltr">GET {address}</code></a>}
             </p>
           </li>
         ))}
