@@ -88,6 +88,9 @@ export function useIntl() {
     /** An unprefixed address (from server/core/publication/urls.ts) in the page's locale. */
     href: (path: string) => localePath(locale, path),
     date: (options: Intl.DateTimeFormatOptions) => new Intl.DateTimeFormat(intl, options),
+    /** A moment with its time zone named ("December 6, 2026 at 10:00 AM GMT+1"); the browser's zone when none is given. */
+    moment: (at: string, timeZone?: string) =>
+      new Intl.DateTimeFormat(intl, { year: "numeric", month: "long", day: "numeric", hour: "numeric", minute: "2-digit", timeZone, timeZoneName: "short" }).format(new Date(at)),
     /** A fixed count of decimals: "0.73" in en, "0,73" in es and fr. */
     number: (value: number, digits: number) => formatNumber(value, digits, locale),
     /** Significant digits, for p-values: "0.031". */

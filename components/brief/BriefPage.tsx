@@ -5,9 +5,10 @@ import type { BriefPageData } from "#web/pages/page-data";
 import { HealthCaution } from "../HealthCaution";
 import { CiteBlock } from "./CiteBlock";
 import { SubscribeForm } from "../SubscribeForm";
-import { VersionBanners } from "./Notices";
+import { useUntranslated, VersionBanners, WithdrawnFindings } from "./Notices";
 import { OutcomeSection } from "./OutcomeSection";
 import { VersionHistory } from "./VersionHistory";
+import { VersionChanges } from "./VersionChanges";
 import { downloadUrl, topicUrl } from "#core/publication/urls";
 import { useIntl } from "../i18n";
 
@@ -15,8 +16,8 @@ export function BriefPage({ data }: { data: BriefPageData }) {
   const { t } = useTranslation();
   const intl = useIntl();
   const { view, citation } = data;
-  // Texts shown in the original because no translation is published yet are marked as English.
-  const original = data.translation && !data.translation.publishedAt ? "en" : undefined;
+  // Texts shown in the original (no translation yet, or a passage a correction changed) are marked as English.
+  const untranslated = useUntranslated(data.translation);
   const version = { slug: view.slug, version: view.version };
   const date = intl.date({ dateStyle: "long", timeZone: "UTC" });
   return (
@@ -24,12 +25,19 @@ export function BriefPage({ data }: { data: BriefPageData }) {
       <VersionBanners view={view} translation={data.translation} />
       <header>
         <p className="font-sans text-xs font-semibold uppercase tracking-wide text-muted">
-          <a href={intl.href(topicUrl(view.topicSlug))} className="text-muted">{view.topic}</a> · {view.condition}
+          <a href={intl.href(topicUrl(view.topicSlug))} className="text-muted" lang={untranslated.lang("topic")}>{view.topic}</a> · <span lang={untranslated.lang("condition")}>{view.condition}</span>
+          {untranslated.mark("topic") ?? untranslated.mark("condition")}
         </p>
-        <h1 lang={original} className="mt-2 text-4xl leading-tight font-semibold tracking-tight">{view.title}</h1>
-        <p className="mt-3 text-lg text-muted">{t("brief.population", { population: view.population })}</p>
+        <h1 className="mt-2 text-4xl leading-tight font-semibold tracking-tight">
+          <span lang={untranslated.lang("title")}>{view.title}</span>
+          {untranslated.mark("title")}
+        </h1>
+        <p className="mt-3 text-lg text-muted">
+          {t("brief.population", { population: view.population })}
+          {untranslated.mark("population")}
+        </p>
         <p className="mt-3 font-sans text-sm">
-          {t("brief.versionLine", { version: view.version, date: date.format(new Date(view.releaseAt)) })}
+          {view.embargoed ? t("brief.embargoedLine", { version: view.version, date: intl.moment(view.releaseAt, view.timeZone) }) : t("brief.versionLine", { version: view.version, date: date.format(new Date(view.releaseAt)) })}
           {view.history.length > 1 ? (
             <>
               {" · "}
@@ -37,19 +45,32 @@ export function BriefPage({ data }: { data: BriefPageData }) {
             </>
           ) : null}
         </p>
-        {view.note ? <p className="mt-2 border-s-4 border-accent ps-3">{t("brief.correctionNote", { note: view.note })}</p> : null}
+        {view.note ? (
+          <p className="mt-2 border-s-4 border-accent ps-3">
+            {t("brief.correctionNote", { note: view.note })}
+            {untranslated.mark("note")}
+          </p>
+        ) : null}
       </header>
+
+      {data.changes ? <VersionChanges changes={data.changes} slug={view.slug} /> : null}
 
       {view.texts.shortTakeHtml ? (
         <section aria-labelledby="short-take" className="mt-10 bg-white p-6">
-          <h2 id="short-take" className="font-sans text-sm font-semibold uppercase tracking-wide">{t("brief.shortTake")}</h2>
-          <div lang={original} className="prose-brief mt-3" dangerouslySetInnerHTML={{ __html: view.texts.shortTakeHtml }} />
+          <h2 id="short-take" className="font-sans text-sm font-semibold uppercase tracking-wide">
+            {t("brief.shortTake")}
+            {untranslated.mark("shortTake")}
+          </h2>
+          <div lang={untranslated.lang("shortTake")} className="prose-brief mt-3" dangerouslySetInnerHTML={{ __html: view.texts.shortTakeHtml }} />
         </section>
       ) : null}
       {view.texts.laySummaryHtml ? (
         <section aria-labelledby="summary" className="mt-10">
-          <h2 id="summary" className="font-sans text-sm font-semibold uppercase tracking-wide">{t("brief.summary")}</h2>
-          <div lang={original} className="prose-brief mt-3 text-lg leading-relaxed" dangerouslySetInnerHTML={{ __html: view.texts.laySummaryHtml }} />
+          <h2 id="summary" className="font-sans text-sm font-semibold uppercase tracking-wide">
+            {t("brief.summary")}
+            {untranslated.mark("summary")}
+          </h2>
+          <div lang={untranslated.lang("summary")} className="prose-brief mt-3 text-lg leading-relaxed" dangerouslySetInnerHTML={{ __html: view.texts.laySummaryHtml }} />
         </section>
       ) : null}
 
@@ -72,23 +93,31 @@ export function BriefPage({ data }: { data: BriefPageData }) {
         </nav>
       ) : null}
 
-      {view.outcomes.map((outcome) => (
-        <OutcomeSection key={outcome.index} outcome={outcome} version={version} />
-      ))}
+      <WithdrawnFindings withdrawn={view.withdrawal !== null}>
+        {view.outcomes.map((outcome) => (
+          <OutcomeSection key={outcome.index} outcome={outcome} version={version} nameMark={untranslated.mark(`outcome:${outcome.index}`)} />
+        ))}
+      </WithdrawnFindings>
 
       <CiteBlock heading={t("cite.brief")} reference={citation.reference} accessed={citation.accessed} permalink={citation.permalink} citing={version} />
       <SubscribeForm topic={view.topic} topicSlug={view.topicSlug} />
 
       <section aria-labelledby="data-title" className="mt-16 border-t border-rule pt-6 print:hidden">
         <h2 id="data-title" className="text-xl font-semibold">{t("brief.data")}</h2>
-        <p className="mt-2">{t("brief.dataLead")}</p>
-        <ul className="mt-3 space-y-1 font-sans text-sm" data-testid="downloads">
-          {(["inputs.csv", "inputs.json", "results.csv", "results.json"] as const).map((file) => (
-            <li key={file}>
-              <a href={intl.href(downloadUrl(version, file))}>{t(`brief.download.${file.replace(".", "_")}`)}</a>
-            </li>
-          ))}
-        </ul>
+        {view.withdrawal ? (
+          <p className="mt-2">{t("brief.withdrawn.noData")}</p>
+        ) : (
+          <>
+            <p className="mt-2">{t("brief.dataLead")}</p>
+            <ul className="mt-3 space-y-1 font-sans text-sm" data-testid="downloads">
+              {(["inputs.csv", "inputs.json", "results.csv", "results.json"] as const).map((file) => (
+                <li key={file}>
+                  <a href={intl.href(downloadUrl(version, file))}>{t(`brief.download.${file.replace(".", "_")}`)}</a>
+                </li>
+              ))}
+            </ul>
+          </>
+        )}
       </section>
 
       <VersionHistory slug={view.slug} history={view.history} current={view.version} />

@@ -11,7 +11,7 @@ import { CiteBlock } from "./CiteBlock";
 import { EmbedCode } from "./EmbedCode";
 import { ImportantStudies } from "./ImportantStudies";
 import { formatInterval } from "#core/publication/effects";
-import { VersionBanners } from "./Notices";
+import { VersionBanners, WithdrawnFindings } from "./Notices";
 import { comparisonUrl, versionUrl } from "#core/publication/urls";
 import { Message } from "../Message";
 import { useIntl } from "../i18n";
@@ -31,12 +31,14 @@ export function ComparisonPage({ data }: { data: ComparisonPageData }) {
       </p>
       <h1 className="mt-3 text-4xl leading-tight font-semibold tracking-tight">{versus}</h1>
       <p className="mt-3 font-sans text-sm text-muted">
-        {t("compare.inVersion", { version: view.version, date: date.format(new Date(view.releaseAt)) })} ·{" "}
+        {view.embargoed ? t("compare.inEmbargoed", { version: view.version, date: intl.moment(view.releaseAt, view.timeZone) }) : t("compare.inVersion", { version: view.version, date: date.format(new Date(view.releaseAt)) })} ·{" "}
         <a href={intl.href(comparisonUrl({ ...at, treatment: at.comparator, comparator: at.treatment }))}>{t("compare.reverse")}</a>
       </p>
-      {view.outcomes.map((outcome) => (
-        <OutcomeComparison key={outcome.index} outcome={outcome} names={{ treatment: view.treatment.name, comparator: view.comparator.name }} />
-      ))}
+      <WithdrawnFindings withdrawn={view.withdrawal !== null}>
+        {view.outcomes.map((outcome) => (
+          <OutcomeComparison key={outcome.index} outcome={outcome} names={{ treatment: view.treatment.name, comparator: view.comparator.name }} />
+        ))}
+      </WithdrawnFindings>
       <div className="mt-12">
         <HealthCaution />
       </div>

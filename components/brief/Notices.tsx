@@ -15,6 +15,7 @@ export function VersionBanners({ view, translation }: { view: BriefHeader & Page
         withdrawal={view.withdrawal}
         embargoed={view.embargoed}
         releaseAt={view.releaseAt}
+        timeZone={view.timeZone}
         version={view.version}
         latestVersion={view.latestVersion}
         latestHref={briefUrl(view.slug)}
@@ -24,7 +25,7 @@ export function VersionBanners({ view, translation }: { view: BriefHeader & Page
 }
 
 /** null on English pages; otherwise when the version's texts were published in the reader's language, if they were. */
-export type TranslationState = { locale: string; publishedAt: string | null } | null;
+export type TranslationState = { locale: string; publishedAt: string | null; open: string[] } | null;
 
 /**
  * A translated page says when its translation was published; a page whose texts are not translated
@@ -37,7 +38,11 @@ function TranslationNotice({ translation }: { translation: NonNullable<Translati
   const date = intl.date({ dateStyle: "long", timeZone: "UTC" });
   return (
     <p role="note" className="mb-8 border-s-4 border-rule bg-white p-4 font-sans text-sm" data-testid="translation-notice">
-      {translation.publishedAt ? t("brief.translation.published", { date: date.format(new Date(translation.publishedAt)) }) : t("brief.translation.none")}
+      {!translation.publishedAt
+        ? t("brief.translation.none")
+        : translation.open.length > 0
+          ? t("brief.translation.partial", { date: date.format(new Date(translation.publishedAt)) })
+          : t("brief.translation.published", { date: date.format(new Date(translation.publishedAt)) })}
     </p>
   );
 }
@@ -55,6 +60,7 @@ function VersionNotices({
   withdrawal,
   embargoed,
   releaseAt,
+  timeZone,
   version,
   latestVersion,
   latestHref,
@@ -62,6 +68,7 @@ function VersionNotices({
   withdrawal: { at: string; reason: string } | null;
   embargoed: boolean;
   releaseAt: string;
+  timeZone: string;
   version: number;
   latestVersion: number;
   latestHref: string;
@@ -69,6 +76,7 @@ function VersionNotices({
   const { t } = useTranslation();
   const intl = useIntl();
   const when = intl.date({ dateStyle: "long", timeStyle: "short", timeZone: "UTC" });
+  const release = intl.moment(releaseAt, timeZone);
   return (
     <>
       {withdrawal ? (
@@ -82,7 +90,7 @@ function VersionNotices({
       ) : null}
       {embargoed ? (
         <p role="note" className="mb-8 border-s-4 border-accent bg-white p-4 font-sans text-sm" data-testid="embargo">
-          {t("brief.embargo", { date: when.format(new Date(releaseAt)) })}
+          {t("brief.embargo", { date: release })}
         </p>
       ) : null}
       {version < latestVersion ? (
@@ -92,4 +100,40 @@ function VersionNotices({
       ) : null}
     </>
   );
+}
+
+/**
+ * The findings of a withdrawn brief, kept for the record: under a label that stays in view while they
+ * scroll past, inside a hatched margin, so that no one reads or screenshots them as current.
+ */
+export function WithdrawnFindings({ withdrawn, children }: { withdrawn: boolean; children: React.ReactNode }) {
+  const { t } = useTranslation();
+  if (!withdrawn) return <>{children}</>;
+  return (
+    <div className="withdrawn-findings mt-10 border-s-8 ps-4" data-testid="withdrawn-findings">
+      <p className="sticky top-0 z-10 border-b-2 border-ink bg-white py-2 font-sans text-sm font-semibold">{t("brief.withdrawn.findings")}</p>
+      {children}
+    </div>
+  );
+}
+
+
+/**
+ * Where a passage of a partly translated version is shown in the original: its language set, and a
+ * mark saying it is not yet translated (docs/brief-lifecycle.md). Nothing on a page in the original's language.
+ */
+export function useUntranslated(translation: TranslationState) {
+  const { t } = useTranslation();
+  const open = new Set(translation?.publishedAt ? translation.open : []);
+  return {
+    /** The lang attribute of a field's text: "en" where it is shown in the original. */
+    lang: (field: string) => (translation && (!translation.publishedAt || open.has(field)) ? "en" : undefined),
+    /** The mark after a field shown in the original though the rest is translated. */
+    mark: (field: string) =>
+      open.has(field) ? (
+        <span className="ms-2 inline-block border border-ink px-1.5 align-middle font-sans text-xs font-normal" data-testid="not-translated">
+          {t("brief.translation.passage")}
+        </span>
+      ) : null,
+  };
 }

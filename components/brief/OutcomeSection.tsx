@@ -16,7 +16,7 @@ import { comparisonUrl, type VersionAddress } from "#core/publication/urls";
 import { Message } from "../Message";
 import { useIntl } from "../i18n";
 
-export function OutcomeSection({ outcome, version }: { outcome: OutcomeView; version: VersionAddress }) {
+export function OutcomeSection({ outcome, version, nameMark = null }: { outcome: OutcomeView; version: VersionAddress; nameMark?: React.ReactNode }) {
   const { t } = useTranslation();
   const intl = useIntl();
   const id = `outcome-${outcome.index + 1}`;
@@ -30,7 +30,10 @@ export function OutcomeSection({ outcome, version }: { outcome: OutcomeView; ver
   const binary = outcome.effects.some((e) => e.absolute !== null);
   return (
     <section aria-labelledby={id} className="mt-16 border-t-2 border-ink pt-6" data-testid="outcome">
-      <h2 id={id} className="text-3xl leading-tight font-semibold">{outcome.name}</h2>
+      <h2 id={id} className="text-3xl leading-tight font-semibold">
+        {outcome.name}
+        {nameMark}
+      </h2>
       <p className="mt-2 font-sans text-sm text-muted">
         {t("brief.outcomeFacts", {
           measure: t(`brief.measure.${outcome.measure}`),

@@ -14,7 +14,7 @@ import { ResultsScreen } from "./screens/ResultsScreen";
 import { useSignedInPerson, useSignOut } from "./queries";
 import { TranslationEditor, TranslationQueue } from "./screens/TranslationsScreen";
 import { loadTranslations } from "../i18n";
-import { may, setErrorWords } from "./api";
+import { may } from "./api";
 import { localeOf, textDirection } from "#core/languages/locales";
 
 export function DeskApp() {
@@ -35,7 +35,6 @@ function SignedInDesk() {
   const signOut = useSignOut();
   const person = session.data;
 
-  useEffect(() => setErrorWords((key) => (i18n.exists(`desk.${key}`) ? i18n.t(`desk.${key}`) : null)), [i18n]);
   // The desk speaks the signed-in person's language (chosen on their account screen).
   const deskLocale = localeOf(person?.locale);
   useEffect(() => {

@@ -20,15 +20,6 @@ export class ApiError extends Error {
   }
 }
 
-/**
- * The desk's words for an API error key ("errors.conflict"), set by the desk when its language is
- * known; the API's English message is kept for a key the interface has no words for.
- */
-let errorWords: (key: string) => string | null = () => null;
-export function setErrorWords(words: (key: string) => string | null): void {
-  errorWords = words;
-}
-
 let csrfToken: string | null = null;
 
 async function fetchCsrfToken(): Promise<string> {
@@ -81,12 +72,9 @@ async function request<T>(method: string, path: string, body?: unknown): Promise
   if (response.status === 204) return undefined as T;
   const payload = await response.json().catch(() => ({}));
   if (!response.ok) {
+    // The server words its errors in the signed-in person's language (server/web/http/errors.ts).
     const error = (payload as { error?: { key?: string; message?: string } }).error;
-    const key = error?.key ?? "errors.internal";
-    const fields = ((payload as { error?: { details?: unknown } }).error?.details ?? null) as { field?: string }[] | null;
-    const named = Array.isArray(fields) && fields.some((d) => d?.field) ? ` (${fields.map((d) => d.field).filter(Boolean).join(", ")})` : "";
-    const words = errorWords(key);
-    throw new ApiError(response.status, key, words ? words + named : (error?.message ?? response.statusText), payload);
+    throw new ApiError(response.status, error?.key ?? "errors.internal", error?.message ?? response.statusText, payload);
   }
   return payload as T;
 }

@@ -29,8 +29,10 @@ export const queryKeys = {
   brief: (briefId: string) => ["brief", briefId],
   result: (outcomeId: string) => ["result", outcomeId],
   certainty: (outcomeId: string) => ["certainty", outcomeId],
-  reviews: (briefId: string) => ["reviews", briefId],
-  readiness: (briefId: string) => ["readiness", briefId],
+  // Under the brief's key: whatever refreshes the brief (an upload, a saved text) refreshes these too.
+  reviews: (briefId: string) => ["brief", briefId, "reviews"],
+  readiness: (briefId: string) => ["brief", briefId, "readiness"],
+  changes: (briefId: string) => ["brief", briefId, "changes"],
   pressRoom: ["press-room"],
   people: ["people"],
   messages: ["messages"],
@@ -210,6 +212,11 @@ export function useSaveTexts(briefId: string) {
 
 export function useReadiness(briefId: string) {
   return useQuery({ queryKey: queryKeys.readiness(briefId), queryFn: () => call("GET /api/briefs/:id/readiness", { params: { id: briefId } }) });
+}
+
+/** What publishing the draft would change since the last version (null before a first version). */
+export function useDraftChanges(briefId: string, enabled: boolean) {
+  return useQuery({ queryKey: queryKeys.changes(briefId), queryFn: () => call("GET /api/briefs/:id/changes", { params: { id: briefId } }), enabled });
 }
 
 export function useReviews(briefId: string) {

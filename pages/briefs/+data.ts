@@ -2,7 +2,7 @@
 // names (PostgreSQL full-text search, server/db/versions.ts) in the reader's language and the
 // original, a page of results at a time.
 import type { PageContextServer } from "vike/types";
-import { briefsOfTopic, pageOf } from "#core/publication/search";
+import { briefsOfTopic, currentBriefs, pageOf } from "#core/publication/search";
 import { searchReleasedSlugs } from "#db/versions";
 
 export async function data(pageContext: PageContextServer) {
@@ -13,7 +13,7 @@ export async function data(pageContext: PageContextServer) {
     pageContext.catalogue!(pageContext.locale),
     q.trim() ? searchReleasedSlugs(pageContext.db!, q, pageContext.locale) : null,
   ]);
-  const matching = briefsOfTopic(found ? all.filter((brief) => found.has(brief.slug)) : all, topic);
+  const matching = briefsOfTopic(found ? all.filter((brief) => found.has(brief.slug)) : currentBriefs(all), topic);
   const { items, page, pages } = pageOf(matching, requested);
   return { briefs: items, total: matching.length, page, pages, topics, q, topic, caching: "revalidate" as const, cacheState: state };
 }

@@ -1,7 +1,9 @@
 import path from "node:path";
 import { fileURLToPath } from "node:url";
 import { migrate } from "drizzle-orm/node-postgres/migrator";
+import { versionChanges } from "#core/snapshot/changes";
 import type { DatabaseConnection } from "./client";
+import { fillMissingChanges } from "./versions";
 
 export const migrationsFolder = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "../../drizzle");
 
@@ -18,6 +20,8 @@ export async function migrateDatabase({ pool, db }: DatabaseConnection, folder =
   try {
     await client.query("select pg_advisory_lock($1)", [migrationLock]);
     await migrate(db, { migrationsFolder: folder });
+    // A data migration the SQL cannot do: what changed in versions frozen before it was computed.
+    if (folder === migrationsFolder) await fillMissingChanges(db, versionChanges);
   } finally {
     await client.query("select pg_advisory_unlock($1)", [migrationLock]).catch(() => {});
     client.release();

@@ -5,6 +5,7 @@ import type { ComparisonJudgement } from "#core/grade/assess";
 import type { AnalysisOptions, DatasetIssue, ParsedDataset } from "#core/nma/types";
 import type { VersionSnapshot } from "#core/snapshot/schema";
 import type { PublishedFields, StoredFields } from "#core/languages/translation";
+import type { VersionChanges } from "#core/snapshot/changes";
 import {
   bigserial,
   check,
@@ -309,6 +310,12 @@ export const briefVersions = pgTable(
       .generatedAlwaysAs(sql`snapshot -> 'treatments'`),
     createdBy: uuid("created_by").references(() => people.id),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+    /**
+     * What changed since the version before (server/core/snapshot/changes.ts), computed from the two
+     * frozen snapshots when this one is frozen; null for version 1. Written once: the database lets
+     * a version frozen before this column existed have it filled in, and nothing after.
+     */
+    changes: jsonb("changes").$type<VersionChanges>(),
   },
   (table) => [uniqueIndex("brief_versions_number_idx").on(table.briefId, table.number)],
 );

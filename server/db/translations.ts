@@ -1,8 +1,8 @@
 // Translations of released versions, one row per version and language (schema: versionTranslations).
-import { and, desc, eq, inArray, isNull, lt, sql } from "drizzle-orm";
+import { and, desc, eq, inArray, isNotNull, isNull, lt, sql } from "drizzle-orm";
 import { isTranslationLocale, type Locale, type TranslationLocale } from "#core/languages/locales";
 import { grammaticalSnapshot } from "#core/languages/grammar";
-import { translatedSnapshot, translatedTopic, versionGrammar, type PublishedFields, type StoredFields } from "#core/languages/translation";
+import { fieldViews, openFields, sourceFields, translatedSnapshot, translatedTopic, unfinished, versionGrammar, type PublishedFields, type StoredFields } from "#core/languages/translation";
 import type { VersionSnapshot } from "#core/snapshot/schema";
 import { readSnapshot } from "#core/snapshot/upgrade";
 import type { Database, Executor } from "./client";
@@ -65,6 +65,29 @@ export async function earlierTranslation(db: Database, version: TranslatableVers
   return row ? shape(row.translation) : null;
 }
 
+/**
+ * Per language, the newest published translation of the brief's versions before `number`, with the
+ * snapshot it translates: what a new version's translation is carried from.
+ */
+export async function publishedTranslationsBefore(db: Executor, briefId: string, number: number): Promise<{ locale: TranslationLocale; snapshot: VersionSnapshot; published: PublishedFields }[]> {
+  const rows = await db
+    .selectDistinctOn([versionTranslations.locale], { locale: versionTranslations.locale, snapshot: briefVersions.snapshot, published: versionTranslations.publishedFields })
+    .from(versionTranslations)
+    .innerJoin(briefVersions, eq(briefVersions.id, versionTranslations.versionId))
+    .where(and(eq(briefVersions.briefId, briefId), lt(briefVersions.number, number), isNotNull(versionTranslations.publishedAt)))
+    .orderBy(versionTranslations.locale, desc(briefVersions.number));
+  return rows.flatMap((row) => (isTranslationLocale(row.locale) && row.published ? [{ locale: row.locale, snapshot: readSnapshot(row.snapshot), published: row.published }] : []));
+}
+
+/**
+ * A new version's translation carried from an earlier one: readers see the carried fields from now
+ * on (with the version's release); it is a draft until the changed fields are translated, or
+ * published already when nothing changed.
+ */
+export async function insertCarriedTranslation(tx: Executor, key: { versionId: string; locale: TranslationLocale }, carried: { fields: StoredFields; published: PublishedFields; complete: boolean }): Promise<void> {
+  await tx.insert(versionTranslations).values({ ...key, state: carried.complete ? "published" : "draft", fields: carried.fields, publishedFields: carried.published, publishedAt: sql`now()` });
+}
+
 /** Saves the working copy; the state goes back to draft (what readers see changes only when it is published again). */
 export async function saveTranslation(tx: Executor, key: { versionId: string; locale: TranslationLocale }, fields: StoredFields, personId: string): Promise<void> {
   await tx
@@ -109,11 +132,12 @@ export async function inLanguage(db: Database, versionId: string, original: Vers
   const source = grammaticalSnapshot(original, locale, versionGrammar(original, locale, null));
   if (!isTranslationLocale(locale)) return { snapshot: source, topic: original.brief.topic, translation: null };
   const published = await publishedTranslation(db, versionId, locale);
-  if (!published) return { snapshot: source, topic: original.brief.topic, translation: { locale, publishedAt: null } };
+  if (!published) return { snapshot: source, topic: original.brief.topic, translation: { locale, publishedAt: null, open: [] as string[] } };
   return {
     snapshot: grammaticalSnapshot(translatedSnapshot(original, published.fields), locale, versionGrammar(original, locale, published.fields)),
     topic: translatedTopic(original, published.fields),
-    translation: { locale, publishedAt: published.publishedAt as string | null },
+    // A correction's carried translation: the fields still shown in the original, each marked on the page.
+    translation: { locale, publishedAt: published.publishedAt as string | null, open: openFields(sourceFields(original), published.fields) },
   };
 }
 
@@ -123,15 +147,22 @@ export interface QueueEntry {
   title: string;
   number: number;
   releaseAt: string;
+  /** Not yet released: translated now, its translations go public with it. */
+  embargoed: boolean;
   /** Per language: its state, "missing" when nobody has started it. */
   states: Partial<Record<TranslationLocale, TranslationState | "missing">>;
+  /**
+   * Per language whose translation was carried from an earlier version and is partly published: how
+   * many fields wait for the translator (empty, or their source changed).
+   */
+  updates: Partial<Record<TranslationLocale, number>>;
 }
 
 /**
- * The newest version of each brief, with the state of each language asked for; a version still under
- * embargo only for those who may read it (the press and editors), like everything else about it.
+ * The newest version of each brief, released or embargoed (translators translate before the release),
+ * with the state of each language asked for, newest release first.
  */
-export async function translationQueue(db: Database, locales: TranslationLocale[], seesEmbargoed: boolean): Promise<QueueEntry[]> {
+export async function translationQueue(db: Database, locales: TranslationLocale[]): Promise<QueueEntry[]> {
   // One row per brief: its newest version (DISTINCT ON keeps the first of each brief), newest release first.
   const rows = await db
     .selectDistinctOn([briefVersions.briefId], { versionId: briefVersions.id, slug: briefs.slug, title: sql<string>`${briefVersions.listedBrief}->>'title'`, number: briefVersions.number, releaseAt: briefVersions.releaseAt })
@@ -140,17 +171,32 @@ export async function translationQueue(db: Database, locales: TranslationLocale[
     .where(isNull(briefs.withdrawnAt))
     .orderBy(briefVersions.briefId, desc(briefVersions.number));
   const now = Date.now();
-  const versions = rows.filter((row) => seesEmbargoed || row.releaseAt.getTime() <= now).sort((a, b) => b.releaseAt.getTime() - a.releaseAt.getTime());
-  if (versions.length === 0 || locales.length === 0) return versions.map((v) => ({ ...v, releaseAt: v.releaseAt.toISOString(), states: {} }));
+  const versions = rows.sort((a, b) => b.releaseAt.getTime() - a.releaseAt.getTime());
+  const entry = (version: (typeof versions)[number]) => ({ ...version, releaseAt: version.releaseAt.toISOString(), embargoed: version.releaseAt.getTime() > now });
+  if (versions.length === 0 || locales.length === 0) return versions.map((v) => ({ ...entry(v), states: {}, updates: {} }));
   const translated = await db
-    .select({ versionId: versionTranslations.versionId, locale: versionTranslations.locale, state: versionTranslations.state })
+    .select({ versionId: versionTranslations.versionId, locale: versionTranslations.locale, state: versionTranslations.state, fields: versionTranslations.fields, partlyPublished: sql<boolean>`${versionTranslations.publishedAt} is not null and ${versionTranslations.state} <> 'published'` })
     .from(versionTranslations)
     .where(and(inArray(versionTranslations.versionId, versions.map((v) => v.versionId)), inArray(versionTranslations.locale, locales)));
-  return versions.map((version) => ({
-    ...version,
-    releaseAt: version.releaseAt.toISOString(),
-    states: Object.fromEntries(locales.map((locale) => [locale, translated.find((r) => r.versionId === version.versionId && r.locale === locale)?.state ?? "missing"])),
-  }));
+  // Only a carried translation needs its snapshot read, to count what waits in it.
+  const carried = translated.filter((row) => row.partlyPublished);
+  const snapshots = new Map<string, VersionSnapshot>();
+  if (carried.length > 0) {
+    const found = await db.select({ id: briefVersions.id, snapshot: briefVersions.snapshot }).from(briefVersions).where(inArray(briefVersions.id, [...new Set(carried.map((row) => row.versionId))]));
+    for (const row of found) snapshots.set(row.id, readSnapshot(row.snapshot));
+  }
+  const waiting = (row: (typeof carried)[number]) => {
+    const gaps = unfinished(fieldViews(sourceFields(snapshots.get(row.versionId)!), row.fields));
+    return gaps.empty.length + gaps.stale.length;
+  };
+  return versions.map((version) => {
+    const rowsOf = translated.filter((r) => r.versionId === version.versionId);
+    return {
+      ...entry(version),
+      states: Object.fromEntries(locales.map((locale) => [locale, rowsOf.find((r) => r.locale === locale)?.state ?? "missing"])),
+      updates: Object.fromEntries(rowsOf.filter((r) => r.partlyPublished && isTranslationLocale(r.locale)).map((r) => [r.locale, waiting(r)])),
+    };
+  });
 }
 
 /** The id of a brief's newest version, released or scheduled; null before its first. */

@@ -1,6 +1,6 @@
 // Versions of briefs: a version is a frozen snapshot of a brief — data, results, certainty, groups —
 // written once and never changed (the database refuses it too). Reading them for their readers.
-import { and, desc, eq, gte, inArray, isNull, lte, sql } from "drizzle-orm";
+import { and, desc, eq, gt, gte, inArray, isNull, lte, sql } from "drizzle-orm";
 import { mayReadEmbargoed, type Role } from "#core/access/roles";
 import { defaultLocale, type Locale } from "#core/languages/locales";
 import type { Database, Executor } from "./client";
@@ -8,6 +8,7 @@ import { briefs, briefVersions, releaseAnnouncements, versionTranslations } from
 import { slugify } from "#core/publication/slug";
 import type { VersionEntry } from "#core/publication/brief-page";
 import type { ReleasedBrief } from "#core/publication/search";
+import type { VersionChanges } from "#core/snapshot/changes";
 import type { VersionSnapshot } from "#core/snapshot/schema";
 import { readSnapshot } from "#core/snapshot/upgrade";
 
@@ -35,9 +36,35 @@ export async function moveReleaseTime(db: Executor, briefId: string, number: num
     .where(and(eq(briefVersions.briefId, briefId), eq(briefVersions.number, number)));
 }
 
-/** Freezes a version: the database refuses any later change to the row (a trigger). */
-export async function insertVersion(db: Executor, values: { briefId: string; number: number; releaseAt: Date; note: string | null; snapshot: VersionSnapshot; createdBy: string }) {
-  await db.insert(briefVersions).values(values);
+/** Freezes a version: the database refuses any later change to the row (a trigger). Answers its id. */
+export async function insertVersion(db: Executor, values: { briefId: string; number: number; releaseAt: Date; note: string | null; snapshot: VersionSnapshot; changes: VersionChanges | null; createdBy: string }): Promise<string> {
+  const [row] = await db.insert(briefVersions).values(values).returning({ id: briefVersions.id });
+  return row!.id;
+}
+
+/** A version's frozen snapshot by its brief and number; null when there is none. */
+export async function snapshotOf(db: Executor, briefId: string, number: number): Promise<VersionSnapshot | null> {
+  const [row] = await db.select({ snapshot: briefVersions.snapshot }).from(briefVersions).where(and(eq(briefVersions.briefId, briefId), eq(briefVersions.number, number)));
+  return row ? readSnapshot(row.snapshot) : null;
+}
+
+/** What changed in a version since the one before it, as frozen with it; null for a first version. */
+export async function changesOf(db: Executor, versionId: string): Promise<VersionChanges | null> {
+  const [row] = await db.select({ changes: briefVersions.changes }).from(briefVersions).where(eq(briefVersions.id, versionId));
+  return row?.changes ?? null;
+}
+
+/**
+ * Versions frozen before their changes were computed get them once (the database allows this one
+ * write): run at start-up, a handful of rows at most, nothing when all are filled in.
+ */
+export async function fillMissingChanges(db: Database, compute: (before: VersionSnapshot, after: VersionSnapshot) => VersionChanges): Promise<number> {
+  const missing = await db.select({ id: briefVersions.id, briefId: briefVersions.briefId, number: briefVersions.number }).from(briefVersions).where(and(isNull(briefVersions.changes), gt(briefVersions.number, 1)));
+  for (const version of missing) {
+    const [before, after] = await Promise.all([snapshotOf(db, version.briefId, version.number - 1), snapshotOf(db, version.briefId, version.number)]);
+    if (before && after) await db.update(briefVersions).set({ changes: compute(before, after) }).where(eq(briefVersions.id, version.id));
+  }
+  return missing.length;
 }
 
 export interface FoundVersion {
@@ -49,6 +76,8 @@ export interface FoundVersion {
   versionId: string;
   /** When a translation of any of the brief's versions was last published: cached pages are checked against it. */
   translatedAt: string | null;
+  /** What changed since the version before, frozen with this one; null for version 1. */
+  changes: VersionChanges | null;
 }
 
 /** The last publication of a translation of any version of the brief (a column of a query joining briefs). */
@@ -64,6 +93,7 @@ export async function readVersion(db: Database, slug: string, number: number, ro
       withdrawnAt: briefs.withdrawnAt,
       withdrawalReason: briefs.withdrawalReason,
       translatedAt: lastTranslated,
+      changes: briefVersions.changes,
     })
     .from(briefVersions)
     .innerJoin(briefs, eq(briefs.id, briefVersions.briefId))
@@ -77,6 +107,7 @@ export async function readVersion(db: Database, slug: string, number: number, ro
     withdrawal: row.withdrawnAt ? { at: row.withdrawnAt.toISOString(), reason: row.withdrawalReason ?? "" } : null,
     versionId: row.versionId,
     translatedAt: row.translatedAt === null ? null : new Date(row.translatedAt).toISOString(),
+    changes: row.changes ?? null,
   };
 }
 
@@ -243,6 +274,7 @@ export interface ReleasedVersion {
   note: string | null;
   withdrawnAt: string | null;
   withdrawalReason: string | null;
+  changes: VersionChanges | null;
 }
 
 /** Every released version, newest first: the feed's entries and the sitemap's addresses. */
@@ -252,6 +284,7 @@ export async function listReleasedVersions(db: Database): Promise<ReleasedVersio
       ...listedVersion,
       withdrawnAt: briefs.withdrawnAt,
       withdrawalReason: briefs.withdrawalReason,
+      changes: briefVersions.changes,
     })
     .from(briefVersions)
     .innerJoin(briefs, eq(briefs.id, briefVersions.briefId))
@@ -263,7 +296,7 @@ export async function listReleasedVersions(db: Database): Promise<ReleasedVersio
 /** What an announcement of a version says: its brief, number, release time and note. */
 export async function versionForAnnouncement(db: Executor, briefId: string, number: number) {
   const [row] = await db
-    .select({ ...listedVersion, versionId: briefVersions.id, topic: sql<string>`${briefVersions.listedBrief}->>'topic'` })
+    .select({ ...listedVersion, versionId: briefVersions.id, topic: sql<string>`${briefVersions.listedBrief}->>'topic'`, changes: briefVersions.changes })
     .from(briefVersions)
     .innerJoin(briefs, eq(briefs.id, briefVersions.briefId))
     .where(and(eq(briefVersions.briefId, briefId), eq(briefVersions.number, number)));

@@ -6,11 +6,14 @@
 import type { VersionSnapshot } from "#core/snapshot/schema";
 import { versionUrl } from "#core/publication/urls";
 import { lockBrief, setBriefState } from "#db/briefs";
-import type { Database } from "#db/client";
+import type { Database, Executor } from "#db/client";
 import { approvalOf } from "#db/reviews";
-import { insertVersion, lastVersionNumber, moveReleaseTime, releaseTimeOf } from "#db/versions";
+import { insertCarriedTranslation, publishedTranslationsBefore } from "#db/translations";
+import { carriedTranslation, fieldViews, sourceFields, unfinished } from "#core/languages/translation";
+import { insertVersion, lastVersionNumber, moveReleaseTime, releaseTimeOf, snapshotOf } from "#db/versions";
+import { versionChanges } from "#core/snapshot/changes";
 import type { ReadinessItem } from "#core/editorial/readiness";
-import { queueAlerts, type AlertContext } from "./alerts";
+import { queueAlerts, type AlertContext, type CarriedCounts } from "./alerts";
 import { briefReadiness } from "./readiness";
 import { contentChecksum, draftSnapshot } from "./snapshot";
 
@@ -35,6 +38,23 @@ export async function rescheduleRelease(db: Database, briefId: string, number: n
   });
 }
 
+/**
+ * A correction's translations, carried field by field from the newest published translation of
+ * each language (server/core/languages/translation.ts): readers of that language keep every passage
+ * whose source did not change. Answers, per language, how many fields wait for the translator.
+ */
+async function carryTranslations(tx: Executor, briefId: string, versionId: string, snapshot: VersionSnapshot): Promise<CarriedCounts> {
+  const counts: CarriedCounts = {};
+  for (const earlier of await publishedTranslationsBefore(tx, briefId, snapshot.version)) {
+    const carried = carriedTranslation(earlier, snapshot);
+    const waiting = unfinished(fieldViews(sourceFields(snapshot), carried.fields));
+    const open = new Set([...carried.open, ...waiting.empty, ...waiting.stale]).size;
+    await insertCarriedTranslation(tx, { versionId, locale: earlier.locale }, { ...carried, complete: open === 0 });
+    counts[earlier.locale] = open;
+  }
+  return counts;
+}
+
 export async function publishVersion(db: Database, briefId: string, options: { releaseAt?: Date; note?: string }, actorId: string, alerts: AlertContext | null): Promise<PublishOutcome> {
   const readiness = await briefReadiness(db, briefId);
   if (readiness && readiness.blocking.length > 0) return { ok: false, reason: "not-ready", detail: "the draft is not ready to publish", items: readiness.blocking };
@@ -52,10 +72,13 @@ export async function publishVersion(db: Database, briefId: string, options: { r
     if (number > 1 && !note) return { ok: false, reason: "note-required", detail: "a correction needs a public note saying what changed" };
     const releaseAt = options.releaseAt ?? new Date();
     const snapshot: VersionSnapshot = { ...draft.snapshot, version: number, releaseAt: releaseAt.toISOString(), note };
-    await insertVersion(tx, { briefId, number, releaseAt, note, snapshot, createdBy: actorId });
+    const before = number > 1 ? await snapshotOf(tx, briefId, number - 1) : null;
+    const changes = before ? versionChanges(before, snapshot) : null;
+    const versionId = await insertVersion(tx, { briefId, number, releaseAt, note, snapshot, changes, createdBy: actorId });
+    const carried = await carryTranslations(tx, briefId, versionId, snapshot);
     const status = releaseAt.getTime() > Date.now() ? "scheduled" : number > 1 ? "corrected" : "published";
     await setBriefState(tx, brief, { status }, { actorId, action: "publish", after: { status, version: number, releaseAt } });
-    if (alerts) await queueAlerts(alerts, tx, briefId, number);
+    if (alerts) await queueAlerts(alerts, tx, briefId, number, { carried });
     return { ok: true, version: number, url: versionUrl({ slug: brief.slug, version: number }) };
   });
 }

@@ -5,7 +5,12 @@ import { createHash } from "node:crypto";
 import { concludeOutcome } from "#core/grade/conclusions";
 import { renderMarkdown } from "#core/editorial/markdown";
 import { outcomeFacts } from "#core/snapshot/facts";
-import { draftSnapshotSchema, snapshotSchemaVersion, type DraftSnapshot } from "#core/snapshot/schema";
+import { draftSnapshotSchema, snapshotSchemaVersion, type DraftSnapshot, type VersionSnapshot } from "#core/snapshot/schema";
+import { changesView, versionChanges, type ChangesView } from "#core/snapshot/changes";
+import { grammaticalSnapshot } from "#core/languages/grammar";
+import type { Locale } from "#core/languages/locales";
+import { versionGrammar } from "#core/languages/translation";
+import { lastVersionNumber, snapshotOf } from "#db/versions";
 import { analysisSettings, latestDataset, latestResult } from "#db/analyses";
 import { briefWithOutcomes } from "#db/briefs";
 import type { Database } from "#db/client";
@@ -56,4 +61,21 @@ export async function draftSnapshot(db: Database, briefId: string): Promise<Draf
 /** The checksum of a draft's content as it would be frozen: what an approval vouches for. */
 export function contentChecksum(snapshot: DraftSnapshot): string {
   return createHash("sha256").update(JSON.stringify(snapshot)).digest("hex");
+}
+
+/**
+ * What publishing the draft now would change since the brief's last version, worded for the desk
+ * (names as the analyst wrote them, sentences in `locale`): what the editor reads before a
+ * correction. Null before a first version, or while the draft cannot be frozen; undefined when there
+ * is no such brief.
+ */
+export async function draftChanges(db: Database, briefId: string, locale: Locale): Promise<ChangesView | null | undefined> {
+  const draft = await draftSnapshot(db, briefId);
+  if (!draft.ok && draft.reason === "not-found") return undefined;
+  const last = await lastVersionNumber(db, briefId);
+  const before = last > 0 ? await snapshotOf(db, briefId, last) : null;
+  if (!draft.ok || !before) return null;
+  const after: VersionSnapshot = { ...draft.snapshot, version: last + 1, releaseAt: new Date().toISOString(), note: null };
+  const worded = (snapshot: VersionSnapshot) => grammaticalSnapshot(snapshot, locale, versionGrammar(snapshot, locale, null));
+  return changesView(versionChanges(before, after), worded(before), worded(after));
 }

@@ -9,6 +9,7 @@ import { requestSubscription, subscribersOf } from "#db/subscriptions";
 import { queueMail, type MailContext } from "./mail";
 import type { Queue } from "./queue";
 import type { Executor } from "#db/client";
+import type { VersionChanges } from "#core/snapshot/changes";
 
 const subscribeJob = "subscribe";
 
@@ -29,11 +30,11 @@ export async function startSubscriptionWorker(ctx: MailContext & { queue: Queue 
 }
 
 /** The notices of a release to its topic's subscribers, each with its own unsubscribe link. */
-export async function noticesFor(ctx: Pick<MailContext, "siteUrl">, tx: Executor, version: { slug: string; title: string; topic: string; number: number; note: string | null }): Promise<Message[]> {
+export async function noticesFor(ctx: Pick<MailContext, "siteUrl">, tx: Executor, version: { slug: string; title: string; topic: string; number: number; note: string | null; changes: VersionChanges | null }): Promise<Message[]> {
   // Each subscriber's link opens the version in the language they subscribed in.
   const link = (locale: string) => ctx.siteUrl + localePath(localeOf(locale), versionUrl({ slug: version.slug, version: version.number }));
   const subscribers = await subscribersOf(tx, slugify(version.topic));
   return subscribers.map((subscriber) =>
-    topicNoticeMessage({ recipient: subscriber.email, topic: version.topic, title: version.title, version: version.number, note: version.note, link: link(subscriber.locale), unsubscribeUrl: ctx.siteUrl + oneClickUnsubscribeUrl(subscriber.unsubscribeToken), locale: subscriber.locale }),
+    topicNoticeMessage({ recipient: subscriber.email, topic: version.topic, title: version.title, version: version.number, note: version.note, changes: version.changes, link: link(subscriber.locale), unsubscribeUrl: ctx.siteUrl + oneClickUnsubscribeUrl(subscriber.unsubscribeToken), locale: subscriber.locale }),
   );
 }

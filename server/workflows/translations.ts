@@ -3,7 +3,6 @@
 // version's frozen snapshot is only ever read.
 import type { TranslationLocale } from "#core/languages/locales";
 import { fieldViews, sourceFields, storedAfterSave, unfinished, type FieldView, type PublishedFields, type StoredFields } from "#core/languages/translation";
-import { mayReadEmbargoed } from "#core/access/roles";
 import { recordAudit } from "#db/audit";
 import type { Database } from "#db/client";
 import type { Person } from "#db/people";
@@ -42,12 +41,6 @@ async function working(db: Database, version: TranslatableVersion, locale: Trans
   return { stored: earlier?.fields ?? {}, state: earlier ? "draft" : "missing", publishedAt: null, carriedFrom: earlier !== null };
 }
 
-/** A version this person may translate: released, or under embargo for those who may read it. */
-async function visibleVersion(db: Database, versionId: string, person: Person): Promise<TranslatableVersion | null> {
-  const version = await translatableVersion(db, versionId);
-  if (!version) return null;
-  return Date.parse(version.releaseAt) <= Date.now() || mayReadEmbargoed(person.roles) ? version : null;
-}
 
 /** The translation as the desk shows it, from the version and its working copy: each step answers with it, read once. */
 function viewOf(version: TranslatableVersion, locale: TranslationLocale, { stored, state, publishedAt, carriedFrom }: Working): TranslationView {
@@ -64,20 +57,25 @@ function viewOf(version: TranslatableVersion, locale: TranslationLocale, { store
   };
 }
 
-/** The version and its translation's working copy, or null when this person may not see the version. */
-async function load(db: Database, person: Person, versionId: string, locale: TranslationLocale) {
-  const version = await visibleVersion(db, versionId, person);
+/**
+ * The version and its translation's working copy, or null when there is no such version. Released or
+ * under embargo alike: translators translate before the release, so that readers of their language get
+ * it with the release (docs/roles.md: what translators may read under embargo). The routes admit only
+ * translators, in their languages, and editors.
+ */
+async function load(db: Database, versionId: string, locale: TranslationLocale) {
+  const version = await translatableVersion(db, versionId);
   return version ? { version, working: await working(db, version, locale) } : null;
 }
 
 export async function readTranslationView(db: Database, person: Person, versionId: string, locale: TranslationLocale): Promise<TranslationView | null> {
-  const found = await load(db, person, versionId, locale);
+  const found = await load(db, versionId, locale);
   return found ? viewOf(found.version, locale, found.working) : null;
 }
 
 /** Saves the targets given (other fields keep theirs); the translation is a draft again. */
 export async function saveTranslationDraft(db: Database, person: Person, versionId: string, locale: TranslationLocale, targets: Record<string, string>): Promise<{ ok: true; view: TranslationView } | Refusal> {
-  const found = await load(db, person, versionId, locale);
+  const found = await load(db, versionId, locale);
   if (!found) return { ok: false, reason: "not-found" };
   const fields: StoredFields = storedAfterSave(sourceFields(found.version.snapshot), found.working.stored, targets);
   await db.transaction(async (tx) => {
@@ -91,7 +89,7 @@ export async function saveTranslationDraft(db: Database, person: Person, version
 
 /** A draft whose every field is translated against today's source becomes ready for an editor. */
 export async function markTranslationReady(db: Database, person: Person, versionId: string, locale: TranslationLocale): Promise<{ ok: true; view: TranslationView } | Refusal> {
-  const found = await load(db, person, versionId, locale);
+  const found = await load(db, versionId, locale);
   if (!found) return { ok: false, reason: "not-found" };
   const view = viewOf(found.version, locale, found.working);
   const gaps = unfinished(view.fields);
@@ -105,7 +103,7 @@ export async function markTranslationReady(db: Database, person: Person, version
 
 /** An editor publishes a ready translation: readers of that language see it from now on. */
 export async function publishTranslationOf(db: Database, person: Person, versionId: string, locale: TranslationLocale): Promise<{ ok: true; view: TranslationView } | Refusal> {
-  const found = await load(db, person, versionId, locale);
+  const found = await load(db, versionId, locale);
   if (!found) return { ok: false, reason: "not-found" };
   const view = viewOf(found.version, locale, found.working);
   if (view.state !== "ready") return { ok: false, reason: "not-ready" };

@@ -70,7 +70,7 @@ describe("oEmbed 1.0", () => {
     expect(page).toContain(`<link rel="alternate" type="application/json+oembed" href="${server.url}/oembed?url=${encodeURIComponent(`${server.url}${comparison}`)}&amp;format=json"`);
   });
 
-  it("gives 404 for an address that is not released (embargoed, withdrawn, unknown or another site's), and 501 for XML", async () => {
+  it("gives 404 for an address that is not released (embargoed, unknown or another site's), a withdrawn brief's card that says so, and 501 for XML", async () => {
     const embargoed = await publishedBrief(clients.analyst!, clients.editor!, "Embargoed for oEmbed", new Date(Date.now() + 48 * 3600 * 1000).toISOString());
     expect((await oembed(`${server.url}/briefs/${embargoed.slug}/v/1/compare/grp_counseling/no_contact`)).status).toBe(404);
     expect((await get(`/embed/briefs/${embargoed.slug}/v/1/compare/grp_counseling/no_contact`)).status).toBe(404);
@@ -79,8 +79,10 @@ describe("oEmbed 1.0", () => {
     const withdrawn = await publishedBrief(clients.analyst!, clients.editor!, "Withdrawn for oEmbed");
     expect((await oembed(`${server.url}/briefs/${withdrawn.slug}/v/1/compare/grp_counseling/no_contact`)).status).toBe(200);
     expect((await clients.editor!.request("POST", `/api/briefs/${withdrawn.briefId}/withdrawal`, { json: { reason: "A trial in the data was retracted." } })).status).toBe(200);
-    expect((await oembed(`${server.url}/briefs/${withdrawn.slug}/v/1/compare/grp_counseling/no_contact`)).status).toBe(404);
-    // A card already embedded says it was withdrawn and why, without its findings.
+    // oEmbed still answers, with a card that says it was withdrawn and why, without its findings.
+    const answer = await oembed(`${server.url}/briefs/${withdrawn.slug}/v/1/compare/grp_counseling/no_contact`);
+    expect(answer.status).toBe(200);
+    expect(((await answer.json()) as { title: string }).title).toBe("Withdrawn: Group counselling vs No contact");
     const card = await get(`/embed/briefs/${withdrawn.slug}/v/1/compare/grp_counseling/no_contact`);
     expect(card.status).toBe(410);
     const html = await card.text();

@@ -52,11 +52,11 @@ export function PressRoom({ canAsk = false }: { canAsk?: boolean }) {
   const { t } = useTranslation();
   const intl = useIntl();
   const versions = usePressRoom();
-  const date = intl.date({ dateStyle: "long", timeStyle: "short", timeZone: "UTC" });
   return (
     <section className="mt-10" aria-labelledby="press-room-title" data-testid="press-room">
       <h2 id="press-room-title" className="text-xl font-semibold">{t("desk.pressRoom.title")}</h2>
       <p className="mt-2 text-muted">{t("desk.pressRoom.lead")}</p>
+      {/* Times in the reader's browser's time zone, named: the desk renders there. */}
       {versions.isError ? <p role="alert">{t("desk.error", { message: versions.error.message })}</p> : null}
       {versions.data && versions.data.length === 0 ? <p className="mt-3">{t("desk.pressRoom.empty")}</p> : null}
       <ul className="mt-3 divide-y divide-rule">
@@ -65,9 +65,9 @@ export function PressRoom({ canAsk = false }: { canAsk?: boolean }) {
             <a href={versionUrl({ slug: entry.slug, version: entry.number })} className="text-lg font-semibold">{entry.title}</a>
             <p className="font-sans text-sm">
               {entry.embargoed ? (
-                <strong className="text-accent">{t("desk.pressRoom.embargoed", { date: date.format(new Date(entry.releaseAt)) })}</strong>
+                <strong className="text-accent">{t("desk.pressRoom.embargoed", { date: intl.moment(entry.releaseAt) })}</strong>
               ) : (
-                t("desk.pressRoom.released", { date: date.format(new Date(entry.releaseAt)) })
+                t("desk.pressRoom.released", { date: intl.moment(entry.releaseAt) })
               )}
               {" · "}
               {t("desk.pressRoom.version", { version: entry.number })}

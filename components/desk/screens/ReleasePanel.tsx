@@ -4,7 +4,8 @@
 import { useState } from "react";
 import { useTranslation } from "react-i18next";
 import { buttonClass, Field, formValues, inputClass } from "./forms";
-import { usePublish, useReadiness, useReschedule, useReviews, useReviewStep, useWithdraw } from "../queries";
+import { useDraftChanges, usePublish, useReadiness, useReschedule, useReviews, useReviewStep, useWithdraw } from "../queries";
+import { VersionChanges } from "../../brief/VersionChanges";
 import type { BriefDetail, ReviewBody } from "#web/api/contract";
 import { previewUrl } from "#core/publication/urls";
 import { useIntl } from "../../i18n";
@@ -18,6 +19,8 @@ export function ReleasePanel({ brief, personId, canEdit, canSubmit }: { brief: B
   const publish = usePublish(brief.id);
   const withdraw = useWithdraw(brief.id);
   const reschedule = useReschedule(brief.id, brief.latestVersion);
+  // Before a correction, the editor reads what it would change, computed as the page will show it.
+  const changes = useDraftChanges(brief.id, brief.latestVersion > 0 && brief.status !== "withdrawn");
   const [schedule, setSchedule] = useState(false);
   const date = intl.date({ dateStyle: "medium", timeStyle: "short" });
   const zoned = intl.date({ dateStyle: "full", timeStyle: "long" });
@@ -29,12 +32,23 @@ export function ReleasePanel({ brief, personId, canEdit, canSubmit }: { brief: B
   const mySubmissionAwaits = brief.status === "in_review" && latestStep?.decision === "submitted" && latestStep.actorId === personId;
   const approval = reviews.data?.approval ?? "none";
   const error = review.error ?? publish.error ?? withdraw.error ?? reschedule.error;
+  // Where the brief stands: an approval speaks for itself; without one, scheduled, submitted or out.
+  const approvalLine =
+    approval !== "none"
+      ? t(`desk.release.approval.${approval}`)
+      : brief.embargoedUntil && brief.status === "scheduled"
+        ? t("desk.release.approval.scheduled", { version: brief.latestVersion, at: zoned.format(new Date(brief.embargoedUntil)) })
+        : brief.status === "in_review"
+          ? t("desk.release.approval.submitted")
+          : published
+            ? t("desk.release.approval.released", { version: brief.latestVersion })
+            : t("desk.release.approval.none");
 
   return (
     <section className="mt-10 border-t border-rule pt-6" aria-labelledby="release-title" data-testid="release">
       <h2 id="release-title" className="text-xl font-semibold">{t("desk.release.title")}</h2>
       <p className="mt-2 font-sans text-sm">
-        {approval === "none" && published && brief.status !== "in_review" ? t("desk.release.approval.released", { version: brief.latestVersion }) : t(`desk.release.approval.${approval}`)} ·{" "}
+        {approvalLine} ·{" "}
         <a href={previewUrl(brief.id)} target="_blank" rel="noreferrer">{t("desk.release.preview")}</a>
       </p>
       {error ? <p role="alert" className="mt-3 font-sans text-sm text-accent">{t("desk.error", { message: error.message })}</p> : null}
@@ -92,6 +106,8 @@ export function ReleasePanel({ brief, personId, canEdit, canSubmit }: { brief: B
           ) : null}
         </div>
       ) : null}
+
+      {changes.data?.changes ? <VersionChanges changes={changes.data.changes} slug={null} /> : null}
 
       {!withdrawn ? (
         <form

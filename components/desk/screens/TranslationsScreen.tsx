@@ -6,7 +6,8 @@ import { useState } from "react";
 import { useTranslation as useWords } from "react-i18next";
 import { Link, useParams } from "react-router";
 import { languageNames, textDirection, type Locale } from "#core/languages/locales";
-import type { Translation } from "#web/api/contract";
+import type { Translation, TranslationQueueEntry } from "#web/api/contract";
+import type { TranslationLocale } from "#core/languages/locales";
 import { ReadabilityAdvice } from "./ReadabilityAdvice";
 import { buttonClass, inputClass } from "./forms";
 import { previewMarkdown, useTranslation, useTranslationQueue, useTranslationStep } from "../queries";
@@ -14,7 +15,14 @@ import { useIntl } from "../../i18n";
 
 export function TranslationQueue() {
   const { t } = useWords();
+  const intl = useIntl();
   const queue = useTranslationQueue();
+  // A translation carried from an earlier version and partly published needs an update, not a start.
+  const stateWords = (version: TranslationQueueEntry, locale: TranslationLocale) => {
+    const waiting = version.updates[locale];
+    const state = version.states[locale] ?? "missing";
+    return waiting !== undefined && state === "draft" ? t("desk.translations.state.update", { count: waiting }) : t(`desk.translations.state.${state}`);
+  };
   if (queue.isError) return <p role="alert">{t("desk.error", { message: queue.error.message })}</p>;
   if (!queue.data) return <p aria-live="polite">{t("desk.loading")}</p>;
   const { locales, versions } = queue.data;
@@ -30,8 +38,15 @@ export function TranslationQueue() {
           <ul className="mt-3 divide-y divide-rule border-y border-rule font-sans text-sm">
             {versions.map((version) => (
               <li key={version.versionId} className="flex flex-wrap items-baseline justify-between gap-3 py-3">
-                <Link to={`/translations/${version.versionId}/${locale}`}>{t("desk.translations.versionOf", { title: version.title, version: version.number })}</Link>
-                <span data-testid="translation-state">{t(`desk.translations.state.${version.states[locale] ?? "missing"}`)}</span>
+                <span>
+                  <Link to={`/translations/${version.versionId}/${locale}`}>{t("desk.translations.versionOf", { title: version.title, version: version.number })}</Link>
+                  {version.embargoed ? (
+                    <span className="mt-1 block text-accent" data-testid="translation-embargo">
+                      {t("desk.translations.scheduled", { date: intl.moment(version.releaseAt) })}
+                    </span>
+                  ) : null}
+                </span>
+                <span data-testid="translation-state">{stateWords(version, locale)}</span>
               </li>
             ))}
           </ul>
@@ -59,6 +74,10 @@ function EditorForm({ translation, canPublish }: { translation: Translation; can
   // What the translator has typed so far, for the plain-language check (the fields themselves stay uncontrolled).
   const [drafts, setDrafts] = useState<Record<string, string>>({});
   const locale = translation.locale as Locale;
+  // The fields a correction left to translate again: their source changed, or they are new and empty.
+  const open = translation.state === "published" ? [] : translation.fields.filter((field) => field.stale || (!field.optional && field.target.trim() === "" && translation.publishedAt !== null));
+  // A correction's translation opens on what needs an update; hidden fields keep their values in the form.
+  const [onlyOpen, setOnlyOpen] = useState(open.length > 0);
   const fieldLabel = (name: string) => {
     const [kind, which] = name.split(":");
     // A treatment's phrase and grammar are named after the treatment itself.
@@ -84,6 +103,21 @@ function EditorForm({ translation, canPublish }: { translation: Translation; can
         {translation.publishedAt ? ` · ${t("desk.translations.publishedAt", { date: intl.date({ dateStyle: "long", timeStyle: "short" }).format(new Date(translation.publishedAt)) })}` : null}
       </p>
       {translation.carriedFrom ? <p className="mt-2 border-s-4 border-accent ps-3 font-sans text-sm">{t("desk.translations.carried")}</p> : null}
+      {open.length > 0 ? (
+        <div role="note" className="mt-4 border-s-4 border-accent bg-white p-4 font-sans text-sm" data-testid="needs-update">
+          <p className="font-semibold">{t("desk.translations.needsUpdate", { count: open.length })}</p>
+          <ul className="mt-2 list-disc ps-6">
+            {open.map((field) => (
+              <li key={field.name}>
+                <a href={`#field-${field.name}`}>{fieldLabel(field.name)}</a>
+              </li>
+            ))}
+          </ul>
+          <button type="button" className="mt-2 underline" onClick={() => setOnlyOpen(!onlyOpen)}>
+            {onlyOpen ? t("desk.translations.showAll") : t("desk.translations.showOpen")}
+          </button>
+        </div>
+      ) : null}
       <form
         className="mt-6 space-y-8"
         onSubmit={(event) => {
@@ -92,7 +126,7 @@ function EditorForm({ translation, canPublish }: { translation: Translation; can
         }}
       >
         {translation.fields.map((field) => (
-          <fieldset key={field.name} className="grid gap-4 border-t border-rule pt-4 md:grid-cols-2" data-testid={`field-${field.name}`}>
+          <fieldset key={field.name} id={`field-${field.name}`} hidden={onlyOpen && !open.includes(field)} className="grid gap-4 border-t border-rule pt-4 md:grid-cols-2" data-testid={`field-${field.name}`}>
             <legend className="font-sans text-sm font-semibold">{fieldLabel(field.name)}</legend>
             <div>
               <p className="font-sans text-xs uppercase tracking-wide text-muted">{t("desk.translations.source")}</p>

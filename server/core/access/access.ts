@@ -23,7 +23,8 @@ export const embargo = "A version before its release (under embargo) answers 404
 export const fileAccess = {
   "GET /briefs/:slug/v/:number/cite.:format": { who: "anyone", does: "cite a version (RIS, BibTeX, CSL JSON)", also: embargo },
   "GET /briefs/:slug/v/:number/compare/:a/:b/cite.:format": { who: "anyone", does: "cite one comparison of a version", also: embargo },
-  "GET /briefs/:slug/v/:number/downloads/:file": { who: "anyone", does: "download a version's data and results (CSV, JSON)", also: embargo },
+  "GET /briefs/:slug/v/:number/downloads/:file": { who: "anyone", does: "download a version's data and results (CSV, JSON)", also: `${embargo} A withdrawn brief's answer 410 with the reason, but to editors.` },
+  "GET /briefs/:slug/v/:number/changes.json": { who: "anyone", does: "what changed in a version since the one before (404 for version 1)", also: `${embargo} A withdrawn brief's answer 410 with the reason, but to editors.` },
   "GET /feed.xml": { who: "anyone", does: "the Atom feed of releases, corrections and withdrawals" },
   "GET /sitemap.xml": { who: "anyone", does: "the sitemap of released pages" },
   "GET /robots.txt": { who: "anyone", does: "robots.txt" },
@@ -94,6 +95,21 @@ Roles are checked on the server for every route: each API route takes its rule f
 every reader and expects ✓ to pass the role check and · to be refused (401 for a reader who is not
 signed in, 403 for a role that may not). The interface only hides what a person could not do anyway.
 A person may hold several roles; an address admits a person who holds any one of the roles it names.
+
+## Under embargo
+
+A version before its release time (scheduled, under embargo) is read by:
+
+- **press and editors**: its pages, files and snapshot, as readers will see them; everyone else gets 404;
+- **translators**: its texts only, in the translation desk, in the languages assigned to them, so that
+  a translation can be ready at the release; a translation an editor publishes before the release
+  goes public with it. They are asked by e-mail as soon as the version is scheduled. They do not read
+  its public pages or files before the release.
+
+Every desk role, translators included, reads the briefs in the desk and their previews: these are the
+working drafts, not a released or embargoed version, and nothing in the desk is public or cached.
+Nothing under embargo is kept by a shared cache (\`private, no-store\`). How a correction, an
+embargo and a withdrawal reach each channel: \`docs/brief-lifecycle.md\`.
 
 ## The API
 

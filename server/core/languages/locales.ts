@@ -27,6 +27,9 @@ export const textDirection = (locale: Locale): "ltr" | "rtl" => (locale === "ar"
  */
 export const intlLocale = (locale: Locale): string => (locale === "ar" ? "ar-u-nu-latn" : locale);
 
+/** A day as the language writes it in full ("4 December 2026"), in UTC: the date a file or card states. */
+export const dayInWords = (locale: Locale, iso: string): string => new Intl.DateTimeFormat(intlLocale(locale), { dateStyle: "long", timeZone: "UTC" }).format(new Date(iso));
+
 /** The locale a path names and the path without it: /es/briefs/x → es, /briefs/x; /briefs/x → en, /briefs/x. */
 export function splitLocale(path: string): { locale: Locale; path: string } {
   const match = /^\/([a-z]{2})(?=\/|$)(.*)$/.exec(path);
@@ -60,4 +63,13 @@ export function negotiateLocale(header: string | undefined): Locale | null {
     if (isLocale(primary)) return primary;
   }
   return null;
+}
+
+/** The cookie that keeps a reader's choice of language; the page router reads it on a first visit. */
+export const localeCookie = "fairweigh.locale";
+
+/** The language a reader chose on the site (the cookie), else the first of ours their browser asks for, else English. */
+export function readerLocale(chosen: unknown, acceptLanguage: string | undefined): Locale {
+  if (isLocale(chosen)) return chosen;
+  return negotiateLocale(acceptLanguage) ?? defaultLocale;
 }

@@ -4,6 +4,7 @@ import type { TFunction } from "i18next";
 import { localeOf, type Locale } from "./locales";
 import { wordsOf } from "./words";
 import type { Role } from "../access/roles";
+import { changeSummary, type VersionChanges } from "../snapshot/changes";
 
 export interface Message {
   kind: string;
@@ -87,7 +88,12 @@ interface Announced {
   number: number;
   releaseAt: Date;
   note: string | null;
+  /** For a correction: what changed since the version before (server/core/snapshot/changes.ts). */
+  changes?: VersionChanges | null;
 }
+
+/** A correction's computed summary, in the recipient's language; nothing for a first version. */
+const changeParagraph = (version: { changes?: VersionChanges | null }, locale: Locale): string[] => (version.changes ? [changeSummary(wordsOf(locale, "public"), locale, version.changes)] : []);
 
 /** The words an alert about a version fills in: who, which version, and its release time where the reader lives. */
 function announcedValues(to: Recipient, version: Announced, locale: Locale) {
@@ -101,7 +107,7 @@ export function pressAlertMessage(to: Recipient, version: Announced, link: strin
     const values = announcedValues(to, version, locale);
     return {
       subject: words("pressAlert.subject", values),
-      paragraphs: [words("pressAlert.greeting", values), words("pressAlert.body", values), ...(version.note ? [words("pressAlert.note", values)] : [])],
+      paragraphs: [words("pressAlert.greeting", values), words("pressAlert.body", values), ...(version.note ? [words("pressAlert.note", values)] : []), ...changeParagraph(version, locale)],
       action: { label: words("pressAlert.action"), url: link },
     };
   });
@@ -113,19 +119,31 @@ export function releaseAlertMessage(to: Recipient, version: Announced, link: str
     const values = announcedValues(to, version, locale);
     return {
       subject: words("releaseAlert.subject", values),
-      paragraphs: [words("releaseAlert.greeting", values), words("releaseAlert.body", values)],
+      paragraphs: [words("releaseAlert.greeting", values), words("releaseAlert.body", values), ...changeParagraph(version, locale)],
       action: { label: words("releaseAlert.action"), url: link },
     };
   });
 }
 
-/** To a translator when a version is released: the locales they translate it into. */
-export function translationRequestMessage(to: Recipient & { translationLocales: string[] }, version: Announced, link: string): Message {
-  return message("translation-request", to.email, to.locale, (words) => {
-    const values = { name: to.displayName, title: version.title, version: version.number, locales: languageList(to.translationLocales, localeOf(to.locale)) };
+/**
+ * To a translator when a version is scheduled or released: the languages it waits for, and in a
+ * language whose earlier translation was carried over (`carried`), how many passages need an update.
+ */
+export function translationRequestMessage(to: Recipient & { translationLocales: string[] }, version: Announced, link: string, carried: Partial<Record<string, number>> = {}): Message {
+  return message("translation-request", to.email, to.locale, (words, locale) => {
+    const values = { ...announcedValues(to, version, locale), name: to.displayName };
+    const fresh = to.translationLocales.filter((code) => carried[code] === undefined);
+    const updates = to.translationLocales.filter((code) => (carried[code] ?? 0) > 0);
+    const scheduled = version.releaseAt.getTime() > Date.now();
+    const opening = words(scheduled ? "translationRequest.scheduled" : "translationRequest.released", values);
     return {
       subject: words("translationRequest.subject", values),
-      paragraphs: [words("translationRequest.greeting", values), words("translationRequest.body", values)],
+      paragraphs: [
+        words("translationRequest.greeting", values),
+        fresh.length > 0 ? `${opening} ${words("translationRequest.waiting", { locales: languageList(fresh, locale) })}` : opening,
+        ...updates.map((code) => words("translationRequest.update", { language: languageList([code], locale), count: carried[code] })),
+        ...changeParagraph(version, locale),
+      ],
       action: { label: words("translationRequest.action"), url: link },
     };
   });
@@ -146,13 +164,13 @@ export function subscriptionConfirmMessage(input: { recipient: string; topic: st
  * A new or corrected brief in a topic, to its subscribers, with a one-click unsubscribe (RFC 8058:
  * List-Unsubscribe names the address to POST to, List-Unsubscribe-Post says it takes one click).
  */
-export function topicNoticeMessage(input: { recipient: string; topic: string; title: string; version: number; note: string | null; link: string; unsubscribeUrl: string; locale?: string }): Message {
+export function topicNoticeMessage(input: { recipient: string; topic: string; title: string; version: number; note: string | null; changes?: VersionChanges | null; link: string; unsubscribeUrl: string; locale?: string }): Message {
   const corrected = input.version > 1;
-  return message(corrected ? "correction-notice" : "release-notice", input.recipient, input.locale, (words) => {
+  return message(corrected ? "correction-notice" : "release-notice", input.recipient, input.locale, (words, locale) => {
     const values = { topic: input.topic, title: input.title, version: input.version, note: input.note ?? "" };
     return {
       subject: words(corrected ? "topicNotice.correctedSubject" : "topicNotice.newSubject", values),
-      paragraphs: [words(corrected ? "topicNotice.correctedBody" : "topicNotice.newBody", values)],
+      paragraphs: [words(corrected ? "topicNotice.correctedBody" : "topicNotice.newBody", values), ...changeParagraph(input, locale)],
       action: { label: words("topicNotice.action"), url: input.link },
       after: [words("topicNotice.unsubscribe", { link: input.unsubscribeUrl })],
       footer: "subscriptionFooter",

@@ -136,6 +136,32 @@ export function storedAfterSave(sources: SourceField[], previous: StoredFields, 
   return next;
 }
 
+/**
+ * A new version's translation, carried from the published translation of an earlier one
+ * (docs/decisions/0040-translations-carried-field-by-field.md): every field whose source text is
+ * unchanged keeps its published translation, and readers see it at once; a field whose source
+ * changed keeps its old translation in the working copy only, against its old source, so that the
+ * translator sees what changed; a new field is empty. Readers see the original for those two, marked.
+ */
+export function carriedTranslation(earlier: { snapshot: VersionSnapshot; published: PublishedFields }, next: VersionSnapshot): { fields: StoredFields; published: PublishedFields; open: string[] } {
+  const before = new Map(sourceFields(earlier.snapshot).map((field) => [field.name, field.text]));
+  const fields: StoredFields = {};
+  const published: PublishedFields = {};
+  for (const source of sourceFields(next)) {
+    const target = earlier.published[source.name]?.trim() ? earlier.published[source.name]! : null;
+    const was = before.get(source.name);
+    if (target === null || was === undefined) continue;
+    if (was === source.text) published[source.name] = target;
+    fields[source.name] = { text: target, sourceHash: sourceHash(was), sourceText: was };
+  }
+  return { fields, published, open: openFields(sourceFields(next), published) };
+}
+
+/** The fields readers of a partly translated version see in the original: not optional, and not (yet) translated. */
+export function openFields(sources: SourceField[], published: PublishedFields): string[] {
+  return sources.filter((source) => !source.optional && !published[source.name]?.trim()).map((source) => source.name);
+}
+
 /** The topic's name in the reader's language; its address (the slug) stays that of the original. */
 export const translatedTopic = (snapshot: VersionSnapshot, published: PublishedFields) => published.topic?.trim() || snapshot.brief.topic;
 

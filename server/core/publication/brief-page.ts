@@ -78,6 +78,8 @@ export interface PageState {
   /** The newest version this reader may see; older versions say that a newer one exists. */
   latestVersion: number;
   history: VersionEntry[];
+  /** The time zone release times are shown in: the reader's own for an embargoed version (their account's), else UTC. */
+  timeZone: string;
 }
 
 /** What a version holds for its brief page; the page adds the reader's PageState. */

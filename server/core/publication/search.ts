@@ -30,15 +30,22 @@ export function briefsOfTopic(briefs: ReleasedBrief[], topic: string | undefined
   return topic ? briefs.filter((brief) => brief.topicSlug === topic) : briefs;
 }
 
+/**
+ * The briefs a list offers as current reading: a withdrawn brief leaves the home, topic and list
+ * pages (its own page stays, marked); a search that names it still finds it, marked withdrawn.
+ */
+export const currentBriefs = (briefs: ReleasedBrief[]) => briefs.filter((brief) => !brief.withdrawn);
+
 export interface Topic {
   slug: string;
   name: string;
   count: number;
 }
 
+/** The topics of the current briefs, each with how many it holds. */
 export function topicsOf(briefs: ReleasedBrief[]): Topic[] {
   const topics = new Map<string, Topic>();
-  for (const brief of briefs) {
+  for (const brief of currentBriefs(briefs)) {
     const topic = topics.get(brief.topicSlug) ?? { slug: brief.topicSlug, name: brief.topic, count: 0 };
     topic.count += 1;
     topics.set(brief.topicSlug, topic);

@@ -58,6 +58,9 @@ export const citationUrl = (at: VersionAddress | ComparisonAddress, format: Cita
 
 export const downloadUrl = (at: VersionAddress, file: string) => `${versionUrl(at)}/downloads/${segment(file)}`;
 
+/** What changed in a version since the one before, as data (docs/data.md). */
+export const changesUrl = (at: VersionAddress) => `${versionUrl(at)}/changes.json`;
+
 /** The page of a version, or of one comparison in it. */
 export const pageUrl = (at: VersionAddress | ComparisonAddress) => ("treatment" in at ? comparisonUrl(at) : versionUrl(at));
 

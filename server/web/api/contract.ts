@@ -11,6 +11,7 @@ import type { AnalysisResult } from "#core/nma/analyse";
 import type { DatasetIssue } from "#core/nma/types";
 import { outcomeInput, outcomePatch } from "#core/editorial/outcome";
 import type { Readiness } from "#core/editorial/readiness";
+import type { ChangesView } from "#core/snapshot/changes";
 import type { ReleasedBrief, Topic } from "#core/publication/search";
 import type { VersionSnapshot } from "#core/snapshot/schema";
 import { reviewDecisions } from "#core/editorial/status";
@@ -238,6 +239,7 @@ export interface RouteAnswers {
   "POST /api/briefs/:id/outcomes": { outcome: Outcome };
   "POST /api/briefs/:id/reviews": { decision: ReviewBody["decision"]; status: string };
   "GET /api/briefs/:id/readiness": Readiness;
+  "GET /api/briefs/:id/changes": { changes: ChangesView | null };
   "GET /api/briefs/:id/reviews": ReviewHistory;
   "POST /api/briefs/:id/versions": { version: number; url: string };
   "PUT /api/briefs/:id/versions/:number/release": { releaseAt: string };

@@ -11,6 +11,8 @@ import { listPressRoom } from "#db/versions";
 import type { ReadinessItem } from "#core/editorial/readiness";
 import { publishVersion, rescheduleRelease } from "#workflows/publish";
 import { briefReadiness } from "#workflows/readiness";
+import { draftChanges } from "#workflows/snapshot";
+import { localeOf } from "#core/languages/locales";
 import type { Database } from "#db/client";
 import { sendError } from "../http/errors";
 
@@ -34,12 +36,11 @@ const refusals = {
 
 type Refusal = keyof typeof refusals;
 
-/** The readiness items travel as details, so the desk can list each one in words. */
+/** The readiness items travel as details, so the desk can list each one in words too. */
 function refuse(res: Parameters<typeof sendError>[0], reason: Refusal, detail: string, field?: string, items?: ReadinessItem[]) {
   const [status, key] = refusals[reason];
-  const sentence = detail.charAt(0).toUpperCase() + detail.slice(1);
-  const listed = items?.length ? `: ${items.map((item) => `${item.key} ${JSON.stringify(item.values)}`).join("; ")}` : "";
-  sendError(res, status, { key, message: `${sentence}${listed}.`, details: items ?? (field && status === 400 ? [{ field, message: detail }] : undefined) });
+  // The checklist's items are worded by sendError, in the caller's language.
+  sendError(res, status, { key, message: `${detail.charAt(0).toUpperCase()}${detail.slice(1)}.`, details: items ?? (field && status === 400 ? [{ field, message: detail }] : undefined) });
 }
 
 export function versionRoutes(db: Database, mail: (req: AddressedRequest) => MailContext): Router {
@@ -59,6 +60,12 @@ export function versionRoutes(db: Database, mail: (req: AddressedRequest) => Mai
     const readiness = await briefReadiness(db, req.params.id);
     if (!readiness) return sendError(res, 404, { key: "errors.notFound", message: "There is no such brief." });
     res.json(readiness);
+  });
+
+  handle(router, "GET /api/briefs/:id/changes", async (req, res) => {
+    const changes = await draftChanges(db, req.params.id, localeOf(req.user!.locale));
+    if (changes === undefined) return sendError(res, 404, { key: "errors.notFound", message: "There is no such brief." });
+    res.json({ changes });
   });
 
   handle(router, "GET /api/briefs/:id/reviews", async (req, res) => {

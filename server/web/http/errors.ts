@@ -2,6 +2,8 @@
 // for scripts and logs, and the facts (which field, which value) where there are any.
 import type { NextFunction, Request, Response } from "express";
 import type { z } from "zod";
+import { defaultLocale, isLocale, localeCookie, readerLocale } from "#core/languages/locales";
+import { wordsOf } from "#core/languages/words";
 
 export interface ApiError {
   key: string;
@@ -9,8 +11,30 @@ export interface ApiError {
   details?: unknown;
 }
 
+/**
+ * The error in the caller's language: their account's, else the site language they chose, else their
+ * browser's. The message is the key's sentence in that language (the precise English message for
+ * English callers), with each checklist item the details carry as a sentence; keys stay in details.
+ */
 export function sendError(res: Response, status: number, error: ApiError): void {
-  res.status(status).json({ error });
+  res.status(status).json({ error: inCallersLanguage(res.req, error) });
+}
+
+/** A checklist item (server/core/editorial/readiness.ts) as details carry it: a message key of the desk's words and its values. */
+const isItem = (value: unknown): value is { key: string; values: Record<string, unknown> } =>
+  typeof value === "object" && value !== null && typeof (value as { key?: unknown }).key === "string" && (value as { key: string }).key.startsWith("readiness.");
+
+function inCallersLanguage(req: Request | undefined, error: ApiError): ApiError {
+  const chosen = req?.user?.locale;
+  const locale = isLocale(chosen) ? chosen : readerLocale(req?.cookies?.[localeCookie], req?.get("accept-language"));
+  const t = wordsOf(locale, "desk");
+  const items = Array.isArray(error.details) ? error.details.filter(isItem) : [];
+  const listed = items.length > 0 ? `: ${items.map((item) => t(item.key, item.values).replace(/[.。]$/, "")).join("; ")}.` : "";
+  const known = t(`desk.${error.key}`, { defaultValue: "" });
+  // The fields a validation names, which the English message states in its own words.
+  const fields = Array.isArray(error.details) ? error.details.flatMap((d: { field?: unknown }) => (typeof d?.field === "string" && d.field ? [d.field] : [])) : [];
+  const sentence = locale === defaultLocale || !known ? error.message.replace(/[.:]\s*$/, "") : `${known.replace(/[.:]\s*$/, "")}${fields.length > 0 ? ` (${fields.join(", ")})` : ""}`;
+  return { ...error, message: listed ? `${sentence}${listed}` : /[.!?]$/.test(sentence) ? sentence : `${sentence}.` };
 }
 
 export function fieldIssues(error: z.ZodError) {

@@ -8,16 +8,19 @@ import { inLanguage } from "#db/translations";
 import { mayReadEmbargoed } from "#core/access/roles";
 import { admits, pageAccess } from "#core/access/access";
 import type { VersionSnapshot } from "#core/snapshot/schema";
-import { cacheState, readPublicVersion, versionHistory, type PublicVersion } from "#db/versions";
-import { draftSnapshot } from "#workflows/snapshot";
+import { cacheState, readPublicVersion, readVersion, versionHistory, type PublicVersion } from "#db/versions";
+import { changesView, type ChangesView } from "#core/snapshot/changes";
+import { draftChanges, draftSnapshot } from "#workflows/snapshot";
 import { grammaticalSnapshot } from "#core/languages/grammar";
 import { versionGrammar } from "#core/languages/translation";
 import { wordsOf } from "#core/languages/words";
 import { comparisonUrl, versionNumberOf, versionUrl } from "#core/publication/urls";
 import { formattedReference } from "../public/citations";
 
-function pageState(page: PublicVersion): PageState {
-  return { embargoed: page.found.embargoed, withdrawal: page.found.withdrawal, latestVersion: page.latestVersion, history: page.history };
+function pageState(pageContext: PageContextServer, page: PublicVersion): PageState {
+  // An embargoed page is personal (never shared by a cache), so it may speak the reader's time zone.
+  const timeZone = page.found.embargoed ? (pageContext.person?.timeZone ?? "UTC") : "UTC";
+  return { embargoed: page.found.embargoed, withdrawal: page.found.withdrawal, latestVersion: page.latestVersion, history: page.history, timeZone };
 }
 
 async function load(pageContext: PageContextServer, number: number | "latest"): Promise<PublicVersion> {
@@ -58,12 +61,26 @@ function citation(pageContext: PageContextServer, snapshot: VersionSnapshot, pat
   };
 }
 
+/**
+ * What changed since the version before, as this reader reads both versions: null for version 1.
+ * Decided on the frozen originals (stored with the version); worded from each version in the reader's language.
+ */
+async function changesSince(pageContext: PageContextServer, page: PublicVersion, after: VersionSnapshot): Promise<ChangesView | null> {
+  const changes = page.found.changes;
+  if (!changes) return null;
+  const earlier = await readVersion(pageContext.db!, after.brief.slug, changes.from, pageContext.person?.roles ?? []);
+  if (!earlier) return null;
+  const { snapshot: before } = await inLanguage(pageContext.db!, earlier.versionId, earlier.snapshot, pageContext.locale);
+  return changesView(changes, before, after);
+}
+
 export async function briefPageData(pageContext: PageContextServer, number: number | "latest") {
   const page = await load(pageContext, number);
   const { snapshot, topic, translation } = await inReadersLanguage(pageContext, page);
-  const view: BriefView = { ...briefContent(snapshot), topic, ...pageState(page) };
+  const view: BriefView = { ...briefContent(snapshot), topic, ...pageState(pageContext, page) };
   const path = versionUrl({ slug: view.slug, version: view.version });
-  return { view, path, translation, citation: citation(pageContext, snapshot, path), siteUrl: pageContext.siteUrl ?? "", ...answer(pageContext, page, number === "latest") };
+  const changes = await changesSince(pageContext, page, snapshot);
+  return { view, path, translation, changes, citation: citation(pageContext, snapshot, path), siteUrl: pageContext.siteUrl ?? "", ...answer(pageContext, page, number === "latest") };
 }
 
 export type BriefPageData = Awaited<ReturnType<typeof briefPageData>>;
@@ -74,7 +91,7 @@ export async function comparisonPageData(pageContext: PageContextServer) {
   const { snapshot, translation } = await inReadersLanguage(pageContext, page);
   const content = comparisonContent(snapshot, String(a), String(b));
   if (!content) throw render(404);
-  const view: ComparisonView = { ...content, ...pageState(page) };
+  const view: ComparisonView = { ...content, ...pageState(pageContext, page) };
   const path = comparisonUrl({ slug: view.slug, version: view.version, treatment: view.treatment.id, comparator: view.comparator.id });
   return {
     view,
@@ -110,12 +127,13 @@ export async function previewPageData(pageContext: PageContextServer) {
   const number = (history[0]?.number ?? 0) + 1;
   const frozen: VersionSnapshot = { ...draft.snapshot, version: number, releaseAt: new Date().toISOString(), note: null };
   const snapshot = grammaticalSnapshot(frozen, locale, versionGrammar(frozen, locale, null));
-  const view: BriefView = { ...briefContent(snapshot), embargoed: false, withdrawal: null, latestVersion: number, history };
+  const view: BriefView = { ...briefContent(snapshot), embargoed: false, withdrawal: null, latestVersion: number, history, timeZone: "UTC" };
   const path = versionUrl({ slug: view.slug, version: number });
   const page: BriefPageData = {
     view,
     path,
     translation: null,
+    changes: (await draftChanges(pageContext.db!, briefId, locale)) ?? null,
     citation: citation(pageContext, snapshot, path),
     siteUrl: pageContext.siteUrl ?? "",
     httpStatus: undefined,

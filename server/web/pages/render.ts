@@ -7,8 +7,7 @@ import path from "node:path";
 import type { IncomingMessage, ServerResponse } from "node:http";
 import express, { Router, type Request, type Response } from "express";
 import { createDevMiddleware } from "vike/server";
-import { defaultLocale, isLocale, localePath, negotiateLocale, splitLocale, type Locale } from "#core/languages/locales";
-import { localeCookie } from "../public/routes";
+import { defaultLocale, localeCookie, localePath, readerLocale, splitLocale } from "#core/languages/locales";
 import type { Database } from "#db/client";
 import type { createCsrf } from "../http/security";
 import { briefOfPath, canonicalVersionPath, isDeskPath, isListPath, negotiates, parseBriefPath, parseVersionPath, surrogateKeys } from "#core/publication/urls";
@@ -17,12 +16,6 @@ import type { CachedPage } from "./page-cache";
 import { answerFromCache } from "./answer-from-cache";
 import { cacheControl, pageMemory } from "./cache-policy";
 import { renderAndKeep, type Rendered } from "./render-and-keep";
-
-/** The language a reader chose on the site (the cookie), else the first of ours their browser asks for, else English. */
-function readerLocale(chosen: unknown, acceptLanguage: string | undefined): Locale {
-  if (isLocale(chosen)) return chosen;
-  return negotiateLocale(acceptLanguage) ?? defaultLocale;
-}
 
 /** One cookie's value from a Cookie header, read before cookie-parser runs (the fast path). */
 function cookieValue(header: string, name: string): string | undefined {

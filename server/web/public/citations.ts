@@ -21,6 +21,11 @@ export interface CitationInput {
   author?: string | null;
   /** The language the version was read in: the permalink names it, the item says it; the version cited is the same. */
   language?: Locale;
+  /**
+   * The brief was withdrawn: every citation file of every version says so, in the reader's words
+   * (`note`, e.g. "Withdrawn on 2026-12-04. Reason: …"), so that a reference manager learns it too.
+   */
+  withdrawn?: { note: string; titlePrefix: string } | null;
 }
 
 const dateParts = (date: Date) => ({ "date-parts": [[date.getUTCFullYear(), date.getUTCMonth() + 1, date.getUTCDate()]] });
@@ -48,6 +53,8 @@ export function cslItem(input: CitationInput) {
     accessed: dateParts(input.accessed),
     URL: input.url,
     language: input.language ?? "en",
+    // CSL-JSON's status ("withdrawn") and note; citation-js writes the note as RIS N1 and BibTeX note.
+    ...(input.withdrawn ? { status: "withdrawn", note: oneLine(input.withdrawn.note) } : {}),
   };
 }
 
@@ -75,12 +82,14 @@ export function citationFile(input: CitationInput, format: CitationFormat): stri
   }
   // citation-js folds RIS values every 70 characters; reference managers read the continuation as a
   // new value or join it with a space, which breaks permalinks. Each value is joined back whole.
-  return new Cite(item)
+  const ris = new Cite(item)
     .format("ris")
     .replace(/\n(?![A-Z][A-Z0-9] {2}- |$)/g, "")
     .replace(/^ID {2}- .*$/m, `ID  - ${item.id}`)
     // RIS dates are YYYY/MM/DD/: citation-js leaves the month and day unpadded ("2026/3/5/").
     .replace(/^(DA|Y2) {2}- (\d{4})\/(\d{1,2})\/(\d{1,2})\//gm, (_, tag: string, year: string, month: string, day: string) => `${tag}  - ${year}/${month.padStart(2, "0")}/${day.padStart(2, "0")}/`);
+  // A reference manager lists RIS titles only: a withdrawn one says so before its title, as retraction notices do.
+  return input.withdrawn ? ris.replace(/^TI {2}- /m, `TI  - ${oneLine(input.withdrawn.titlePrefix)}: `) : ris;
 }
 
 /** The reference as a reader copies it (APA style); the page adds the access date in its own words. */

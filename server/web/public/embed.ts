@@ -7,7 +7,7 @@ import type { TFunction } from "i18next";
 import { briefContent, comparisonContent } from "#core/publication/brief-page";
 import { formatInterval } from "#core/publication/effects";
 import { certaintySteps, type Rating } from "#core/grade/certainty";
-import { intlLocale, textDirection, type Locale } from "#core/languages/locales";
+import { dayInWords, textDirection, type Locale } from "#core/languages/locales";
 import { messageText } from "#core/languages/message";
 import type { VersionSnapshot } from "#core/snapshot/schema";
 import { escapeXml } from "./feed";
@@ -60,7 +60,7 @@ export interface CardInput {
 /** The card's HTML page; null when the version has no such comparison. */
 export function embedCard(input: CardInput): string | null {
   const { snapshot, pair, locale, t, permalink, withdrawal } = input;
-  const date = (iso: string) => new Intl.DateTimeFormat(intlLocale(locale), { dateStyle: "long", timeZone: "UTC" }).format(new Date(iso));
+  const date = (iso: string) => dayInWords(locale, iso);
   const from = t("embed.inBrief", { title: snapshot.brief.title, version: snapshot.version, date: date(snapshot.releaseAt) });
   let heading: string;
   let body: string;

@@ -5,6 +5,7 @@ import type { TFunction } from "i18next";
 import { localePath, type Locale } from "#core/languages/locales";
 import { notXmlChar } from "#core/editorial/text";
 import { versionUrl } from "#core/publication/urls";
+import { changeSummary } from "#core/snapshot/changes";
 import type { ReleasedVersion } from "#db/versions";
 
 /** Text as XML carries it: the five special characters escaped, and what XML 1.0 forbids dropped (server/core/editorial/text.ts). */
@@ -30,7 +31,7 @@ export function feedEntries(versions: ReleasedVersion[], base: string, locale: L
       id: `${base}${address(version)}`,
       url,
       title: version.number === 1 ? version.title : t("feed.corrected", { version: version.number, title: version.title }),
-      summary: version.number === 1 ? t("feed.new", { title: version.title }) : t("feed.correctionNote", { note: version.note ?? "" }),
+      summary: version.number === 1 ? t("feed.new", { title: version.title }) : [t("feed.correctionNote", { note: version.note ?? "" }), ...(version.changes ? [changeSummary(t, locale, version.changes)] : [])].join(" "),
       updated: version.releaseAt,
     };
   });

@@ -1,11 +1,11 @@
 // Comparisons that travel: the card other sites frame (/embed/…), the oEmbed answer that gives them
 // its <iframe> (oEmbed 1.0), and the share image of every version and comparison (…/share.png).
 // Only released versions: an embargoed one is 404 to everyone here (these are public, shared
-// addresses, never personal); a withdrawn one's card says it was withdrawn and why, and oEmbed does
-// not offer it (docs/decisions/0028-reach.md).
+// addresses, never personal); a withdrawn one's card, image and oEmbed answer say it was withdrawn
+// and why instead of the finding (docs/decisions/0028-reach.md).
 import { Router, type Request, type Response } from "express";
 import { z } from "zod";
-import { defaultLocale, localePath, splitLocale, type Locale } from "#core/languages/locales";
+import { dayInWords, defaultLocale, localePath, splitLocale, type Locale } from "#core/languages/locales";
 import { embedUrl, pageUrl, surrogateKeys, parseBriefPath, parseVersionPath, shareImageUrl, versionNumberOf, type ComparisonAddress, type VersionAddress } from "#core/publication/urls";
 import { wordsOf } from "#core/languages/words";
 import type { Database } from "#db/client";
@@ -14,7 +14,7 @@ import { readPublicVersion, readVersion } from "#db/versions";
 import { cardWidth, embedCard } from "./embed";
 import { escapeXml } from "./feed";
 import { siteUrl } from "../http/site-url";
-import { arabicImageText, shareImage, shareImageSize, shareImageText } from "./share-image";
+import { arabicImageText, shareImage, shareImageSize, shareImageText, withdrawnImageText, type ShareText } from "./share-image";
 
 const cacheControl = "public, max-age=3600";
 
@@ -23,6 +23,14 @@ async function releasedVersion(db: Database, slug: string, number: number, local
   const found = await readVersion(db, slug, number, []);
   if (!found) return null;
   return { ...found, original: found.snapshot, snapshot: (await inLanguage(db, found.versionId, found.snapshot, locale)).snapshot };
+}
+
+/** What an image or oEmbed answer says of a version or comparison in `locale`: its finding, or its withdrawal. */
+function sharedText(found: NonNullable<Awaited<ReturnType<typeof releasedVersion>>>, snapshot: typeof found.snapshot, pair: { a: string; b: string } | null, locale: Locale): ShareText | null {
+  const t = wordsOf(locale, "public");
+  const text = shareImageText(snapshot, pair, t, locale);
+  if (!text || !found.withdrawal) return text;
+  return withdrawnImageText(text, t("embed.withdrawn", { date: dayInWords(locale, found.withdrawal.at), reason: found.withdrawal.reason }));
 }
 
 const addressOf = (req: Request): VersionAddress | ComparisonAddress | null => {
@@ -68,13 +76,13 @@ export function reachRoutes(db: Database, publicUrl: string | undefined): Router
     const at = addressOf(req);
     const locale = localeOf(res);
     const found = at ? await releasedVersion(db, at.slug, at.version, locale) : null;
-    const text = at && found ? shareImageText(found.snapshot, pairOf(at), wordsOf(locale, "public"), locale) : null;
+    const text = at && found ? sharedText(found, found.snapshot, pairOf(at), locale) : null;
     if (!at || !found || !text) return res.status(404).type("text/plain").send("There is no such released version.");
-    if (found.withdrawal) return res.status(410).type("text/plain").send(`This brief was withdrawn: ${found.withdrawal.reason}`);
     // An Arabic image needs every word in Arabic script; else the English one (share-image.ts says why).
     const arabic = locale === "ar" ? arabicImageText(text) : null;
-    const drawn = locale !== "ar" ? text : (arabic ?? shareImageText(found.original, pairOf(at), wordsOf(defaultLocale, "public"), defaultLocale)!);
-    const png = await shareImage(`${arabic ? "ar" : locale === "ar" ? "en" : locale}|${shareImageUrl(at)}|${found.translatedAt ?? ""}`, drawn, arabic !== null);
+    const drawn = locale !== "ar" ? text : (arabic ?? sharedText(found, found.original, pairOf(at), defaultLocale)!);
+    const shown = `${arabic ? "ar" : locale === "ar" ? "en" : locale}|${shareImageUrl(at)}|${found.translatedAt ?? ""}|${found.withdrawal?.at ?? ""}`;
+    const png = await shareImage(shown, drawn, arabic !== null);
     // Other sites show it (cards of social networks, a reporter's page): not bound to this origin.
     res.set({ "Cache-Control": cacheControl, "Cross-Origin-Resource-Policy": "cross-origin", "Surrogate-Key": surrogateKeys({ slug: at.slug, version: at.version })! }).type("png").send(png);
   };
@@ -98,8 +106,9 @@ export function reachRoutes(db: Database, publicUrl: string | undefined): Router
       at = latest && !latest.found.embargoed ? { slug: briefSlug, version: latest.found.snapshot.version } : null;
     }
     const found = at ? await releasedVersion(db, at.slug, at.version, locale) : null;
-    const text = at && found && !found.withdrawal ? shareImageText(found.snapshot, pairOf(at), wordsOf(locale, "public"), locale) : null;
-    // §2.3.4: 404 when there is no response for the address; unreleased and withdrawn versions have none.
+    const text = at && found ? sharedText(found, found.snapshot, pairOf(at), locale) : null;
+    // §2.3.4: 404 when there is no response for the address; an unreleased version has none. A withdrawn
+    // one has its card, which says so: a site that embedded it keeps showing why it was withdrawn.
     if (!at || !found || !text) return res.status(404).type("text/plain").send("There is no released brief, version or comparison at this address.");
     const pair = pairOf(at);
     const outcomes = pair ? found.snapshot.outcomes.filter((o) => o.pairs.some((p) => (p.treatment === pair.a && p.comparator === pair.b) || (p.treatment === pair.b && p.comparator === pair.a))).length : found.snapshot.outcomes.length;
@@ -111,7 +120,7 @@ export function reachRoutes(db: Database, publicUrl: string | undefined): Router
     res.set({ "Cache-Control": cacheControl, "Access-Control-Allow-Origin": "*", "Surrogate-Key": surrogateKeys({ slug: at.slug, version: at.version })! }).json({
       version: "1.0",
       type: "rich",
-      title: text.title,
+      title: found.withdrawal ? wordsOf(locale, "public")("feed.withdrawn", { title: text.title }) : text.title,
       provider_name: "Fairweigh",
       provider_url: `${site}/`,
       cache_age: 3600,

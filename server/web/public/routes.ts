@@ -3,9 +3,9 @@
 // all but the press and editors, exactly as their pages do.
 import { Router, type Request, type Response } from "express";
 import { comparisonContent } from "#core/publication/brief-page";
-import { defaultLocale, isLocale, localePath, locales, splitLocale, type Locale } from "#core/languages/locales";
+import { dayInWords, defaultLocale, isLocale, localeCookie, localePath, locales, splitLocale, type Locale } from "#core/languages/locales";
 import { alternates, briefUrl, surrogateKeys, comparisonUrl, feedUrl, homeUrl, searchUrl, sitemapUrl, versionNumberOf, versionUrl } from "#core/publication/urls";
-import { listReleasedVersions, readVersion } from "#db/versions";
+import { listReleasedVersions, readVersion, type FoundVersion } from "#db/versions";
 import { wordsOf } from "#core/languages/words";
 import type { Database } from "#db/client";
 import { citationFile, citationMedia, type CitationFormat, type CitationInput } from "./citations";
@@ -32,9 +32,6 @@ export function returnPath(next: unknown, locale: Locale): string {
   // eslint-disable-next-line no-control-regex -- a control character has no place in an address
   return /^\/(?![/\\])/.test(path) && !/[\\\u0000-\u001f\u007f]/.test(path) ? path : home;
 }
-
-/** The cookie that keeps a reader's choice of language; the page router reads it on a first visit. */
-export const localeCookie = "fairweigh.locale";
 
 export function publicFileRoutes(db: Database, publicUrl: string | undefined, secureTransport: boolean): Router {
   const router = Router();
@@ -72,20 +69,42 @@ export function publicFileRoutes(db: Database, publicUrl: string | undefined, se
     if (!embargoed) res.set("Surrogate-Key", surrogateKeys(at)!);
   };
 
-  /** A citation file for a version or one comparison in it, named after what it cites. */
-  function sendCitation(res: Response, format: CitationFormat, embargoed: boolean, fileBase: string, input: Omit<CitationInput, "accessed">, at: { slug: string; version: number }) {
-    setCaching(res, embargoed, at);
-    res.type(citationMedia[format]).attachment(`${fileBase}.${format === "json" ? "csl.json" : format}`).send(citationFile({ ...input, accessed: new Date() }, format));
+  /**
+   * A data file of a withdrawn brief is no longer offered to readers: 410 with the reason, answered
+   * here (true). Its editors still fetch it, signed in and uncached. Otherwise the file's caching is set.
+   */
+  const answeredWithdrawn = (req: Request, res: Response, page: FoundVersion): boolean => {
+    const at = { slug: page.snapshot.brief.slug, version: page.snapshot.version };
+    if (!page.withdrawal) {
+      setCaching(res, page.embargoed, at);
+      return false;
+    }
+    if ((req.user?.roles ?? []).includes("editor")) {
+      res.set("Cache-Control", "private, no-store");
+      return false;
+    }
+    setCaching(res, false, at);
+    const locale = localeOf(res);
+    res.status(410).type("text/plain").send(wordsOf(locale, "public")("download.withdrawn", { date: dayInWords(locale, page.withdrawal.at), reason: page.withdrawal.reason }));
+    return true;
+  };
+
+  /** A citation file for a version or one comparison in it, named after what it cites; a withdrawn brief's says so. */
+  function sendCitation(res: Response, format: CitationFormat, page: FoundVersion, fileBase: string, input: Omit<CitationInput, "accessed" | "withdrawn">, at: { slug: string; version: number }) {
+    setCaching(res, page.embargoed, at);
+    const t = wordsOf(localeOf(res), "public");
+    const withdrawn = page.withdrawal ? { titlePrefix: t("cite.withdrawnTitle"), note: t("cite.withdrawnNote", { date: page.withdrawal.at.slice(0, 10), reason: page.withdrawal.reason }) } : null;
+    res.type(citationMedia[format]).attachment(`${fileBase}.${format === "json" ? "csl.json" : format}`).send(citationFile({ ...input, accessed: new Date(), withdrawn }, format));
   }
 
   router.get("/briefs/:slug/v/:number/cite.:format", async (req, res) => {
     const format = formatOf(req.params.format);
     const page = format ? await versionOf(req) : null;
     if (!format || !page) return res.status(404).type("text/plain").send(notFound);
-    const { snapshot, embargoed } = page;
+    const { snapshot } = page;
     const locale = localeOf(res);
     const url = `${siteUrl(req, publicUrl)}${localePath(locale, versionUrl({ slug: snapshot.brief.slug, version: snapshot.version }))}`;
-    sendCitation(res, format, embargoed, `${snapshot.brief.slug}-v${snapshot.version}`, { title: snapshot.brief.title, author: snapshot.brief.authorTeam, version: snapshot.version, releaseAt: snapshot.releaseAt, url, language: locale }, { slug: snapshot.brief.slug, version: snapshot.version });
+    sendCitation(res, format, page, `${snapshot.brief.slug}-v${snapshot.version}`, { title: snapshot.brief.title, author: snapshot.brief.authorTeam, version: snapshot.version, releaseAt: snapshot.releaseAt, url, language: locale }, { slug: snapshot.brief.slug, version: snapshot.version });
   });
 
   router.get("/briefs/:slug/v/:number/compare/:a/:b/cite.:format", async (req, res) => {
@@ -95,7 +114,7 @@ export function publicFileRoutes(db: Database, publicUrl: string | undefined, se
     if (!format || !page || !view) return res.status(404).type("text/plain").send("There is no such comparison in this version.");
     const locale = localeOf(res);
     const url = `${siteUrl(req, publicUrl)}${localePath(locale, comparisonUrl({ slug: view.slug, version: view.version, treatment: view.treatment.id, comparator: view.comparator.id }))}`;
-    sendCitation(res, format, page.embargoed, `${view.slug}-v${view.version}-${view.treatment.id}-vs-${view.comparator.id}`, {
+    sendCitation(res, format, page, `${view.slug}-v${view.version}-${view.treatment.id}-vs-${view.comparator.id}`, {
       title: view.title,
       author: page.snapshot.brief.authorTeam,
       version: view.version,
@@ -112,9 +131,20 @@ export function publicFileRoutes(db: Database, publicUrl: string | undefined, se
     const file = Object.hasOwn(downloads, name) ? downloads[name as keyof typeof downloads] : null;
     const page = file ? await versionOf(req) : null;
     if (!file || !page) return res.status(404).type("text/plain").send("There is no such download.");
-    const { snapshot, embargoed } = page;
-    setCaching(res, embargoed, { slug: snapshot.brief.slug, version: snapshot.version });
+    const { snapshot } = page;
+    if (answeredWithdrawn(req, res, page)) return;
     res.type(file.media).attachment(`${snapshot.brief.slug}-v${snapshot.version}-${String(req.params.file)}`).send(file.build(snapshot));
+  });
+
+  // What changed since the version before, as frozen with this one (docs/data.md): the same facts the
+  // page's "What changed" section words, by treatment label and on the analysis scale.
+  router.get("/briefs/:slug/v/:number/changes.json", async (req, res) => {
+    const page = await versionOf(req);
+    if (!page) return res.status(404).type("text/plain").send(notFound);
+    const { snapshot, changes } = page;
+    if (!changes) return res.status(404).type("text/plain").send(`Version ${snapshot.version} is the first: no version came before it.`);
+    if (answeredWithdrawn(req, res, page)) return;
+    res.json({ slug: snapshot.brief.slug, ...changes });
   });
 
   router.get("/feed.xml", async (req, res) => {
@@ -127,7 +157,8 @@ export function publicFileRoutes(db: Database, publicUrl: string | undefined, se
 
   router.get("/sitemap.xml", async (req, res) => {
     const base = siteUrl(req, publicUrl);
-    const versions = await listReleasedVersions(db);
+    // A withdrawn brief keeps its pages (410, saying why) but leaves the sitemap: nothing to index.
+    const versions = (await listReleasedVersions(db)).filter((version) => version.withdrawnAt === null);
     const latest = new Map<string, string>();
     for (const v of versions) if (!latest.has(v.slug)) latest.set(v.slug, v.releaseAt);
     // Each page in every language, each naming all of them (hreflang alternates, x-default English).

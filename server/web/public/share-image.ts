@@ -229,6 +229,11 @@ export function shareImageText(snapshot: VersionSnapshot, pair: { a: string; b: 
   };
 }
 
+/** A withdrawn brief's image: its title, and in place of the finding the withdrawal and its reason. */
+export function withdrawnImageText(text: ShareText, withdrawal: string): ShareText {
+  return { ...text, statement: withdrawal, certainty: null, alt: `${text.title}. ${withdrawal}` };
+}
+
 const rendered = new Map<string, Promise<Buffer>>();
 /** Enough for every version and comparison readers share at once; the oldest go first. */
 const keep = 500;
