@@ -1,4 +1,6 @@
+import { useSyncExternalStore } from "react";
 import { useTranslation } from "react-i18next";
+import { signedInCookie } from "#core/access/access";
 import { usePageContext } from "vike-react/usePageContext";
 import { languageNames, locales } from "#core/languages/locales";
 import { homeUrl, isDeskPath, languageChoiceUrl } from "#core/publication/urls";
@@ -10,6 +12,7 @@ export function SiteHeader() {
   const { urlPathname, urlParsed } = usePageContext();
   const here = urlPathname + (urlParsed.searchOriginal ?? "");
   const personal = isDeskPath(urlPathname) || urlPathname.startsWith("/preview/");
+  const signedIn = useSignedIn();
   return (
     <header data-site-header className="border-b border-rule">
       <a href="#content" className="sr-only focus:not-sr-only focus:absolute focus:p-2">
@@ -22,7 +25,7 @@ export function SiteHeader() {
         </a>
         <nav aria-label={t("site.mainNav")} className="flex flex-wrap gap-5 font-sans text-sm">
           <a href="/desk">{t("site.nav.desk")}</a>
-          <a href={href("/sign-in")}>{t("site.nav.signIn")}</a>
+          {signedIn ? null : <a href={href("/sign-in")}>{t("site.nav.signIn")}</a>}
         </nav>
         {/* The desk speaks the language its person chose on their account screen instead. */}
         {personal ? null : <LanguageSwitcher here={here} />}
@@ -49,5 +52,17 @@ function LanguageSwitcher({ here }: { here: string }) {
         ),
       )}
     </nav>
+  );
+}
+
+/**
+ * Whether this browser is signed in, from the readable cookie set at sign-in (server/core/access/access.ts):
+ * known only once the page runs in the browser, since the page itself is the same for every reader.
+ */
+function useSignedIn(): boolean {
+  return useSyncExternalStore(
+    () => () => {},
+    () => document.cookie.split("; ").includes(`${signedInCookie}=1`),
+    () => false,
   );
 }

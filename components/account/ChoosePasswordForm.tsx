@@ -1,6 +1,7 @@
 // Choosing a password from a one-time link (an invitation or a reset): a plain HTML form that posts to
 // the API and works with JavaScript turned off.
 import { useTranslation } from "react-i18next";
+import { useData } from "vike-react/useData";
 import { usePageContext } from "vike-react/usePageContext";
 import { passwordResetUrl } from "#core/publication/urls";
 
@@ -11,6 +12,18 @@ export function ChoosePasswordForm({ title }: { title: string }) {
   const pageContext = usePageContext();
   const error = pageContext.urlParsed.search.error;
   const token = String(pageContext.routeParams.token ?? "");
+  // Checked when the page was made: a used or expired link offers the way to a new one, not a form.
+  const { usable } = useData<{ usable: boolean }>();
+  if (!usable) {
+    return (
+      <div className="max-w-md">
+        <h1 className="text-4xl font-semibold tracking-tight">{title}</h1>
+        <p role="alert" className="mt-6 border-s-4 border-accent bg-accent-soft px-4 py-3 font-sans" data-testid="link-unusable">
+          {t("account.errors.link")} <a href={passwordResetUrl()}>{t("signIn.forgot")}</a>
+        </p>
+      </div>
+    );
+  }
   return (
     <div className="max-w-md">
       <h1 className="text-4xl font-semibold tracking-tight">{title}</h1>

@@ -30,6 +30,15 @@ export interface AuditFilter {
 }
 
 /** The newest entries first, filtered and paged in SQL; `next` is the cursor of the following page. */
+/** What an entry is about, as the desk names it: a brief's title, an outcome's name, a person's, a version's brief and number. */
+const entityName = sql<string | null>`case ${auditLog.entity}
+  when 'brief' then (select b.title from briefs b where b.id::text = ${auditLog.entityId})
+  when 'outcome' then (select o.name || ' (' || b.title || ')' from outcomes o join briefs b on b.id = o.brief_id where o.id::text = ${auditLog.entityId})
+  when 'person' then (select p.display_name from people p where p.id::text = ${auditLog.entityId})
+  when 'session' then (select p.display_name from people p where p.id::text = ${auditLog.entityId})
+  when 'version' then (select b.title || ', v' || v.number from brief_versions v join briefs b on b.id = v.brief_id where v.id::text = ${auditLog.entityId})
+end`;
+
 export async function listAudit(db: Database, filter: AuditFilter) {
   const conditions = [
     filter.actorId ? eq(auditLog.actorId, filter.actorId) : undefined,
@@ -43,7 +52,7 @@ export async function listAudit(db: Database, filter: AuditFilter) {
     filter.before ? lt(auditLog.id, filter.before) : undefined,
   ];
   const rows = await db
-    .select({ id: auditLog.id, at: auditLog.at, actorId: auditLog.actorId, actorName: people.displayName, action: auditLog.action, entity: auditLog.entity, entityId: auditLog.entityId, before: auditLog.before, after: auditLog.after })
+    .select({ id: auditLog.id, at: auditLog.at, actorId: auditLog.actorId, actorName: people.displayName, action: auditLog.action, entity: auditLog.entity, entityId: auditLog.entityId, entityName, before: auditLog.before, after: auditLog.after })
     .from(auditLog)
     .leftJoin(people, eq(people.id, auditLog.actorId))
     .where(and(...conditions))

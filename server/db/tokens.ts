@@ -27,3 +27,12 @@ export async function consumeToken(tx: Executor, token: string): Promise<{ perso
     .returning({ personId: accountTokens.personId, purpose: accountTokens.purpose });
   return row ?? null;
 }
+
+/** Whether the link still works (known, unused, unexpired), without using it: its page says so before anyone types a password. */
+export async function tokenIsUsable(db: Pick<Database, "select">, token: string): Promise<boolean> {
+  const [row] = await db
+    .select({ id: accountTokens.id })
+    .from(accountTokens)
+    .where(and(eq(accountTokens.tokenHash, hashToken(token)), isNull(accountTokens.usedAt), gt(accountTokens.expiresAt, sql`now()`)));
+  return row !== undefined;
+}

@@ -12,6 +12,7 @@ import { pinoHttp } from "pino-http";
 import type pg from "pg";
 import type { Queue } from "#workflows/queue";
 import { apiRoutes } from "./api";
+import { sessionLifetime } from "./api/session";
 import { createPassport } from "./auth/passport";
 import { addressable } from "#core/publication/urls";
 import type { Database } from "#db/client";
@@ -140,7 +141,7 @@ export async function createApp(options: AppOptions): Promise<express.Express> {
       resave: false,
       saveUninitialized: false,
       rolling: true,
-      cookie: { httpOnly: true, sameSite: "lax", secure: secureTransport, maxAge: 1000 * 60 * 60 * 12 },
+      cookie: { httpOnly: true, sameSite: "lax", secure: secureTransport, maxAge: sessionLifetime },
     }),
   );
   const passport = createPassport(db);

@@ -19,6 +19,5 @@ export async function briefReadiness(db: Database, briefId: string): Promise<Rea
     const groups = result && certainty ? concludeOutcome(result, certainty, { name: outcome.name, baselineRisk: outcome.baselineRisk, thresholds: thresholdsOf(outcome), names }).groups : null;
     outcomes.push({ name: outcome.name, current, result, certainty, groups });
   }
-  if (outcomes.length === 0) outcomes.push({ name: "—", current: false, result: null, certainty: null });
   return readinessOf({ laySummary: brief.laySummary, shortTake: brief.shortTake, outcomes, treatments: brief.treatments });
 }

@@ -31,9 +31,9 @@ it("the analyst sees the risk-of-bias shares and suggestion, and confirming it n
 
   await panel.getByRole("link", { name: en.desk.results }).click();
   await page.getByRole("link", { name: en.desk.certainty }).click();
-  const row = page.getByRole("row", { name: /no_contact vs self_help/ });
+  const row = page.getByRole("row", { name: /self_help vs no_contact/ });
   await row.getByRole("button", { name: en.desk.judge }).click();
-  const form = page.getByRole("form", { name: `${en.desk.judge}: no_contact vs self_help` });
+  const form = page.getByRole("form", { name: `${en.desk.judge}: self_help vs no_contact` });
   // Random effects: 61.6% of the direct weight has some concerns (the reference values), so one level down is suggested and preselected.
   await expect(form.getByTestId("risk-of-bias-advice").textContent()).resolves.toContain("62% of the weight of the direct evidence comes from trials with some concerns about bias.");
   await expect(form.getByLabel(en.desk.domain.riskOfBias, { exact: true }).inputValue()).resolves.toBe("1");

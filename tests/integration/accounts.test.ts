@@ -32,12 +32,21 @@ afterAll(async () => {
 /** The one link of a message's plain-text part that points at this site. */
 const linkIn = (text: string) => new URL(/https?:\/\/\S+\/(invitation|password-reset)\/[A-Za-z0-9_-]+/.exec(text)![0]);
 
+/** What the page of a used or expired link says at once, instead of offering the form. */
+const unusable = "the page says the link is used or expired";
+
 /** Sets a password through the form the link opens, as a browser without JavaScript would. */
 async function choosePassword(link: URL, password: string) {
   const client = new ApiClient(server.url);
   const page = await fetch(`${server.url}${link.pathname}`, { headers: { cookie: client.cookieHeader } });
   client.cookieHeader = page.headers.getSetCookie().map((c) => c.split(";")[0]).join("; ");
-  const csrf = /name="_csrf" value="([^"]+)"/.exec(await page.text())![1]!;
+  const html = await page.text();
+  if (html.includes('data-testid="link-unusable"')) {
+    expect(html).toContain("This link has been used already or has expired.");
+    expect(html).not.toContain('name="password"');
+    return unusable;
+  }
+  const csrf = /name="_csrf" value="([^"]+)"/.exec(html)![1]!;
   const answer = await fetch(`${server.url}/api/account/password`, {
     method: "POST",
     headers: { "content-type": "application/x-www-form-urlencoded", cookie: client.cookieHeader },
@@ -65,7 +74,11 @@ describe("invitations", () => {
     expect((await new ApiClient(server.url).signIn(email, "a long enough password")).status).toBe(401);
     expect(await choosePassword(link, "a long enough password")).toBe("/sign-in?done=password");
     expect((await new ApiClient(server.url).signIn(email, "a long enough password")).status).toBe(200);
-    expect(await choosePassword(link, "another long password")).toContain("error=link");
+    expect(await choosePassword(link, "another long password")).toBe(unusable);
+    // And the API refuses the spent link whatever the page said.
+    const again = await new ApiClient(server.url).request("POST", "/api/account/password", { json: { token: link.pathname.split("/").pop(), password: "another long password" } });
+    expect(again.status).toBe(400);
+    expect(again.body.error?.key).toBe("errors.account.invalidLink");
 
     // The message's state is visible to administrators, never its body (it held the link).
     const messages = (await admin.request("GET", "/api/messages")).body.messages as { recipient: string; state: string; attempts: number; kind: string }[];
@@ -85,7 +98,7 @@ describe("invitations", () => {
     const first = linkIn((await mailbox.waitFor(email)).text);
     expect((await admin.request("POST", `/api/people/${(body.person as { id: string }).id}/invitation`)).status).toBe(202);
     const second = linkIn((await mailbox.waitFor(email, (m) => !m.text.includes(first.pathname))).text);
-    expect(await choosePassword(first, "a long enough password")).toContain("error=link");
+    expect(await choosePassword(first, "a long enough password")).toBe(unusable);
     expect(await choosePassword(second, "a long enough password")).toBe("/sign-in?done=password");
   });
 });
@@ -115,7 +128,7 @@ describe("password reset", () => {
     expect(await choosePassword(link, "the second long password")).toBe("/sign-in?done=password");
     expect((await signedIn.request("GET", "/api/session")).status).toBe(401);
     expect((await new ApiClient(server.url).signIn(email, "the second long password")).status).toBe(200);
-    expect(await choosePassword(link, "a third long password")).toContain("error=link");
+    expect(await choosePassword(link, "a third long password")).toBe(unusable);
 
     // An expired link: the database's clock says so.
     await new ApiClient(server.url).request("POST", "/api/password-reset", { json: { email } });
@@ -124,7 +137,7 @@ describe("password reset", () => {
     await db.connect();
     await db.query("update account_tokens set expires_at = now() - interval '1 second' where used_at is null and person_id = (select id from people where email = $1)", [email]);
     await db.end();
-    expect(await choosePassword(expired, "a fourth long password")).toContain("error=link");
+    expect(await choosePassword(expired, "a fourth long password")).toBe(unusable);
   });
 });
 

@@ -96,6 +96,19 @@ describe("oEmbed 1.0", () => {
   });
 });
 
+describe("the card's fonts", () => {
+  it("are the site's own faces, served from stable addresses, not whatever the framing site has", async () => {
+    const card = await (await get(`/embed${comparison}`)).text();
+    for (const family of ["Source Serif 4", "Inter", "Noto Naskh Arabic"]) expect(card).toContain(`@font-face{font-family:"${family}"`);
+    expect(card).not.toContain("font:13px/1.4 system-ui");
+    const font = await get("/embed/fonts/inter-400.woff2");
+    expect(font.status).toBe(200);
+    expect(font.headers.get("content-type")).toBe("font/woff2");
+    expect(Buffer.from(await font.arrayBuffer()).subarray(0, 4).toString("latin1")).toBe("wOF2");
+    expect((await get("/embed/fonts/__proto__")).status).toBe(404);
+  });
+});
+
 describe("share images", () => {
   it("are PNGs of 1200 × 630, the same bytes on two requests, and named by og:image on the page", async () => {
     for (const path of [`${comparison}/share.png`, `/briefs/${small}/v/1/share.png`, `/ar${comparison}/share.png`]) {

@@ -57,11 +57,8 @@ export function AuditScreen() {
       <ol className="mt-6 divide-y divide-rule font-sans text-sm" data-testid="audit">
         {entries.map((entry) => (
           <li key={entry.id} className="py-2">
-            <span className="text-muted">{when.format(new Date(entry.at))} UTC</span> · {entry.actorName ?? t("desk.audit.system")} · <strong>{entry.action}</strong> {entry.entity} <code>{entry.entityId}</code>
-            <details className="mt-1">
-              <summary className="cursor-pointer">{t("desk.audit.beforeAfter")}</summary>
-              <pre className="mt-1 overflow-x-auto bg-white p-2 text-xs">{JSON.stringify({ before: entry.before, after: entry.after }, null, 2)}</pre>
-            </details>
+            <span className="text-muted">{when.format(new Date(entry.at))} UTC</span> · {entry.actorName ?? t("desk.audit.system")} · <strong>{entry.action}</strong> · {entry.entityName ?? <span className="text-muted">{entry.entity}</span>}
+            <BeforeAfter before={entry.before} after={entry.after} />
           </li>
         ))}
       </ol>
@@ -72,5 +69,42 @@ export function AuditScreen() {
         </button>
       ) : null}
     </>
+  );
+}
+
+/** A value of the record as a person reads it: text as written, lists joined, anything else in short JSON. */
+function shown(value: unknown): string {
+  if (value === null || value === undefined) return "—";
+  if (typeof value === "string") return value;
+  if (Array.isArray(value) && value.every((item) => typeof item !== "object")) return value.join(", ");
+  return typeof value === "object" ? JSON.stringify(value) : String(value);
+}
+
+/** The fields an entry changed, each "field: before → after"; nothing when the entry records no values. */
+function BeforeAfter({ before, after }: { before: unknown; after: unknown }) {
+  const { t } = useTranslation();
+  const record = (value: unknown): Record<string, unknown> => (value && typeof value === "object" && !Array.isArray(value) ? (value as Record<string, unknown>) : {});
+  const [was, is] = [record(before), record(after)];
+  const fields = [...new Set([...Object.keys(was), ...Object.keys(is)])];
+  if (fields.length === 0) return null;
+  return (
+    <details className="mt-1">
+      <summary className="cursor-pointer">{t("desk.audit.beforeAfter")}</summary>
+      <dl className="mt-1 grid grid-cols-[max-content_1fr] gap-x-3 gap-y-1 bg-white p-2 text-xs">
+        {fields.map((field) => (
+          <div key={field} className="contents">
+            <dt className="font-semibold">{field}</dt>
+            <dd className="break-words">
+              {field in was ? (
+                <>
+                  <del className="text-muted">{shown(was[field])}</del> →{" "}
+                </>
+              ) : null}
+              {field in is ? shown(is[field]) : "—"}
+            </dd>
+          </div>
+        ))}
+      </dl>
+    </details>
   );
 }

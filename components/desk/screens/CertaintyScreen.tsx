@@ -8,7 +8,7 @@ import type { RiskOfBiasShares } from "#core/nma/risk-of-bias";
 import { formatInterval } from "#core/publication/effects";
 import { comparisonOf } from "#core/nma/comparison";
 import { buttonClass, inputClass } from "./forms";
-import { useCertainty, useResult, useSaveJudgement, useSaveJudgements } from "../queries";
+import { useBrief, useCertainty, useResult, useSaveJudgement, useSaveJudgements } from "../queries";
 
 const domains = ["riskOfBias", "inconsistency", "indirectness", "publicationBias"] as const;
 /** The bulk form's value for "each pair's own risk-of-bias suggestion". */
@@ -23,13 +23,22 @@ export function CertaintyScreen({ canJudge }: { canJudge: boolean }) {
   const { briefId = "", outcomeId = "" } = useParams();
   const certainty = useCertainty(outcomeId);
   const result = useResult(outcomeId);
+  const brief = useBrief(briefId);
   const bulk = useSaveJudgements(outcomeId);
   const [open, setOpen] = useState<string | null>(null);
   const [selected, setSelected] = useState<Set<string>>(new Set());
   if (certainty.isError) return <p role="alert">{t("desk.error", { message: certainty.error.message })}</p>;
   if (!certainty.data || !result.data) return <p aria-live="polite">{t("desk.loading")}</p>;
-  const comparisons = certainty.data;
   const analysed = result.data;
+  // Each comparison as readers will read it: the names readers see, an option against the reference
+  // (not the reference against it), those against the reference first.
+  const names = new Map(brief.data?.treatments.map((treatment) => [treatment.label, treatment.displayName]) ?? []);
+  const shownAs = (c: ComparisonCertainty) => {
+    const [a, b] = c.treatment === analysed.reference ? [c.comparator, c.treatment] : [c.treatment, c.comparator];
+    return { a, b, label: t("brief.versus", { treatment: names.get(a) ?? a, comparator: names.get(b) ?? b }) };
+  };
+  const againstReference = (c: ComparisonCertainty) => (c.treatment === analysed.reference || c.comparator === analysed.reference ? 0 : 1);
+  const comparisons = [...certainty.data].sort((x, y) => againstReference(x) - againstReference(y) || shownAs(x).label.localeCompare(shownAs(y).label));
   const keyOf = (c: ComparisonCertainty) => `${c.treatment}|${c.comparator}`;
   const chosen = comparisons.filter((c) => selected.has(keyOf(c)));
   const pendingCount = comparisons.filter((c) => c.pending.length > 0).length;
@@ -99,16 +108,17 @@ export function CertaintyScreen({ canJudge }: { canJudge: boolean }) {
           <tbody>
             {comparisons.map((c) => {
               const key = keyOf(c);
-              const evidence = comparisonOf(analysed, c.treatment, c.comparator);
+              const shown = shownAs(c);
+              const evidence = comparisonOf(analysed, shown.a, shown.b);
               return (
                 <tr key={key} className="border-b border-rule align-top">
                   {canJudge ? (
                     <td className="py-2 pe-2">
-                      <input type="checkbox" checked={selected.has(key)} onChange={() => toggle(key)} aria-label={t("desk.bulk.select", { treatment: c.treatment, comparator: c.comparator })} />
+                      <input type="checkbox" checked={selected.has(key)} onChange={() => toggle(key)} aria-label={t("desk.bulk.select", { treatment: names.get(shown.a) ?? shown.a, comparator: names.get(shown.b) ?? shown.b })} />
                     </td>
                   ) : null}
                   <th scope="row" className="py-2 pe-3 text-start font-semibold">
-                    {c.treatment} vs {c.comparator}
+                    {shown.label}
                   </th>
                   <td className="py-2 pe-3 tabular-nums">
                     {evidence ? formatInterval(analysed.measure, evidence.network, t("brief.to")) : "—"}
@@ -138,7 +148,7 @@ export function CertaintyScreen({ canJudge }: { canJudge: boolean }) {
       {comparisons
         .filter((c) => open === keyOf(c))
         .map((c) => (
-          <JudgementForm key={keyOf(c)} outcomeId={outcomeId} comparison={c} shares={comparisonOf(analysed, c.treatment, c.comparator)?.riskOfBias ?? null} />
+          <JudgementForm key={keyOf(c)} outcomeId={outcomeId} comparison={c} title={shownAs(c).label} shares={comparisonOf(analysed, c.treatment, c.comparator)?.riskOfBias ?? null} />
         ))}
     </>
   );
@@ -257,7 +267,7 @@ function DowngradeField({ name, label, value }: { name: string; label: string; v
   );
 }
 
-function JudgementForm({ outcomeId, comparison, shares }: { outcomeId: string; comparison: ComparisonCertainty; shares: RiskOfBiasShares | null }) {
+function JudgementForm({ outcomeId, comparison, title, shares }: { outcomeId: string; comparison: ComparisonCertainty; title: string; shares: RiskOfBiasShares | null }) {
   const { t } = useTranslation();
   const robSuggestion = comparison.suggestions.riskOfBias;
   const save = useSaveJudgement(outcomeId);
@@ -268,7 +278,7 @@ function JudgementForm({ outcomeId, comparison, shares }: { outcomeId: string; c
   const decision = (name: "incoherence" | "imprecision") => j[name] ?? { levels: comparison.suggestions[name].levels, reason: "" };
   return (
     <form
-      aria-label={`${t("desk.judge")}: ${comparison.treatment} vs ${comparison.comparator}`}
+      aria-label={`${t("desk.judge")}: ${title}`}
       className="mt-8 space-y-4 border border-rule bg-white p-5 font-sans text-sm"
       onSubmit={(event) => {
         event.preventDefault();
@@ -288,9 +298,7 @@ function JudgementForm({ outcomeId, comparison, shares }: { outcomeId: string; c
         save.mutate({ treatment: comparison.treatment, comparator: comparison.comparator, judgement });
       }}
     >
-      <h2 className="text-lg font-semibold">
-        {comparison.treatment} vs {comparison.comparator}
-      </h2>
+      <h2 className="text-lg font-semibold">{title}</h2>
       {hasDirect
         ? domains.map((d) =>
             d === "riskOfBias" ? (

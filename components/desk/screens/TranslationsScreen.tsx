@@ -11,6 +11,7 @@ import type { TranslationLocale } from "#core/languages/locales";
 import { ReadabilityAdvice } from "./ReadabilityAdvice";
 import { buttonClass, inputClass } from "./forms";
 import { previewMarkdown, useTranslation, useTranslationQueue, useTranslationStep } from "../queries";
+import { ApiError } from "../api";
 import { useIntl } from "../../i18n";
 
 export function TranslationQueue() {
@@ -60,7 +61,18 @@ export function TranslationEditor({ canPublish }: { canPublish: boolean }) {
   const { t } = useWords();
   const { versionId = "", locale = "" } = useParams();
   const translation = useTranslation(versionId, locale);
-  if (translation.isError) return <p role="alert">{t("desk.error", { message: translation.error.message })}</p>;
+  if (translation.isError) {
+    // Not one's language, or no such version: say so plainly, with the way back; anything else is a failure.
+    const refused = translation.error instanceof ApiError && (translation.error.status === 403 || translation.error.status === 404);
+    return (
+      <section>
+        <p role="alert">{refused ? translation.error.message : t("desk.error", { message: translation.error.message })}</p>
+        <p className="mt-3 font-sans text-sm">
+          <Link to="/translations">{t("desk.translations.back")}</Link>
+        </p>
+      </section>
+    );
+  }
   if (!translation.data) return <p aria-live="polite">{t("desk.loading")}</p>;
   // A new key per saved state, so the form's fields start from what was saved.
   return <EditorForm key={translation.data.fields.map((f) => f.target).join("\u0000")} translation={translation.data} canPublish={canPublish} />;

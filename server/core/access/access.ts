@@ -17,6 +17,13 @@ export interface AccessRule {
 
 /** Everyone who works in the desk, except the press. */
 export const desk = ["analyst", "editor", "translator", "admin"] as const satisfies readonly Role[];
+
+/**
+ * A cookie the browser's scripts may read, set at sign-in and cleared at sign-out: a public page is
+ * the same for every reader (and kept by caches), so its header learns in the browser, not from the
+ * server, that its reader is signed in. It holds no secret; the session cookie stays HttpOnly.
+ */
+export const signedInCookie = "fairweigh.signedIn";
 export const embargo = "A version before its release (under embargo) answers 404 to all but press and editor.";
 
 /** The public site's files beside its pages (server/web/public/routes.ts). */
@@ -29,6 +36,7 @@ export const fileAccess = {
   "GET /sitemap.xml": { who: "anyone", does: "the sitemap of released pages" },
   "GET /robots.txt": { who: "anyone", does: "robots.txt" },
   "GET /language/:locale": { who: "anyone", does: "choose the site's language (kept in a cookie), then the same page in it" },
+  "GET /embed/fonts/:file": { who: "anyone", does: "the fonts of the embedded card (WOFF2)" },
   "GET /embed/briefs/:slug/v/:number": { who: "anyone", does: "the card of a released version, for other sites to frame" },
   "GET /embed/briefs/:slug/v/:number/compare/:a/:b": { who: "anyone", does: "the card of one comparison of a released version, for other sites to frame" },
   "GET /briefs/:slug/v/:number/share.png": { who: "anyone", does: "the share image of a released version (1200 × 630 PNG)" },

@@ -38,6 +38,7 @@ export function readinessOf(draft: DraftFacts): Readiness {
   if (draft.laySummary.trim() === "") blocking.push({ key: "readiness.noSummary", values: {} });
   const unnamed = draft.treatments.filter((t) => !t.named).map((t) => t.label);
   if (unnamed.length > 0) blocking.push({ key: "readiness.unnamed", values: { count: unnamed.length, labels: unnamed.join(", ") } });
+  if (draft.outcomes.length === 0) blocking.push({ key: "readiness.noOutcome", values: {} });
   for (const outcome of draft.outcomes) {
     if (!outcome.current || !outcome.result || !outcome.certainty) {
       blocking.push({ key: "readiness.noAnalysis", values: { outcome: outcome.name } });

@@ -5,6 +5,7 @@ import type { AppPassport } from "../auth/passport";
 import { handle } from "./handle";
 import { isFormPost } from "../http/forms";
 import { recordAudit } from "#db/audit";
+import { signedInCookie } from "#core/access/access";
 import type { Database } from "#db/client";
 import { fieldIssues, sendError } from "../http/errors";
 import { signInRateLimits, tooManyAttempts, type LimitStore } from "../http/security";
@@ -19,6 +20,9 @@ function safeNext(value: unknown): string {
 function signInPage(error: string, next: string): string {
   return `/sign-in?error=${error}&next=${encodeURIComponent(next)}`;
 }
+
+/** How long a session lasts without a request (rolling: each request starts it again). */
+export const sessionLifetime = 1000 * 60 * 60 * 12;
 
 export function sessionRoutes(db: Database, passport: AppPassport, sessionCookie: string, limitStore: LimitStore): Router {
   const router = Router();
@@ -56,6 +60,7 @@ export function sessionRoutes(db: Database, passport: AppPassport, sessionCookie
       req.logIn(person, async (loginError) => {
         if (loginError) return next(loginError);
         await recordAudit(db, { actorId: person.id, action: "sign-in", entity: "session", entityId: person.id, before: null, after: null });
+        res.cookie(signedInCookie, "1", { sameSite: "lax", secure: req.secure, path: "/", maxAge: sessionLifetime });
         if (form) return res.redirect(303, safeNext(req.body?.next));
         res.json({ person });
       });
@@ -72,6 +77,7 @@ export function sessionRoutes(db: Database, passport: AppPassport, sessionCookie
           await recordAudit(db, { actorId: person.id, action: "sign-out", entity: "session", entityId: person.id, before: null, after: null });
         }
         res.clearCookie(sessionCookie, { path: "/" });
+        res.clearCookie(signedInCookie, { path: "/" });
         res.status(204).end();
       });
     });

@@ -24,24 +24,44 @@ function mark(rating: Rating | null, t: TFunction): string {
   return `<span class="certainty">${escapeXml(t(`certainty.rating.${rating}`))} <svg viewBox="0 0 26 12" width="26" height="12" aria-hidden="true">${steps}</svg></span>`;
 }
 
+/**
+ * The card's faces: the site's own (Source Serif 4 for text, Inter for labels, Noto Naskh Arabic for
+ * Arabic), served from the app's npm packages at stable addresses so that a framed card needs no build
+ * manifest (server/web/public/reach.ts serves them).
+ */
+export const cardFonts = {
+  "source-serif-4-400.woff2": { family: "Source Serif 4", weight: 400, file: "@fontsource/source-serif-4/files/source-serif-4-latin-400-normal.woff2" },
+  "source-serif-4-600.woff2": { family: "Source Serif 4", weight: 600, file: "@fontsource/source-serif-4/files/source-serif-4-latin-600-normal.woff2" },
+  "inter-400.woff2": { family: "Inter", weight: 400, file: "@fontsource/inter/files/inter-latin-400-normal.woff2" },
+  "inter-600.woff2": { family: "Inter", weight: 600, file: "@fontsource/inter/files/inter-latin-600-normal.woff2" },
+  "noto-naskh-arabic-400.woff2": { family: "Noto Naskh Arabic", weight: 400, file: "@fontsource/noto-naskh-arabic/files/noto-naskh-arabic-arabic-400-normal.woff2" },
+  "noto-naskh-arabic-600.woff2": { family: "Noto Naskh Arabic", weight: 600, file: "@fontsource/noto-naskh-arabic/files/noto-naskh-arabic-arabic-600-normal.woff2" },
+} as const;
+
+const fontFaces = Object.entries(cardFonts)
+  .map(([name, face]) => `@font-face{font-family:"${face.family}";font-weight:${face.weight};font-display:swap;src:url(/embed/fonts/${name}) format("woff2")}`)
+  .join("\n");
+const sans = `Inter,"Noto Naskh Arabic",system-ui,sans-serif`;
+
 const styles = `
+${fontFaces}
 :root{color-scheme:light}
 *{box-sizing:border-box}
 body{margin:0;font:16px/1.45 "Source Serif 4",Georgia,"Noto Naskh Arabic",serif;color:#1d1a17;background:#fbf8f3}
 .card{max-width:${cardWidth.max}px;border:1px solid #d9d1c5;border-block-start:4px solid #6d1f35;padding:16px 18px;background:#fbf8f3}
-.brand{font:600 13px/1.2 system-ui,sans-serif;letter-spacing:.04em;text-transform:uppercase;color:#6d1f35;margin:0}
+.brand{font:600 13px/1.2 ${sans};letter-spacing:.04em;text-transform:uppercase;color:#6d1f35;margin:0}
 h1{font-size:22px;line-height:1.2;margin:6px 0 2px}
-.from,.muted{color:#5b554d;font:13px/1.4 system-ui,sans-serif}
-.fictional{display:inline-block;margin:8px 0 0;padding:2px 8px;border:1px solid #6d1f35;color:#6d1f35;font:600 12px/1.4 system-ui,sans-serif}
+.from,.muted{color:#5b554d;font:13px/1.4 ${sans}}
+.fictional{display:inline-block;margin:8px 0 0;padding:2px 8px;border:1px solid #6d1f35;color:#6d1f35;font:600 12px/1.4 ${sans}}
 section{border-block-start:1px solid #d9d1c5;margin-block-start:12px;padding-block-start:10px}
-h2{font:600 15px/1.3 system-ui,sans-serif;margin:0 0 4px}
+h2{font:600 15px/1.3 ${sans};margin:0 0 4px}
 .statement{font-size:17px;margin:0 0 6px}
-dl{display:grid;grid-template-columns:minmax(6em,38%) minmax(0,1fr);gap:2px 12px;margin:0;font:14px/1.4 system-ui,sans-serif}
+dl{display:grid;grid-template-columns:minmax(6em,38%) minmax(0,1fr);gap:2px 12px;margin:0;font:14px/1.4 ${sans}}
 dt{color:#5b554d}dd{margin:0;font-variant-numeric:tabular-nums;overflow-wrap:anywhere}
 .certainty{white-space:nowrap}.certainty svg{vertical-align:middle}
-.caution{margin:12px 0 0;font:13px/1.4 system-ui,sans-serif;border-inline-start:3px solid #6d1f35;padding-inline-start:8px}
-.withdrawn{margin:12px 0 0;padding:8px 10px;border:2px solid #6d1f35;font:14px/1.4 system-ui,sans-serif}
-a{color:#6d1f35}.link{display:block;margin-block-start:10px;font:600 14px/1.4 system-ui,sans-serif}
+.caution{margin:12px 0 0;font:13px/1.4 ${sans};border-inline-start:3px solid #6d1f35;padding-inline-start:8px}
+.withdrawn{margin:12px 0 0;padding:8px 10px;border:2px solid #6d1f35;font:14px/1.4 ${sans}}
+a{color:#6d1f35}.link{display:block;margin-block-start:10px;font:600 14px/1.4 ${sans}}
 ul{margin:4px 0 0;padding-inline-start:18px;font-size:15px}
 `;
 

@@ -11,12 +11,14 @@ import { wordsOf } from "#core/languages/words";
 import type { Database } from "#db/client";
 import { inLanguage } from "#db/translations";
 import { readPublicVersion, readVersion } from "#db/versions";
-import { cardWidth, embedCard } from "./embed";
+import { createRequire } from "node:module";
+import { cardFonts, cardWidth, embedCard } from "./embed";
 import { escapeXml } from "./feed";
 import { siteUrl } from "../http/site-url";
 import { arabicImageText, shareImage, shareImageSize, shareImageText, withdrawnImageText, type ShareText } from "./share-image";
 
 const cacheControl = "public, max-age=3600";
+const require = createRequire(import.meta.url);
 
 /** A released version as anyone reads it, in `locale` where its translation is published. */
 async function releasedVersion(db: Database, slug: string, number: number, locale: Locale) {
@@ -69,6 +71,12 @@ export function reachRoutes(db: Database, publicUrl: string | undefined): Router
     res.removeHeader("X-Frame-Options");
     res.status(found!.withdrawal ? 410 : 200).set({ "Cache-Control": cacheControl, "Cross-Origin-Resource-Policy": "cross-origin", "Surrogate-Key": surrogateKeys({ slug: at!.slug, version: at!.version })! }).type("html").send(html);
   };
+  // The card's fonts (embed.ts): the same files whatever the build, kept for a year.
+  router.get("/embed/fonts/:file", (req, res) => {
+    const name = String(req.params.file);
+    if (!Object.hasOwn(cardFonts, name)) return res.status(404).type("text/plain").send("There is no such font.");
+    res.set({ "Cache-Control": "public, max-age=31536000, immutable", "Cross-Origin-Resource-Policy": "cross-origin" }).type("font/woff2").sendFile(require.resolve(cardFonts[name as keyof typeof cardFonts].file));
+  });
   router.get("/embed/briefs/:slug/v/:number", card);
   router.get("/embed/briefs/:slug/v/:number/compare/:a/:b", card);
 

@@ -20,7 +20,7 @@ describe("a draft's readiness", () => {
     expect(readiness.warnings).toEqual([]);
   });
 
-  it("blocks nothing with both texts written, every treatment named, and no outcome yet", () => {
-    expect(readinessOf({ laySummary: "Plain words.", shortTake: "In short.", treatments: [{ label: "a", named: true }], outcomes: [] })).toEqual({ blocking: [], warnings: [] });
+  it("blocks a brief without an outcome by saying so, not with an outcome named “—”", () => {
+    expect(readinessOf({ laySummary: "Plain words.", shortTake: "In short.", treatments: [{ label: "a", named: true }], outcomes: [] })).toEqual({ blocking: [{ key: "readiness.noOutcome", values: {} }], warnings: [] });
   });
 });
