@@ -41,8 +41,10 @@ async function catalogue(url: string, count: number): Promise<void> {
     [count, words, source],
   );
   await client.query(
-    `insert into brief_versions (id, brief_id, number, release_at, note, snapshot, created_by, created_at)
+    // The copies' versions hold the same findings: what changed between them is nothing (server/core/snapshot/changes.ts).
+    `insert into brief_versions (id, brief_id, number, release_at, note, changes, snapshot, created_by, created_at)
      select gen_random_uuid(), b.id, n, now() - interval '1 day' * (4 - n), case when n > 1 then 'An invented correction.' end,
+            case when n > 1 then jsonb_build_object('from', n - 1, 'to', n, 'tolerance', 0.1, 'texts', '[]'::jsonb, 'outcomes', '[]'::jsonb) end,
             jsonb_set(jsonb_set(jsonb_set(jsonb_set(jsonb_set(v.snapshot, '{brief,slug}', to_jsonb(b.slug)), '{brief,title}', to_jsonb(b.title)),
               '{brief,condition}', to_jsonb(b.condition)), '{brief,topic}', to_jsonb(b.topic)), '{version}', to_jsonb(n)),
             v.created_by, now()

@@ -12,12 +12,16 @@ export function requestPurge(queue: Queue, slug: string): Promise<void> {
   return queue.send(purgeJob, { slug }, { singletonKey: `purge:${slug}` });
 }
 
-/** The body the hook receives: `{"surrogateKeys": ["brief:<slug>"]}`. */
+/**
+ * The hook receives the keys twice: in the body, `{"surrogateKeys": ["brief:<slug>"]}`, for a CDN's
+ * API or a small relay; and in a Surrogate-Key header, space separated, which a Varnish in front
+ * purges by itself (deploy/varnish/fairweigh.vcl).
+ */
 export async function startPurgeWorker(queue: Queue, purgeUrl: string): Promise<void> {
   await queue.work<{ slug: string }>(purgeJob, async ({ data }) => {
     const answer = await fetch(purgeUrl, {
       method: "POST",
-      headers: { "content-type": "application/json" },
+      headers: { "content-type": "application/json", "surrogate-key": surrogateKeys({ slug: data.slug })! },
       body: JSON.stringify({ surrogateKeys: [surrogateKeys({ slug: data.slug })] }),
       signal: AbortSignal.timeout(10_000),
     });

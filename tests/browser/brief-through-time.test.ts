@@ -64,7 +64,9 @@ it("shows what changed, the translation that needs an update, and a header that 
   await expect(desk.page.getByTestId("field-title").isVisible()).resolves.toBe(true);
 
   // A public page read by someone signed in: no "Sign in" in its header.
+  // The page is the same for everyone; once it runs in the browser it reads the signed-in flag.
   await desk.page.goto(`${base}/briefs/${slug}`);
+  await desk.page.locator("header nav[aria-label=Main] a", { hasText: en.site.nav.signIn }).waitFor({ state: "detached" });
   await expect(desk.page.locator("header nav[aria-label=Main]").textContent()).resolves.toBe(en.site.nav.desk);
   expect(desk.errors).toEqual([]);
   await desk.close();

@@ -43,7 +43,7 @@ it("admin invites a translator → the e-mail's link → a password → the tran
   // The invitation is in the audit log, found with the action filter.
   await admin.page.goto(`${server.url}/desk/audit`);
   await admin.page.getByLabel(en.desk.audit.action).selectOption("create");
-  const entry = admin.page.getByTestId("audit").locator("li", { hasText: "create person" }).first();
+  const entry = admin.page.getByTestId("audit").locator("li", { hasText: "create · Tomás Translator" }).first();
   await entry.getByText(en.desk.audit.beforeAfter).click();
   await entry.getByText(email).waitFor();
   await keepScreenshot(admin.page, "invitation-2-admin-audit");

@@ -23,7 +23,7 @@ export function translationRoutes(db: Database): Router {
   function allowedLocale(req: { params: { locale: TranslationLocale }; user?: Express.User }, res: Response): TranslationLocale | null {
     const { locale } = req.params;
     if (!translatableLocales(req.user!).includes(locale)) {
-      sendError(res, 403, { key: "errors.translation.locale", message: `You are not assigned to translate into ${locale}: ask an administrator.`, details: { locale } });
+      sendError(res, 403, { key: "errors.translation.locale", message: `You are not assigned to translate into ${new Intl.DisplayNames(["en"], { type: "language" }).of(locale)}: ask an administrator.`, details: { locale } });
       return null;
     }
     return locale;
