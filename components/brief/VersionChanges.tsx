@@ -16,8 +16,9 @@ export function VersionChanges({ changes, slug }: { changes: ChangesView; slug: 
   const percent = new Intl.NumberFormat(intl.locale === "ar" ? "ar-u-nu-latn" : intl.locale, { style: "percent" }).format(changes.tolerance);
   return (
     <section aria-labelledby="changes-title" className="mt-10 border-s-4 border-accent bg-white p-6" data-testid="version-changes">
-      <h2 id="changes-title" className="text-xl font-semibold">{t("changes.title", { version: changes.from })}</h2>
-      <p className="mt-1 font-sans text-sm text-muted">{t("changes.lead", { version: changes.from })}</p>
+      {/* Without a slug it is the desk's preview of a draft, not a published version. */}
+      <h2 id="changes-title" className="text-xl font-semibold">{t(slug ? "changes.title" : "changes.draftTitle", { version: changes.from })}</h2>
+      <p className="mt-1 font-sans text-sm text-muted">{t(slug ? "changes.lead" : "changes.draftLead", { version: changes.from })}</p>
       {nothing ? <p className="mt-3">{t("changes.nothing")}</p> : null}
       {changes.texts.length > 0 ? (
         <p className="mt-3">
