@@ -58,29 +58,32 @@ export function RiskOfBiasEvidence({ outcome }: { outcome: OutcomeView }) {
           );
         })}
       </svg>
-      <table className="mt-3 font-sans text-sm">
-        <thead>
-          <tr className="border-b border-ink">
-            <th scope="col" className="py-1 pe-6 text-start">{t("riskOfBias.column.level")}</th>
-            <th scope="col" className="py-1 pe-6 text-end">{t("brief.studies")}</th>
-            {summary.participants ? <th scope="col" className="py-1 pe-6 text-end">{t("compare.participants")}</th> : null}
-            <th scope="col" className="py-1 text-end">{t(`riskOfBias.column.${basis}Share`)}</th>
-          </tr>
-        </thead>
-        <tbody>
-          {levels.map((level) => (
-            <tr key={level} className="border-b border-rule">
-              <th scope="row" className="py-1 pe-6 text-start font-normal">
-                <span aria-hidden="true" className={`me-2 inline-block h-3 w-5 border border-ink align-middle rob-swatch-${fills[level]}`} />
-                {t(`riskOfBias.level.${level}`)}
-              </th>
-              <td className="py-1 pe-6 text-end tabular-nums">{summary.studies[level]}</td>
-              {summary.participants ? <td className="py-1 pe-6 text-end tabular-nums">{intl.number(summary.participants[level], 0)}</td> : null}
-              <td className="py-1 text-end tabular-nums">{`${intl.number(percent(level), 0)}%`}</td>
+      {/* On a phone the columns come closer and the headings wrap; a table wider still scrolls in its own box. */}
+      <div className="mt-3 overflow-x-auto">
+        <table className="font-sans text-sm">
+          <thead>
+            <tr className="border-b border-ink">
+              <th scope="col" className="py-1 pe-3 sm:pe-6 text-start">{t("riskOfBias.column.level")}</th>
+              <th scope="col" className="py-1 pe-3 sm:pe-6 text-end">{t("brief.studies")}</th>
+              {summary.participants ? <th scope="col" className="py-1 pe-3 sm:pe-6 text-end">{t("compare.participants")}</th> : null}
+              <th scope="col" className="py-1 text-end">{t(`riskOfBias.column.${basis}Share`)}</th>
             </tr>
-          ))}
-        </tbody>
-      </table>
+          </thead>
+          <tbody>
+            {levels.map((level) => (
+              <tr key={level} className="border-b border-rule">
+                <th scope="row" className="py-1 pe-3 sm:pe-6 text-start font-normal">
+                  <span aria-hidden="true" className={`me-2 inline-block h-3 w-5 border border-ink align-middle rob-swatch-${fills[level]}`} />
+                  {t(`riskOfBias.level.${level}`)}
+                </th>
+                <td className="py-1 pe-3 sm:pe-6 text-end tabular-nums">{summary.studies[level]}</td>
+                {summary.participants ? <td className="py-1 pe-3 sm:pe-6 text-end tabular-nums">{intl.number(summary.participants[level], 0)}</td> : null}
+                <td className="py-1 text-end tabular-nums">{`${intl.number(percent(level), 0)}%`}</td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </div>
     </section>
   );
 }

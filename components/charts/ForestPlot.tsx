@@ -49,12 +49,39 @@ export function ForestPlot({ rows, measure, title, axis }: { rows: ForestRow[]; 
   const highest = Math.max(0, ...rows.map((r) => r.upper));
   const pad = (highest - lowest) * 0.05 || 0.1;
   const x = scaleLinear({ domain: [lowest - pad, highest + pad], range: [0, width - margin.left - margin.right], nice: true });
+  // On a phone: each label on its own line above its interval, the axis the whole width, so that
+  // every estimate and interval is in sight without scrolling (the same scale rule: it holds them all).
+  const narrowWidth = 344;
+  const narrowRow = 46;
+  const narrowX = scaleLinear({ domain: [lowest - pad, highest + pad], range: [0, narrowWidth], nice: true });
+  const narrowMargin = { top: 4, side: 8, bottom: 76 };
+  const narrowHeight = narrowMargin.top + narrowMargin.bottom + rows.length * narrowRow;
+  const axisGroup = (scale: typeof x, across: number, ticks: number) => (
+    <>
+      <line x1={0} x2={across} stroke="#d9d1c5" />
+      {axisTicks(measure, scale.domain() as [number, number], scale.ticks(ticks)).map((tick) => (
+        <g key={tick} transform={`translate(${scale(tick)} 0)`}>
+          <line y2={6} stroke="#d9d1c5" />
+          <text y={20}>{formatTick(measure, tick, intl.locale)}</text>
+        </g>
+      ))}
+      <text x={across / 2} y={40} fill="#1d1a17" data-testid="forest-axis-title">
+        {axisTitle}
+      </text>
+      {/* The arrows stand apart from the words, so that right-to-left words cannot move them off the outer edge. */}
+      <text x={0} y={62} textAnchor="start" aria-hidden="true">←</text>
+      <text x={16} y={62} textAnchor="start" direction="ltr" data-testid="forest-left-side">
+        {leftSide}
+      </text>
+      <text x={across - 16} y={62} textAnchor="end" direction="ltr" data-testid="forest-right-side">
+        {rightSide}
+      </text>
+      <text x={across} y={62} textAnchor="end" aria-hidden="true">→</text>
+    </>
+  );
   return (
-    // On a phone the figure keeps a legible size and scrolls sideways inside its own box.
-    <figure className="my-6 overflow-x-auto">
-      {/* On a phone the plot is wider than the screen: say so, rather than leave points out of sight. */}
-      <p className="mb-2 font-sans text-xs text-muted sm:hidden" aria-hidden="true">{t("brief.scrollCue")}</p>
-      <svg viewBox={`0 0 ${width} ${height}`} direction="ltr" role="img" aria-label={title} className="w-full min-w-[34rem] max-w-2xl font-sans" data-testid="forest-plot">
+    <figure className="my-6">
+      <svg viewBox={`0 0 ${width} ${height}`} direction="ltr" role="img" aria-label={title} className="hidden w-full max-w-2xl font-sans sm:block" data-testid="forest-plot">
         <title>{title}</title>
         <Group left={margin.left} top={margin.top}>
           <Line from={{ x: x(0), y: 0 }} to={{ x: x(0), y: rows.length * rowHeight }} stroke="#5b554d" strokeDasharray="4 3" />
@@ -72,25 +99,30 @@ export function ForestPlot({ rows, measure, title, axis }: { rows: ForestRow[]; 
           })}
           {/* The axis: a rule and a few ticks, drawn here rather than with an axis package that weighs more than the plot. */}
           <g transform={`translate(0 ${rows.length * rowHeight})`} fontSize={11} fill="#5b554d" textAnchor="middle">
-            <line x1={0} x2={plotWidth} stroke="#d9d1c5" />
-            {axisTicks(measure, x.domain() as [number, number], x.ticks(6)).map((tick) => (
-              <g key={tick} transform={`translate(${x(tick)} 0)`}>
-                <line y2={6} stroke="#d9d1c5" />
-                <text y={20}>{formatTick(measure, tick, intl.locale)}</text>
+            {axisGroup(x, plotWidth, 6)}
+          </g>
+        </Group>
+      </svg>
+      <svg viewBox={`0 0 ${narrowWidth + 2 * narrowMargin.side} ${narrowHeight}`} direction="ltr" role="img" aria-label={title} className="w-full font-sans sm:hidden" data-testid="forest-plot-narrow">
+        <title>{title}</title>
+        <Group left={narrowMargin.side} top={narrowMargin.top}>
+          {rows.map((row, i) => {
+            const top = i * narrowRow;
+            return (
+              <g key={row.label}>
+                {/* The line of no effect under each label, never through it. */}
+                <Line from={{ x: narrowX(0), y: top + 20 }} to={{ x: narrowX(0), y: top + narrowRow }} stroke="#5b554d" strokeDasharray="4 3" />
+                {/* The label on its own line, from the side reading starts. */}
+                <text x={rtl ? narrowWidth : 0} y={top + 14} textAnchor="start" direction={rtl ? "rtl" : "ltr"} fontSize={14} fill="#1d1a17">
+                  {row.label}
+                </text>
+                <Line from={{ x: narrowX(row.lower), y: top + 32 }} to={{ x: narrowX(row.upper), y: top + 32 }} stroke="#6d1f35" strokeWidth={2} />
+                <rect x={narrowX(row.estimate) - 5} y={top + 27} width={10} height={10} fill="#6d1f35" />
               </g>
-            ))}
-            <text x={plotWidth / 2} y={40} fill="#1d1a17" data-testid="forest-axis-title">
-              {axisTitle}
-            </text>
-            {/* The arrows stand apart from the words, so that right-to-left words cannot move them off the outer edge. */}
-            <text x={0} y={62} textAnchor="start" aria-hidden="true">←</text>
-            <text x={16} y={62} textAnchor="start" direction="ltr" data-testid="forest-left-side">
-              {leftSide}
-            </text>
-            <text x={plotWidth - 16} y={62} textAnchor="end" direction="ltr" data-testid="forest-right-side">
-              {rightSide}
-            </text>
-            <text x={plotWidth} y={62} textAnchor="end" aria-hidden="true">→</text>
+            );
+          })}
+          <g transform={`translate(0 ${rows.length * narrowRow})`} fontSize={12} fill="#5b554d" textAnchor="middle">
+            {axisGroup(narrowX, narrowWidth, 4)}
           </g>
         </Group>
       </svg>
