@@ -12,6 +12,7 @@ import { EmbedCode } from "./EmbedCode";
 import { ImportantStudies } from "./ImportantStudies";
 import { formatInterval } from "#core/publication/effects";
 import { VersionBanners, WithdrawnFindings } from "./Notices";
+import { Pictograph } from "../charts/Pictograph";
 import { comparisonUrl, versionUrl } from "#core/publication/urls";
 import { Message } from "../Message";
 import { useIntl } from "../i18n";
@@ -91,6 +92,18 @@ function OutcomeComparison({ outcome, names }: { outcome: ComparisonOutcomeView;
           ))}
         </dd>
       </dl>
+
+      {outcome.absolute ? (
+        <Pictograph
+          input={{
+            outcome: outcome.name,
+            comparatorName: names.comparator,
+            optionName: names.treatment,
+            comparatorPer1000: outcome.absolute.baselinePer1000,
+            option: outcome.absolute.treatmentPer1000,
+          }}
+        />
+      ) : null}
 
       <div className="mt-6 overflow-x-auto">
         <table className="w-full font-sans text-sm" data-testid="evidence-table">

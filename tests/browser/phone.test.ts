@@ -44,3 +44,35 @@ describe.each(["en", "es", "fr", "ar"])("on a phone, in %s", (locale) => {
     await context.close();
   });
 });
+
+describe("the pictograph of a comparison", () => {
+  it.each([
+    [
+      "en",
+      "",
+      "Good sleep on most days at 4 weeks, out of 1000 people: 300 with Usual care, and 419 with Timed bright-light sessions (95% confidence interval 353 to 488). Drawn as 100 people, each dot standing for 10 of 1000.",
+    ],
+    [
+      "ar",
+      "/ar",
+      "نوم جيد في معظم الأيام بعد 4 أسابيع، من كل 1000 شخص: 300 مع الرعاية المعتادة، و419 مع جلسات ضوء ساطع في مواعيد محددة (فترة الثقة ٩٥٪ من 353 إلى 488). مرسوم على هيئة 100 شخص، كل نقطة تمثل 10 من 1000.",
+    ],
+  ])("shows 100 people with each option and says the numbers per 1000 in words (%s)", async (locale, prefix, sentence) => {
+    const context = await setup.browser.newContext({ viewport: { width, height: 844 } });
+    const page = await context.newPage();
+    await page.goto(`${setup.server.url}${prefix}/briefs/${small}/v/1/compare/light/usual_care`);
+    const pictograph = page.getByTestId("pictograph").first();
+    await expect(pictograph.getAttribute("aria-label")).resolves.toBe(sentence);
+    // 30 of 100 with usual care; with the option 35 filled and 14 in the band (42 ± the interval, per 100).
+    const grids = pictograph.locator("svg.w-36");
+    await expect(grids.nth(0).locator("circle[fill='#1d1a17']").count()).resolves.toBe(30);
+    await expect(grids.nth(1).locator("circle[fill='#1d1a17']").count()).resolves.toBe(35);
+    await expect(grids.nth(1).locator("path").count()).resolves.toBe(14);
+    // Filled from the side reading starts: the first dot is top left in English, top right in Arabic.
+    const first = (await grids.nth(0).locator("circle").first().boundingBox())!;
+    const box = (await grids.nth(0).boundingBox())!;
+    expect(locale === "ar" ? box.x + box.width - (first.x + first.width) : first.x - box.x).toBeLessThan(6);
+    await pictograph.screenshot({ path: `test-results/screenshots/pictograph-${locale}.png` });
+    await context.close();
+  });
+});

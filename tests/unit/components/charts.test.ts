@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { formatEffect, formatInterval, formatTick } from "#core/publication/effects";
 import { axisTicks } from "#components/charts/scale";
+import { dotStates, dotsOf } from "#components/charts/Pictograph";
 
 describe("formatEffect", () => {
   it("shows ratios exponentiated and differences as they are", () => {
@@ -35,5 +36,22 @@ describe("axisTicks", () => {
   });
   it("leaves differences to the linear scale's ticks", () => {
     expect(axisTicks("MD", [-5, 5], [-5, 0, 5])).toEqual([-5, 0, 5]);
+  });
+});
+
+describe("the pictograph's dots (components/charts/Pictograph.tsx)", () => {
+  it("fills one dot of 100 for each 10 in 1000, rounded, and bands the confidence interval", () => {
+    // 70 in 1000 with the comparator: 7 dots; 152 (80 to 271) with the option: 8 filled, 19 in the band.
+    const comparator = dotStates({ estimate: 70 });
+    expect(comparator.filter((s) => s === "has")).toHaveLength(7);
+    expect(comparator.filter((s) => s === "band")).toHaveLength(0);
+    const option = dotStates({ estimate: 152, lower: 79.6, upper: 271.2 });
+    expect(option.slice(0, 8).every((s) => s === "has")).toBe(true);
+    expect(option.filter((s) => s === "band")).toHaveLength(19);
+    expect(option.filter((s) => s === "hasNot")).toHaveLength(73);
+  });
+  it("keeps within 0 and 100 dots whatever the interval", () => {
+    expect(dotStates({ estimate: 990, lower: 950, upper: 1200 }).filter((s) => s !== "hasNot")).toHaveLength(100);
+    expect(dotsOf(-4)).toBe(0);
   });
 });
