@@ -76,3 +76,22 @@ describe("the pictograph of a comparison", () => {
     await context.close();
   });
 });
+
+describe("print", () => {
+  it.each([
+    ["en", ""],
+    ["ar", "/ar"],
+  ])("prints a comparison on at most two A4 pages, with its citation and the health caution, without navigation (%s)", async (_locale, prefix) => {
+    const context = await setup.browser.newContext();
+    const page = await context.newPage();
+    await page.goto(`${setup.server.url}${prefix}/briefs/${small}/v/1/compare/light/usual_care`);
+    await page.emulateMedia({ media: "print" });
+    expect(await page.locator("header[data-site-header]").isVisible()).toBe(false);
+    expect(await page.getByTestId("citation").isVisible()).toBe(true);
+    expect(await page.locator("main aside").first().isVisible()).toBe(true);
+    const pdf = await page.pdf({ format: "A4", printBackground: true });
+    const pages = pdf.toString("latin1").match(/\/Type\s*\/Page(?![s\w])/g) ?? [];
+    expect(pages.length).toBeLessThanOrEqual(2);
+    await context.close();
+  });
+});

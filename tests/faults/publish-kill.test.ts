@@ -87,7 +87,8 @@ async function ending(brief: (typeof briefs)[number], kind: Kind): Promise<Endin
   const everything =
     kind === "immediate"
       ? { versions: 1, status: "published", audit: 1, announced: 1, releaseJobs: 0, messages: { "release-alert": press, "translation-request": translators, ...(subscribers ? { "topic-notice": subscribers } : {}) }, messagesWithoutJob: 0 }
-      : { versions: 1, status: "scheduled", audit: 1, announced: 0, releaseJobs: 1, messages: { "press-alert": press }, messagesWithoutJob: 0 };
+      : // Scheduled: the press are alerted and translators asked at once, so that translations are ready at the release.
+        { versions: 1, status: "scheduled", audit: 1, announced: 0, releaseJobs: 1, messages: { "press-alert": press, "translation-request": translators }, messagesWithoutJob: 0 };
   if (canonical(left) === canonical(everything)) return "everything";
   if (canonical(left) === canonical(nothing)) return "nothing";
   return `half-made: ${JSON.stringify(left)}`;
