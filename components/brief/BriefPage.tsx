@@ -9,7 +9,7 @@ import { useUntranslated, VersionBanners, WithdrawnFindings } from "./Notices";
 import { OutcomeSection } from "./OutcomeSection";
 import { VersionHistory } from "./VersionHistory";
 import { VersionChanges } from "./VersionChanges";
-import { downloadUrl, topicUrl } from "#core/publication/urls";
+import { downloadUrl, sideBySideUrl, topicUrl } from "#core/publication/urls";
 import { useIntl } from "../i18n";
 
 export function BriefPage({ data }: { data: BriefPageData }) {
@@ -98,6 +98,29 @@ export function BriefPage({ data }: { data: BriefPageData }) {
           <OutcomeSection key={outcome.index} outcome={outcome} version={version} nameMark={untranslated.mark(`outcome:${outcome.index}`)} />
         ))}
       </WithdrawnFindings>
+
+      {view.withdrawal ? null : (
+        // A plain GET form: it works without JavaScript and by keyboard; the server puts the choice in
+        // order and redirects to the one address of the side-by-side (server/web/pages/page-data.ts).
+        <section aria-labelledby="side-by-side-title" className="mt-16 border-t border-rule pt-6 print:hidden" data-testid="side-by-side-form">
+          <h2 id="side-by-side-title" className="text-xl font-semibold">{t("sideBySide.formTitle")}</h2>
+          <p className="mt-2">{t("sideBySide.formLead")}</p>
+          <form method="get" action={intl.href(sideBySideUrl(version))} className="mt-3 font-sans text-sm">
+            <fieldset className="grid gap-2 sm:grid-cols-2">
+              <legend className="sr-only">{t("sideBySide.formTitle")}</legend>
+              {[...view.treatments]
+                .sort((a, b) => a.name.localeCompare(b.name, intl.locale))
+                .map((treatment) => (
+                  <label key={treatment.id} className="flex items-center gap-2">
+                    <input type="checkbox" name="option" value={treatment.id} className="h-4 w-4" />
+                    {treatment.name}
+                  </label>
+                ))}
+            </fieldset>
+            <button type="submit" className="mt-4 bg-accent px-5 py-2 font-semibold text-white hover:opacity-90">{t("sideBySide.submit")}</button>
+          </form>
+        </section>
+      )}
 
       <CiteBlock heading={t("cite.brief")} reference={citation.reference} accessed={citation.accessed} permalink={citation.permalink} citing={version} />
       <SubscribeForm topic={view.topic} topicSlug={view.topicSlug} />

@@ -15,6 +15,7 @@ const pages = {
   brief: `/briefs/${small}`,
   "large brief": `/briefs/${large}/v/1`,
   comparison: `/briefs/${small}/v/1/compare/light/usual_care`,
+  "side by side": `/briefs/${small}/v/1/side-by-side?options=light,nap_plan,drug_k`,
 };
 const width = 390;
 
@@ -40,7 +41,7 @@ describe.each(["en", "es", "fr", "ar"])("on a phone, in %s", (locale) => {
         }),
     );
     expect(outside).toEqual([]);
-    await keepScreenshot(page, `phone-${locale}-${kind.replace(" ", "-")}`);
+    await keepScreenshot(page, `phone-${locale}-${kind.replaceAll(" ", "-")}`);
     await context.close();
   });
 });
@@ -93,5 +94,30 @@ describe("print", () => {
     const pages = pdf.toString("latin1").match(/\/Type\s*\/Page(?![s\w])/g) ?? [];
     expect(pages.length).toBeLessThanOrEqual(2);
     await context.close();
+  });
+});
+
+describe("the side-by-side form", () => {
+  it("works by keyboard alone, in Arabic too, and opens the chosen options in their order", async () => {
+    for (const prefix of ["", "/ar"]) {
+      const context = await setup.browser.newContext({ viewport: { width, height: 844 } });
+      const page = await context.newPage();
+      await page.goto(`${setup.server.url}${prefix}/briefs/${small}`);
+      const form = page.getByTestId("side-by-side-form");
+      await form.locator("input[value=nap_plan]").focus();
+      await page.keyboard.press("Space");
+      await form.locator("input[value=light]").focus();
+      await page.keyboard.press("Space");
+      // From the last box, Tab reaches the button; Enter sends the form.
+      await form.locator("input[type=checkbox]").last().focus();
+      await page.keyboard.press("Tab");
+      await Promise.all([page.waitForURL(/side-by-side\?options=/), page.keyboard.press("Enter")]);
+      // The form sends the boxes in the page's order; the address names both, and the page shows both.
+      expect(new URL(page.url()).searchParams.get("options")?.split(",").sort()).toEqual(["light", "nap_plan"]);
+      await expect(page.getByTestId("side-by-side-outcome").count()).resolves.toBe(2);
+      expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(width);
+      await keepScreenshot(page, `side-by-side${prefix.replace("/", "-")}`);
+      await context.close();
+    }
   });
 });

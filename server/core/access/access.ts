@@ -51,6 +51,7 @@ export const pageAccess = {
   "GET /briefs/:slug": { who: "anyone", does: "a brief's latest released version" },
   "GET /briefs/:slug/v/:number": { who: "anyone", does: "one version of a brief", also: embargo },
   "GET /briefs/:slug/v/:number/compare/:a/:b": { who: "anyone", does: "one comparison of one version", also: embargo },
+  "GET /briefs/:slug/v/:number/side-by-side": { who: "anyone", does: "2 to 4 options a reader chose, side by side, in their order (?options=a,b)", also: embargo },
   "GET /topics/:slug": { who: "anyone", does: "the briefs of a topic" },
   "GET /data": { who: "anyone", does: "data for reuse: the open JSON, its stability promise, license and citation" },
   "GET /sign-in": { who: "anyone", does: "the sign-in form" },

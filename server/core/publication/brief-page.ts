@@ -245,3 +245,59 @@ export function comparisonContent(snapshot: VersionSnapshot, a: string, b: strin
   if (outcomes.length === 0) return null;
   return { ...briefHeader(snapshot), treatment: named(a), comparator: named(b), outcomes };
 }
+
+/** One chosen option in one outcome: against the reference, its group; null effect for the reference itself or an option the outcome did not study. */
+export interface SideBySideRow {
+  option: Named;
+  isReference: boolean;
+  effect: EffectRow | null;
+  group: Message | null;
+}
+
+export interface SideBySideOutcome {
+  index: number;
+  name: string;
+  measure: Measure;
+  unit: string | null;
+  reference: Named;
+  rows: SideBySideRow[];
+  /** Every pair of chosen options the outcome holds, in the order chosen: its statement and certainty. */
+  pairs: { a: Named; b: Named; statement: Message | null; certainty: Rating | null }[];
+}
+
+export interface SideBySideContent extends BriefHeader {
+  options: Named[];
+  outcomes: SideBySideOutcome[];
+}
+
+/**
+ * The options a reader chose (2 to 4 labels, in their order), side by side: in each outcome, each
+ * against the reference and its group, then every pair among them. Never reordered by any score.
+ */
+export function sideBySideContent(snapshot: VersionSnapshot, ids: string[]): SideBySideContent {
+  const named = namer(snapshot);
+  const outcomes = snapshot.outcomes.map((outcome, index): SideBySideOutcome => {
+    const view = outcomeView(outcome, index, named);
+    const groupOf = (id: string) => outcome.groups.find((g) => g.treatments.includes(id))?.label ?? null;
+    const rows = ids.map((id) => ({ option: named(id), isReference: id === view.reference.id, effect: view.effects.find((e) => e.id === id) ?? null, group: groupOf(id) }));
+    const pairs = ids.flatMap((a, i) =>
+      ids.slice(i + 1).flatMap((b) => {
+        const found = comparisonIn(outcome, a, b);
+        return found ? [{ a: named(a), b: named(b), statement: found.reading?.statement ?? null, certainty: found.reading?.certainty ?? null }] : [];
+      }),
+    );
+    return { index, name: outcome.name, measure: outcome.settings.measure, unit: outcome.unit, reference: view.reference, rows, pairs };
+  });
+  return { ...briefHeader(snapshot), options: ids.map(named), outcomes };
+}
+
+/**
+ * The options of a side-by-side address: `options=a,b` (the canonical form) or `option=a&option=b`
+ * (what the brief page's form sends without JavaScript). Null when they are not 2 to 4 distinct
+ * treatments of the version; `canonical` is the query to redirect to when the address is not it.
+ */
+export function chosenOptions(query: { options?: string; option?: string[] }, labels: string[]): { ids: string[]; canonical: string } | null {
+  const ids = query.options !== undefined ? query.options.split(",") : (query.option ?? []);
+  if (ids.length < 2 || ids.length > 4 || new Set(ids).size !== ids.length || !ids.every((id) => labels.includes(id))) return null;
+  return { ids, canonical: `options=${ids.map(encodeURIComponent).join(",")}` };
+}

@@ -30,6 +30,15 @@ export const versionUrl = (at: VersionAddress) => `${briefUrl(at.slug)}/v/${at.v
 /** A released version's frozen snapshot as JSON, in the API for reuse (docs/data.md). */
 export const snapshotUrl = (at: VersionAddress) => `/api${briefUrl(at.slug)}/versions/${at.version}`;
 export const comparisonUrl = (at: ComparisonAddress) => `${versionUrl(at)}/compare/${segment(at.treatment)}/${segment(at.comparator)}`;
+/** The reader's side-by-side of 2 to 4 options of a version, in the order chosen; without options, the address its form sends to. */
+export const sideBySideUrl = (at: VersionAddress, options?: string[]) => `${versionUrl(at)}/side-by-side${options ? `?options=${options.map(segment).join(",")}` : ""}`;
+
+/** The version a side-by-side address belongs to; null for any other address. */
+export function parseSideBySidePath(path: string): VersionAddress | null {
+  const match = /^(\/briefs\/[^/]+\/v\/[^/]+)\/side-by-side$/.exec(path);
+  const version = match ? parseVersionPath(match[1]!) : null;
+  return version?.kind === "version" ? version.at : null;
+}
 /** One-time account links (server/core/access/tokens.ts), and the form that asks for a reset link. */
 export const invitationUrl = (token: string) => `/invitation/${segment(token)}`;
 export const passwordResetUrl = (token?: string) => (token ? `/password-reset/${segment(token)}` : "/password-reset");
@@ -173,6 +182,8 @@ export function surrogateKeys(at: { slug: string; version?: number } | null): st
 export function briefOfPath(path: string): { slug: string; version?: number } | null {
   const version = parseVersionPath(path);
   if (version) return { slug: version.at.slug, version: version.at.version };
+  const sideBySide = parseSideBySidePath(path);
+  if (sideBySide) return sideBySide;
   const slug = parseBriefPath(path);
   return slug === null ? null : { slug };
 }

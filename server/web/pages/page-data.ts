@@ -1,8 +1,8 @@
 // The page data of a version's public pages (+data.ts of pages/briefs/…): read the frozen version
 // this reader may see, shape it for the page, format its citation, and say how it may be cached.
-import { render } from "vike/abort";
+import { redirect, render } from "vike/abort";
 import type { PageContextServer } from "vike/types";
-import { briefContent, comparisonContent, type BriefView, type ComparisonView, type PageState } from "#core/publication/brief-page";
+import { briefContent, chosenOptions, comparisonContent, sideBySideContent, type BriefView, type ComparisonView, type PageState, type SideBySideContent } from "#core/publication/brief-page";
 import { localeOf, localePath, locales } from "#core/languages/locales";
 import { inLanguage } from "#db/translations";
 import { mayReadEmbargoed } from "#core/access/roles";
@@ -14,7 +14,9 @@ import { draftChanges, draftSnapshot } from "#workflows/snapshot";
 import { grammaticalSnapshot } from "#core/languages/grammar";
 import { versionGrammar } from "#core/languages/translation";
 import { wordsOf } from "#core/languages/words";
-import { comparisonUrl, versionNumberOf, versionUrl } from "#core/publication/urls";
+import { comparisonUrl, sideBySideUrl, versionNumberOf, versionUrl } from "#core/publication/urls";
+
+export type SideBySideView = SideBySideContent & PageState;
 import { formattedReference } from "../public/citations";
 
 function pageState(pageContext: PageContextServer, page: PublicVersion): PageState {
@@ -104,6 +106,25 @@ export async function comparisonPageData(pageContext: PageContextServer) {
 }
 
 export type ComparisonPageData = Awaited<ReturnType<typeof comparisonPageData>>;
+
+/**
+ * /briefs/:slug/v/:n/side-by-side?options=a,b[,c,d] — the options a reader chose, in their order. The
+ * form's `option=a&option=b` redirects to that one address; anything but 2 to 4 distinct options of
+ * the version is 404, so the answers a cache keeps stay those of real choices.
+ */
+export async function sideBySidePageData(pageContext: PageContextServer) {
+  const page = await load(pageContext, versionNumberOf(String(pageContext.routeParams.number)) ?? 0);
+  const { snapshot, translation } = await inReadersLanguage(pageContext, page);
+  const { search, searchAll, searchOriginal } = pageContext.urlParsed;
+  const chosen = chosenOptions({ options: search.options, option: searchAll.option }, snapshot.treatments.map((t) => t.label));
+  if (!chosen) throw render(404);
+  const path = sideBySideUrl({ slug: snapshot.brief.slug, version: snapshot.version }, chosen.ids);
+  if (searchOriginal !== `?${chosen.canonical}`) throw redirect(localePath(pageContext.locale, path), 301);
+  const view: SideBySideView = { ...sideBySideContent(snapshot, chosen.ids), ...pageState(pageContext, page) };
+  return { view, path, translation, siteUrl: pageContext.siteUrl ?? "", ...answer(pageContext, page, false) };
+}
+
+export type SideBySidePageData = Awaited<ReturnType<typeof sideBySidePageData>>;
 
 /**
  * /preview/:briefId — the draft as its next version would read, built by the same code that freezes
