@@ -9,7 +9,7 @@ import { HealthCaution } from "../HealthCaution";
 import { Message } from "../Message";
 import { useIntl } from "../i18n";
 import { CertaintyMark } from "./CertaintyMark";
-import { VersionBanners } from "./Notices";
+import { VersionBanners, WithdrawnFindings } from "./Notices";
 
 export function SideBySidePage({ data }: { data: SideBySidePageData }) {
   const { t } = useTranslation();
@@ -27,62 +27,64 @@ export function SideBySidePage({ data }: { data: SideBySidePageData }) {
       <p className="mt-3 text-lg text-muted">{t("sideBySide.lead", { reference: view.outcomes[0]?.reference.name ?? "" })}</p>
       <p className="mt-6 border-s-4 border-rule ps-4 text-muted">{t("brief.notALeaderboard")}</p>
 
-      {view.outcomes.map((outcome) => (
-        <section key={outcome.index} aria-labelledby={`outcome-${outcome.index + 1}`} className="mt-12 border-t-2 border-ink pt-6" data-testid="side-by-side-outcome">
-          <h2 id={`outcome-${outcome.index + 1}`} className="text-2xl font-semibold">{outcome.name}</h2>
-          <div className="mt-4 overflow-x-auto">
-            <table className="w-full font-sans text-sm">
-              <thead>
-                <tr className="border-b border-ink text-start">
-                  <th scope="col" className="py-2 pe-3 text-start">{t("sideBySide.option")}</th>
-                  <th scope="col" className="py-2 pe-3 text-start">{t("sideBySide.effect", { measure: outcome.measure })}</th>
-                  <th scope="col" className="py-2 pe-3 text-start">{t("sideBySide.per1000")}</th>
-                  <th scope="col" className="py-2 pe-3 text-start">{t("sideBySide.certainty")}</th>
-                  <th scope="col" className="py-2 text-start">{t("sideBySide.group")}</th>
-                </tr>
-              </thead>
-              <tbody>
-                {outcome.rows.map((row) => (
-                  <tr key={row.option.id} className="border-b border-rule align-top">
-                    <th scope="row" className="py-2 pe-3 text-start font-semibold">{row.option.name}</th>
-                    {row.isReference || !row.effect ? (
-                      <td colSpan={3} className="py-2 pe-3 text-muted">{t(row.isReference ? "sideBySide.isReference" : "sideBySide.notStudied")}</td>
-                    ) : (
-                      <>
-                        <td className="py-2 pe-3 tabular-nums">
-                          {formatInterval(outcome.measure, row.effect.network, t("brief.to"), intl.locale)}
-                          {outcome.unit ? ` ${outcome.unit}` : ""}
-                        </td>
-                        <td className="py-2 pe-3">{row.effect.absolute ? <Message message={row.effect.absolute.statement} /> : "—"}</td>
-                        <td className="py-2 pe-3">
-                          <CertaintyMark rating={row.effect.certainty} />
-                        </td>
-                      </>
-                    )}
-                    <td className="py-2">{row.group ? <Message message={row.group} /> : "—"}</td>
+      <WithdrawnFindings withdrawn={view.withdrawal !== null}>
+        {view.outcomes.map((outcome) => (
+          <section key={outcome.index} aria-labelledby={`outcome-${outcome.index + 1}`} className="mt-12 border-t-2 border-ink pt-6" data-testid="side-by-side-outcome">
+            <h2 id={`outcome-${outcome.index + 1}`} className="text-2xl font-semibold">{outcome.name}</h2>
+            <div className="mt-4 overflow-x-auto">
+              <table className="w-full font-sans text-sm">
+                <thead>
+                  <tr className="border-b border-ink text-start">
+                    <th scope="col" className="py-2 pe-3 text-start">{t("sideBySide.option")}</th>
+                    <th scope="col" className="py-2 pe-3 text-start">{t("sideBySide.effect", { measure: outcome.measure })}</th>
+                    <th scope="col" className="py-2 pe-3 text-start">{t("sideBySide.per1000")}</th>
+                    <th scope="col" className="py-2 pe-3 text-start">{t("sideBySide.certainty")}</th>
+                    <th scope="col" className="py-2 text-start">{t("sideBySide.group")}</th>
                   </tr>
-                ))}
-              </tbody>
-            </table>
-          </div>
-          {outcome.pairs.length > 0 ? (
-            <>
-              <h3 className="mt-6 font-sans text-sm font-semibold uppercase tracking-wide">{t("sideBySide.between")}</h3>
-              <ul className="mt-2 space-y-3">
-                {outcome.pairs.map((pair) => (
-                  <li key={`${pair.a.id}-${pair.b.id}`} data-testid="side-by-side-pair">
-                    <a href={intl.href(comparisonUrl({ ...version, treatment: pair.a.id, comparator: pair.b.id }))} className="font-sans text-sm font-semibold">
-                      {t("brief.versus", { treatment: pair.a.name, comparator: pair.b.name })}
-                    </a>
-                    <p className="mt-1">{pair.statement ? <Message message={pair.statement} /> : t("compare.noStatement")}</p>
-                    <CertaintyMark rating={pair.certainty} />
-                  </li>
-                ))}
-              </ul>
-            </>
-          ) : null}
-        </section>
-      ))}
+                </thead>
+                <tbody>
+                  {outcome.rows.map((row) => (
+                    <tr key={row.option.id} className="border-b border-rule align-top">
+                      <th scope="row" className="py-2 pe-3 text-start font-semibold">{row.option.name}</th>
+                      {row.isReference || !row.effect ? (
+                        <td colSpan={3} className="py-2 pe-3 text-muted">{t(row.isReference ? "sideBySide.isReference" : "sideBySide.notStudied")}</td>
+                      ) : (
+                        <>
+                          <td className="py-2 pe-3 tabular-nums">
+                            {formatInterval(outcome.measure, row.effect.network, t("brief.to"), intl.locale)}
+                            {outcome.unit ? ` ${outcome.unit}` : ""}
+                          </td>
+                          <td className="py-2 pe-3">{row.effect.absolute ? <Message message={row.effect.absolute.statement} /> : "—"}</td>
+                          <td className="py-2 pe-3">
+                            <CertaintyMark rating={row.effect.certainty} />
+                          </td>
+                        </>
+                      )}
+                      <td className="py-2">{row.group ? <Message message={row.group} /> : "—"}</td>
+                    </tr>
+                  ))}
+                </tbody>
+              </table>
+            </div>
+            {outcome.pairs.length > 0 ? (
+              <>
+                <h3 className="mt-6 font-sans text-sm font-semibold uppercase tracking-wide">{t("sideBySide.between")}</h3>
+                <ul className="mt-2 space-y-3">
+                  {outcome.pairs.map((pair) => (
+                    <li key={`${pair.a.id}-${pair.b.id}`} data-testid="side-by-side-pair">
+                      <a href={intl.href(comparisonUrl({ ...version, treatment: pair.a.id, comparator: pair.b.id }))} className="font-sans text-sm font-semibold">
+                        {t("brief.versus", { treatment: pair.a.name, comparator: pair.b.name })}
+                      </a>
+                      <p className="mt-1">{pair.statement ? <Message message={pair.statement} /> : t("compare.noStatement")}</p>
+                      <CertaintyMark rating={pair.certainty} />
+                    </li>
+                  ))}
+                </ul>
+              </>
+            ) : null}
+          </section>
+        ))}
+      </WithdrawnFindings>
 
       <div className="mt-12">
         <HealthCaution />

@@ -177,6 +177,10 @@ describe("a brief through time", () => {
     expect(html).toContain('data-testid="withdrawn-findings"');
     expect(html).toContain("Withdrawn: the findings below are kept as they were published, for the record. Do not rely on them.");
     expect(html).toContain("The data of a withdrawn brief are no longer offered.");
+    // The reader's side-by-side says so too.
+    const sideBySide = await get(`/briefs/${slug}/v/2/side-by-side?options=grp_counseling,no_contact`);
+    expect(sideBySide.status).toBe(410);
+    expect(await sideBySide.text()).toContain('data-testid="withdrawn-findings"');
   });
 });
 
