@@ -59,7 +59,8 @@ export function RiskOfBiasEvidence({ outcome }: { outcome: OutcomeView }) {
         })}
       </svg>
       {/* On a phone the columns come closer and the headings wrap; a table wider still scrolls in its own box. */}
-      <div className="mt-3 overflow-x-auto">
+      {/* Focusable, so that a keyboard can scroll it when a phone makes it wider than the screen. */}
+      <div className="mt-3 overflow-x-auto" tabIndex={0} role="region" aria-labelledby={id}>
         <table className="font-sans text-sm">
           <thead>
             <tr className="border-b border-ink">

@@ -31,7 +31,7 @@ export function SideBySidePage({ data }: { data: SideBySidePageData }) {
         {view.outcomes.map((outcome) => (
           <section key={outcome.index} aria-labelledby={`outcome-${outcome.index + 1}`} className="mt-12 border-t-2 border-ink pt-6" data-testid="side-by-side-outcome">
             <h2 id={`outcome-${outcome.index + 1}`} className="text-2xl font-semibold">{outcome.name}</h2>
-            <div className="mt-4 overflow-x-auto">
+            <div className="mt-4 overflow-x-auto" tabIndex={0} role="region" aria-labelledby={`outcome-${outcome.index + 1}`}>
               <table className="w-full font-sans text-sm">
                 <thead>
                   <tr className="border-b border-ink text-start">

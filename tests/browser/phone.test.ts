@@ -3,7 +3,7 @@
 import { describe, expect, it } from "vitest";
 import { slugify } from "#core/publication/slug";
 import { demoBriefs } from "#workflows/demo-briefs";
-import { keepScreenshot, withServerAndBrowser } from "../support/browser";
+import { keepScreenshot, violations, withServerAndBrowser } from "../support/browser";
 
 const setup = withServerAndBrowser();
 const [small, large] = demoBriefs().map((brief) => slugify(brief.title)) as [string, string];
@@ -120,4 +120,15 @@ describe("the side-by-side form", () => {
       await context.close();
     }
   });
+});
+
+describe.each([1280, 390])("accessibility at %i px", (viewport) => {
+  it.each(["en", "es", "fr", "ar"])("axe-core finds no WCAG 2.1 A/AA violation on any public page type in %s", async (locale) => {
+    const prefix = locale === "en" ? "" : `/${locale}`;
+    const found: string[] = [];
+    for (const [kind, address] of Object.entries(pages)) {
+      for (const line of await violations(setup.browser, `${setup.server.url}${prefix && address === "/" ? prefix : prefix + address}`, { width: viewport })) found.push(`${kind}: ${line}`);
+    }
+    expect(found).toEqual([]);
+  }, 120_000);
 });

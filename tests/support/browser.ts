@@ -21,12 +21,17 @@ export async function keepScreenshot(page: Page, name: string): Promise<void> {
 
 /** The serious and critical WCAG 2.1 A/AA violations axe-core finds on a page, one line each (none is the goal). */
 export async function seriousViolations(browser: Browser, url: string): Promise<string[]> {
-  const context = await browser.newContext();
+  return violations(browser, url, { impacts: ["serious", "critical"] });
+}
+
+/** The WCAG 2.1 A/AA violations axe-core finds on a page at a width, of the impacts asked for (all by default), one line each. */
+export async function violations(browser: Browser, url: string, { width = 1280, impacts }: { width?: number; impacts?: string[] } = {}): Promise<string[]> {
+  const context = await browser.newContext({ viewport: { width, height: 900 } });
   const page = await context.newPage();
   await page.goto(url);
   const results = await new AxeBuilder({ page }).withTags(["wcag2a", "wcag2aa", "wcag21a", "wcag21aa"]).analyze();
   await context.close();
-  return results.violations.filter((v) => v.impact === "serious" || v.impact === "critical").map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(" ")).join(", ")}`);
+  return results.violations.filter((v) => !impacts || impacts.includes(v.impact ?? "")).map((v) => `${v.impact} ${v.id}: ${v.nodes.map((n) => n.target.join(" ")).join(", ")}`);
 }
 
 export function launchChromium(): Promise<Browser> {
