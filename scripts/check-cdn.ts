@@ -22,7 +22,7 @@ const xkeyModule = "/usr/lib/x86_64-linux-gnu/varnish/vmods/libvmod_xkey.so";
 const withinMs = 2000;
 
 function ensureVarnish(): void {
-  const found = spawnSync("sh", ["-c", "command -v varnishd"]).status === 0 && existsSync(xkeyModule);
+  const found = existsSync("/usr/sbin/varnishd") && existsSync(xkeyModule);
   if (found) return;
   log("Varnish is not installed: installing Debian's varnish and varnish-modules (apt-get, non-interactive)…");
   const asRoot = process.getuid?.() === 0 ? [] : ["sudo"];
@@ -50,7 +50,7 @@ async function startVarnish(folder: string, port: number, backends: number[]): P
   );
   for (const file of ["fairweigh.vcl", "backends.vcl"]) chmodSync(path.join(folder, file), 0o644);
   // -j none: no privilege separation, so that it runs as whoever runs the check, on loopback only.
-  const child = spawn("varnishd", ["-F", "-j", "none", "-a", `127.0.0.1:${port}`, "-f", vcl, "-n", path.join(folder, "varnish"), "-s", "malloc,64m"], { stdio: ["ignore", "ignore", "inherit"] });
+  const child = spawn("/usr/sbin/varnishd", ["-F", "-j", "none", "-a", `127.0.0.1:${port}`, "-f", vcl, "-n", path.join(folder, "varnish"), "-s", "malloc,64m"], { stdio: ["ignore", "ignore", "inherit"] });
   for (let attempt = 0; attempt < 100; attempt++) {
     if (child.exitCode !== null) throw new Error(`varnishd exited with code ${child.exitCode}`);
     const answer = await fetch(`http://127.0.0.1:${port}/api/health`).catch(() => null);
