@@ -1,6 +1,6 @@
 import { useTranslation } from "react-i18next";
 import { HealthCaution } from "./HealthCaution";
-import { dataUrl, feedUrl, searchUrl } from "#core/publication/urls";
+import { dataUrl, feedUrl, glossaryUrl, searchUrl } from "#core/publication/urls";
 import { useIntl } from "./i18n";
 
 export function SiteFooter() {
@@ -13,6 +13,7 @@ export function SiteFooter() {
         <nav aria-label={t("site.footerNav")} className="mt-8 flex flex-wrap gap-5 font-sans text-sm">
           <a href={href(searchUrl())}>{t("site.footer.briefs")}</a>
           <a href={href(feedUrl())}>{t("site.footer.feed")}</a>
+          <a href={href(glossaryUrl())}>{t("site.footer.glossary")}</a>
           <a href={href(dataUrl())}>{t("site.footer.data")}</a>
         </nav>
         <p className="mt-4 font-sans text-xs text-muted">{t("site.name")}</p>

@@ -12,6 +12,7 @@ import { I18nextProvider } from "react-i18next";
 import { usePageContext } from "vike-react/usePageContext";
 import { SiteFooter } from "#components/SiteFooter";
 import { SiteHeader } from "#components/SiteHeader";
+import { TermLinks } from "#components/Term";
 import { createI18n, namespacesFor } from "#components/i18n";
 
 export default function Layout({ children }: { children: ReactNode }) {
@@ -24,7 +25,7 @@ export default function Layout({ children }: { children: ReactNode }) {
       <div className="flex min-h-screen flex-col">
         <SiteHeader />
         <main id="content" className="mx-auto w-full max-w-3xl flex-1 px-6 py-12">
-          {children}
+          <TermLinks page={urlPathname}>{children}</TermLinks>
         </main>
         <SiteFooter />
       </div>

@@ -98,6 +98,7 @@ export function BriefPage({ data }: { data: BriefPageData }) {
           <OutcomeSection key={outcome.index} outcome={outcome} version={version} nameMark={untranslated.mark(`outcome:${outcome.index}`)} />
         ))}
       </WithdrawnFindings>
+      <p className="hidden font-sans text-sm text-muted print:block">{t("brief.printFolded")}</p>
 
       {view.withdrawal ? null : (
         // A plain GET form: it works without JavaScript and by keyboard; the server puts the choice in

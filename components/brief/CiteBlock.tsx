@@ -11,7 +11,8 @@ export function CiteBlock({ heading, reference, accessed, permalink, citing }: {
   return (
     <section aria-labelledby="cite-title" className="mt-16 border-t border-rule pt-6 print:break-inside-avoid" data-testid="cite">
       <h2 id="cite-title" className="text-xl font-semibold">{heading}</h2>
-      <p className="mt-3 bg-white p-4" data-testid="citation">
+      {/* The reference holds the permalink, which must wrap anywhere rather than widen a phone's page. */}
+      <p className="mt-3 bg-white p-4 [overflow-wrap:anywhere]" data-testid="citation">
         {reference} {t("cite.accessed", { date })}
       </p>
       <p className="mt-2 font-sans text-sm">

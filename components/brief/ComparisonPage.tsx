@@ -16,6 +16,7 @@ import { Pictograph } from "../charts/Pictograph";
 import { comparisonUrl, versionUrl } from "#core/publication/urls";
 import { Message } from "../Message";
 import { useIntl } from "../i18n";
+import { Term } from "../Term";
 
 export function ComparisonPage({ data }: { data: ComparisonPageData }) {
   const { t } = useTranslation();
@@ -63,14 +64,18 @@ function OutcomeComparison({ outcome, names }: { outcome: ComparisonOutcomeView;
         {outcome.statement ? <Message message={outcome.statement} /> : t("compare.noStatement")}
       </p>
       <dl className="mt-6 grid gap-x-8 gap-y-3 sm:grid-cols-[max-content_1fr]">
-        <dt className="font-sans text-sm font-semibold">{t("compare.relative", { measure: t(`brief.measure.${outcome.measure}`) })}</dt>
+        <dt className="font-sans text-sm font-semibold">
+          <Term term="confidence-interval">{t("compare.relative", { measure: t(`brief.measure.${outcome.measure}`) })}</Term>
+        </dt>
         <dd className="tabular-nums">
           {formatInterval(outcome.measure, outcome.network, to, intl.locale)}
           {unit}
         </dd>
         {outcome.absolute ? (
           <>
-            <dt className="font-sans text-sm font-semibold">{t("compare.absolute")}</dt>
+            <dt className="font-sans text-sm font-semibold">
+              <Term term="per-1000">{t("compare.absolute")}</Term>
+            </dt>
             <dd>
               <Message message={outcome.absolute.statement} />
               <span className="block font-sans text-sm text-muted">
@@ -82,7 +87,9 @@ function OutcomeComparison({ outcome, names }: { outcome: ComparisonOutcomeView;
             </dd>
           </>
         ) : null}
-        <dt className="font-sans text-sm font-semibold">{t("brief.certainty")}</dt>
+        <dt className="font-sans text-sm font-semibold">
+          <Term term="certainty">{t("brief.certainty")}</Term>
+        </dt>
         <dd>
           <CertaintyMark rating={outcome.certainty} />
           {outcome.footnotes.map((_, i) => (
@@ -118,19 +125,19 @@ function OutcomeComparison({ outcome, names }: { outcome: ComparisonOutcomeView;
           </thead>
           <tbody>
             <tr className="border-b border-rule">
-              <th scope="row" className="py-2 pe-4 text-start font-normal">{t("compare.direct")}</th>
+              <th scope="row" className="py-2 pe-4 text-start font-normal"><Term term="direct-estimate">{t("compare.direct")}</Term></th>
               <td className="py-2 pe-4 tabular-nums">{outcome.direct ? formatInterval(outcome.measure, outcome.direct, to, intl.locale) : t("compare.noDirect")}</td>
               <td className="py-2 pe-4 text-end tabular-nums">{outcome.direct?.studies ?? 0}</td>
               <td className="py-2 text-end tabular-nums">{outcome.direct?.participants ?? "—"}</td>
             </tr>
             <tr className="border-b border-rule">
-              <th scope="row" className="py-2 pe-4 text-start font-normal">{t("compare.indirect")}</th>
+              <th scope="row" className="py-2 pe-4 text-start font-normal"><Term term="indirect-estimate">{t("compare.indirect")}</Term></th>
               <td className="py-2 pe-4 tabular-nums">{outcome.indirect ? formatInterval(outcome.measure, outcome.indirect, to, intl.locale) : t("compare.noIndirect")}</td>
               <td className="py-2 pe-4 text-end">—</td>
               <td className="py-2 text-end">—</td>
             </tr>
             <tr className="border-b border-rule font-semibold">
-              <th scope="row" className="py-2 pe-4 text-start">{t("compare.network")}</th>
+              <th scope="row" className="py-2 pe-4 text-start"><Term term="network-estimate">{t("compare.network")}</Term></th>
               <td className="py-2 pe-4 tabular-nums">{formatInterval(outcome.measure, outcome.network, to, intl.locale)}</td>
               <td className="py-2 pe-4 text-end">—</td>
               <td className="py-2 text-end">—</td>

@@ -3,6 +3,7 @@
 import { useTranslation } from "react-i18next";
 import type { OutcomeView } from "#core/publication/brief-page";
 import { Message } from "../Message";
+import { Term } from "../Term";
 
 export function GroupList({ outcome }: { outcome: OutcomeView }) {
   const { t } = useTranslation();
@@ -29,7 +30,7 @@ export function GroupList({ outcome }: { outcome: OutcomeView }) {
           >
             <h4 className="text-lg font-semibold"><Message message={group.label} /></h4>
             {group.label.key === "groups.referenceOnly" ? null : (
-              <p className="font-sans text-xs uppercase tracking-wide text-muted">{t(`brief.firmness.${group.firmness}`)}</p>
+              <p className="font-sans text-xs uppercase tracking-wide text-muted"><Term term="certainty">{t(`brief.firmness.${group.firmness}`)}</Term></p>
             )}
             <ul className="mt-2 flex flex-wrap gap-x-4 gap-y-1">
               {group.treatments.map((treatment) => (

@@ -5,6 +5,7 @@ import { useTranslation } from "react-i18next";
 import type { ComparisonOutcomeView } from "#core/publication/brief-page";
 import { riskOfBiasShareKey } from "#core/nma/risk-of-bias";
 import { useIntl } from "../i18n";
+import { Term } from "../Term";
 
 /** Our own bands, in plain words (docs/methods.md): how much less precise the estimate would be without the study. */
 export function importanceWords(value: number): "only" | "much" | "noticeably" | "somewhat" | "slightly" {
@@ -36,7 +37,7 @@ export function ImportantStudies({ outcome }: { outcome: ComparisonOutcomeView }
                 <tr className="border-b border-ink">
                   <th scope="col" className="py-2 pe-4 text-start">{t("compare.studies.study")}</th>
                   <th scope="col" className="py-2 pe-4 text-start">{t("compare.studies.withoutIt")}</th>
-                  <th scope="col" className="py-2 text-start">{t("compare.studies.riskOfBias")}</th>
+                  <th scope="col" className="py-2 text-start"><Term term="risk-of-bias">{t("compare.studies.riskOfBias")}</Term></th>
                 </tr>
               </thead>
               <tbody>

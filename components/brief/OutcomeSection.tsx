@@ -6,6 +6,7 @@ import type { OutcomeView } from "#core/publication/brief-page";
 import { ForestPlot } from "../charts/ForestPlot";
 import { LeagueTable } from "../charts/LeagueTable";
 import { NetworkDiagram } from "../charts/NetworkDiagram";
+import { PictographSet } from "../charts/Pictograph";
 import { CertaintyMark } from "./CertaintyMark";
 import { formatInterval } from "#core/publication/effects";
 import { GroupList } from "./GroupList";
@@ -15,6 +16,13 @@ import { flipInterval, pairFinder } from "#core/nma/pairs";
 import { comparisonUrl, type VersionAddress } from "#core/publication/urls";
 import { Message } from "../Message";
 import { useIntl } from "../i18n";
+import { Term, WithTerms } from "../Term";
+
+/**
+ * Up to this many options, a binary outcome offers each as 100 people beside the reference's 100. With
+ * more, a wall of grids no longer helps a reader compare (each comparison's page still has its own).
+ */
+const pictographsUpTo = 8;
 
 export function OutcomeSection({ outcome, version, nameMark = null }: { outcome: OutcomeView; version: VersionAddress; nameMark?: React.ReactNode }) {
   const { t } = useTranslation();
@@ -28,6 +36,7 @@ export function OutcomeSection({ outcome, version, nameMark = null }: { outcome:
     return found ? (found.flipped ? flipInterval(found.item) : found.item) : null;
   };
   const binary = outcome.effects.some((e) => e.absolute !== null);
+  const asPeople = outcome.effects.flatMap((e) => (e.absolute ? [{ name: e.name, per1000: e.absolute.treatmentPer1000, baseline: e.absolute.baselinePer1000 }] : []));
   return (
     <section aria-labelledby={id} className="mt-16 border-t-2 border-ink pt-6" data-testid="outcome">
       <h2 id={id} className="text-3xl leading-tight font-semibold">
@@ -48,6 +57,9 @@ export function OutcomeSection({ outcome, version, nameMark = null }: { outcome:
       <GroupList outcome={outcome} />
 
       <h3 className="mt-10 text-xl font-semibold">{t("brief.againstReference", { reference: outcome.reference.name })}</h3>
+      <p className="mt-2 font-sans text-sm text-muted">
+        <WithTerms i18nKey="brief.effectsKey" terms={{ network: "network-estimate", ci: "confidence-interval", certainty: "certainty" }} />
+      </p>
       <ForestPlot
         rows={outcome.effects.map((e) => ({ label: e.name, ...e.network }))}
         measure={outcome.measure}
@@ -72,7 +84,8 @@ export function OutcomeSection({ outcome, version, nameMark = null }: { outcome:
       </ul>
       <div className="hidden overflow-x-auto sm:block">
         <table className="w-full font-sans text-sm" data-testid="effects-table">
-          <caption className="mb-2 text-start text-muted">{t("brief.effectsCaption", { reference: outcome.reference.name })}</caption>
+          {/* Said above the chart in words for every reader (with the glossary's links); here for assistive technology. */}
+          <caption className="sr-only">{t("brief.effectsCaption", { reference: outcome.reference.name })}</caption>
           <thead>
             <tr className="border-b border-ink">
               <th scope="col" className="py-2 pe-4 text-start">{t("brief.option")}</th>
@@ -104,7 +117,14 @@ export function OutcomeSection({ outcome, version, nameMark = null }: { outcome:
         </table>
       </div>
       {binary && outcome.methods.baselineRisk !== null ? (
-        <p className="mt-2 font-sans text-xs text-muted">{t("brief.baseline", { count: Math.round(outcome.methods.baselineRisk * 1000), reference: outcome.reference.name })}</p>
+        <p className="mt-2 font-sans text-xs text-muted"><WithTerms i18nKey="brief.baseline" values={{ count: Math.round(outcome.methods.baselineRisk * 1000), reference: outcome.reference.name }} terms={{ per1000: "per-1000" }} /></p>
+      ) : null}
+
+      {asPeople.length > 0 && asPeople.length <= pictographsUpTo ? (
+        <details className="mt-4" data-testid="as-people">
+          <summary className="cursor-pointer font-sans text-sm font-semibold">{t("brief.asPeople")}</summary>
+          <PictographSet outcome={outcome.name} reference={{ name: outcome.reference.name, per1000: asPeople[0]!.baseline }} options={asPeople} />
+        </details>
       ) : null}
 
       {outcome.methods.I2 >= 0.5 || (outcome.methods.pBetween !== null && outcome.methods.pBetween < 0.05) || outcome.incoherentPairs > 0 ? (
@@ -174,9 +194,9 @@ export function OutcomeSection({ outcome, version, nameMark = null }: { outcome:
           ) : null}
           <dt className="text-muted">{t("brief.methodsList.model")}</dt>
           <dd>{t(`brief.model.${outcome.model}`)}</dd>
-          <dt className="text-muted">{t("brief.methodsList.heterogeneity")}</dt>
+          <dt className="text-muted"><Term term="heterogeneity">{t("brief.methodsList.heterogeneity")}</Term></dt>
           <dd>{`τ² = ${intl.number(outcome.methods.tau2, 3)}; I² = ${intl.number(outcome.methods.I2 * 100, 0)}%; Q = ${intl.number(outcome.methods.Q, 2)} (df ${outcome.methods.df})`}</dd>
-          <dt className="text-muted">{t("brief.methodsList.incoherence")}</dt>
+          <dt className="text-muted"><Term term="incoherence">{t("brief.methodsList.incoherence")}</Term></dt>
           <dd>{`Q = ${intl.number(outcome.methods.Qbetween, 2)} (df ${outcome.methods.dfBetween})${outcome.methods.pBetween === null ? "" : `; p = ${intl.precise(outcome.methods.pBetween, 2)}`}`}</dd>
           <dt className="text-muted">{t("brief.methodsList.data")}</dt>
           <dd className="break-all">{`${outcome.methods.fileName} · SHA-256 ${outcome.methods.sha256}`}</dd>

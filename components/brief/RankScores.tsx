@@ -4,6 +4,7 @@ import { useTranslation } from "react-i18next";
 import type { OutcomeView } from "#core/publication/brief-page";
 import { rankCautionKeys } from "#core/grade/rank-explainer";
 import { useIntl } from "../i18n";
+import { WithTerms } from "../Term";
 
 export function RankScores({ scores }: { scores: OutcomeView["rankScores"] }) {
   const { t } = useTranslation();
@@ -11,7 +12,7 @@ export function RankScores({ scores }: { scores: OutcomeView["rankScores"] }) {
   return (
     <details className="mt-6 border-t border-rule pt-4" data-testid="rank-scores">
       <summary className="cursor-pointer font-sans font-semibold">{t("rankScores.title")}</summary>
-      <p className="mt-3">{t("rankScores.intro")}</p>
+      <p className="mt-3"><WithTerms i18nKey="rankScores.intro" terms={{ term: "rank-scores" }} /></p>
       <ol className="mt-3 list-decimal space-y-2 ps-6">
         {rankCautionKeys.map((key) => (
           <li key={key}>{t(key)}</li>

@@ -4,6 +4,7 @@
 import { useTranslation } from "react-i18next";
 import type { OutcomeView } from "#core/publication/brief-page";
 import { useIntl } from "../i18n";
+import { WithTerms } from "../Term";
 
 const levels = ["low", "someConcerns", "high", "notAssessed"] as const;
 
@@ -27,7 +28,7 @@ export function RiskOfBiasEvidence({ outcome }: { outcome: OutcomeView }) {
   return (
     <section aria-labelledby={id} className="mt-10" data-testid="risk-of-bias">
       <h3 id={id} className="text-xl font-semibold">{t("riskOfBias.heading")}</h3>
-      <p className="mt-2">{t("riskOfBias.intro")}</p>
+      <p className="mt-2"><WithTerms i18nKey="riskOfBias.intro" terms={{ term: "risk-of-bias" }} /></p>
       <svg viewBox="0 0 100 8" preserveAspectRatio="none" className="mt-4 h-8 w-full max-w-2xl border border-ink" role="img" aria-label={t(`riskOfBias.barLabel.${basis}`, { summary: label })}>
         <defs>
           <pattern id={`${id}-stripes`} width="2" height="2" patternUnits="userSpaceOnUse" patternTransform="rotate(45)">

@@ -9,7 +9,9 @@ import { HealthCaution } from "../HealthCaution";
 import { Message } from "../Message";
 import { useIntl } from "../i18n";
 import { CertaintyMark } from "./CertaintyMark";
+import { Term } from "../Term";
 import { VersionBanners, WithdrawnFindings } from "./Notices";
+import { CiteBlock } from "./CiteBlock";
 
 export function SideBySidePage({ data }: { data: SideBySidePageData }) {
   const { t } = useTranslation();
@@ -36,9 +38,9 @@ export function SideBySidePage({ data }: { data: SideBySidePageData }) {
                 <thead>
                   <tr className="border-b border-ink text-start">
                     <th scope="col" className="py-2 pe-3 text-start">{t("sideBySide.option")}</th>
-                    <th scope="col" className="py-2 pe-3 text-start">{t("sideBySide.effect", { measure: outcome.measure })}</th>
-                    <th scope="col" className="py-2 pe-3 text-start">{t("sideBySide.per1000")}</th>
-                    <th scope="col" className="py-2 pe-3 text-start">{t("sideBySide.certainty")}</th>
+                    <th scope="col" className="py-2 pe-3 text-start"><Term term="confidence-interval">{t("sideBySide.effect", { measure: outcome.measure })}</Term></th>
+                    <th scope="col" className="py-2 pe-3 text-start"><Term term="per-1000">{t("sideBySide.per1000")}</Term></th>
+                    <th scope="col" className="py-2 pe-3 text-start"><Term term="certainty">{t("sideBySide.certainty")}</Term></th>
                     <th scope="col" className="py-2 text-start">{t("sideBySide.group")}</th>
                   </tr>
                 </thead>
@@ -92,6 +94,7 @@ export function SideBySidePage({ data }: { data: SideBySidePageData }) {
       <p className="mt-6 font-sans text-sm print:hidden">
         <a href={`${intl.href(versionUrl(version))}#side-by-side-title`}>{t("sideBySide.changeChoice")}</a>
       </p>
+      <CiteBlock heading={t("cite.brief")} reference={data.citation.reference} accessed={data.citation.accessed} permalink={data.citation.permalink} citing={version} />
     </article>
   );
 }

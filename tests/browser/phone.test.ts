@@ -1,5 +1,6 @@
-// Every public page type on a phone (390 px) in the four languages: the document is no wider than the
-// screen, and every mark of every chart shown lies inside its chart. Screenshots are kept.
+// Every public page type on a phone (390 px, and the narrowest in use, 320 px) in the four languages:
+// the document is no wider than the screen, and every mark of every chart shown lies inside its chart.
+// Screenshots are kept.
 import { describe, expect, it } from "vitest";
 import { slugify } from "#core/publication/slug";
 import { demoBriefs } from "#workflows/demo-briefs";
@@ -16,10 +17,11 @@ const pages = {
   "large brief": `/briefs/${large}/v/1`,
   comparison: `/briefs/${small}/v/1/compare/light/usual_care`,
   "side by side": `/briefs/${small}/v/1/side-by-side?options=light,nap_plan,drug_k`,
+  glossary: "/glossary",
 };
 const width = 390;
 
-describe.each(["en", "es", "fr", "ar"])("on a phone, in %s", (locale) => {
+describe.each(["en", "es", "fr", "ar"].flatMap((locale) => [390, 320].map((screen) => [locale, screen] as const)))("on a phone, in %s at %i px", (locale, width) => {
   it.each(Object.entries(pages))("the %s page fits the screen, and its charts hold their marks", async (kind, address) => {
     const context = await setup.browser.newContext({ viewport: { width, height: 844 } });
     const page = await context.newPage();
@@ -41,7 +43,7 @@ describe.each(["en", "es", "fr", "ar"])("on a phone, in %s", (locale) => {
         }),
     );
     expect(outside).toEqual([]);
-    await keepScreenshot(page, `phone-${locale}-${kind.replaceAll(" ", "-")}`);
+    await keepScreenshot(page, `phone-${width}-${locale}-${kind.replaceAll(" ", "-")}`);
     await context.close();
   });
 });
@@ -56,7 +58,7 @@ describe("the pictograph of a comparison", () => {
     [
       "ar",
       "/ar",
-      "نوم جيد في معظم الأيام بعد 4 أسابيع، من كل 1000 شخص: 300 مع الرعاية المعتادة، و419 مع جلسات ضوء ساطع في مواعيد محددة (فترة الثقة ٩٥٪ من 353 إلى 488). مرسوم على هيئة 100 شخص، كل نقطة تمثل 10 من 1000.",
+      "نوم جيد في معظم الأيام بعد 4 أسابيع، من كل 1000 شخص: 300 مع الرعاية المعتادة، و419 مع جلسات ضوء ساطع في مواعيد محددة (فترة الثقة 95٪ من 353 إلى 488). مرسوم على هيئة 100 شخص، كل نقطة تمثل 10 من 1000.",
     ],
   ])("shows 100 people with each option and says the numbers per 1000 in words (%s)", async (locale, prefix, sentence) => {
     const context = await setup.browser.newContext({ viewport: { width, height: 844 } });
@@ -93,6 +95,35 @@ describe("print", () => {
     const pdf = await page.pdf({ format: "A4", printBackground: true });
     const pages = pdf.toString("latin1").match(/\/Type\s*\/Page(?![s\w])/g) ?? [];
     expect(pages.length).toBeLessThanOrEqual(2);
+    await context.close();
+  });
+});
+
+describe("print of a brief and of a side-by-side", () => {
+  it.each([
+    ["en", "", `/briefs/${small}/v/1`],
+    ["ar", "/ar", `/briefs/${small}/v/1`],
+    ["en", "", `/briefs/${small}/v/1/side-by-side?options=light,nap_plan,drug_k`],
+    ["ar", "/ar", `/briefs/${small}/v/1/side-by-side?options=light,nap_plan,drug_k`],
+  ])("prints with its citation and the health caution, without navigation or forms (%s, %s)", async (_locale, prefix, address) => {
+    const context = await setup.browser.newContext();
+    const page = await context.newPage();
+    await page.goto(`${setup.server.url}${prefix}${address}`);
+    await page.emulateMedia({ media: "print" });
+    expect(await page.locator("header[data-site-header]").isVisible()).toBe(false);
+    expect(await page.locator("footer[data-site-footer]").isVisible()).toBe(false);
+    expect(await page.getByTestId("citation").isVisible()).toBe(true);
+    expect(await page.locator("main aside").first().isVisible()).toBe(true);
+    for (const form of await page.locator("main form").all()) expect(await form.isVisible()).toBe(false);
+    // What is folded on the page is left off the paper; what a reader opened prints.
+    const league = page.getByTestId("league");
+    if (await league.count()) {
+      expect(await league.first().isVisible()).toBe(false);
+      await league.first().evaluate((details) => details.setAttribute("open", ""));
+      expect(await league.first().isVisible()).toBe(true);
+    }
+    const pdf = await page.pdf({ format: "A4", printBackground: true });
+    expect((pdf.toString("latin1").match(/\/Type\s*\/Page(?![s\w])/g) ?? []).length).toBeGreaterThan(0);
     await context.close();
   });
 });

@@ -47,6 +47,9 @@ it("shows the card framed by another site at 320 and 720 px, each as tall as its
     const overflow = await page.frameLocator(`#${id}`).locator("html").evaluate((html) => html.scrollWidth - html.clientWidth);
     expect(overflow, `${id} (${width} px) scrolls sideways`).toBe(0);
   }
+  // The people of the pictograph where the card has room for them (720 px), not at 320 px.
+  await expect(page.frameLocator("#wide").getByTestId("embed-pictograph").first().isVisible()).resolves.toBe(true);
+  await expect(page.frameLocator("#narrow").getByTestId("embed-pictograph").first().isVisible()).resolves.toBe(false);
   await keepScreenshot(page, "embed-320-720");
   expect(errors).toEqual([]);
 });

@@ -54,6 +54,7 @@ export const pageAccess = {
   "GET /briefs/:slug/v/:number/side-by-side": { who: "anyone", does: "2 to 4 options a reader chose, side by side, in their order (?options=a,b)", also: embargo },
   "GET /topics/:slug": { who: "anyone", does: "the briefs of a topic" },
   "GET /data": { who: "anyone", does: "data for reuse: the open JSON, its stability promise, license and citation" },
+  "GET /glossary": { who: "anyone", does: "the words a brief uses, explained; each page links a word here at its first use" },
   "GET /sign-in": { who: "anyone", does: "the sign-in form" },
   "GET /password-reset": { who: "anyone", does: "ask for a password reset link" },
   "GET /password-reset/:token": { who: "anyone", does: "choose a new password from a reset link" },

@@ -24,6 +24,8 @@ export const homeUrl = () => "/";
 export const feedUrl = () => "/feed.xml";
 export const sitemapUrl = () => "/sitemap.xml";
 export const dataUrl = () => "/data";
+/** The words a brief uses, explained; with a term, that term's entry (server/core/publication/glossary.ts). */
+export const glossaryUrl = (term?: string) => `/glossary${term ? `#${term}` : ""}`;
 export const topicUrl = (topicSlug: string) => `/topics/${segment(topicSlug)}`;
 export const briefUrl = (slug: string) => `/briefs/${segment(slug)}`;
 export const versionUrl = (at: VersionAddress) => `${briefUrl(at.slug)}/v/${at.version}`;

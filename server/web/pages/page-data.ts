@@ -121,7 +121,9 @@ export async function sideBySidePageData(pageContext: PageContextServer) {
   const path = sideBySideUrl({ slug: snapshot.brief.slug, version: snapshot.version }, chosen.ids);
   if (searchOriginal !== `?${chosen.canonical}`) throw redirect(localePath(pageContext.locale, path), 301);
   const view: SideBySideView = { ...sideBySideContent(snapshot, chosen.ids), ...pageState(pageContext, page) };
-  return { view, path, translation, siteUrl: pageContext.siteUrl ?? "", ...answer(pageContext, page, false) };
+  // On screen and on paper, the page cites the version its figures come from.
+  const cited = citation(pageContext, snapshot, versionUrl({ slug: snapshot.brief.slug, version: snapshot.version }));
+  return { view, path, translation, citation: cited, siteUrl: pageContext.siteUrl ?? "", ...answer(pageContext, page, false) };
 }
 
 export type SideBySidePageData = Awaited<ReturnType<typeof sideBySidePageData>>;

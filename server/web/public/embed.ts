@@ -12,6 +12,7 @@ import { messageText } from "#core/languages/message";
 import type { VersionSnapshot } from "#core/snapshot/schema";
 import { escapeXml } from "./feed";
 import { embedHeightMessage } from "#core/publication/urls";
+import { dotCentre, dotGrid, dotStates, halfDot, type DotState } from "#core/publication/pictograph";
 
 /** Card widths the layout is made for (the issue's 320–720 px); oEmbed answers clamp to them. */
 export const cardWidth = { min: 320, max: 720, default: 560 } as const;
@@ -22,6 +23,38 @@ function mark(rating: Rating | null, t: TFunction): string {
   const filled = certaintySteps(rating);
   const steps = [0, 1, 2, 3].map((i) => `<rect x="${i * 7}" y="${9 - i * 3}" width="5" height="${3 + i * 3}" fill="${i < filled ? "#6d1f35" : "none"}" stroke="#6d1f35"/>`).join("");
   return `<span class="certainty">${escapeXml(t(`certainty.rating.${rating}`))} <svg viewBox="0 0 26 12" width="26" height="12" aria-hidden="true">${steps}</svg></span>`;
+}
+
+const ink = "#1d1a17";
+function dots(states: DotState[], rtl: boolean): string {
+  const size = dotGrid.columns * dotGrid.step;
+  const shapes = states
+    .map((state, i) => {
+      const { cx, cy } = dotCentre(i, rtl);
+      const circle = `<circle cx="${cx}" cy="${cy}" r="${dotGrid.radius}" fill="${state === "has" ? ink : "none"}" stroke="${ink}" stroke-width="1.2"/>`;
+      return state === "band" ? `${circle}<path d="${halfDot(cx, cy, rtl)}" fill="${ink}"/>` : circle;
+    })
+    .join("");
+  return `<svg viewBox="0 0 ${size} ${size}" width="112" height="112" aria-hidden="true">${shapes}</svg>`;
+}
+
+/**
+ * A binary comparison as 100 people with each option, as on its page (components/charts/Pictograph.tsx),
+ * shown only when the card is wide enough for two grids beside the figures (the .people rule); its
+ * sentence gives the numbers per 1000 to assistive technology.
+ */
+function pictograph(input: { outcome: string; comparatorName: string; optionName: string; comparatorPer1000: number; option: { estimate: number; lower: number; upper: number } }, t: TFunction, locale: Locale): string {
+  const rtl = textDirection(locale) === "rtl";
+  const n = (value: number) => String(Math.round(value));
+  const alt = t("pictograph.alt", { outcome: input.outcome, comparator: n(input.comparatorPer1000), comparatorName: input.comparatorName, estimate: n(input.option.estimate), optionName: input.optionName, lower: n(input.option.lower), upper: n(input.option.upper) });
+  const grid = (label: string, states: DotState[]) => `<figure><figcaption>${escapeXml(t("pictograph.with", { name: label }))}</figcaption>${dots(states, rtl)}</figure>`;
+  const legend = (["has", "band", "hasNot"] as const)
+    .map((state) => {
+      const swatch = `<circle cx="7" cy="7" r="${dotGrid.radius}" fill="${state === "has" ? ink : "none"}" stroke="${ink}" stroke-width="1.2"/>${state === "band" ? `<path d="${halfDot(7, 7, rtl)}" fill="${ink}"/>` : ""}`;
+      return `<li><svg viewBox="0 0 14 14" width="12" height="12">${swatch}</svg> ${escapeXml(t(`pictograph.${state}`))}</li>`;
+    })
+    .join("");
+  return `<div class="people" role="img" aria-label="${escapeXml(alt)}" data-testid="embed-pictograph"><div aria-hidden="true"><p class="muted">${escapeXml(t("pictograph.title"))}</p><div class="grids">${grid(input.comparatorName, dotStates({ estimate: input.comparatorPer1000 }))}${grid(input.optionName, dotStates(input.option))}</div><ul class="legend">${legend}</ul><p class="muted">${escapeXml(t("pictograph.cardNote"))}</p></div></div>`;
 }
 
 /**
@@ -63,6 +96,10 @@ dt{color:#5b554d}dd{margin:0;font-variant-numeric:tabular-nums;overflow-wrap:any
 .withdrawn{margin:12px 0 0;padding:8px 10px;border:2px solid #6d1f35;font:14px/1.4 ${sans}}
 a{color:#6d1f35}.link{display:block;margin-block-start:10px;font:600 14px/1.4 ${sans}}
 ul{margin:4px 0 0;padding-inline-start:18px;font-size:15px}
+.people{display:none;margin-block-start:8px}
+.grids{display:flex;gap:20px;align-items:flex-end}.grids figure{margin:0}.grids figcaption{font:600 13px/1.3 ${sans};max-width:112px}
+.legend{display:flex;flex-wrap:wrap;gap:2px 14px;list-style:none;padding:0;margin:6px 0 0;font:12px/1.4 ${sans}}.legend svg{vertical-align:-1px}
+@media (min-width:480px){.people{display:block}}
 `;
 
 export interface CardInput {
@@ -96,7 +133,10 @@ export function embedCard(input: CardInput): string | null {
           `<dt>${escapeXml(t("brief.certainty"))}</dt><dd>${mark(outcome.certainty, t)}</dd>`,
         ].join("");
         const statement = outcome.statement ? messageText(t, locale, outcome.statement) : t("compare.noStatement");
-        return `<section><h2>${escapeXml(outcome.name)}</h2><p class="statement">${escapeXml(statement)}</p><dl>${rows}</dl></section>`;
+        const people = outcome.absolute
+          ? pictograph({ outcome: outcome.name, comparatorName: view.comparator.name, optionName: view.treatment.name, comparatorPer1000: outcome.absolute.baselinePer1000, option: outcome.absolute.treatmentPer1000 }, t, locale)
+          : "";
+        return `<section><h2>${escapeXml(outcome.name)}</h2><p class="statement">${escapeXml(statement)}</p><dl>${rows}</dl>${people}</section>`;
       })
       .join("");
   } else {

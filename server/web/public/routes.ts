@@ -4,7 +4,7 @@
 import { Router, type Request, type Response } from "express";
 import { comparisonContent } from "#core/publication/brief-page";
 import { dayInWords, defaultLocale, isLocale, localeCookie, localePath, locales, splitLocale, type Locale } from "#core/languages/locales";
-import { alternates, briefUrl, surrogateKeys, comparisonUrl, feedUrl, homeUrl, searchUrl, sitemapUrl, versionNumberOf, versionUrl } from "#core/publication/urls";
+import { alternates, briefUrl, surrogateKeys, comparisonUrl, feedUrl, glossaryUrl, homeUrl, searchUrl, sitemapUrl, versionNumberOf, versionUrl } from "#core/publication/urls";
 import { listReleasedVersions, readVersion, type FoundVersion } from "#db/versions";
 import { wordsOf } from "#core/languages/words";
 import type { Database } from "#db/client";
@@ -170,6 +170,7 @@ export function publicFileRoutes(db: Database, publicUrl: string | undefined, se
     const urls = [
       entry(homeUrl()),
       entry(searchUrl()),
+      entry(glossaryUrl()),
       ...[...latest].map(([slug, at]) => entry(briefUrl(slug), at)),
       ...versions.map((v) => entry(versionUrl({ slug: v.slug, version: v.number }), v.releaseAt)),
     ];

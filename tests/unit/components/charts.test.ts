@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { formatEffect, formatInterval, formatTick } from "#core/publication/effects";
 import { axisTicks } from "#components/charts/scale";
-import { dotStates, dotsOf } from "#components/charts/Pictograph";
+import { dotStates, dotsOf } from "#core/publication/pictograph";
 
 describe("formatEffect", () => {
   it("shows ratios exponentiated and differences as they are", () => {

@@ -23,8 +23,11 @@ function flatten(value: unknown, prefix = ""): Map<string, string> {
 }
 
 const read = (locale: string, file: string) => flatten(JSON.parse(readFileSync(path.join(root, locale, file), "utf8")));
-/** The placeholders a text fills in ({{name}}, {{p, number(…)}} → p); count may be spelled out in a plural form. */
-const placeholders = (text: string) => new Set([...text.matchAll(/\{\{\s*([\w.]+)/g)].map((m) => m[1]!));
+/**
+ * The placeholders a text fills in ({{name}}, {{p, number(…)}} → p), and the tags that mark its glossary
+ * terms (<ci>…</ci> → <ci>); count may be spelled out in a plural form.
+ */
+const placeholders = (text: string) => new Set([...[...text.matchAll(/\{\{\s*([\w.]+)/g)].map((m) => m[1]!), ...[...text.matchAll(/<([a-z0-9]+)>/g)].map((m) => `<${m[1]}>`)]);
 
 describe.each(namespaces)("locales/*/%s", (file) => {
   const english = read("en", file);

@@ -1,0 +1,3 @@
+import { titled } from "#components/i18n";
+
+export default titled("titles.glossary");
