@@ -2,12 +2,14 @@
 // is rendered once per locale and day (the citation carries the access date) and served with an
 // ETag. Only a newer version or a withdrawal changes such a page, and each hit checks those facts.
 import { createHash } from "node:crypto";
-import { brotliCompressSync, constants, gzipSync } from "node:zlib";
+import { promisify } from "node:util";
+import { brotliCompress, brotliCompressSync, constants, gzip, gzipSync } from "node:zlib";
 
 /**
  * How hard to compress a kept page: "thorough" for a version's pages, answered for as long as they
- * are kept (brotli 9 takes milliseconds once, and saves bytes on every answer); "quick" for the list
- * pages, many of them one search's answer, where those milliseconds would be most of the request.
+ * are kept (brotli 9 saves bytes on every answer, but takes some 100 ms on the 22-option brief's page:
+ * it is done after the first answer, on libuv's threads, and replaces the quick bytes when done);
+ * "quick" for the list pages, many of them one search's answer, kept with the quick bytes only.
  */
 export type Effort = "thorough" | "quick";
 
@@ -18,14 +20,21 @@ export interface Encodings {
   br: Buffer;
 }
 
-export function encode(html: string, effort: Effort = "thorough"): Encodings {
+const brotliAt = (quality: number, size: number) => ({ params: { [constants.BROTLI_PARAM_QUALITY]: quality, [constants.BROTLI_PARAM_SIZE_HINT]: size } });
+
+/** Compressed quickly (a few milliseconds for the largest page), so that a page's first answer is not kept waiting. */
+export function encode(html: string): Encodings {
   const identity = Buffer.from(html);
-  const thorough = effort === "thorough";
-  return {
-    identity,
-    gzip: gzipSync(identity, { level: thorough ? 9 : 6 }),
-    br: brotliCompressSync(identity, { params: { [constants.BROTLI_PARAM_QUALITY]: thorough ? 9 : 4, [constants.BROTLI_PARAM_SIZE_HINT]: identity.length } }),
-  };
+  return { identity, gzip: gzipSync(identity, { level: 6 }), br: brotliCompressSync(identity, brotliAt(4, identity.length)) };
+}
+
+const gzipLater = promisify(gzip);
+const brotliLater = promisify(brotliCompress);
+
+/** Compressed as hard as is worth it, off the event loop. */
+async function encodeThoroughly(identity: Buffer): Promise<Encodings> {
+  const [gzipped, br] = await Promise.all([gzipLater(identity, { level: 9 }), brotliLater(identity, brotliAt(9, identity.length))]);
+  return { identity, gzip: gzipped, br };
 }
 
 export interface CachedPage {
@@ -108,11 +117,25 @@ export class PageCache {
     this.delete(key);
     this.entries.set(key, page);
     this.bytes += PageCache.sizeOf(page);
+    this.evict(key);
+    if (this.effort === "thorough") void this.refine(key, page);
+  }
+
+  private evict(kept: string): void {
     for (const [oldest, entry] of this.entries) {
-      if (this.bytes <= this.capacityBytes || oldest === key) break;
+      if (this.bytes <= this.capacityBytes || oldest === kept) break;
       this.entries.delete(oldest);
       this.bytes -= PageCache.sizeOf(entry);
     }
+  }
+
+  /** Replaces a kept page's quick bytes by thorough ones once they are ready, if the page is still kept. */
+  private async refine(key: string, page: CachedPage): Promise<void> {
+    const thorough = await encodeThoroughly(page.encodings.identity).catch(() => null);
+    if (!thorough || this.entries.get(key) !== page) return;
+    this.bytes += PageCache.sizeOf({ ...page, encodings: thorough }) - PageCache.sizeOf(page);
+    page.encodings = thorough;
+    this.evict(key);
   }
 
   delete(key: string): void {

@@ -54,7 +54,7 @@ export async function renderAndKeep(context: RenderContext, req: Request, res: R
   const page = { html, etag: etagOf(html.replaceAll(nonce, "")), status: answer.httpStatus ?? httpResponse.statusCode, headers, nonce };
   const caching = httpResponse.statusCode >= 400 && !answer.httpStatus ? "private" : (answer.caching ?? "private");
   if (kept && caching !== "private" && answer.cacheState !== undefined) {
-    const entry: CachedPage = { etag: page.etag, status: page.status, headers, nonce: page.nonce, encodings: encode(html, kept.cache.effort), state: answer.cacheState, caching };
+    const entry: CachedPage = { etag: page.etag, status: page.status, headers, nonce: page.nonce, encodings: encode(html), state: answer.cacheState, caching };
     kept.cache.set(kept.key, entry);
     return { page, caching, entry };
   }
