@@ -20,6 +20,12 @@ export function residentMiB(pid: number): number {
   return Number(line.replace(/\D+/g, "")) / 1024;
 }
 
+/** The resident memory of a process and its children (the primary and its workers), in MiB. */
+export function residentTreeMiB(pid: number): number {
+  const children = readFileSync(`/proc/${pid}/task/${pid}/children`, "utf8").trim().split(/\s+/).filter(Boolean).map(Number);
+  return residentMiB(pid) + children.reduce((sum, child) => sum + residentTreeMiB(child), 0);
+}
+
 export async function startProductionServer(options: { databaseUrl: string; sessionSecret: string; port?: number; env?: Record<string, string> }): Promise<RunningServer> {
   const port = options.port ?? (await freePort());
   // Node itself with tsx's loader, not the tsx command: that one runs the server in a child of its
