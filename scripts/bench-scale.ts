@@ -72,7 +72,10 @@ try {
   const started = performance.now();
   await catalogue(cluster.url, briefCount);
   log(`… in ${((performance.now() - started) / 1000).toFixed(1)} s`);
+  const starting = performance.now();
   server = await startProductionServer({ databaseUrl: cluster.url, sessionSecret: "a-session-secret-used-only-by-the-benchmark-0123" });
+  const startUp = performance.now() - starting;
+  const residentAtStart = residentMiB(server.pid);
 
   // Pages not in memory: the first answer of twenty different version pages, one after another.
   const cold: number[] = [];
@@ -111,6 +114,7 @@ try {
   console.log(`\nCatalogue: ${briefCount + 2} released briefs, ${briefCount * versionsEach + 2} versions (each of 22 treatments, the large demo brief's data)\n`);
   console.log("| load | requests/s | p50 ms | p99 ms | errors or non-2xx |\n|---|---:|---:|---:|---:|");
   console.log(rows.join("\n"));
+  console.log(`\nStart-up, from spawning the process to its "serving" line: ${(startUp / 1000).toFixed(1)} s; resident memory then ${residentAtStart.toFixed(0)} MiB.`);
   console.log(`\nA version page not in memory: median ${cold[10]!.toFixed(0)} ms, slowest of 20 ${cold[19]!.toFixed(0)} ms (rendered, then kept).`);
   console.log(`Resident memory after 0, 100, 200, 300 and 400 more version pages: ${resident.map((m) => m.toFixed(0)).join(", ")} MiB (a page is ${(pageBytes / 1024).toFixed(0)} KiB of HTML; the cache holds at most 64 MiB of pages and their compressions per process).`);
 } finally {
