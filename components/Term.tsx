@@ -3,7 +3,7 @@
 // tree in document order on the server and again when the browser hydrates it, so the first Term of
 // each kind to render is the first in the page. Each Term is known by its useId (the same on both
 // sides), so re-rendering a page links the same words again.
-import { createContext, useContext, useId, useMemo, type ReactNode } from "react";
+import { createContext, useContext, useId, useState, type ReactNode } from "react";
 import { Trans } from "react-i18next";
 import { glossaryUrl } from "#core/publication/urls";
 import type { GlossaryTerm } from "#core/publication/glossary";
@@ -11,9 +11,9 @@ import { useIntl } from "./i18n";
 
 const FirstUses = createContext<Map<GlossaryTerm, string> | null>(null);
 
-/** Around one page: the terms linked so far. A new page (a new address) starts again. */
-export function TermLinks({ page, children }: { page: string; children: ReactNode }) {
-  const firstUses = useMemo(() => new Map<GlossaryTerm, string>(), [page]);
+/** Around one page: the terms linked so far. Keyed by the page's address, so a new page starts again. */
+export function TermLinks({ children }: { children: ReactNode }) {
+  const [firstUses] = useState(() => new Map<GlossaryTerm, string>());
   return <FirstUses.Provider value={firstUses}>{children}</FirstUses.Provider>;
 }
 

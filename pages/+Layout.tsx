@@ -25,7 +25,7 @@ export default function Layout({ children }: { children: ReactNode }) {
       <div className="flex min-h-screen flex-col">
         <SiteHeader />
         <main id="content" className="mx-auto w-full max-w-3xl flex-1 px-6 py-12">
-          <TermLinks page={urlPathname}>{children}</TermLinks>
+          <TermLinks key={urlPathname}>{children}</TermLinks>
         </main>
         <SiteFooter />
       </div>
