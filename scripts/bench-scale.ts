@@ -1,8 +1,8 @@
 // npm run bench:scale: a catalogue of a thousand invented briefs (copies of the large demo brief,
 // 22 treatments, under new titles and slugs, three released versions each) in a throw-away cluster,
 // and what that does to the production server: p99 of the list and search pages under 50
-// connections, the time to render a version page that is not in memory, and the page cache's bytes
-// per page against its bound. Prints a table; asserts nothing.
+// connections, a new search one at a time, the time to render a version page that is not in memory,
+// the start-up time, and the page cache's bytes per page against its bound. Prints a table; asserts nothing.
 import { chmodSync, mkdtempSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
@@ -95,6 +95,15 @@ try {
   }
   const pageBytes = (await (await fetch(`${server.url}/briefs/scale-21/v/1`, { headers: { "accept-encoding": "identity" } })).arrayBuffer()).byteLength;
 
+  // Searches nobody asked before, one at a time: what one reader waits for a search of their own.
+  const coldSearch: number[] = [];
+  for (let i = 1; i <= 100; i++) {
+    const t0 = performance.now();
+    await (await fetch(`${server.url}/briefs?q=${words[i % 10]}%20cold${i}`)).arrayBuffer();
+    coldSearch.push(performance.now() - t0);
+  }
+  coldSearch.sort((a, b) => a - b);
+
   log(`autocannon: ${connections} connections, ${duration} s per address`);
   const loads = {
     "list of every brief (/briefs)": `${server.url}/briefs`,
@@ -114,6 +123,7 @@ try {
   console.log(`\nCatalogue: ${briefCount + 2} released briefs, ${briefCount * versionsEach + 2} versions (each of 22 treatments, the large demo brief's data)\n`);
   console.log("| load | requests/s | p50 ms | p99 ms | errors or non-2xx |\n|---|---:|---:|---:|---:|");
   console.log(rows.join("\n"));
+  console.log(`\nA search nobody asked before, one at a time (100 of them): median ${coldSearch[50]!.toFixed(0)} ms, p99 ${coldSearch[98]!.toFixed(0)} ms.`);
   console.log(`\nStart-up, from spawning the process to its "serving" line: ${(startUp / 1000).toFixed(1)} s; resident memory then ${residentAtStart.toFixed(0)} MiB.`);
   console.log(`\nA version page not in memory: median ${cold[10]!.toFixed(0)} ms, slowest of 20 ${cold[19]!.toFixed(0)} ms (rendered, then kept).`);
   console.log(`Resident memory after 0, 100, 200, 300 and 400 more version pages: ${resident.map((m) => m.toFixed(0)).join(", ")} MiB (a page is ${(pageBytes / 1024).toFixed(0)} KiB of HTML; the cache holds at most 64 MiB of pages and their compressions per process).`);
