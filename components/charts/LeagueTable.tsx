@@ -26,10 +26,15 @@ export function LeagueTable({
 }) {
   const { t } = useTranslation();
   const intl = useIntl();
+  const to = t("brief.to");
   return (
-    // Scrolls inside its own box, with the row and column headers kept in view (sticky).
+    // Scrolls inside its own box, with the row and column headers kept in view (sticky). The body
+    // cells take their look from the table (a 22-option brief has 462 of them: one class list, not 462).
     <div className="max-h-[80vh] overflow-auto">
-      <table className="border-collapse font-sans text-xs" data-testid="league-table">
+      <table
+        className="border-collapse font-sans text-xs [&_tbody_td]:border [&_tbody_td]:border-rule [&_tbody_td]:px-2 [&_tbody_td]:py-1 [&_tbody_td]:text-center [&_tbody_td]:whitespace-nowrap"
+        data-testid="league-table"
+      >
         <caption className="mb-2 text-start text-sm text-muted">{caption}</caption>
         <thead>
           <tr>
@@ -49,16 +54,15 @@ export function LeagueTable({
               </th>
               {treatments.map((column) => {
                 const value = row.id === column.id ? null : cell(row.id, column.id);
+                const text = value ? formatInterval(measure, value, to, intl.locale) : "—";
                 return (
-                  <td key={column.id} className="border border-rule px-2 py-1 text-center whitespace-nowrap">
+                  <td key={column.id}>
                     {value && href ? (
-                      <a href={href(row.id, column.id)} aria-label={t("brief.leagueCellLabel", { treatment: row.label, comparator: column.label, value: formatInterval(measure, value, t("brief.to"), intl.locale) })}>
-                        {formatInterval(measure, value, t("brief.to"), intl.locale)}
+                      <a href={href(row.id, column.id)} aria-label={t("brief.leagueCellLabel", { treatment: row.label, comparator: column.label, value: text })}>
+                        {text}
                       </a>
-                    ) : value ? (
-                      formatInterval(measure, value, t("brief.to"), intl.locale)
                     ) : (
-                      "—"
+                      text
                     )}
                   </td>
                 );
