@@ -35,8 +35,9 @@ export function OutcomeSection({ outcome, version, nameMark = null }: { outcome:
     const found = findPair(row, column);
     return found ? (found.flipped ? flipInterval(found.item) : found.item) : null;
   };
-  const binary = outcome.effects.some((e) => e.absolute !== null);
   const asPeople = outcome.effects.flatMap((e) => (e.absolute ? [{ name: e.name, per1000: e.absolute.treatmentPer1000, baseline: e.absolute.baselinePer1000 }] : []));
+  // Effects per 1000 people exist for binary outcomes only.
+  const binary = asPeople.length > 0;
   return (
     <section aria-labelledby={id} className="mt-16 border-t-2 border-ink pt-6" data-testid="outcome">
       <h2 id={id} className="text-3xl leading-tight font-semibold">
@@ -120,7 +121,7 @@ export function OutcomeSection({ outcome, version, nameMark = null }: { outcome:
         <p className="mt-2 font-sans text-xs text-muted"><WithTerms i18nKey="brief.baseline" values={{ count: Math.round(outcome.methods.baselineRisk * 1000), reference: outcome.reference.name }} terms={{ per1000: "per-1000" }} /></p>
       ) : null}
 
-      {asPeople.length > 0 && asPeople.length <= pictographsUpTo ? (
+      {binary && asPeople.length <= pictographsUpTo ? (
         <details className="mt-4" data-testid="as-people">
           <summary className="cursor-pointer font-sans text-sm font-semibold">{t("brief.asPeople")}</summary>
           <PictographSet outcome={outcome.name} reference={{ name: outcome.reference.name, per1000: asPeople[0]!.baseline }} options={asPeople} />

@@ -4,16 +4,8 @@
 // read. Why 100, and the layout: server/core/publication/pictograph.ts. Dots are ink, never coloured
 // as better or worse.
 import { useTranslation } from "react-i18next";
-import { dotCentre, dotGrid, dotStates, halfDot, type DotState } from "#core/publication/pictograph";
+import { dotCentre, dotGrid, dotStates, halfDot, pictographAlt, type DotState, type PictographInput } from "#core/publication/pictograph";
 import { textDirection, useIntl } from "../i18n";
-
-export interface PictographInput {
-  outcome: string;
-  comparatorName: string;
-  optionName: string;
-  comparatorPer1000: number;
-  option: { estimate: number; lower: number; upper: number };
-}
 
 const { columns, step, radius } = dotGrid;
 
@@ -64,18 +56,8 @@ function Legend({ rtl }: { rtl: boolean }) {
 /** The sentence a pictograph says to those who cannot see it: the numbers per 1000, exactly. */
 function useAlt() {
   const { t } = useTranslation();
-  const intl = useIntl();
-  const n = (value: number) => intl.number(Math.round(value), 0);
-  return (input: PictographInput) =>
-    t("pictograph.alt", {
-      outcome: input.outcome,
-      comparator: n(input.comparatorPer1000),
-      comparatorName: input.comparatorName,
-      estimate: n(input.option.estimate),
-      optionName: input.optionName,
-      lower: n(input.option.lower),
-      upper: n(input.option.upper),
-    });
+  const { locale } = useIntl();
+  return (input: PictographInput) => t("pictograph.alt", pictographAlt(input, locale));
 }
 
 /** One comparison: 100 people with the comparator beside 100 with the option (a comparison's page). */

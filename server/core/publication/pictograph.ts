@@ -3,6 +3,8 @@
 // interval, and where each dot sits. 100 rather than 1000: a phone shows 100 dots at a size that can be
 // counted (icon arrays of 100 are common practice in risk communication); each dot stands for 10 of
 // the "per 1000" figures, which the text alternative states exactly.
+import type { Locale } from "../languages/locales";
+import { formatNumber } from "./effects";
 
 export const dotGrid = { columns: 10, step: 14, radius: 5 } as const;
 
@@ -27,3 +29,26 @@ export function dotCentre(i: number, rtl: boolean): { cx: number; cy: number } {
 
 /** The half of a band dot that is filled: the half nearer where reading starts. */
 export const halfDot = (cx: number, cy: number, rtl: boolean) => `M ${cx} ${cy - dotGrid.radius} A ${dotGrid.radius} ${dotGrid.radius} 0 0 ${rtl ? 1 : 0} ${cx} ${cy + dotGrid.radius} Z`;
+
+/** One comparison as 100 people with each of its two sides: the comparator's risk and the option's, with its 95% CI, per 1000. */
+export interface PictographInput {
+  outcome: string;
+  comparatorName: string;
+  optionName: string;
+  comparatorPer1000: number;
+  option: { estimate: number; lower: number; upper: number };
+}
+
+/** The values of the sentence a pictograph says to those who cannot see it (pictograph.alt): the numbers per 1000, exactly. */
+export function pictographAlt(input: PictographInput, locale: Locale) {
+  const n = (value: number) => formatNumber(Math.round(value), 0, locale);
+  return {
+    outcome: input.outcome,
+    comparator: n(input.comparatorPer1000),
+    comparatorName: input.comparatorName,
+    estimate: n(input.option.estimate),
+    optionName: input.optionName,
+    lower: n(input.option.lower),
+    upper: n(input.option.upper),
+  };
+}

@@ -12,7 +12,7 @@ import { messageText } from "#core/languages/message";
 import type { VersionSnapshot } from "#core/snapshot/schema";
 import { escapeXml } from "./feed";
 import { embedHeightMessage } from "#core/publication/urls";
-import { dotCentre, dotGrid, dotStates, halfDot, type DotState } from "#core/publication/pictograph";
+import { dotCentre, dotGrid, dotStates, halfDot, pictographAlt, type DotState, type PictographInput } from "#core/publication/pictograph";
 
 /** Card widths the layout is made for (the issue's 320–720 px); oEmbed answers clamp to them. */
 export const cardWidth = { min: 320, max: 720, default: 560 } as const;
@@ -43,10 +43,9 @@ function dots(states: DotState[], rtl: boolean): string {
  * shown only when the card is wide enough for two grids beside the figures (the .people rule); its
  * sentence gives the numbers per 1000 to assistive technology.
  */
-function pictograph(input: { outcome: string; comparatorName: string; optionName: string; comparatorPer1000: number; option: { estimate: number; lower: number; upper: number } }, t: TFunction, locale: Locale): string {
+function pictograph(input: PictographInput, t: TFunction, locale: Locale): string {
   const rtl = textDirection(locale) === "rtl";
-  const n = (value: number) => String(Math.round(value));
-  const alt = t("pictograph.alt", { outcome: input.outcome, comparator: n(input.comparatorPer1000), comparatorName: input.comparatorName, estimate: n(input.option.estimate), optionName: input.optionName, lower: n(input.option.lower), upper: n(input.option.upper) });
+  const alt = t("pictograph.alt", pictographAlt(input, locale));
   const grid = (label: string, states: DotState[]) => `<figure><figcaption>${escapeXml(t("pictograph.with", { name: label }))}</figcaption>${dots(states, rtl)}</figure>`;
   const legend = (["has", "band", "hasNot"] as const)
     .map((state) => {
