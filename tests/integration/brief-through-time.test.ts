@@ -2,36 +2,29 @@
 // translation, a correction that rewrites one text (carried translation, "what changed" on the page,
 // in changes.json, the feed and the e-mails), then withdrawal on every channel; and a version under
 // embargo that translators translate before its release. docs/brief-lifecycle.md tells the same story.
-import pg from "pg";
 import { Cite } from "@citation-js/core";
 import "@citation-js/plugin-bibtex";
 import "@citation-js/plugin-ris";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import type { Translation, TranslationQueueEntry } from "#web/api/contract";
-import { testDatabaseUrl } from "../support/app";
+import { withTestDatabase } from "../support/app";
 import { approve, draftBrief, publishedBrief } from "../support/briefs";
 import { withProductionServer } from "../support/production-server";
 
 const { server, clients } = withProductionServer(["analyst", "editor", "translator", "press"]);
-let pool: pg.Pool;
-beforeAll(() => {
-  pool = new pg.Pool({ connectionString: testDatabaseUrl(), max: 2 });
-});
-afterAll(async () => {
-  await pool.end();
-});
+const database = withTestDatabase();
 
 const get = (address: string, headers: Record<string, string> = {}) => fetch(`${server.url}${address}`, { headers, redirect: "manual" });
 const title = "Counselling through time";
 
 /** The text of the e-mails of a kind about this brief, to one recipient, newest first. */
 async function mails(kind: string, recipient: string, about: string): Promise<string[]> {
-  const rows = await pool.query("select text from messages where kind = $1 and recipient = $2 and text like $3 order by created_at desc", [kind, recipient, `%${about}%`]);
+  const rows = await database.query("select text from messages where kind = $1 and recipient = $2 and text like $3 order by created_at desc", [kind, recipient, `%${about}%`]);
   return rows.rows.map((row: { text: string }) => row.text);
 }
 
 async function versionId(briefId: string, number: number): Promise<string> {
-  return (await pool.query("select id from brief_versions where brief_id = $1 and number = $2", [briefId, number])).rows[0].id as string;
+  return (await database.query("select id from brief_versions where brief_id = $1 and number = $2", [briefId, number])).rows[0].id as string;
 }
 
 async function queueEntry(versionIdOf: string): Promise<TranslationQueueEntry | undefined> {

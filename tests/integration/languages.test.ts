@@ -4,23 +4,16 @@
 // alone), and citations, the feed and the sitemap naming the language.
 import { readFileSync } from "node:fs";
 import path from "node:path";
-import pg from "pg";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import { slugify } from "#core/publication/slug";
 import { demoBriefs } from "#workflows/demo-briefs";
-import { testDatabaseUrl } from "../support/app";
+import { withTestDatabase } from "../support/app";
 import { approve, publishedBrief } from "../support/briefs";
 import { withProductionServer } from "../support/production-server";
 import type { Translation } from "#web/api/contract";
 
 const { server, clients } = withProductionServer(["analyst", "editor", "translator"]);
-let pool: pg.Pool;
-beforeAll(() => {
-  pool = new pg.Pool({ connectionString: testDatabaseUrl(), max: 2 });
-});
-afterAll(async () => {
-  await pool.end();
-});
+const database = withTestDatabase();
 
 const get = (address: string, headers: Record<string, string> = {}) => fetch(`${server.url}${address}`, { headers, redirect: "manual" });
 const small = slugify(demoBriefs()[0]!.title);
@@ -173,7 +166,7 @@ describe("every public page type in every language", () => {
 describe("the translation desk", () => {
   it("lets a translator work only in the languages assigned to them, and never publish", async () => {
     const { slug } = await publishedBrief(clients.analyst!, clients.editor!, "Translated brief");
-    const { rows } = await pool.query("select v.id from brief_versions v join briefs b on b.id = v.brief_id where b.slug = $1", [slug]);
+    const { rows } = await database.query("select v.id from brief_versions v join briefs b on b.id = v.brief_id where b.slug = $1", [slug]);
     const versionId = rows[0].id as string;
     const translator = clients.translator!;
     expect((await translator.request("GET", `/api/translations/${versionId}/ar`)).status).toBe(403);
@@ -196,9 +189,9 @@ describe("the translation desk", () => {
     const translator = clients.translator!;
     const { briefId, slug } = await publishedBrief(analyst, editor, "Brief to translate twice");
     const versionOf = async (number: number) =>
-      (await pool.query("select v.id, md5(v.snapshot::text) as hash from brief_versions v where v.brief_id = $1 and v.number = $2", [briefId, number])).rows[0] as { id: string; hash: string };
+      (await database.query("select v.id, md5(v.snapshot::text) as hash from brief_versions v where v.brief_id = $1 and v.number = $2", [briefId, number])).rows[0] as { id: string; hash: string };
     const v1 = await versionOf(1);
-    const audited = async () => Number((await pool.query("select count(*) from audit_log where entity_id = $1 and action like 'translation.%'", [v1.id])).rows[0].count);
+    const audited = async () => Number((await database.query("select count(*) from audit_log where entity_id = $1 and action like 'translation.%'", [v1.id])).rows[0].count);
 
     const source = ((await translator.request("GET", `/api/translations/${v1.id}/es`)).body.translation as Translation).fields;
     const targets = Object.fromEntries(source.map((field) => [field.name, field.name === "summary" ? "Resumen de prueba: el asesoramiento **podría** ayudar a dejar de fumar." : `ES ${field.text}`]));

@@ -3,6 +3,7 @@ import { randomUUID } from "node:crypto";
 import type { AddressInfo } from "node:net";
 import type { Server } from "node:http";
 import pg from "pg";
+import { afterAll, beforeAll } from "vitest";
 import { createApp, type AppOptions } from "#web/app";
 import { connectDatabase, type DatabaseConnection } from "#db/client";
 
@@ -10,6 +11,21 @@ export function testDatabaseUrl(): string {
   const url = process.env.TEST_DATABASE_URL;
   if (!url) throw new Error("TEST_DATABASE_URL is not set: run the tests with `npm test`");
   return url;
+}
+
+/**
+ * Reads of a test file straight from the test database (what e-mails were queued, a version's id):
+ * a small pool opened before the file's tests and closed after them.
+ */
+export function withTestDatabase(): { query: pg.Pool["query"] } {
+  let pool: pg.Pool | undefined;
+  beforeAll(() => {
+    pool = new pg.Pool({ connectionString: testDatabaseUrl(), max: 2 });
+  });
+  afterAll(async () => {
+    await pool?.end();
+  });
+  return { query: ((...args: Parameters<pg.Pool["query"]>) => pool!.query(...args)) as pg.Pool["query"] };
 }
 
 /**
