@@ -11,9 +11,9 @@ import { CiteBlock } from "./CiteBlock";
 import { EmbedCode } from "./EmbedCode";
 import { ImportantStudies } from "./ImportantStudies";
 import { formatInterval } from "#core/publication/effects";
-import { VersionBanners, WithdrawnFindings } from "./Notices";
+import { WithdrawnFindings, WithinVersionOpening } from "./Notices";
 import { Pictograph } from "../charts/Pictograph";
-import { comparisonUrl, versionUrl } from "#core/publication/urls";
+import { comparisonUrl } from "#core/publication/urls";
 import { Message } from "../Message";
 import { useIntl } from "../i18n";
 import { Term } from "../Term";
@@ -27,11 +27,7 @@ export function ComparisonPage({ data }: { data: ComparisonPageData }) {
   const versus = t("brief.versus", { treatment: view.treatment.name, comparator: view.comparator.name });
   return (
     <article data-testid="comparison">
-      <VersionBanners view={view} translation={data.translation} />
-      <p className="font-sans text-sm">
-        <a href={intl.href(versionUrl(at))}>{t("compare.back", { title: view.title })}</a>
-      </p>
-      <h1 className="mt-3 text-4xl leading-tight font-semibold tracking-tight">{versus}</h1>
+      <WithinVersionOpening view={view} translation={data.translation} back={t("compare.back", { title: view.title })} title={versus} />
       <p className="mt-3 font-sans text-sm text-muted">
         {view.embargoed ? t("compare.inEmbargoed", { version: view.version, date: intl.moment(view.releaseAt, view.timeZone) }) : t("compare.inVersion", { version: view.version, date: date.format(new Date(view.releaseAt)) })} ·{" "}
         <a href={intl.href(comparisonUrl({ ...at, treatment: at.comparator, comparator: at.treatment }))}>{t("compare.reverse")}</a>

@@ -2,8 +2,25 @@
 // embargo, a newer version.
 import { useTranslation } from "react-i18next";
 import type { BriefHeader, PageState } from "#core/publication/brief-page";
-import { briefUrl } from "#core/publication/urls";
+import { briefUrl, versionUrl } from "#core/publication/urls";
 import { useIntl } from "../i18n";
+
+/**
+ * The opening of a page within a version (one comparison, the reader's side-by-side): the version's
+ * notices, the way back to the version's page, and the page's title.
+ */
+export function WithinVersionOpening({ view, translation, back, title }: { view: BriefHeader & PageState; translation: TranslationState; back: string; title: string }) {
+  const intl = useIntl();
+  return (
+    <>
+      <VersionBanners view={view} translation={translation} />
+      <p className="font-sans text-sm">
+        <a href={intl.href(versionUrl({ slug: view.slug, version: view.version }))}>{back}</a>
+      </p>
+      <h1 className="mt-3 text-4xl leading-tight font-semibold tracking-tight">{title}</h1>
+    </>
+  );
+}
 
 /** Everything shown above a version's content, for its brief page and its comparison pages. */
 export function VersionBanners({ view, translation }: { view: BriefHeader & PageState; translation: TranslationState }) {

@@ -10,7 +10,7 @@ import { Message } from "../Message";
 import { useIntl } from "../i18n";
 import { CertaintyMark } from "./CertaintyMark";
 import { Term } from "../Term";
-import { VersionBanners, WithdrawnFindings } from "./Notices";
+import { WithdrawnFindings, WithinVersionOpening } from "./Notices";
 import { CiteBlock } from "./CiteBlock";
 
 export function SideBySidePage({ data }: { data: SideBySidePageData }) {
@@ -21,11 +21,7 @@ export function SideBySidePage({ data }: { data: SideBySidePageData }) {
   const list = new Intl.ListFormat(intl.locale, { type: "conjunction" }).format(view.options.map((o) => o.name));
   return (
     <article data-testid="side-by-side">
-      <VersionBanners view={view} translation={data.translation} />
-      <p className="font-sans text-sm">
-        <a href={intl.href(versionUrl(version))}>{t("sideBySide.back", { title: view.title })}</a>
-      </p>
-      <h1 className="mt-3 text-4xl leading-tight font-semibold tracking-tight">{t("sideBySide.heading", { options: list })}</h1>
+      <WithinVersionOpening view={view} translation={data.translation} back={t("sideBySide.back", { title: view.title })} title={t("sideBySide.heading", { options: list })} />
       <p className="mt-3 text-lg text-muted">{t("sideBySide.lead", { reference: view.outcomes[0]?.reference.name ?? "" })}</p>
       <p className="mt-6 border-s-4 border-rule ps-4 text-muted">{t("brief.notALeaderboard")}</p>
 
