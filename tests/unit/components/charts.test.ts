@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { formatEffect, formatInterval, formatTick } from "#core/publication/effects";
 import { axisTicks } from "#components/charts/scale";
-import { dotStates, dotsOf } from "#core/publication/pictograph";
+import { dotStates, dotsOf, pictographAlt } from "#core/publication/pictograph";
 
 describe("formatEffect", () => {
   it("shows ratios exponentiated and differences as they are", () => {
@@ -53,5 +53,13 @@ describe("the pictograph's dots (components/charts/Pictograph.tsx)", () => {
   it("keeps within 0 and 100 dots whatever the interval", () => {
     expect(dotStates({ estimate: 990, lower: 950, upper: 1200 }).filter((s) => s !== "hasNot")).toHaveLength(100);
     expect(dotsOf(-4)).toBe(0);
+  });
+  it("gives its sentence the numbers per 1000, rounded, as each language writes them (the page and the card alike)", () => {
+    const input = { outcome: "Headache gone", comparatorName: "Placebo", optionName: "Compound A", comparatorPer1000: 204.6, option: { estimate: 150.4, lower: 99.5, upper: 1210.2 } };
+    const numbers = { comparator: "205", estimate: "150", lower: "100", upper: "1210" };
+    // No grouping (decision 0024) and Western digits in Arabic, so the four languages agree.
+    for (const locale of ["en", "es", "fr", "ar"] as const) {
+      expect(pictographAlt(input, locale)).toEqual({ outcome: "Headache gone", comparatorName: "Placebo", optionName: "Compound A", ...numbers });
+    }
   });
 });
