@@ -319,13 +319,20 @@ export async function searchReleasedSlugs(db: Database, query: string, locale: L
   if (words.length === 0) return new Set();
   // Each word a prefix, all of them required; words hold letters and digits only, so the query cannot break.
   const tsquery = words.slice(0, 12).map((word) => `${word}:*`).join(" & ");
+  const matching = sql`to_tsquery('simple', fairweigh_fold(${tsquery}))`;
+  // Two lookups joined by UNION, each on its own GIN index: one condition that ORs the version's
+  // document with its translation's cannot use either index, and read every version of the
+  // catalogue on every new search.
   const rows = await db.execute<{ slug: string }>(sql`
-    select distinct b.slug
+    select b.slug
     from brief_versions v
     join briefs b on b.id = v.brief_id
-    left join version_translations t on t.version_id = v.id and t.locale = ${locale} and t.published_at is not null
-    where v.release_at <= now()
-      and (v.search_document @@ to_tsquery('simple', fairweigh_fold(${tsquery}))
-        or t.search_document @@ to_tsquery('simple', fairweigh_fold(${tsquery})))`);
+    where v.release_at <= now() and v.search_document @@ ${matching}
+    union
+    select b.slug
+    from version_translations t
+    join brief_versions v on v.id = t.version_id
+    join briefs b on b.id = v.brief_id
+    where t.locale = ${locale} and t.published_at is not null and v.release_at <= now() and t.search_document @@ ${matching}`);
   return new Set(rows.rows.map((row) => row.slug));
 }
