@@ -18,6 +18,10 @@ declare global {
       csrfToken?: string;
       /** The address readers use, for permalinks and citations (no trailing slash). */
       siteUrl?: string;
+      /** The build the server runs, which names the renderings it keeps (server/web/pages/stored-brief.ts); null in development. */
+      build?: string | null;
+      /** A brief page's outcome sections as HTML, set by its +data on the server only (components/brief/OutcomeSections.tsx). */
+      outcomesHtml?: string;
     }
   }
 }

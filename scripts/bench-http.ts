@@ -115,8 +115,6 @@ try {
 
   // Each process renders and keeps the page, then answers it from memory once (the fast path's headers).
   for (let i = 0; i < 4 * processes; i++) await rawAnswer(`${server.url}/briefs/${small}/v/1`);
-  // A kept page's thorough compression replaces its quick one shortly after its first answer (page-cache.ts): the peer gets the bytes readers get from then on.
-  await new Promise((resolve) => setTimeout(resolve, 2000));
   const answer = await rawAnswer(`${server.url}/briefs/${small}/v/1`);
   log(`The brief page: ${(answer.body.length / 1024).toFixed(1)} KiB with brotli, ${Object.keys(answer.headers).length} headers.`);
   peer = await startPeer(onlyFive(answer));

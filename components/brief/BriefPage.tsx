@@ -1,12 +1,13 @@
 // A version of a brief, as the public reads it: notices, the editor's texts, the health caution,
-// each outcome, how to cite it, the data, and the version history. Rendered from the snapshot only.
+// each outcome, how to cite it, the data, and the version history. Rendered from the snapshot only;
+// the outcomes come rendered already (RenderedOutcomes.tsx).
 import { useTranslation } from "react-i18next";
 import type { BriefPageData } from "#web/pages/page-data";
 import { HealthCaution } from "../HealthCaution";
 import { CiteBlock } from "./CiteBlock";
 import { SubscribeForm } from "../SubscribeForm";
 import { useUntranslated, VersionBanners, WithdrawnFindings } from "./Notices";
-import { OutcomeSection } from "./OutcomeSection";
+import { RenderedOutcomes } from "./RenderedOutcomes";
 import { VersionHistory } from "./VersionHistory";
 import { VersionChanges } from "./VersionChanges";
 import { downloadUrl, sideBySideUrl, topicUrl } from "#core/publication/urls";
@@ -94,9 +95,7 @@ export function BriefPage({ data }: { data: BriefPageData }) {
       ) : null}
 
       <WithdrawnFindings withdrawn={view.withdrawal !== null}>
-        {view.outcomes.map((outcome) => (
-          <OutcomeSection key={outcome.index} outcome={outcome} version={version} nameMark={untranslated.mark(`outcome:${outcome.index}`)} />
-        ))}
+        <RenderedOutcomes html={data.outcomesHtml} />
       </WithdrawnFindings>
       <p className="hidden font-sans text-sm text-muted print:block">{t("brief.printFolded")}</p>
 

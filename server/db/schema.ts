@@ -320,6 +320,33 @@ export const briefVersions = pgTable(
   (table) => [uniqueIndex("brief_versions_number_idx").on(table.briefId, table.number)],
 );
 
+/**
+ * The parts of a version's page that only its language, its translations and the code change: the
+ * outcome sections as HTML and what the page says around them from the frozen version, rendered
+ * once and read by every process from then on (server/web/pages/stored-brief.ts,
+ * docs/decisions/0046-stored-brief-pages.md). One row per version and language; a row rendered by
+ * another build, or before a translation was published or an embargoed release moved, is rendered
+ * again and replaced. Derived data: deleting every row loses nothing.
+ */
+export const versionRenderings = pgTable(
+  "version_renderings",
+  {
+    versionId: uuid("version_id")
+      .notNull()
+      .references(() => briefVersions.id, { onDelete: "cascade" }),
+    locale: text("locale").notNull(),
+    /** The build that rendered it (a hash of the built server and client). */
+    build: text("build").notNull(),
+    /** What it was rendered from beyond the frozen snapshot: the brief's last translation and the release time. */
+    state: text("state").notNull(),
+    /** What the page says around its outcomes, from the frozen version in this language (StoredBriefPage): json, not jsonb, so that it reads back in the order it was written and a page rendered from it is byte for byte the page rendered before it was stored. */
+    page: json("page").$type<unknown>().notNull(),
+    outcomesHtml: text("outcomes_html").notNull(),
+    renderedAt: timestamp("rendered_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (table) => [primaryKey({ columns: [table.versionId, table.locale] })],
+);
+
 export const reviewDecision = pgEnum("review_decision", reviewDecisions);
 
 /**

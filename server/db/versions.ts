@@ -67,17 +67,22 @@ export async function fillMissingChanges(db: Database, compute: (before: Version
   return missing.length;
 }
 
-export interface FoundVersion {
-  /** The stored snapshot brought to the current shape (server/core/snapshot/upgrade.ts). */
-  snapshot: VersionSnapshot;
+/** What a version's pages need to know of it beside its snapshot. */
+export interface VersionFacts {
   /** Not yet released: only an embargo reader gets here, and nothing about it may be cached. */
   embargoed: boolean;
   withdrawal: { at: string; reason: string } | null;
   versionId: string;
+  releaseAt: string;
   /** When a translation of any of the brief's versions was last published: cached pages are checked against it. */
   translatedAt: string | null;
   /** What changed since the version before, frozen with this one; null for version 1. */
   changes: VersionChanges | null;
+}
+
+export interface FoundVersion extends VersionFacts {
+  /** The stored snapshot brought to the current shape (server/core/snapshot/upgrade.ts). */
+  snapshot: VersionSnapshot;
 }
 
 /** The last publication of a translation of any version of the brief (a column of a query joining briefs). */
@@ -85,11 +90,24 @@ const lastTranslated = sql<string | null>`(select max(${versionTranslations.publ
 
 /** A version as frozen; null when it does not exist or is not yet released for this reader. */
 export async function readVersion(db: Database, slug: string, number: number, roles: Role[]): Promise<FoundVersion | null> {
+  const found = await findVersion(db, slug, number, roles, true);
+  return found && { ...found, snapshot: readSnapshot(found.snapshot) };
+}
+
+/** What a version's pages need to know of it beside its snapshot, without reading the snapshot (a megabyte for a large brief). */
+export async function readVersionFacts(db: Database, slug: string, number: number, roles: Role[]): Promise<VersionFacts | null> {
+  const found = await findVersion(db, slug, number, roles, false);
+  if (!found) return null;
+  delete found.snapshot;
+  return found;
+}
+
+async function findVersion(db: Database, slug: string, number: number, roles: Role[], withSnapshot: boolean): Promise<(VersionFacts & { snapshot?: unknown }) | null> {
   const [row] = await db
     .select({
       versionId: briefVersions.id,
       releaseAt: briefVersions.releaseAt,
-      snapshot: briefVersions.snapshot,
+      snapshot: withSnapshot ? briefVersions.snapshot : sql<unknown>`null`,
       withdrawnAt: briefs.withdrawnAt,
       withdrawalReason: briefs.withdrawalReason,
       translatedAt: lastTranslated,
@@ -102,10 +120,11 @@ export async function readVersion(db: Database, slug: string, number: number, ro
   const embargoed = row.releaseAt.getTime() > Date.now();
   if (embargoed && !mayReadEmbargoed(roles)) return null;
   return {
-    snapshot: readSnapshot(row.snapshot),
+    snapshot: row.snapshot,
     embargoed,
     withdrawal: row.withdrawnAt ? { at: row.withdrawnAt.toISOString(), reason: row.withdrawalReason ?? "" } : null,
     versionId: row.versionId,
+    releaseAt: row.releaseAt.toISOString(),
     translatedAt: row.translatedAt === null ? null : new Date(row.translatedAt).toISOString(),
     changes: row.changes ?? null,
   };
@@ -151,19 +170,28 @@ export function cacheState(state: { withdrawnAt: string | null; latestVersion: n
   return `${state.latestVersion}|${state.withdrawnAt ?? ""}|${state.translatedAt ?? ""}`;
 }
 
-export interface PublicVersion {
-  found: FoundVersion;
+export interface PublicVersion<Found extends VersionFacts = FoundVersion> {
+  found: Found;
   history: VersionEntry[];
   latestVersion: number;
 }
 
 /** A version of a brief for its pages, with its history; `"latest"` is the newest this reader may see. */
-export async function readPublicVersion(db: Database, slug: string, number: number | "latest", roles: Role[]): Promise<PublicVersion | null> {
+export function readPublicVersion(db: Database, slug: string, number: number | "latest", roles: Role[]): Promise<PublicVersion | null> {
+  return withHistory(db, slug, number, roles, (at) => readVersion(db, slug, at, roles));
+}
+
+/** The same without the snapshot (readVersionFacts). */
+export function readPublicVersionFacts(db: Database, slug: string, number: number | "latest", roles: Role[]): Promise<PublicVersion<VersionFacts> | null> {
+  return withHistory(db, slug, number, roles, (at) => readVersionFacts(db, slug, at, roles));
+}
+
+async function withHistory<Found extends VersionFacts>(db: Database, slug: string, number: number | "latest", roles: Role[], read: (number: number) => Promise<Found | null>): Promise<PublicVersion<Found> | null> {
   const history = await versionHistory(db, slug, roles);
   // The newest released version is "the latest"; an embargo reader reaches a scheduled one by its number.
   const latestVersion = history.find((entry) => !entry.embargoed)?.number ?? history[0]?.number;
   if (latestVersion === undefined) return null;
-  const found = await readVersion(db, slug, number === "latest" ? latestVersion : number, roles);
+  const found = await read(number === "latest" ? latestVersion : number);
   return found ? { found, history, latestVersion } : null;
 }
 

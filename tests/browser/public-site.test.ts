@@ -84,3 +84,29 @@ describe("screenshots of a brief", () => {
     await context.close();
   });
 });
+
+describe("with JavaScript", () => {
+  // The outcome sections come rendered from the server (server/web/pages/stored-brief.ts): hydration
+  // must keep them, and a page reached by client-side navigation must bring its own.
+  it("a brief page keeps its outcome sections through hydration, and one reached by a client-side navigation shows its own", async () => {
+    const context = await setup.browser.newContext();
+    const page = await context.newPage();
+    const errors: string[] = [];
+    page.on("pageerror", (error) => errors.push(error.message));
+    page.on("console", (message) => {
+      if (message.type() === "error") errors.push(message.text());
+    });
+    await page.goto(`${setup.server.url}/briefs/${large}/v/1`, { waitUntil: "networkidle" });
+    await expect(page.getByTestId("outcome").count()).resolves.toBe(demoBriefs()[1]!.outcomes.length);
+    await page.goto(`${setup.server.url}/briefs?q=night%20shifts`, { waitUntil: "networkidle" });
+    const navigation = page.waitForResponse((answer) => answer.url().endsWith("/index.pageContext.json"));
+    await page.getByRole("link", { name: demoBriefs()[0]!.title, exact: true }).first().click();
+    expect((await navigation).status()).toBe(200);
+    await page.waitForURL(`${setup.server.url}/briefs/${small}`);
+    await page.getByTestId("outcome").first().waitFor();
+    await expect(page.getByTestId("outcome").count()).resolves.toBe(demoBriefs()[0]!.outcomes.length);
+    await expect(page.getByTestId("forest-plot").first().isVisible()).resolves.toBe(true);
+    expect(errors).toEqual([]);
+    await context.close();
+  });
+});

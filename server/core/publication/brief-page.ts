@@ -89,7 +89,13 @@ export interface BriefContent extends BriefHeader {
   treatments: Named[];
 }
 
-export type BriefView = BriefContent & PageState;
+/**
+ * What a brief page holds beside its outcome sections, which come rendered (server/web/pages/stored-brief.ts):
+ * of each outcome, the name its contents list links to.
+ */
+export type BriefOutline = Omit<BriefContent, "outcomes"> & { outcomes: Pick<OutcomeView, "index" | "name">[] };
+
+export type BriefView = BriefOutline & PageState;
 
 export function briefHeader(snapshot: VersionSnapshot): BriefHeader {
   const { brief } = snapshot;

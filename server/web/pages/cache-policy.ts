@@ -38,7 +38,7 @@ export interface Kept {
 export function pageMemory(db: Database) {
   const versions = new PageCache();
   // The list pages apart, in less memory: a flood of distinct searches cannot push out versions' pages.
-  const lists = new PageCache(16 * 1024 * 1024, "quick");
+  const lists = new PageCache(16 * 1024 * 1024);
   const states = new StateMemo<string | null>();
   const catalogue = new Catalogue(db, states);
 

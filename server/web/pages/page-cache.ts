@@ -2,16 +2,7 @@
 // is rendered once per locale and day (the citation carries the access date) and served with an
 // ETag. Only a newer version or a withdrawal changes such a page, and each hit checks those facts.
 import { createHash } from "node:crypto";
-import { promisify } from "node:util";
-import { brotliCompress, brotliCompressSync, constants, gzip, gzipSync } from "node:zlib";
-
-/**
- * How hard to compress a kept page: "thorough" for a version's pages, answered for as long as they
- * are kept (brotli 9 saves bytes on every answer, but takes some 100 ms on the 22-option brief's page:
- * it is done after the first answer, on libuv's threads, and replaces the quick bytes when done);
- * "quick" for the list pages, many of them one search's answer, kept with the quick bytes only.
- */
-export type Effort = "thorough" | "quick";
+import { brotliCompressSync, constants, gzipSync } from "node:zlib";
 
 /** The page's bytes, compressed once when it is cached rather than on every answer. */
 export interface Encodings {
@@ -20,21 +11,15 @@ export interface Encodings {
   br: Buffer;
 }
 
-const brotliAt = (quality: number, size: number) => ({ params: { [constants.BROTLI_PARAM_QUALITY]: quality, [constants.BROTLI_PARAM_SIZE_HINT]: size } });
-
-/** Compressed quickly (a few milliseconds for the largest page), so that a page's first answer is not kept waiting. */
+/**
+ * Compressed quickly: some 4 ms for the largest page (brotli 4, gzip 6). Brotli 9 saved 8% of its
+ * bytes (21.7 against 23.7 KB) for 80 ms of a core per page, which on two cores slowed the next
+ * pages' renders more than the bytes were worth (docs/decisions/0046-stored-brief-pages.md).
+ */
 export function encode(html: string): Encodings {
   const identity = Buffer.from(html);
-  return { identity, gzip: gzipSync(identity, { level: 6 }), br: brotliCompressSync(identity, brotliAt(4, identity.length)) };
-}
-
-const gzipLater = promisify(gzip);
-const brotliLater = promisify(brotliCompress);
-
-/** Compressed as hard as is worth it, off the event loop. */
-async function encodeThoroughly(identity: Buffer): Promise<Encodings> {
-  const [gzipped, br] = await Promise.all([gzipLater(identity, { level: 9 }), brotliLater(identity, brotliAt(9, identity.length))]);
-  return { identity, gzip: gzipped, br };
+  const br = brotliCompressSync(identity, { params: { [constants.BROTLI_PARAM_QUALITY]: 4, [constants.BROTLI_PARAM_SIZE_HINT]: identity.length } });
+  return { identity, gzip: gzipSync(identity, { level: 6 }), br };
 }
 
 export interface CachedPage {
@@ -95,11 +80,7 @@ export class PageCache {
   private readonly entries = new Map<string, CachedPage>();
   private bytes = 0;
 
-  /** `effort`: how hard to compress the pages it keeps (see Effort). */
-  constructor(
-    private readonly capacityBytes = 64 * 1024 * 1024,
-    readonly effort: Effort = "thorough",
-  ) {}
+  constructor(private readonly capacityBytes = 64 * 1024 * 1024) {}
 
   static key(locale: string, path: string, day = new Date().toISOString().slice(0, 10)): string {
     return `${locale}|${day}|${path}`;
@@ -117,25 +98,11 @@ export class PageCache {
     this.delete(key);
     this.entries.set(key, page);
     this.bytes += PageCache.sizeOf(page);
-    this.evict(key);
-    if (this.effort === "thorough") void this.refine(key, page);
-  }
-
-  private evict(kept: string): void {
     for (const [oldest, entry] of this.entries) {
-      if (this.bytes <= this.capacityBytes || oldest === kept) break;
+      if (this.bytes <= this.capacityBytes || oldest === key) break;
       this.entries.delete(oldest);
       this.bytes -= PageCache.sizeOf(entry);
     }
-  }
-
-  /** Replaces a kept page's quick bytes by thorough ones once they are ready, if the page is still kept. */
-  private async refine(key: string, page: CachedPage): Promise<void> {
-    const thorough = await encodeThoroughly(page.encodings.identity).catch(() => null);
-    if (!thorough || this.entries.get(key) !== page) return;
-    this.bytes += PageCache.sizeOf({ ...page, encodings: thorough }) - PageCache.sizeOf(page);
-    page.encodings = thorough;
-    this.evict(key);
   }
 
   delete(key: string): void {

@@ -10,12 +10,15 @@ import { siteUrl } from "../http/site-url";
 import type { Catalogue } from "./catalogue";
 import type { cacheControl, Kept, PageAnswer } from "./cache-policy";
 import { encode, etagOf, type CachedPage } from "./page-cache";
+import { fillOutcomes } from "#core/publication/outcomes-mark";
 
 export interface RenderContext {
   db: Database;
   csrf: ReturnType<typeof createCsrf>;
   catalogue: Catalogue;
   publicUrl?: string;
+  /** The build's name, which the renderings kept in the database carry; null in development. */
+  build: string | null;
 }
 
 /** A rendered page: its HTML and headers, how it may be cached, and the entry kept in memory, if it was. */
@@ -26,7 +29,7 @@ export interface Rendered {
 }
 
 export async function renderAndKeep(context: RenderContext, req: Request, res: Response, path: string, kept: Kept | null): Promise<Rendered | null> {
-  const { db, csrf, catalogue, publicUrl } = context;
+  const { db, csrf, catalogue, publicUrl, build } = context;
   const csrfToken = holdsForm(path) ? csrf.issueToken(req, res) : undefined;
   const pageContext = await renderPage({
     urlOriginal: req.originalUrl,
@@ -37,6 +40,7 @@ export async function renderAndKeep(context: RenderContext, req: Request, res: R
     catalogue: (locale: Locale) => catalogue.briefs(locale),
     csrfToken,
     siteUrl: siteUrl(req, publicUrl),
+    build,
   });
   const { httpResponse } = pageContext;
   if (!httpResponse) return null;
@@ -45,7 +49,7 @@ export async function renderAndKeep(context: RenderContext, req: Request, res: R
   const failure = (pageContext as { errorWhileRendering?: unknown }).errorWhileRendering;
   if (failure && errorAnswer(failure).status === 503) throw failure;
   const answer = ((pageContext as { data?: unknown }).data ?? {}) as PageAnswer;
-  const html = await httpResponse.getBody();
+  const html = fillOutcomes(await httpResponse.getBody(), pageContext);
   // helmet has set the full policy with the same nonce; Vike's shorter one would replace it.
   const headers = httpResponse.headers.filter(([name]) => name.toLowerCase() !== "content-security-policy") as [string, string][];
   const nonce = res.locals.cspNonce as string;

@@ -3,6 +3,8 @@
 // page kept in memory is answered from there (cache-policy.ts, answer-from-cache.ts), and anything
 // else is rendered, and kept where it may be (render-and-keep.ts). Anonymous readers of kept pages
 // are answered before Express runs at all (fastAnswer).
+import { createHash } from "node:crypto";
+import { readdirSync, readFileSync } from "node:fs";
 import path from "node:path";
 import type { IncomingMessage, ServerResponse } from "node:http";
 import express, { Router, type Request, type Response } from "express";
@@ -16,6 +18,21 @@ import type { CachedPage } from "./page-cache";
 import { answerFromCache } from "./answer-from-cache";
 import { cacheControl, pageMemory } from "./cache-policy";
 import { renderAndKeep, type Rendered } from "./render-and-keep";
+
+/**
+ * What names this build: a hash of the built server and of the client's manifest, which change with
+ * any code or words a page is rendered from. Renderings kept in the database are those of one build
+ * (server/web/pages/stored-brief.tsx).
+ */
+export function buildId(root: string): string {
+  const hash = createHash("sha256");
+  const files = readdirSync(path.join(root, "dist/server"), { recursive: true, withFileTypes: true })
+    .filter((entry) => entry.isFile())
+    .map((entry) => path.join(entry.parentPath, entry.name))
+    .sort();
+  for (const file of [...files, path.join(root, "dist/assets.json")]) hash.update(path.relative(root, file)).update(readFileSync(file));
+  return hash.digest("base64url").slice(0, 16);
+}
 
 /** One cookie's value from a Cookie header, read before cookie-parser runs (the fast path). */
 function cookieValue(header: string, name: string): string | undefined {
@@ -40,6 +57,8 @@ export async function pageRoutes(options: {
   const { root, production, csrf, db, publicUrl, sessionCookie, onFastAnswer } = options;
   const router = Router();
   const { keptAt, forget, catalogue } = pageMemory(db);
+  // In development the code changes under the server: nothing rendered is kept beyond memory.
+  const build = production ? buildId(root) : null;
   const rendering = new Map<string, Promise<CachedPage | null>>();
   if (production) {
     // Built assets carry a content hash in their name, so they can be cached for a year.
@@ -119,7 +138,7 @@ export async function pageRoutes(options: {
           if (entry) return send(req, res, entry, entry.caching);
         }
       }
-      const rendered = renderAndKeep({ db, csrf, catalogue, publicUrl }, req, res, path, memory);
+      const rendered = renderAndKeep({ db, csrf, catalogue, publicUrl, build }, req, res, path, memory);
       if (memory) rendering.set(memory.key, rendered.then((result) => result?.entry ?? null));
       const result = await rendered.finally(() => memory && rendering.delete(memory.key));
       if (!result) return next();

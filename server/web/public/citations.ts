@@ -93,7 +93,7 @@ export function citationFile(input: CitationInput, format: CitationFormat): stri
 }
 
 /** The reference as a reader copies it (APA style); the page adds the access date in its own words. */
-export function formattedReference(input: CitationInput): string {
+export function formattedReference(input: Omit<CitationInput, "accessed">): string {
   // APA names the version already ("(Version 1)"): the edition would say it twice.
-  return new Cite({ ...cslItem(input), edition: undefined }).format("bibliography", { format: "text", template: "apa", lang: "en-US" }).trim();
+  return new Cite({ ...cslItem({ ...input, accessed: new Date() }), edition: undefined, accessed: undefined }).format("bibliography", { format: "text", template: "apa", lang: "en-US" }).trim();
 }
