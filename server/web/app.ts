@@ -21,6 +21,7 @@ import { PostgresRateLimitStore } from "#db/rate-limits";
 import { errorAnswer, sendError } from "./http/errors";
 import { createCsrf, cspNonce, securityHeaders, sessionCookieName } from "./http/security";
 import { pageRoutes } from "./pages/render";
+import { requestRenderAhead, startRenderAheadWorker } from "#workflows/render-ahead";
 import { publicFileRoutes } from "./public/routes";
 
 export const projectRoot = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "../..");
@@ -81,9 +82,13 @@ export async function createApp(options: AppOptions): Promise<express.Express> {
   // Released pages in memory go to anonymous readers before Express runs at all (render.ts); every
   // process forgets a brief's remembered state as soon as the database announces a change to it.
   if (pages) {
+    const queue = options.queue;
+    // One process renders the brief's newest version in every language ahead of its readers (server/workflows/render-ahead.ts).
+    if (queue) await startRenderAheadWorker(queue, pages.renderAhead);
     const changed = (slug: string) => {
       pages.forget(slug);
       options.onVersionsChanged?.(slug);
+      if (queue) void requestRenderAhead(queue, slug).catch((error: Error) => logger.warn({ err: error }, "rendering ahead"));
     };
     const listener = listenForVersionChanges(options.pool, changed, (error) => logger.warn({ err: error }, "listening for version changes"));
     app.locals.stopListening = () => listener.stop();

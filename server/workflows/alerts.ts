@@ -13,6 +13,7 @@ import type { Executor } from "#db/client";
 import { activePeopleWithRole, type Person } from "#db/people";
 import { claimAnnouncement, versionForAnnouncement } from "#db/versions";
 import { queueMail, type MailContext } from "./mail";
+import { requestRenderAhead } from "./render-ahead";
 import { noticesFor } from "./subscriptions";
 
 const releaseJob = "release";
@@ -78,6 +79,8 @@ export async function startReleaseWorker(ctx: MailContext & { queue: NonNullable
       if (!version) return;
       if (version.releaseAt.getTime() > Date.now()) return ctx.queue.send(releaseJob, data, { startAfter: version.releaseAt, in: tx });
       await announce(ctx, tx, version, null);
+      // Nothing in the database changes at the release time itself: its page is rendered ahead from here.
+      await requestRenderAhead(ctx.queue, version.slug);
     }),
   );
 }

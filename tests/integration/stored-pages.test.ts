@@ -1,6 +1,7 @@
 // A version's page stored once per language (server/web/pages/stored-brief.ts), against two production
-// processes on the test cluster: what one renders the other reads back; another build's rendering or
-// one made before a translation was published is rendered again; the browser gets the sections once.
+// processes on the test cluster: rendered ahead of its readers; what one renders the other reads back;
+// another build's rendering or one made before a translation was published is rendered again; the
+// browser gets the sections once.
 import { randomUUID } from "node:crypto";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Translation } from "#web/api/contract";
@@ -47,8 +48,16 @@ describe("a version's page, stored once per language", () => {
   let briefId = "";
   let slug = "";
 
-  it("is rendered by the first process to read it, and read back by another that never rendered it", async () => {
+  it("is rendered ahead in every language once released, before anyone reads it", async () => {
     ({ briefId, slug } = await publishedBrief(clients.analyst!, clients.editor!, "Stored once, read twice"));
+    const locales = async () =>
+      (await database.query("select r.locale from version_renderings r join brief_versions v on v.id = r.version_id where v.brief_id = $1 order by r.locale", [briefId])).rows.map((row: { locale: string }) => row.locale);
+    const start = Date.now();
+    while ((await locales()).length < 4 && Date.now() - start < 15_000) await new Promise((resolve) => setTimeout(resolve, 100));
+    expect(await locales()).toEqual(["ar", "en", "es", "fr"]);
+  });
+
+  it("is read back by a process that never rendered it", async () => {
     const rendered = await page(first, `/briefs/${slug}/v/1`);
     const row = await stored(briefId, "en");
     expect(row?.build).toMatch(/^[\w-]{16}$/);

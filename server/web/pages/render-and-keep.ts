@@ -1,8 +1,9 @@
 // Renders a page with Vike, and keeps in memory a page that says it may be kept (cache-policy.ts).
+import { randomBytes } from "node:crypto";
 import type { Request, Response } from "express";
 import { renderPage } from "vike/server";
-import type { Locale } from "#core/languages/locales";
-import { holdsForm } from "#core/publication/urls";
+import { localePath, locales, type Locale } from "#core/languages/locales";
+import { briefUrl, holdsForm } from "#core/publication/urls";
 import type { Database } from "#db/client";
 import { errorAnswer } from "../http/errors";
 import type { createCsrf } from "../http/security";
@@ -63,4 +64,29 @@ export async function renderAndKeep(context: RenderContext, req: Request, res: R
     return { page, caching, entry };
   }
   return { page, caching, entry: null };
+}
+
+/**
+ * Renders a brief's latest address in every language as an anonymous reader's first visit would, so
+ * that the newest released version's stored parts are there before anyone asks (stored-brief.ts,
+ * server/workflows/render-ahead.ts). The pages themselves are neither answered nor kept.
+ */
+export async function renderAhead(context: RenderContext, slug: string): Promise<void> {
+  const { db, catalogue, publicUrl, build } = context;
+  if (!build) return;
+  for (const locale of locales) {
+    const pageContext = await renderPage({
+      urlOriginal: localePath(locale, briefUrl(slug)),
+      headersOriginal: {},
+      cspNonce: randomBytes(16).toString("base64url"),
+      person: null,
+      db,
+      catalogue: (at: Locale) => catalogue.briefs(at),
+      // Without a request, the address readers use is the configured one; a reader at another formats the reference again.
+      siteUrl: publicUrl?.replace(/\/$/, "") ?? "",
+      build,
+    });
+    const failure = (pageContext as { errorWhileRendering?: unknown }).errorWhileRendering;
+    if (failure) throw failure;
+  }
 }

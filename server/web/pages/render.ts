@@ -17,7 +17,7 @@ import { admits, pageAccess } from "#core/access/access";
 import type { CachedPage } from "./page-cache";
 import { answerFromCache } from "./answer-from-cache";
 import { cacheControl, pageMemory } from "./cache-policy";
-import { renderAndKeep, type Rendered } from "./render-and-keep";
+import { renderAhead, renderAndKeep, type Rendered } from "./render-and-keep";
 
 /**
  * What names this build: a hash of the built server and of the client's manifest, which change with
@@ -53,7 +53,12 @@ export async function pageRoutes(options: {
   sessionCookie: string;
   /** Called for each answer of the fast path, which runs before the request logger: it logs them. */
   onFastAnswer?: (req: IncomingMessage, res: ServerResponse) => void;
-}): Promise<{ router: Router; fastAnswer: (req: IncomingMessage, res: ServerResponse) => Promise<boolean>; forget: (slug: string) => void }> {
+}): Promise<{
+  router: Router;
+  fastAnswer: (req: IncomingMessage, res: ServerResponse) => Promise<boolean>;
+  forget: (slug: string) => void;
+  renderAhead: (slug: string) => Promise<void>;
+}> {
   const { root, production, csrf, db, publicUrl, sessionCookie, onFastAnswer } = options;
   const router = Router();
   const { keptAt, forget, catalogue } = pageMemory(db);
@@ -180,5 +185,5 @@ export async function pageRoutes(options: {
     return true;
   }
 
-  return { router, fastAnswer, forget };
+  return { router, fastAnswer, forget, renderAhead: (slug: string) => renderAhead({ db, csrf, catalogue, publicUrl, build }, slug) };
 }
