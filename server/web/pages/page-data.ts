@@ -76,7 +76,7 @@ function citation(known: Reference) {
 }
 
 /**
- * A version's brief page: the parts stored for its language (stored-brief.tsx) and, read on every
+ * A version's brief page: the parts stored for its language (stored-brief.ts) and, read on every
  * render, what may change around them. The outcome sections' HTML goes to the page through
  * pageContext on the server, which does not send it to the browser a second time, and with the data
  * on a client-side navigation, where the browser has no page to take it from.

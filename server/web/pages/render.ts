@@ -22,7 +22,7 @@ import { renderAhead, renderAndKeep, type Rendered } from "./render-and-keep";
 /**
  * What names this build: a hash of the built server and of the client's manifest, which change with
  * any code or words a page is rendered from. Renderings kept in the database are those of one build
- * (server/web/pages/stored-brief.tsx).
+ * (server/web/pages/stored-brief.ts).
  */
 export function buildId(root: string): string {
   const hash = createHash("sha256");
