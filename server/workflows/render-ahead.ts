@@ -7,8 +7,14 @@ import type { Queue } from "./queue";
 
 export const renderAheadJob = "render-ahead";
 
+/**
+ * A few seconds later: readers who come at once after a change (a purged CDN sends them all) render
+ * and store the pages they read themselves, and the job then renders only the languages nobody read.
+ */
+const delayMs = 5000;
+
 export function requestRenderAhead(queue: Queue, slug: string): Promise<void> {
-  return queue.send(renderAheadJob, { slug }, { singletonKey: `render-ahead:${slug}` });
+  return queue.send(renderAheadJob, { slug }, { singletonKey: `render-ahead:${slug}`, startAfter: new Date(Date.now() + delayMs) });
 }
 
 /** `render`: the pages' own renderer (server/web/pages/render-and-keep.ts, renderAhead). */
