@@ -5,7 +5,7 @@ import { describe, expect, it } from "vitest";
 import { en } from "../support/words";
 import { slugify } from "#core/publication/slug";
 import { demoBriefs } from "#workflows/demo-briefs";
-import { keepScreenshot, seriousViolations, withServerAndBrowser } from "../support/browser";
+import { keepScreenshot, pageErrors, seriousViolations, withServerAndBrowser } from "../support/browser";
 
 const setup = withServerAndBrowser();
 const small = slugify(demoBriefs()[0]!.title);
@@ -91,11 +91,7 @@ describe("with JavaScript", () => {
   it("a brief page keeps its outcome sections through hydration, and one reached by a client-side navigation shows its own", async () => {
     const context = await setup.browser.newContext();
     const page = await context.newPage();
-    const errors: string[] = [];
-    page.on("pageerror", (error) => errors.push(error.message));
-    page.on("console", (message) => {
-      if (message.type() === "error") errors.push(message.text());
-    });
+    const errors = pageErrors(page);
     await page.goto(`${setup.server.url}/briefs/${large}/v/1`, { waitUntil: "networkidle" });
     await expect(page.getByTestId("outcome").count()).resolves.toBe(demoBriefs()[1]!.outcomes.length);
     await page.goto(`${setup.server.url}/briefs?q=night%20shifts`, { waitUntil: "networkidle" });

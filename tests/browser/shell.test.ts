@@ -2,7 +2,7 @@
 import { describe, expect, it } from "vitest";
 import { demoPassword } from "#workflows/seed";
 import { en } from "../support/words";
-import { withServerAndBrowser } from "../support/browser";
+import { pageErrors, withServerAndBrowser } from "../support/browser";
 
 const setup = withServerAndBrowser();
 
@@ -63,11 +63,7 @@ describe("with JavaScript", () => {
   it("signing in through the form reaches /desk and shows the person's roles", async () => {
     const context = await setup.browser.newContext();
     const page = await context.newPage();
-    const errors: string[] = [];
-    page.on("pageerror", (error) => errors.push(error.message));
-    page.on("console", (message) => {
-      if (message.type() === "error") errors.push(message.text());
-    });
+    const errors = pageErrors(page);
     await page.goto(`${setup.server.url}/sign-in`);
     await page.fill("input[name=email]", "analyst@fairweigh.example");
     await page.fill("input[name=password]", demoPassword);

@@ -20,6 +20,16 @@ export async function keepScreenshot(page: Page, name: string): Promise<void> {
 }
 
 /** The serious and critical WCAG 2.1 A/AA violations axe-core finds on a page, one line each (none is the goal). */
+/** The page's uncaught errors and console errors, as they happen: a test expects none at its end. */
+export function pageErrors(page: Page): string[] {
+  const errors: string[] = [];
+  page.on("pageerror", (error) => errors.push(error.message));
+  page.on("console", (message) => {
+    if (message.type() === "error") errors.push(message.text());
+  });
+  return errors;
+}
+
 export async function seriousViolations(browser: Browser, url: string): Promise<string[]> {
   return violations(browser, url, { impacts: ["serious", "critical"] });
 }

@@ -11,7 +11,7 @@ import type { VersionSnapshot } from "#core/snapshot/schema";
 import { cacheState, readPublicVersion, readPublicVersionFacts, versionHistory, type PublicVersion, type VersionFacts } from "#db/versions";
 import type { Database } from "#db/client";
 import type { Role } from "#core/access/roles";
-import { storedBriefPage, type RenderOutcomes } from "./stored-brief";
+import { cited, storedBriefPage, type Cited, type Reference, type RenderOutcomes } from "./stored-brief";
 import { draftChanges, draftSnapshot } from "#workflows/snapshot";
 import { grammaticalSnapshot } from "#core/languages/grammar";
 import { versionGrammar } from "#core/languages/translation";
@@ -20,7 +20,6 @@ import { comparisonUrl, sideBySideUrl, versionNumberOf, versionUrl } from "#core
 
 export type SideBySideView = SideBySideContent & PageState;
 import { formattedReference } from "../public/citations";
-import { cited, type Cited, type Reference } from "./stored-brief";
 
 function pageState(pageContext: PageContextServer, page: PublicVersion<VersionFacts>): PageState {
   // An embargoed page is personal (never shared by a cache), so it may speak the reader's time zone.

@@ -29,19 +29,22 @@ export interface Rendered {
   entry: CachedPage | null;
 }
 
+/** Vike's render of one address: what the request gives, and what every page's data may use beside it. */
+function render(context: RenderContext, request: { urlOriginal: string; headersOriginal: Request["headers"]; cspNonce: string; person: Request["user"] | null; csrfToken?: string; siteUrl: string }) {
+  const { db, catalogue, build } = context;
+  return renderPage({ ...request, db, catalogue: (locale: Locale) => catalogue.briefs(locale), build });
+}
+
 export async function renderAndKeep(context: RenderContext, req: Request, res: Response, path: string, kept: Kept | null): Promise<Rendered | null> {
-  const { db, csrf, catalogue, publicUrl, build } = context;
+  const { csrf, publicUrl } = context;
   const csrfToken = holdsForm(path) ? csrf.issueToken(req, res) : undefined;
-  const pageContext = await renderPage({
+  const pageContext = await render(context, {
     urlOriginal: req.originalUrl,
     headersOriginal: req.headers,
     cspNonce: res.locals.cspNonce as string,
     person: req.user ?? null,
-    db,
-    catalogue: (locale: Locale) => catalogue.briefs(locale),
     csrfToken,
     siteUrl: siteUrl(req, publicUrl),
-    build,
   });
   const { httpResponse } = pageContext;
   if (!httpResponse) return null;
@@ -72,19 +75,16 @@ export async function renderAndKeep(context: RenderContext, req: Request, res: R
  * server/workflows/render-ahead.ts). The pages themselves are neither answered nor kept.
  */
 export async function renderAhead(context: RenderContext, slug: string): Promise<void> {
-  const { db, catalogue, publicUrl, build } = context;
+  const { publicUrl, build } = context;
   if (!build) return;
   for (const locale of locales) {
-    const pageContext = await renderPage({
+    const pageContext = await render(context, {
       urlOriginal: localePath(locale, briefUrl(slug)),
       headersOriginal: {},
       cspNonce: randomBytes(16).toString("base64url"),
       person: null,
-      db,
-      catalogue: (at: Locale) => catalogue.briefs(at),
       // Without a request, the address readers use is the configured one; a reader at another formats the reference again.
       siteUrl: publicUrl?.replace(/\/$/, "") ?? "",
-      build,
     });
     const failure = (pageContext as { errorWhileRendering?: unknown }).errorWhileRendering;
     if (failure) throw failure;

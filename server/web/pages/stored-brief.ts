@@ -58,13 +58,14 @@ async function briefParts(db: Database, versionId: string, original: VersionSnap
   const { snapshot, topic, translation } = await inLanguage(db, versionId, original, locale);
   const { outcomes, ...rest } = briefContent(snapshot);
   const version = { slug: snapshot.brief.slug, version: snapshot.version };
+  const citing = cited(snapshot);
   return {
     outline: { ...rest, outcomes: outcomes.map(({ index, name }) => ({ index, name })) },
     topic,
     translation,
     changes: await changesFrom(snapshot),
-    cited: cited(snapshot),
-    reference: cite(cited(snapshot)),
+    cited: citing,
+    reference: cite(citing),
     outcomesHtml: render(outcomes, version, locale, translation),
   };
 }
