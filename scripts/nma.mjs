@@ -1,33 +1,70 @@
-// npm run nma: the engine's command line (METHODS.md §11) from a prebuilt JavaScript bundle, so that
-// a run spends its time on the analysis rather than on compiling TypeScript. The bundle is built
-// with the site (`npm run build`) and rebuilt here when it is missing or older than its sources.
-import { existsSync, readdirSync, statSync } from "node:fs";
+// npm run nma: the engine's command line (METHODS.md §11) from prebuilt JavaScript (decisions 0026,
+// 0047), so that a run spends its time on the analysis rather than on compiling. The bundle is built
+// with the site (`npm run build`) and rebuilt here when it is missing or older than a source it was
+// built from. It is compiled through V8's code cache (dist/cli/nma.cjs.cache, written by the first
+// run after each build or Node upgrade), which spares a run most of the compiling of its code.
+import { readFileSync, renameSync, rmSync, statSync, writeFileSync } from "node:fs";
+import { createRequire } from "node:module";
 import path from "node:path";
-import { fileURLToPath, pathToFileURL } from "node:url";
-import { bundle, cliBundle } from "./lib/cli-bundle.mjs";
+import { fileURLToPath } from "node:url";
+import vm from "node:vm";
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "..");
+const folder = path.join(root, "dist/cli");
+const bundle = path.join(folder, "nma.cjs");
+const codeCache = path.join(folder, "nma.cjs.cache");
 
-/** The newest modification time among the engine's sources and this command line. */
-function newestSource() {
-  const times = [statSync(path.join(root, "scripts/nma.ts")).mtimeMs, statSync(path.join(root, "package.json")).mtimeMs];
-  const walk = (folder) => {
-    for (const entry of readdirSync(folder, { withFileTypes: true })) {
-      const file = path.join(folder, entry.name);
-      if (entry.isDirectory()) walk(file);
-      else if (entry.name.endsWith(".ts")) times.push(statSync(file).mtimeMs);
-    }
-  };
-  walk(path.join(root, "server/core"));
-  return Math.max(...times);
-}
-
-if (!existsSync(cliBundle) || statSync(cliBundle).mtimeMs < newestSource()) {
-  const built = await bundle();
-  if (!built.ok) {
-    process.stderr.write(`the command line could not be built: ${built.reason}\n`);
-    process.exit(2);
+/** The bundle's modification time, or null when it or its list of sources is missing or older than a source. */
+function builtAt() {
+  try {
+    const built = statSync(bundle).mtimeMs;
+    const sources = JSON.parse(readFileSync(path.join(folder, "inputs.json"), "utf8"));
+    return sources.every((source) => statSync(path.join(root, source)).mtimeMs <= built) ? built : null;
+  } catch {
+    return null;
   }
 }
-// The bundle reads process.argv itself, as scripts/nma.ts does.
-await import(pathToFileURL(cliBundle).href);
+
+let built = builtAt();
+if (built === null) {
+  const { bundle: build } = await import("./lib/cli-bundle.mjs");
+  const result = await build();
+  if (!result.ok) {
+    process.stderr.write(`the command line could not be built: ${result.reason}\n`);
+    process.exit(2);
+  }
+  built = statSync(bundle).mtimeMs;
+}
+
+/** The code cache, unless it is missing or older than the bundle. */
+function cachedCode() {
+  try {
+    return statSync(codeCache).mtimeMs >= built ? readFileSync(codeCache) : undefined;
+  } catch {
+    return undefined;
+  }
+}
+
+const cachedData = cachedCode();
+const script = new vm.Script(`(function (exports, require, module, __filename, __dirname) {${readFileSync(bundle, "utf8")}\n})`, {
+  filename: bundle,
+  cachedData,
+});
+if (cachedData === undefined || script.cachedDataRejected) {
+  // Written on the way out of a run that analysed a file, when the functions it compiled are in it
+  // (a run stopped by bad arguments compiles few). A folder the run may not write to only costs the
+  // next run the compiling.
+  process.once("exit", (code) => {
+    if (code !== 0) return;
+    const partial = `${codeCache}.${process.pid}`;
+    try {
+      writeFileSync(partial, script.createCachedData());
+      renameSync(partial, codeCache);
+    } catch {
+      rmSync(partial, { force: true });
+    }
+  });
+}
+const module = { exports: {} };
+script.runInThisContext()(module.exports, createRequire(bundle), module, bundle, folder);
+module.exports.run(process.argv.slice(2));

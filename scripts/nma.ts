@@ -2,6 +2,7 @@
 //   npm run --silent nma -- --input FILE.csv --format arm-binary|arm-continuous|contrast \
 //     --measure OR|RR|RD|MD --model fixed|random --reference NAME --better higher|lower [--draws N] [--seed S]
 // One JSON object on stdout and exit 0; bad input: one line on stderr, exit 1; bad arguments: exit 2.
+// Bundled to dist/cli/nma.cjs and started by scripts/nma.mjs, which calls `run`.
 import { readFileSync } from "node:fs";
 import { parseArgs } from "node:util";
 // zod's tree-shakeable build: the full one is most of the bundle, and a run would spend its start compiling it.
@@ -34,33 +35,38 @@ const argumentsSchema = z
     }),
   );
 
-let raw;
-try {
-  raw = parseArgs({
-    options: Object.fromEntries(
-      ["input", "format", "measure", "model", "reference", "better", "draws", "seed"].map((name) => [name, { type: "string" as const }]),
-    ),
-    strict: true,
-    allowPositionals: false,
-  }).values;
-} catch (error) {
-  fail(2, (error as Error).message);
-}
-const parsed = argumentsSchema.safeParse(raw);
-if (!parsed.success) fail(2, parsed.error.issues.map((i) => i.message).join("; "));
-const options = parsed.data;
+/**
+ * Runs the command line on `args` (the arguments after the script). */
+export function run(args: string[]): void {
+  let raw;
+  try {
+    raw = parseArgs({
+      args,
+      options: Object.fromEntries(
+        ["input", "format", "measure", "model", "reference", "better", "draws", "seed"].map((name) => [name, { type: "string" as const }]),
+      ),
+      strict: true,
+      allowPositionals: false,
+    }).values;
+  } catch (error) {
+    fail(2, (error as Error).message);
+  }
+  const parsed = argumentsSchema.safeParse(raw);
+  if (!parsed.success) fail(2, parsed.error.issues.map((i) => i.message).join("; "));
+  const options = parsed.data;
 
-let bytes: Buffer;
-try {
-  bytes = readFileSync(options.input);
-} catch (error) {
-  fail(1, `cannot read ${options.input}: ${(error as NodeJS.ErrnoException).code ?? (error as Error).message}`);
-}
+  let bytes: Buffer;
+  try {
+    bytes = readFileSync(options.input);
+  } catch (error) {
+    fail(1, `cannot read ${options.input}: ${(error as NodeJS.ErrnoException).code ?? (error as Error).message}`);
+  }
 
-try {
-  const result = analyse(parseDataset(bytes, options.format), options);
-  process.stdout.write(`${JSON.stringify(result)}\n`);
-} catch (error) {
-  if (error instanceof DatasetError) fail(1, error.message);
-  fail(1, `the analysis failed: ${(error as Error).message}`);
+  try {
+    const result = analyse(parseDataset(bytes, options.format), options);
+    process.stdout.write(`${JSON.stringify(result)}\n`);
+  } catch (error) {
+    if (error instanceof DatasetError) fail(1, error.message);
+    fail(1, `the analysis failed: ${(error as Error).message}`);
+  }
 }

@@ -1,26 +1,38 @@
-// The engine's command line as one JavaScript file (dist/cli/nma.mjs), bundled by esbuild from
-// scripts/nma.ts: the project's import aliases (#core/…) resolve through package.json "imports".
+// The engine's command line as prebuilt CommonJS files in dist/cli (decisions 0026, 0047), bundled by
+// esbuild; the project's import aliases (#core/…) resolve through package.json "imports":
+//   nma.cjs        scripts/nma.ts, run by scripts/nma.mjs through V8's code cache;
+//   inputs.json    every source file it was built from, so that the launcher can tell when it is
+//                  stale without loading esbuild.
+// A rebuild removes the code cache, which V8 would otherwise accept for a new bundle of the same length.
+import { rmSync, writeFileSync } from "node:fs";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
-import { build } from "esbuild";
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "../..");
-export const cliBundle = path.join(root, "dist/cli/nma.mjs");
+const folder = path.join(root, "dist/cli");
+export const cli = {
+  bundle: path.join(folder, "nma.cjs"),
+  inputs: path.join(folder, "inputs.json"),
+  codeCache: path.join(folder, "nma.cjs.cache"),
+};
 
 export async function bundle() {
   try {
-    await build({
+    const { build } = await import("esbuild");
+    const result = await build({
       entryPoints: [path.join(root, "scripts/nma.ts")],
-      outfile: cliBundle,
+      outfile: cli.bundle,
       bundle: true,
       platform: "node",
-      format: "esm",
+      format: "cjs",
       target: "node20",
-      // Packages that load CommonJS need require in an ES module.
-      banner: { js: "import { createRequire as __createRequire } from 'node:module'; const require = __createRequire(import.meta.url);" },
       minify: true,
+      metafile: true,
       logLevel: "silent",
     });
+    const sources = Object.keys(result.metafile.inputs).filter((input) => !input.startsWith("node_modules/"));
+    writeFileSync(cli.inputs, `${JSON.stringify(["package.json", ...sources].sort(), null, 2)}\n`);
+    rmSync(cli.codeCache, { force: true });
     return { ok: true };
   } catch (error) {
     return { ok: false, reason: error instanceof Error ? error.message : String(error) };

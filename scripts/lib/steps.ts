@@ -47,7 +47,7 @@ export function localSecret(file: string): string {
 export function build(): void {
   log("Building the site (vite build)");
   runBin("vite", ["build", "--logLevel", "warn"], { ...process.env, NODE_ENV: "production" });
-  log("Building the command line (dist/cli/nma.mjs)");
+  log("Building the command line (dist/cli/nma.cjs)");
   const cli = spawnSync(process.execPath, [path.join(projectRoot, "scripts/lib/cli-bundle.mjs")], { cwd: projectRoot, stdio: "inherit" });
   if (cli.status !== 0) throw new Error(`building the command line failed (exit code ${cli.status})`);
 }

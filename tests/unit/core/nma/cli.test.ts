@@ -1,6 +1,6 @@
 // The command line of METHODS.md §11: JSON on stdout and exit 0; bad input exit 1 with one line; bad arguments exit 2.
 import { spawnSync } from "node:child_process";
-import { mkdtempSync, readFileSync, writeFileSync } from "node:fs";
+import { existsSync, mkdtempSync, readFileSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import { describe, expect, it } from "vitest";
@@ -66,5 +66,14 @@ describe("npm run nma", () => {
     expect(nma(["--input", hasselblad, ...base.slice(0, 8), "--better", "sideways"])).toMatchObject({ code: 2, stderr: "--better must be higher or lower\n" });
     expect(nma(["--input", hasselblad, "--format", "arm-continuous", "--measure", "OR", "--model", "fixed", "--reference", "x", "--better", "higher"]).code).toBe(2);
     expect(nma(["--input", hasselblad, ...base, "--unknown", "1"]).code).toBe(2);
+  }, 30_000);
+
+  it("answers the same through the code cache its first successful run writes", () => {
+    const args = ["--input", hasselblad, ...base, "--draws", "300"];
+    const first = nma(args);
+    expect(first.code).toBe(0);
+    expect(existsSync(path.join(root, "dist/cli/nma.cjs.cache"))).toBe(true);
+    const second = nma(args);
+    expect(second).toEqual(first);
   }, 30_000);
 });
