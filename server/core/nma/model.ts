@@ -170,8 +170,9 @@ export function fitAt(blocks: StudyBlock[], parameters: number, tau2: number): F
   if (!cholesky.isPositiveDefinite()) throw new Error("XᵀWX is singular: the network is not connected");
   const H = cholesky.solve(Matrix.eye(parameters));
   const beta = H.mmul(Matrix.columnVector(c)).to1DArray();
+  const lower = cholesky.lowerTriangularMatrix; // a getter that copies the factor at every call
   let logDetA = 0;
-  for (let i = 0; i < parameters; i++) logDetA += 2 * Math.log(cholesky.lowerTriangularMatrix.get(i, i));
+  for (let i = 0; i < parameters; i++) logDetA += 2 * Math.log(lower.get(i, i));
 
   let residual = 0;
   let residualP = 0;
