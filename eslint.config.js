@@ -78,6 +78,17 @@ export default tseslint.config(
     },
   },
   {
+    // Vike's router must leave the desk's links alone: components/desk/DeskLink.tsx says why.
+    files: ["components/**/*.tsx"],
+    ignores: ["components/desk/DeskLink.tsx"],
+    rules: {
+      "no-restricted-imports": [
+        "error",
+        { paths: [{ name: "react-router", importNames: ["Link", "NavLink"], message: "Use DeskLink (components/desk/DeskLink.tsx), which Vike's router leaves alone." }] },
+      ],
+    },
+  },
+  {
     files: ["scripts/**/*.mjs"],
     languageOptions: { globals: { process: "readonly", console: "readonly" } },
   },

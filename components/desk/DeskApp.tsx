@@ -1,7 +1,8 @@
 import { QueryClient, QueryClientProvider } from "@tanstack/react-query";
 import { useEffect, useState } from "react";
 import { useTranslation } from "react-i18next";
-import { BrowserRouter, Link, Route, Routes } from "react-router";
+import { BrowserRouter, Route, Routes } from "react-router";
+import { DeskLink } from "./DeskLink";
 import { BriefScreen } from "./screens/BriefScreen";
 import { CertaintyScreen } from "./screens/CertaintyScreen";
 import { DeskHome } from "./screens/DeskHome";
@@ -62,7 +63,7 @@ function SignedInDesk() {
       {/* Who is signed in, on every screen of the desk, with the way out. */}
       <div className="mb-6 flex flex-wrap items-center justify-end gap-3 border-b border-rule pb-3 font-sans text-sm" data-testid="desk-person">
         <span>{t("desk.signedInShort", { name: person.displayName, roles: person.roles.map((role) => t(`desk.role.${role}`)).join(", ") })}</span>
-        <Link to="/account">{t("desk.account.link")}</Link>
+        <DeskLink to="/account">{t("desk.account.link")}</DeskLink>
         <button type="button" onClick={() => signOut.mutate()} className="underline">
           {t("desk.signOut")}
         </button>

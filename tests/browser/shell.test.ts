@@ -2,7 +2,7 @@
 import { describe, expect, it } from "vitest";
 import { demoPassword } from "#workflows/seed";
 import { en } from "../support/words";
-import { pageErrors, withServerAndBrowser } from "../support/browser";
+import { pageErrors, signedIn, withServerAndBrowser } from "../support/browser";
 
 const setup = withServerAndBrowser();
 
@@ -72,5 +72,28 @@ describe("with JavaScript", () => {
     expect(await page.textContent("main")).toContain("analyst@fairweigh.example");
     expect(errors).toEqual([]);
     await context.close();
+  });
+
+  it("moving between the desk's screens keeps the desk: what is typed at once stays, and the session is not read again", async () => {
+    const admin = await signedIn(setup.browser, setup.server.url, "admin@fairweigh.example");
+    await admin.page.getByTestId("desk-person").waitFor();
+    const sessionReads: string[] = [];
+    admin.page.on("request", (request) => {
+      if (request.method() === "GET" && new URL(request.url()).pathname === "/api/session") sessionReads.push(request.url());
+    });
+    await admin.page.getByRole("link", { name: en.desk.people.link }).click();
+    const email = admin.page.getByRole("form", { name: en.desk.people.invite }).getByLabel(en.desk.people.email);
+    await email.fill("typed-at-once@example.org");
+    // Vike's router used to render the desk page again a few hundred milliseconds after the click.
+    await admin.page.waitForLoadState("networkidle");
+    await admin.page.waitForTimeout(1000);
+    expect(await email.inputValue()).toBe("typed-at-once@example.org");
+    await admin.page.getByRole("link", { name: en.desk.account.link }).click();
+    await admin.page.getByRole("heading", { name: en.desk.account.title }).waitFor();
+    await admin.page.goBack();
+    await admin.page.getByRole("heading", { name: en.desk.people.title }).waitFor();
+    expect(sessionReads).toEqual([]);
+    expect(admin.errors).toEqual([]);
+    await admin.close();
   });
 });

@@ -1,5 +1,5 @@
 import { useTranslation } from "react-i18next";
-import { Link } from "react-router";
+import { DeskLink } from "../DeskLink";
 import type { BriefSummary } from "#web/api/contract";
 
 export function BriefList({ briefs }: { briefs: BriefSummary[] }) {
@@ -9,9 +9,9 @@ export function BriefList({ briefs }: { briefs: BriefSummary[] }) {
     <ul className="divide-y divide-rule border-y border-rule">
       {briefs.map((brief) => (
         <li key={brief.id} className="flex items-baseline justify-between gap-4 py-3">
-          <Link to={`/briefs/${brief.id}`} className="text-lg">
+          <DeskLink to={`/briefs/${brief.id}`} className="text-lg">
             {brief.title}
-          </Link>
+          </DeskLink>
           <span className="font-sans text-sm text-muted">
             {brief.topic} · {t(`desk.status.${brief.status}`)}
           </span>

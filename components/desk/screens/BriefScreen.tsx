@@ -1,5 +1,6 @@
 import { useTranslation } from "react-i18next";
-import { Link, useParams } from "react-router";
+import { useParams } from "react-router";
+import { DeskLink } from "../DeskLink";
 import { OutcomeForm } from "./OutcomeForm";
 import { TreatmentNamesForm } from "./TreatmentNamesForm";
 import { ApiError } from "../api";
@@ -22,7 +23,7 @@ export function BriefScreen({ personId, canAnalyse, canEdit }: { personId: strin
   return (
     <>
       <p className="font-sans text-sm">
-        <Link to="/">{t("desk.briefs")}</Link>
+        <DeskLink to="/">{t("desk.briefs")}</DeskLink>
       </p>
       <h1 className="mt-2 text-3xl font-semibold">{data.title}</h1>
       <p className="mt-2 font-sans text-sm text-muted">
@@ -80,7 +81,7 @@ function OutcomePanel({ briefId, outcome, canAnalyse }: { briefId: string; outco
         {outcome.analysis.state !== "no-data" ? (
           <>
             {" · "}
-            <Link to={`/briefs/${briefId}/outcomes/${outcome.id}`}>{t("desk.results")}</Link>
+            <DeskLink to={`/briefs/${briefId}/outcomes/${outcome.id}`}>{t("desk.results")}</DeskLink>
           </>
         ) : null}
         {canAnalyse && outcome.analysis.state === "stale" ? (

@@ -1,7 +1,8 @@
 // Certainty per comparison: what is rated, what still needs a judgement, and a form for one pair.
 import { useState } from "react";
 import { useTranslation } from "react-i18next";
-import { Link, useParams } from "react-router";
+import { useParams } from "react-router";
+import { DeskLink } from "../DeskLink";
 import type { ComparisonCertainty, ComparisonJudgement } from "#core/grade/assess";
 import { ratings, type Downgrade, type Rating, type Suggestion } from "#core/grade/certainty";
 import type { RiskOfBiasShares } from "#core/nma/risk-of-bias";
@@ -68,7 +69,7 @@ export function CertaintyScreen({ canJudge }: { canJudge: boolean }) {
   return (
     <>
       <p className="font-sans text-sm">
-        <Link to={`/briefs/${briefId}/outcomes/${outcomeId}`}>{t("desk.results")}</Link>
+        <DeskLink to={`/briefs/${briefId}/outcomes/${outcomeId}`}>{t("desk.results")}</DeskLink>
       </p>
       <h1 className="mt-2 text-3xl font-semibold">{t("desk.certainty")}</h1>
       <p className="mt-3 text-muted">{t("desk.certaintyLead")}</p>

@@ -1,5 +1,6 @@
 import { useTranslation } from "react-i18next";
-import { Link, useNavigate } from "react-router";
+import { useNavigate } from "react-router";
+import { DeskLink } from "../DeskLink";
 import { may, type SignedInPerson } from "../api";
 import { BriefList } from "./BriefList";
 import { NewBriefForm } from "./NewBriefForm";
@@ -32,12 +33,12 @@ export function DeskHome({ person }: { person: SignedInPerson }) {
       ) : null}
       {may(person, "GET /api/people") ? (
         <p className="mt-8 font-sans">
-          <Link to="/people">{t("desk.people.link")}</Link> · <Link to="/audit">{t("desk.audit.link")}</Link>
+          <DeskLink to="/people">{t("desk.people.link")}</DeskLink> · <DeskLink to="/audit">{t("desk.audit.link")}</DeskLink>
         </p>
       ) : null}
       {may(person, "GET /api/translations") ? (
         <p className="mt-8 font-sans">
-          <Link to="/translations">{t("desk.translations.link")}</Link>
+          <DeskLink to="/translations">{t("desk.translations.link")}</DeskLink>
         </p>
       ) : null}
       {may(person, "GET /api/press-room") ? <PressRoom canAsk={may(person, "POST /api/press-enquiries")} /> : null}

@@ -1,7 +1,8 @@
 // Results review: forest plot against the reference, the network, the league table, and plain
 // warnings about heterogeneity and incoherence.
 import { useTranslation } from "react-i18next";
-import { Link, useParams } from "react-router";
+import { useParams } from "react-router";
+import { DeskLink } from "../DeskLink";
 import { comparisonOf } from "#core/nma/comparison";
 import { ForestPlot } from "../../charts/ForestPlot";
 import { LeagueTable } from "../../charts/LeagueTable";
@@ -27,11 +28,11 @@ export function ResultsScreen() {
   return (
     <>
       <p className="font-sans text-sm">
-        <Link to={`/briefs/${briefId}`}>{t("desk.backToBrief")}</Link>
+        <DeskLink to={`/briefs/${briefId}`}>{t("desk.backToBrief")}</DeskLink>
       </p>
       <h1 className="mt-2 text-3xl font-semibold">{t("desk.results")}</h1>
       <p className="mt-2 font-sans text-sm">
-        <Link to={`/briefs/${briefId}/outcomes/${outcomeId}/certainty`}>{t("desk.certainty")}</Link>
+        <DeskLink to={`/briefs/${briefId}/outcomes/${outcomeId}/certainty`}>{t("desk.certainty")}</DeskLink>
       </p>
       <section className="mt-6 space-y-2 font-sans text-sm">
         <p>{t("desk.heterogeneity", { tau2: fixed3(result.tau2), i2: (heterogeneity.I2 * 100).toFixed(0), q: heterogeneity.Q.toFixed(2), df: heterogeneity.df })}</p>

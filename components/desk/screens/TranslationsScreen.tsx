@@ -4,7 +4,8 @@
 import { grammarChoices } from "#core/languages/grammar";
 import { useState } from "react";
 import { useTranslation as useWords } from "react-i18next";
-import { Link, useParams } from "react-router";
+import { useParams } from "react-router";
+import { DeskLink } from "../DeskLink";
 import { languageNames, textDirection, type Locale } from "#core/languages/locales";
 import type { Translation, TranslationQueueEntry } from "#web/api/contract";
 import type { TranslationLocale } from "#core/languages/locales";
@@ -40,7 +41,7 @@ export function TranslationQueue() {
             {versions.map((version) => (
               <li key={version.versionId} className="flex flex-wrap items-baseline justify-between gap-3 py-3">
                 <span>
-                  <Link to={`/translations/${version.versionId}/${locale}`}>{t("desk.translations.versionOf", { title: version.title, version: version.number })}</Link>
+                  <DeskLink to={`/translations/${version.versionId}/${locale}`}>{t("desk.translations.versionOf", { title: version.title, version: version.number })}</DeskLink>
                   {version.embargoed ? (
                     <span className="mt-1 block text-accent" data-testid="translation-embargo">
                       {t("desk.translations.scheduled", { date: intl.moment(version.releaseAt) })}
@@ -68,7 +69,7 @@ export function TranslationEditor({ canPublish }: { canPublish: boolean }) {
       <section>
         <p role="alert">{refused ? translation.error.message : t("desk.error", { message: translation.error.message })}</p>
         <p className="mt-3 font-sans text-sm">
-          <Link to="/translations">{t("desk.translations.back")}</Link>
+          <DeskLink to="/translations">{t("desk.translations.back")}</DeskLink>
         </p>
       </section>
     );
@@ -105,7 +106,7 @@ function EditorForm({ translation, canPublish }: { translation: Translation; can
   return (
     <section aria-labelledby="translation-title">
       <p className="font-sans text-sm">
-        <Link to="/translations">{t("desk.translations.back")}</Link>
+        <DeskLink to="/translations">{t("desk.translations.back")}</DeskLink>
       </p>
       <h2 id="translation-title" className="mt-2 text-3xl font-semibold">
         {t("desk.translations.editing", { title: translation.title, version: translation.number, language: languageNames[locale] })}
