@@ -6,20 +6,16 @@
 import { readFileSync, renameSync, rmSync, statSync, writeFileSync } from "node:fs";
 import { createRequire } from "node:module";
 import path from "node:path";
-import { fileURLToPath } from "node:url";
 import vm from "node:vm";
-
-const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "..");
-const folder = path.join(root, "dist/cli");
-const bundle = path.join(folder, "nma.cjs");
-const codeCache = path.join(folder, "nma.cjs.cache");
+// Cheap to load: it imports esbuild only when asked to build.
+import { bundle as build, cli } from "./lib/cli-bundle.mjs";
 
 /** The bundle's modification time, or null when it or its list of sources is missing or older than a source. */
 function builtAt() {
   try {
-    const built = statSync(bundle).mtimeMs;
-    const sources = JSON.parse(readFileSync(path.join(folder, "inputs.json"), "utf8"));
-    return sources.every((source) => statSync(path.join(root, source)).mtimeMs <= built) ? built : null;
+    const built = statSync(cli.bundle).mtimeMs;
+    const sources = JSON.parse(readFileSync(cli.inputs, "utf8"));
+    return sources.every((source) => statSync(path.join(cli.root, source)).mtimeMs <= built) ? built : null;
   } catch {
     return null;
   }
@@ -27,27 +23,26 @@ function builtAt() {
 
 let built = builtAt();
 if (built === null) {
-  const { bundle: build } = await import("./lib/cli-bundle.mjs");
   const result = await build();
   if (!result.ok) {
     process.stderr.write(`the command line could not be built: ${result.reason}\n`);
     process.exit(2);
   }
-  built = statSync(bundle).mtimeMs;
+  built = statSync(cli.bundle).mtimeMs;
 }
 
 /** The code cache, unless it is missing or older than the bundle. */
 function cachedCode() {
   try {
-    return statSync(codeCache).mtimeMs >= built ? readFileSync(codeCache) : undefined;
+    return statSync(cli.codeCache).mtimeMs >= built ? readFileSync(cli.codeCache) : undefined;
   } catch {
     return undefined;
   }
 }
 
 const cachedData = cachedCode();
-const script = new vm.Script(`(function (exports, require, module, __filename, __dirname) {${readFileSync(bundle, "utf8")}\n})`, {
-  filename: bundle,
+const script = new vm.Script(`(function (exports, require, module, __filename, __dirname) {${readFileSync(cli.bundle, "utf8")}\n})`, {
+  filename: cli.bundle,
   cachedData,
 });
 if (cachedData === undefined || script.cachedDataRejected) {
@@ -56,15 +51,15 @@ if (cachedData === undefined || script.cachedDataRejected) {
   // next run the compiling.
   process.once("exit", (code) => {
     if (code !== 0) return;
-    const partial = `${codeCache}.${process.pid}`;
+    const partial = `${cli.codeCache}.${process.pid}`;
     try {
       writeFileSync(partial, script.createCachedData());
-      renameSync(partial, codeCache);
+      renameSync(partial, cli.codeCache);
     } catch {
       rmSync(partial, { force: true });
     }
   });
 }
 const module = { exports: {} };
-script.runInThisContext()(module.exports, createRequire(bundle), module, bundle, folder);
+script.runInThisContext()(module.exports, createRequire(cli.bundle), module, cli.bundle, path.dirname(cli.bundle));
 module.exports.run(process.argv.slice(2));

@@ -35,8 +35,7 @@ const argumentsSchema = z
     }),
   );
 
-/**
- * Runs the command line on `args` (the arguments after the script). */
+/** Runs the command line on `args` (the arguments after the script). */
 export function run(args: string[]): void {
   let raw;
   try {

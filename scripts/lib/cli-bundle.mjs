@@ -11,6 +11,8 @@ import { fileURLToPath } from "node:url";
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "../..");
 const folder = path.join(root, "dist/cli");
 export const cli = {
+  /** The project's folder: the sources in inputs.json are relative to it. */
+  root,
   bundle: path.join(folder, "nma.cjs"),
   inputs: path.join(folder, "inputs.json"),
   codeCache: path.join(folder, "nma.cjs.cache"),
