@@ -32,6 +32,20 @@ export async function loadTranslations(locale: Locale, namespaces: Namespace[]):
   await Promise.all([...new Set([locale, defaultLocale])].flatMap((l) => namespaces.map((ns) => load(l, ns))));
 }
 
+/**
+ * Moves a browser's instance to another locale: fetches its strings and hands them to the instance
+ * before changing its language. An instance holds only the strings it was made with (createI18n), so
+ * changing its language alone would fall back to English for every string.
+ */
+export async function switchLanguage(instance: i18n, locale: Locale, namespaces: Namespace[]): Promise<void> {
+  await loadTranslations(locale, namespaces);
+  for (const namespace of namespaces) {
+    const strings = loaded[locale]?.[namespace];
+    if (strings) instance.addResourceBundle(locale, namespace, strings);
+  }
+  await instance.changeLanguage(locale);
+}
+
 // The server holds every language from the start, so that any page renders without waiting.
 if (import.meta.env.SSR) await Promise.all(locales.map((locale) => loadTranslations(locale, ["public", "desk"])));
 

@@ -14,7 +14,7 @@ import { PressRoom } from "./screens/PressRoom";
 import { ResultsScreen } from "./screens/ResultsScreen";
 import { useSignedInPerson, useSignOut } from "./queries";
 import { TranslationEditor, TranslationQueue } from "./screens/TranslationsScreen";
-import { loadTranslations } from "../i18n";
+import { switchLanguage } from "../i18n";
 import { may } from "./api";
 import { localeOf, textDirection } from "#core/languages/locales";
 
@@ -40,7 +40,7 @@ function SignedInDesk() {
   const deskLocale = localeOf(person?.locale);
   useEffect(() => {
     if (!person || i18n.language === deskLocale) return;
-    void loadTranslations(deskLocale, ["public", "desk"]).then(() => i18n.changeLanguage(deskLocale));
+    void switchLanguage(i18n, deskLocale, ["public", "desk"]);
     document.documentElement.lang = deskLocale;
     document.documentElement.dir = textDirection(deskLocale);
   }, [person, deskLocale, i18n]);

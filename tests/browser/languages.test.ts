@@ -6,6 +6,10 @@ import { slugify } from "#core/publication/slug";
 import { demoBriefs } from "#workflows/demo-briefs";
 import { keepScreenshot, seriousViolations, signedIn, withServerAndBrowser } from "../support/browser";
 import { publishedBrief } from "../support/briefs";
+import { testDatabaseUrl } from "../support/app";
+import { connectDatabase } from "#db/client";
+import { ensurePerson } from "#db/people";
+import { demoPassword } from "#workflows/seed";
 import { demoClient } from "../support/client";
 
 const setup = withServerAndBrowser();
@@ -122,5 +126,33 @@ describe("a translator's path", () => {
     expect(await spanish.locator("#summary + div").innerHTML()).toContain("<strong>podría</strong>");
     await keepScreenshot(spanish, "translated-brief-es");
     await reader.close();
+  });
+});
+
+describe("the desk in the signed-in person's language", () => {
+  it("switches to Arabic when the account asks for it, on every screen", async () => {
+    // A person of this test's own: other files sign in as the demo accounts and read the desk in English.
+    const email = `ar-${Date.now().toString(36)}@example.org`;
+    const connection = connectDatabase(testDatabaseUrl());
+    await ensurePerson(connection.db, { email, displayName: "Layla Haddad", password: demoPassword, roles: ["translator"], translationLocales: ["ar"] }, null);
+    await connection.close();
+
+    const translator = await signedIn(setup.browser, setup.server.url, email);
+    const { page } = translator;
+    await page.getByRole("link", { name: "Your account" }).click();
+    const account = page.getByRole("form", { name: "Your account" });
+    await account.getByLabel("Language of the desk").selectOption("ar");
+    await account.getByRole("button", { name: "Save" }).click();
+    // The words change, not only the direction: the account screen and the bar above it in Arabic.
+    await page.getByRole("heading", { name: "حسابك" }).waitFor();
+    expect(await page.evaluate(() => [document.documentElement.lang, document.documentElement.dir])).toEqual(["ar", "rtl"]);
+    expect(await page.getByTestId("desk-person").textContent()).toContain("تسجيل الخروج");
+    // Another screen, reached through the desk's own links, speaks Arabic too.
+    await page.goto(`${setup.server.url}/desk`);
+    await page.getByRole("link", { name: "مكتب الترجمة" }).click();
+    await page.getByRole("heading", { name: "مكتب الترجمة" }).waitFor();
+    await keepScreenshot(page, "desk-in-arabic");
+    expect(translator.errors).toEqual([]);
+    await translator.close();
   });
 });
