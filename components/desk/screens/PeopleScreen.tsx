@@ -63,61 +63,64 @@ export function PeopleScreen({ selfId }: { selfId: string }) {
           {t("desk.error", { message: (change.error ?? resend.error)!.message })}
         </p>
       ) : null}
-      <table className="mt-6 w-full font-sans text-sm" data-testid="people">
-        <thead>
-          <tr className="border-b border-rule text-start">
-            <th className="py-2 text-start">{t("desk.people.person")}</th>
-            <th className="py-2 text-start">{t("desk.people.roles")}</th>
-            <th className="py-2 text-start">{t("desk.people.state")}</th>
-            <th className="py-2" />
-          </tr>
-        </thead>
-        <tbody>
-          {people.data?.map((person) => (
-            <tr key={person.id} className="border-b border-rule align-top">
-              <td className="py-2">
-                {person.displayName}
-                <br />
-                <span className="text-muted">{person.email}</span>
-              </td>
-              <td className="py-2">
-                {person.roles.map((role) => t(`desk.role.${role}`)).join(", ")}
-                {person.translationLocales.length > 0 ? ` (${person.translationLocales.join(", ")})` : ""}
-                <details className="mt-1">
-                  <summary className="cursor-pointer underline">{t("desk.people.change", { name: person.displayName })}</summary>
-                  <form
-                    aria-label={t("desk.people.change", { name: person.displayName })}
-                    className="mt-2 space-y-2"
-                    onSubmit={(event) => {
-                      event.preventDefault();
-                      const data = new FormData(event.currentTarget);
-                      change.mutate({ id: person.id, roles: data.getAll("roles").map(String) as Role[], translationLocales: data.getAll("translationLocales").map(String) as (typeof translationLocales)[number][] });
-                    }}
-                  >
-                    <RoleAndLocaleChoices roles={person.roles} locales={person.translationLocales} />
-                    <button type="submit" className="border border-ink px-3 py-1 font-semibold" disabled={change.isPending}>
-                      {t("desk.people.save")}
-                    </button>
-                  </form>
-                </details>
-              </td>
-              <td className="py-2">{!person.active ? t("desk.people.inactive") : person.passwordSet ? t("desk.people.active") : t("desk.people.invited")}</td>
-              <td className="space-x-3 py-2 text-end">
-                {person.active && !person.passwordSet ? (
-                  <button type="button" className="underline" onClick={() => resend.mutate(person.id)}>
-                    {t("desk.people.resend")}
-                  </button>
-                ) : null}
-                {person.id !== selfId ? (
-                  <button type="button" className="underline" onClick={() => change.mutate({ id: person.id, active: !person.active })}>
-                    {person.active ? t("desk.people.deactivate") : t("desk.people.reactivate")}
-                  </button>
-                ) : null}
-              </td>
+      {/* On a phone the table scrolls sideways within its box; the page itself keeps its width. */}
+      <div className="mt-6 overflow-x-auto">
+        <table className="w-full font-sans text-sm" data-testid="people">
+          <thead>
+            <tr className="border-b border-rule text-start">
+              <th className="py-2 pe-3 text-start">{t("desk.people.person")}</th>
+              <th className="py-2 pe-3 text-start">{t("desk.people.roles")}</th>
+              <th className="py-2 pe-3 text-start">{t("desk.people.state")}</th>
+              <th className="py-2" />
             </tr>
-          ))}
-        </tbody>
-      </table>
+          </thead>
+          <tbody>
+            {people.data?.map((person) => (
+              <tr key={person.id} className="border-b border-rule align-top">
+                <td className="py-2 pe-3">
+                  {person.displayName}
+                  <br />
+                  <span className="text-muted">{person.email}</span>
+                </td>
+                <td className="py-2 pe-3">
+                  {person.roles.map((role) => t(`desk.role.${role}`)).join(", ")}
+                  {person.translationLocales.length > 0 ? ` (${person.translationLocales.join(", ")})` : ""}
+                  <details className="mt-1">
+                    <summary className="cursor-pointer underline">{t("desk.people.change", { name: person.displayName })}</summary>
+                    <form
+                      aria-label={t("desk.people.change", { name: person.displayName })}
+                      className="mt-2 space-y-2"
+                      onSubmit={(event) => {
+                        event.preventDefault();
+                        const data = new FormData(event.currentTarget);
+                        change.mutate({ id: person.id, roles: data.getAll("roles").map(String) as Role[], translationLocales: data.getAll("translationLocales").map(String) as (typeof translationLocales)[number][] });
+                      }}
+                    >
+                      <RoleAndLocaleChoices roles={person.roles} locales={person.translationLocales} />
+                      <button type="submit" className="border border-ink px-3 py-1 font-semibold" disabled={change.isPending}>
+                        {t("desk.people.save")}
+                      </button>
+                    </form>
+                  </details>
+                </td>
+                <td className="py-2 pe-3">{!person.active ? t("desk.people.inactive") : person.passwordSet ? t("desk.people.active") : t("desk.people.invited")}</td>
+                <td className="space-x-3 py-2 text-end">
+                  {person.active && !person.passwordSet ? (
+                    <button type="button" className="underline" onClick={() => resend.mutate(person.id)}>
+                      {t("desk.people.resend")}
+                    </button>
+                  ) : null}
+                  {person.id !== selfId ? (
+                    <button type="button" className="underline" onClick={() => change.mutate({ id: person.id, active: !person.active })}>
+                      {person.active ? t("desk.people.deactivate") : t("desk.people.reactivate")}
+                    </button>
+                  ) : null}
+                </td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </div>
 
       <section className="mt-10 border-t border-rule pt-6">
         <h2 className="mb-4 text-xl font-semibold">{t("desk.people.invite")}</h2>
