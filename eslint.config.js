@@ -65,7 +65,7 @@ const respectLayers = {
 };
 
 export default tseslint.config(
-  { ignores: ["node_modules/", "dist/", ".data/", "drizzle/", "test-results/"] },
+  { ignores: ["node_modules/", "dist/", ".data/", "drizzle/", "test-results/", "server/core/nma/kernels/assembly/"] },
   js.configs.recommended,
   ...tseslint.configs.recommended,
   {

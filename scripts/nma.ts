@@ -10,6 +10,7 @@ import * as z from "zod/mini";
 import { analyse } from "#core/nma/analyse";
 import { measuresByFormat } from "#core/nma/options";
 import { parseDataset } from "#core/nma/parse";
+import { seedRange } from "#core/nma/ranking";
 import { DatasetError, formats, measures } from "#core/nma/types";
 
 function fail(code: 1 | 2, reason: string): never {
@@ -17,6 +18,7 @@ function fail(code: 1 | 2, reason: string): never {
   process.exit(code);
 }
 
+const seedMessage = `--seed must be from ${seedRange.min} to ${seedRange.max}`;
 const whole = (name: string) => z.refine<number>(Number.isInteger, `${name} must be a whole number`);
 const argumentsSchema = z
   .object({
@@ -27,7 +29,11 @@ const argumentsSchema = z
     reference: z.string({ error: "--reference NAME is required" }).check(z.minLength(1, "--reference NAME is required")),
     better: z.enum(["higher", "lower"], { error: "--better must be higher or lower" }),
     draws: z.optional(z.coerce.number({ error: "--draws must be a number" }).check(whole("--draws"), z.minimum(1, "--draws must be at least 1"), z.maximum(10_000_000, "--draws must be at most 10000000"))),
-    seed: z.optional(z.coerce.number({ error: "--seed must be a number" }).check(whole("--seed"))),
+    seed: z.optional(
+      z.coerce
+        .number({ error: "--seed must be a number" })
+        .check(whole("--seed"), z.minimum(seedRange.min, seedMessage), z.maximum(seedRange.max, seedMessage)),
+    ),
   })
   .check(
     z.refine((a) => measuresByFormat[a.format].includes(a.measure), {

@@ -66,6 +66,9 @@ describe("npm run nma", () => {
     expect(nma(["--input", hasselblad, ...base.slice(0, 8), "--better", "sideways"])).toMatchObject({ code: 2, stderr: "--better must be higher or lower\n" });
     expect(nma(["--input", hasselblad, "--format", "arm-continuous", "--measure", "OR", "--model", "fixed", "--reference", "x", "--better", "higher"]).code).toBe(2);
     expect(nma(["--input", hasselblad, ...base, "--unknown", "1"]).code).toBe(2);
+    // The generator takes a 32-bit seed other than 0.
+    expect(nma(["--input", hasselblad, ...base, "--seed", "0"])).toMatchObject({ code: 2, stderr: "--seed must be from 1 to 4294967295\n" });
+    expect(nma(["--input", hasselblad, ...base, "--seed", "4294967296"])).toMatchObject({ code: 2, stderr: "--seed must be from 1 to 4294967295\n" });
   }, 30_000);
 
   it("answers the same through the code cache its first successful run writes", () => {

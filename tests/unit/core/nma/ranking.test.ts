@@ -47,4 +47,11 @@ describe("rank probabilities and SUCRA", () => {
     expect(again).toEqual(first);
     expect(first).toMatchObject({ draws: 500, seed: 3 });
   });
+
+  it("take a seed from 1 to 2³² − 1 and refuse any other, naming it", () => {
+    const draw = (seed: number) => rankProbabilities(["A", "B"], "A", [0], [[1]], "higher", 10, seed);
+    expect(draw(2 ** 32 - 1).seed).toBe(4294967295);
+    expect(() => draw(0)).toThrow("the seed must be a whole number from 1 to 4294967295, not 0");
+    expect(() => draw(2.5)).toThrow("the seed must be a whole number from 1 to 4294967295, not 2.5");
+  });
 });
