@@ -12,6 +12,7 @@
 // connected (or s holds the only data on one of them) and I = 1; if not, the direction does not
 // touch A vs B, as with a generalised inverse.
 import { CholeskyDecomposition, EigenvalueDecomposition, inverse, Matrix } from "ml-matrix";
+import { importanceLists, type StudyDirections } from "./kernels";
 import { symmetrise, type StudyBlock } from "./model";
 
 export interface StudyImportance {
@@ -23,28 +24,11 @@ export interface StudyImportance {
 export const importanceFloor = 0.001;
 export const importanceListLength = 10;
 
-/** Below this, an eigenvalue of N is a direction the network loses entirely without the study. */
-const lostDirection = 1e-9;
-
-/** Whether a study of this importance goes before `other`: largest first, equal ones by study label (code-point order). */
-function precedes(value: number, study: string, other: StudyImportance): boolean {
-  return value > other.value || (value === other.value && study < other.study);
-}
-
-/** Keeps `list` sorted and at most `importanceListLength` long. */
-function insert(list: StudyImportance[], study: string, value: number): void {
-  if (list.length === importanceListLength && !precedes(value, study, list[list.length - 1]!)) return;
-  let i = list.length;
-  while (i > 0 && precedes(value, study, list[i - 1]!)) i--;
-  list.splice(i, 0, { study, value });
-  if (list.length > importanceListLength) list.pop();
-}
-
 /**
  * One study's rows of R = QᵀL⁻¹XₛH (over the parameters) and the eigenvalues λ of N: what the pair
  * loop needs. `columns` is p, the number of basic parameters.
  */
-function studyUpdate(block: StudyBlock, H: number[][], tau2: number, columns: number): { rows: Float64Array[]; lambda: number[] } {
+function studyUpdate(block: StudyBlock, H: number[][], tau2: number, columns: number): StudyDirections {
   const m = block.y.length;
   const row = (column: number) => (column >= 0 ? H[column]! : null);
   // K = XₛH: contrast j's row is H[plus_j] − H[minus_j] (the reference has no row).
@@ -75,7 +59,8 @@ function studyUpdate(block: StudyBlock, H: number[][], tau2: number, columns: nu
 
 /**
  * The most important studies of every pair of `treatments` (in the engine's order: i < j), keyed
- * "i,j" by the treatments' indices. `columnOf` maps a treatment to its parameter (−1: reference).
+ * "i,j" by the treatments' indices. `columnOf` maps a treatment to its parameter (−1: reference). Each
+ * study's directions are found here; the pairs are scored in WebAssembly (./kernels/assembly/importance.ts).
  */
 export function studyImportances(
   blocks: readonly StudyBlock[],
@@ -86,38 +71,30 @@ export function studyImportances(
 ): (a: number, b: number) => StudyImportance[] {
   const T = treatments.length;
   const columns = H.length;
-  const column = treatments.map(columnOf);
+  const column = Int32Array.from(treatments, columnOf);
   const entry = (i: number, q: number) => (i >= 0 && q >= 0 ? H[i]![q]! : 0);
   // v_N of every pair, once.
   const variance = new Float64Array(T * T);
-  const lists: StudyImportance[][] = Array.from({ length: T * T }, () => []);
   for (let i = 0; i < T; i++) {
     for (let j = i + 1; j < T; j++) {
       const a = column[i]!, b = column[j]!;
       variance[i * T + j] = entry(a, a) + entry(b, b) - 2 * entry(a, b);
     }
   }
+  // Equal importances list the smaller label first: each label's place in code-unit order.
+  const labels = blocks.map((block) => block.study);
+  const order = labels.map((_, i) => i).sort((x, y) => (labels[x]! < labels[y]! ? -1 : labels[x]! > labels[y]! ? 1 : 0));
+  const ranks = new Int32Array(blocks.length);
+  order.forEach((study, place) => (ranks[study] = place));
 
-  for (const block of blocks) {
-    const { rows, lambda } = studyUpdate(block, H, tau2, columns);
-    // h for a pair is R[·][a] − R[·][b]: read each treatment's column once.
-    const values = column.map((c) => rows.map((r) => (c >= 0 ? r[c]! : 0)));
-    for (let i = 0; i < T; i++) {
-      const hi = values[i]!;
-      for (let j = i + 1; j < T; j++) {
-        const hj = values[j]!;
-        const vN = variance[i * T + j]!;
-        let extra = 0;
-        let lost = false;
-        for (let k = 0; k < lambda.length; k++) {
-          const h = hi[k]! - hj[k]!;
-          if (lambda[k]! > lostDirection) extra += (h * h) / lambda[k]!;
-          else if (Math.abs(h) > 1e-6 * Math.sqrt(vN)) lost = true;
-        }
-        const value = lost ? 1 : extra / (vN + extra);
-        if (value >= importanceFloor) insert(lists[i * T + j]!, block.study, value);
-      }
-    }
-  }
-  return (a, b) => (a < b ? lists[a * T + b]! : lists[b * T + a]!);
+  const lists = importanceLists(
+    { options: T, parameters: columns, column, variance, ranks, floor: importanceFloor, length: importanceListLength },
+    blocks.map((block) => studyUpdate(block, H, tau2, columns)),
+  );
+  const listOf = (pair: number): StudyImportance[] =>
+    Array.from({ length: lists.filled[pair]! }, (_, e) => ({
+      study: labels[lists.studies[pair * importanceListLength + e]!]!,
+      value: lists.values[pair * importanceListLength + e]!,
+    }));
+  return (a, b) => listOf(a < b ? a * T + b : b * T + a);
 }

@@ -12,6 +12,7 @@ interface Kernels {
   seedNormals(seed: number): void;
   fillNormals(z: number, count: number): void;
   countRanks(p: number, T: number, draws: number, sign: number, reference: number, L: number, mean: number, parameterIndex: number, counts: number, values: number, order: number, z: number): void;
+  scoreStudy(study: number, rank: number, m: number, rows: number, lambda: number, p: number, T: number, column: number, variance: number, floor: number, length: number, values: number, studies: number, ranks: number, filled: number, h: number): void;
   fitAt(tau2: number, blocks: number, p: number, sizes: number, y: number, V: number, plus: number, minus: number, beta: number, covariance: number, results: number, W: number, WPW: number, A: number, M: number, N: number, L: number, H: number, c: number, small: number, r: number): number;
 }
 
@@ -147,5 +148,62 @@ export function fitStudies(studies: PackedStudies, p: number, tau2: number): Ker
     restrictedLogLikelihood: restrictedLogLikelihood!,
     score: score!,
     information: information!,
+  };
+}
+
+export interface ImportanceInput {
+  /** T options; p parameters. */
+  options: number;
+  parameters: number;
+  /** Each option's parameter column (−1: the reference). */
+  column: Int32Array;
+  /** v_N of the pair i < j at i·T + j. */
+  variance: Float64Array;
+  /** Each study's label's place in code-unit order: equal importances list the smaller label first. */
+  ranks: Int32Array;
+  floor: number;
+  length: number;
+}
+
+/** One study's directions: R's rows over the p parameters and N's eigenvalues (../importance.ts). */
+export interface StudyDirections {
+  rows: Float64Array[];
+  lambda: number[];
+}
+
+/**
+ * Every pair's most important studies, given each study's directions: at pair i·T + j, filled[pair]
+ * entries from pair·length on, as values and study indices.
+ */
+export function importanceLists(input: ImportanceInput, directions: StudyDirections[]): { values: Float64Array; studies: Int32Array; filled: Int32Array } {
+  const k = kernels();
+  const T = input.options;
+  const p = input.parameters;
+  const pairs = T * T;
+  const largest = directions.reduce((max, study) => Math.max(max, study.lambda.length), 1);
+  const at = layout(k, {
+    column: T * 4,
+    variance: pairs * 8,
+    values: pairs * input.length * 8,
+    studies: pairs * input.length * 4,
+    ranks: pairs * input.length * 4,
+    filled: pairs * 4,
+    rows: largest * p * 8,
+    lambda: largest * 8,
+    h: T * largest * 8,
+  });
+  const memory = k.memory.buffer;
+  new Int32Array(memory, at.column, T).set(input.column);
+  new Float64Array(memory, at.variance, pairs).set(input.variance);
+  new Int32Array(memory, at.filled, pairs).fill(0);
+  directions.forEach(({ rows, lambda }, study) => {
+    rows.forEach((row, r) => new Float64Array(memory, at.rows + r * p * 8, p).set(row));
+    new Float64Array(memory, at.lambda, lambda.length).set(lambda);
+    k.scoreStudy(study, input.ranks[study]!, lambda.length, at.rows, at.lambda, p, T, at.column, at.variance, input.floor, input.length, at.values, at.studies, at.ranks, at.filled, at.h);
+  });
+  return {
+    values: new Float64Array(memory, at.values, pairs * input.length).slice(),
+    studies: new Int32Array(memory, at.studies, pairs * input.length).slice(),
+    filled: new Int32Array(memory, at.filled, pairs).slice(),
   };
 }

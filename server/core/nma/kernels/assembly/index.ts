@@ -8,3 +8,4 @@ export function heapBase(): usize {
   return __heap_base;
 }
 export { fitAt } from "./fit";
+export { scoreStudy } from "./importance";
