@@ -107,14 +107,14 @@ function medianMs(runs: number, run: () => ReturnType<typeof spawnSync>): number
  */
 function commandLine() {
   const folder = mkdtempSync(path.join(tmpdir(), "fairweigh-bench-"));
-  const cli = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "nma.mjs");
+  const cli = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "nma.cjs");
   const peer = peerAvailable();
   // Where NODE_EXTRA_CA_CERTS is set (this machine sets it for its package proxy), Node reads that
   // whole certificate bundle at every start, which no analysis needs and R does not pay: ours is timed
   // both without it (as on a machine that does not set it) and with it (as this machine starts it).
   const plainEnvironment = { ...process.env, NODE_EXTRA_CA_CERTS: "" };
   const certificates = process.env.NODE_EXTRA_CA_CERTS ? process.env : null;
-  console.log("\nThe command line, whole process (node scripts/nma.mjs, default 10 000 draws); median of 7 runs (R: 3)");
+  console.log("\nThe command line, whole process (node scripts/nma.cjs, default 10 000 draws); median of 7 runs (R: 3)");
   console.log(
     peer
       ? "beside its peer on the same file: R with metafor (scripts/bench-peer.R), once doing §2–§6 only (less than ours, which also computes §13's importances and shares: a conservative ratio), once the whole of §2–§6 and §13 as the reference values were computed (the same output: like for like; one run); on the smaller network only\n"

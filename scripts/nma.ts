@@ -2,7 +2,7 @@
 //   npm run --silent nma -- --input FILE.csv --format arm-binary|arm-continuous|contrast \
 //     --measure OR|RR|RD|MD --model fixed|random --reference NAME --better higher|lower [--draws N] [--seed S]
 // One JSON object on stdout and exit 0; bad input: one line on stderr, exit 1; bad arguments: exit 2.
-// Bundled to dist/cli/nma.cjs and started by scripts/nma.mjs, which calls `run`.
+// Bundled to dist/cli/nma.cjs and started by scripts/nma.cjs, which calls `run`.
 import { readFileSync } from "node:fs";
 import { parseArgs } from "node:util";
 // zod's tree-shakeable build: the full one is most of the bundle, and a run would spend its start compiling it.

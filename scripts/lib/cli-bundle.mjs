@@ -1,28 +1,21 @@
 // The engine's command line as prebuilt CommonJS files in dist/cli (decisions 0026, 0047), bundled by
 // esbuild; the project's import aliases (#core/…) resolve through package.json "imports":
-//   nma.cjs        scripts/nma.ts, run by scripts/nma.mjs through V8's code cache;
+//   nma.cjs        scripts/nma.ts, run by scripts/nma.cjs through V8's code cache;
 //   inputs.json    every source file it was built from, so that the launcher can tell when it is
 //                  stale without loading esbuild.
 // A rebuild removes the code cache, which V8 would otherwise accept for a new bundle of the same length.
 import { rmSync, writeFileSync } from "node:fs";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
+import cli from "./cli-paths.cjs";
 
-const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "../..");
-const folder = path.join(root, "dist/cli");
-export const cli = {
-  /** The project's folder: the sources in inputs.json are relative to it. */
-  root,
-  bundle: path.join(folder, "nma.cjs"),
-  inputs: path.join(folder, "inputs.json"),
-  codeCache: path.join(folder, "nma.cjs.cache"),
-};
+export { cli };
 
 export async function bundle() {
   try {
     const { build } = await import("esbuild");
     const result = await build({
-      entryPoints: [path.join(root, "scripts/nma.ts")],
+      entryPoints: [path.join(cli.root, "scripts/nma.ts")],
       outfile: cli.bundle,
       bundle: true,
       platform: "node",

@@ -2,7 +2,6 @@
 // P-scores: Rücker & Schwarzer, BMC Med Res Methodol 2015;15:58. Rank probabilities and SUCRA:
 // Salanti, Ades & Ioannidis, J Clin Epidemiol 2011;64:163–171, from seeded draws of N(β̂, Cov(β̂)).
 import normalCdf from "@stdlib/stats-base-dists-normal-cdf";
-import { CholeskyDecomposition } from "ml-matrix";
 import { rankCounts } from "./kernels";
 import type { Better, Estimate } from "./types";
 
@@ -55,7 +54,7 @@ export function rankProbabilities(
   }
   const T = treatments.length;
   const counts = rankCounts({
-    L: Float64Array.from(new CholeskyDecomposition(covariance).lowerTriangularMatrix.to1DArray()),
+    covariance: Float64Array.from(covariance.flat()),
     mean: Float64Array.from(beta),
     parameterIndex: Int32Array.from(treatments.filter((t) => t !== reference).map((t) => treatments.indexOf(t))),
     options: T,

@@ -2,15 +2,16 @@
 // command line is one cold process: JavaScript's loops run interpreted until V8 has optimised them,
 // which took most of a run, while WebAssembly is compiled before its first call. The kernels work on
 // arrays laid out in their memory; the functions here copy the inputs in and the results out.
-import exp from "@stdlib/math-base-special-exp";
-import ln from "@stdlib/math-base-special-ln";
 import { kernelsWasm } from "./wasm";
 
 interface Kernels {
   memory: WebAssembly.Memory;
   heapBase(): number;
+  exp(x: number): number;
+  ln(x: number): number;
   seedNormals(seed: number): void;
   fillNormals(z: number, count: number): void;
+  cholesky(a: number, l: number, n: number): number;
   countRanks(p: number, T: number, draws: number, sign: number, reference: number, L: number, mean: number, parameterIndex: number, counts: number, values: number, order: number, z: number): void;
   scoreStudy(study: number, rank: number, m: number, rows: number, lambda: number, p: number, T: number, column: number, variance: number, floor: number, length: number, values: number, studies: number, ranks: number, filled: number, h: number): void;
   fitAt(tau2: number, blocks: number, p: number, sizes: number, y: number, V: number, plus: number, minus: number, beta: number, covariance: number, results: number, W: number, WPW: number, A: number, M: number, N: number, L: number, H: number, c: number, small: number, r: number): number;
@@ -19,10 +20,8 @@ interface Kernels {
 let instance: Kernels | undefined;
 
 function kernels(): Kernels {
-  // stdlib's exp and ln, as the generator used before, so that its draws are the same to the bit.
-  // Math.log for the fit, whose log-determinants used it.
-  instance ??= new WebAssembly.Instance(new WebAssembly.Module(Buffer.from(kernelsWasm, "base64")), { math: { exp, ln, log: Math.log } })
-    .exports as unknown as Kernels;
+  // Math.log for the fit, whose log-determinants used it before (decision 0049).
+  instance ??= new WebAssembly.Instance(new WebAssembly.Module(Buffer.from(kernelsWasm, "base64")), { math: { log: Math.log } }).exports as unknown as Kernels;
   return instance;
 }
 
@@ -42,6 +41,12 @@ function layout<K extends string>(k: Kernels, bytes: Record<K, number>): Record<
   return offsets;
 }
 
+/** The kernels' own exp and ln (fdlibm's, ./assembly/fdlibm.ts), for the tests that compare them with stdlib's. */
+export const fdlibm = {
+  exp: (x: number): number => kernels().exp(x),
+  ln: (x: number): number => kernels().ln(x),
+};
+
 /** The first `count` standard normals of the generator seeded with `seed` (an integer from 1 to 2³² − 1). */
 export function standardNormals(seed: number, count: number): Float64Array {
   const k = kernels();
@@ -52,8 +57,8 @@ export function standardNormals(seed: number, count: number): Float64Array {
 }
 
 export interface RankDraws {
-  /** The lower Cholesky factor of Cov(β̂), row-major p × p. */
-  L: Float64Array;
+  /** Cov(β̂), row-major p × p. */
+  covariance: Float64Array;
   mean: Float64Array;
   /** For each parameter, its option's index among the T options. */
   parameterIndex: Int32Array;
@@ -70,8 +75,10 @@ export function rankCounts(input: RankDraws): Float64Array {
   const k = kernels();
   const p = input.mean.length;
   const T = input.options;
-  const at = layout(k, { L: p * p * 8, mean: p * 8, parameterIndex: p * 4, counts: T * T * 8, values: T * 8, order: T * 4, z: p * 8 });
-  new Float64Array(k.memory.buffer, at.L, p * p).set(input.L);
+  const at = layout(k, { covariance: p * p * 8, L: p * p * 8, mean: p * 8, parameterIndex: p * 4, counts: T * T * 8, values: T * 8, order: T * 4, z: p * 8 });
+  new Float64Array(k.memory.buffer, at.covariance, p * p).set(input.covariance);
+  // β = β̂ + L z with Cov(β̂) = L Lᵀ. A covariance from the fit is positive definite.
+  k.cholesky(at.covariance, at.L, p);
   new Float64Array(k.memory.buffer, at.mean, p).set(input.mean);
   new Int32Array(k.memory.buffer, at.parameterIndex, p).set(input.parameterIndex);
   new Float64Array(k.memory.buffer, at.counts, T * T).fill(0);

@@ -10,7 +10,7 @@ const hasselblad = path.resolve(root, "tests/fixtures/reference/hasselblad1998.c
 
 /** As `npm run nma` runs it: the prebuilt bundle, built first when missing or stale. */
 function nma(args: string[]) {
-  const result = spawnSync(process.execPath, [path.join(root, "scripts/nma.mjs"), ...args], { encoding: "utf8" });
+  const result = spawnSync(process.execPath, [path.join(root, "scripts/nma.cjs"), ...args], { encoding: "utf8" });
   return { code: result.status, stdout: result.stdout, stderr: result.stderr };
 }
 

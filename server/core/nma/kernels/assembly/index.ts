@@ -2,6 +2,8 @@
 // ../wasm.ts, and called through ../index.ts.
 export { fillNormals, seedNormals } from "./normals";
 export { countRanks } from "./ranks";
+export { cholesky } from "./linear";
+export { exp, ln } from "./fdlibm";
 
 /** Where the caller's arrays may start: above the kernels' own static data. */
 export function heapBase(): usize {

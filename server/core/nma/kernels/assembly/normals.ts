@@ -5,11 +5,9 @@
 // - uniform doubles in [0, 1) from two of them (27 and 26 bits: 53 bits);
 // - normals by the improved ziggurat method (Doornik, "An improved ziggurat method to generate normal
 //   random samples", 2005), 128 blocks, as @stdlib/random-base-improved-ziggurat lays them out.
-// exp and ln are imported from the JavaScript side (stdlib's own), so that the tables and the rare
+// exp and ln are fdlibm's, as stdlib computes them (./fdlibm.ts), so that the tables and the rare
 // wedge and tail draws round exactly as before.
-
-@external("math", "exp") declare function exp(x: f64): f64;
-@external("math", "ln") declare function ln(x: f64): f64;
+import { exp, ln } from "./fdlibm";
 
 const N: i32 = 624;
 const M: i32 = 397;
