@@ -85,6 +85,19 @@ async function secondIsHit(url: string, headers: Record<string, string> = {}): P
   return second.headers.get("x-cache") === "hit";
 }
 
+/**
+ * Whether the cache keeps `url` within `ms`: a purge the app sent for an earlier change (through its
+ * queue, every half second) may still empty it between the two requests of secondIsHit.
+ */
+async function keptWithin(url: string, ms: number): Promise<boolean> {
+  const deadline = Date.now() + ms;
+  for (;;) {
+    if (await secondIsHit(url)) return true;
+    if (Date.now() > deadline) return false;
+    await new Promise((resolve) => setTimeout(resolve, 250));
+  }
+}
+
 async function approved(analyst: ApiClient, editor: ApiClient, briefId: string): Promise<void> {
   await analyst.request("POST", `/api/briefs/${briefId}/reviews`, { json: { decision: "submitted" } });
   const approval = await editor.request("POST", `/api/briefs/${briefId}/reviews`, { json: { decision: "approved", acknowledgeWarnings: true } });
@@ -158,7 +171,8 @@ try {
 
   // A page a press reader sees differently (its version history lists the embargoed version 2) is
   // kept for the public, and never handed to the press reader, whose own copy is private.
-  const publicCopy = await secondIsHit(`${cache}/briefs/${large}/v/1`);
+  // The embargoed version's purges of the brief's pages may still be on their way: wait for a kept copy.
+  const publicCopy = await keptWithin(`${cache}/briefs/${large}/v/1`, 5000);
   const personal = await fetch(`${cache}/briefs/${large}/v/1`, { headers: pressHeaders });
   const personalPage = await personal.text();
   report(
