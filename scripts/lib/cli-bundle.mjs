@@ -9,8 +9,6 @@ import path from "node:path";
 import { fileURLToPath } from "node:url";
 import cli from "./cli-paths.cjs";
 
-export { cli };
-
 export async function bundle() {
   try {
     const { build } = await import("esbuild");

@@ -9,8 +9,8 @@ import path from "node:path";
 import { fileURLToPath } from "node:url";
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "../..");
-export const kernelSources = path.join(root, "server/core/nma/kernels/assembly");
-export const kernelModule = path.join(root, "server/core/nma/kernels/wasm.ts");
+const kernelSources = path.join(root, "server/core/nma/kernels/assembly");
+const kernelModule = path.join(root, "server/core/nma/kernels/wasm.ts");
 
 /** The kernels compiled: the WebAssembly module's bytes. Throws with the compiler's messages. */
 export async function compileKernels() {

@@ -139,7 +139,7 @@ export function fitStudies(studies: PackedStudies, p: number, tau2: number): Ker
     L: p * p * 8,
     H: p * p * 8,
     c: p * 8,
-    small: 8 * largest * largest * 8,
+    small: 6 * largest * largest * 8,
     r: largest * 8,
   });
   const memory = k.memory.buffer;

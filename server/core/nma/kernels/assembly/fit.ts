@@ -33,7 +33,7 @@ function quadratic(S: usize, x: usize, m: i32): f64 {
  * log-likelihood, score, information]. Returns −1, or the first study whose covariance is not
  * positive definite, or −2 when XᵀWX is not (the network is not connected).
  * Scratch: W and WPW (Σ m² each: every study's weights), A, M, N, L, H (p × p each), c (p), and
- * `small` (8 m² for the largest m) with `r` (the largest m).
+ * `small` (6 m² for the largest m: Σ, its factor, P, WP, WPWP and WPWPW) with `r` (the largest m).
  */
 export function fitAt(
   tau2: f64,
